@@ -1,0 +1,81 @@
+//! The headless commands behind `elbowroom <command>`.
+//!
+//! Every command prints readable text by default and exactly one JSON object
+//! with `--json`. Exact values (counts, coefficients, rationals) are JSON
+//! strings; small structural integers are JSON numbers. Bad input gives a
+//! one-line message on stderr and exit status 2.
+
+pub mod args;
+pub mod cmd_perm;
+pub mod cmd_schubert;
+pub mod error;
+pub mod json;
+pub mod shard;
+
+pub use args::{Cli, Command};
+pub use error::CliError;
+
+use clap::Parser;
+use std::ffi::OsString;
+use std::io::Write;
+use std::process::ExitCode;
+
+/// Runs one headless command and prints its output; returns the exit status.
+pub fn run(argv: Vec<OsString>) -> ExitCode {
+    let cli = match Cli::try_parse_from(argv) {
+        Ok(cli) => cli,
+        Err(e) => return report_usage_error(e),
+    };
+    let Some(command) = cli.command else {
+        eprintln!("elbowroom: no command given; see 'elbowroom --help'");
+        return ExitCode::from(2);
+    };
+    match execute(&command) {
+        Ok(out) => {
+            let mut stdout = std::io::stdout().lock();
+            // a closed pipe (for example `| head`) is not an error worth a panic
+            let _ = stdout.write_all(out.as_bytes());
+            if !out.ends_with('\n') {
+                let _ = stdout.write_all(b"\n");
+            }
+            ExitCode::SUCCESS
+        }
+        Err(e) => {
+            eprintln!("elbowroom: {}", e.message());
+            ExitCode::from(e.exit_code())
+        }
+    }
+}
+
+/// Runs a parsed command and returns what it prints.
+pub fn execute(command: &Command) -> Result<String, CliError> {
+    match command {
+        Command::Perm(a) => cmd_perm::run(a),
+        Command::Schubert(a) => cmd_schubert::run(a),
+    }
+}
+
+fn report_usage_error(e: clap::Error) -> ExitCode {
+    use clap::error::ErrorKind;
+    match e.kind() {
+        ErrorKind::DisplayHelp
+        | ErrorKind::DisplayVersion
+        | ErrorKind::DisplayHelpOnMissingArgumentOrSubcommand => {
+            let _ = e.print();
+            ExitCode::SUCCESS
+        }
+        _ => {
+            let rendered = e.to_string();
+            let summary: Vec<&str> = rendered
+                .lines()
+                .take_while(|l| !l.starts_with("Usage:"))
+                .map(|l| l.trim())
+                .filter(|l| !l.is_empty() && !l.starts_with("tip:") && !l.starts_with("For more"))
+                .collect();
+            let text = summary.join(" ");
+            let text = text.trim_start_matches("error: ");
+            eprintln!("elbowroom: {text}; see 'elbowroom --help' for what is accepted");
+            ExitCode::from(2)
+        }
+    }
+}

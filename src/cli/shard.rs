@@ -1,0 +1,66 @@
+//! `--shard K/N`: a deterministic split of a batch over S_n into N pieces, so
+//! that a cluster's array job can run piece K (1-based) of N on each node.
+//!
+//! Item i (0-based, in the command's listing order) belongs to piece
+//! (i mod N) + 1; interleaving keeps the pieces balanced, since cost tends to
+//! grow along the listing.
+
+use super::error::CliError;
+
+/// One piece of a split batch.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub struct Shard {
+    /// The piece, 1-based.
+    pub index: usize,
+    /// The number of pieces.
+    pub count: usize,
+}
+
+impl Shard {
+    /// The whole batch as one piece.
+    pub const WHOLE: Shard = Shard { index: 1, count: 1 };
+
+    /// Parses `K/N` with 1 <= K <= N.
+    pub fn parse(text: &str) -> Result<Shard, CliError> {
+        let bad = || {
+            CliError::Input(format!(
+                "--shard '{text}' is not of the form K/N with 1 <= K <= N (for example 3/8)"
+            ))
+        };
+        let (k, n) = text.split_once('/').ok_or_else(bad)?;
+        let index: usize = k.trim().parse().map_err(|_| bad())?;
+        let count: usize = n.trim().parse().map_err(|_| bad())?;
+        if index == 0 || count == 0 || index > count {
+            return Err(bad());
+        }
+        Ok(Shard { index, count })
+    }
+
+    /// Whether item `i` (0-based, in listing order) belongs to this piece.
+    pub fn selects(&self, i: usize) -> bool {
+        i % self.count == self.index - 1
+    }
+
+    /// Whether this is the whole batch.
+    pub fn is_whole(&self) -> bool {
+        self.count == 1
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn pieces_partition_the_batch() {
+        let pieces: Vec<Shard> = (1..=3)
+            .map(|k| Shard::parse(&format!("{k}/3")).unwrap())
+            .collect();
+        for i in 0..100 {
+            assert_eq!(pieces.iter().filter(|s| s.selects(i)).count(), 1);
+        }
+        assert!(Shard::parse("0/3").is_err());
+        assert!(Shard::parse("4/3").is_err());
+        assert!(Shard::parse("x").is_err());
+    }
+}

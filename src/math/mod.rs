@@ -1,0 +1,18 @@
+//! The mathematics: pure, exact, and independent of the rest of the crate.
+//!
+//! Nothing in here knows about the GUI, files or threads; every quantity
+//! returned is exact (big integers or big rationals where values can grow).
+
+pub mod error;
+pub mod mono;
+pub mod perm;
+pub mod perm_class;
+pub mod poly;
+pub mod progress;
+pub mod schubert;
+
+pub use error::{MathError, MathResult};
+pub use mono::{MAX_VARS, Mono};
+pub use perm::{MAX_N, Perm};
+pub use poly::{Coeff, IntPoly, Poly, PolyBuilder, RatPoly};
+pub use progress::Progress;
