@@ -5,6 +5,7 @@
 
 pub mod error;
 pub mod mono;
+pub mod parse;
 pub mod perm;
 pub mod perm_class;
 pub mod poly;
