@@ -5,7 +5,9 @@
 #![allow(clippy::unwrap_used)]
 
 use elbowroom::math::bumpless::{bumpless_dreams, count_bumpless};
-use elbowroom::math::pipe_dream::{PipeDream, count_pipe_dreams, pipe_dreams};
+use elbowroom::math::pipe_dream::{
+    PipeDream, count_pipe_dreams, count_pipe_dreams_by_polynomial, pipe_dreams,
+};
 use elbowroom::math::pipe_moves::MoveKind;
 use elbowroom::math::schubert::SchubertTable;
 use elbowroom::math::{IntPoly, Mono, Perm};
@@ -242,5 +244,16 @@ proptest! {
                 }
             }
         }
+    }
+}
+
+#[test]
+fn integer_transition_count_is_the_coefficient_sum_in_s7() {
+    for w in Perm::all(7) {
+        assert_eq!(
+            count_pipe_dreams(&w),
+            count_pipe_dreams_by_polynomial(&w),
+            "w = {w}"
+        );
     }
 }

@@ -14,7 +14,7 @@ use super::error::{MathError, MathResult};
 use super::perm::{MAX_N, Perm};
 use super::schubert::SchubertTable;
 use num_bigint::BigUint;
-use num_traits::ToPrimitive;
+use std::collections::HashMap;
 use std::fmt;
 
 /// A pipe dream in the staircase of size n: a set of crosses in the cells
@@ -397,21 +397,62 @@ impl PipeDream {
     }
 }
 
-/// The number of reduced pipe dreams of w: S_w(1, ..., 1), the coefficient sum
-/// of the Schubert polynomial (computed by transition).
+/// The number of reduced pipe dreams of w: S_w(1, ..., 1).
+///
+/// Computed by Lascoux–Schützenberger transition evaluated at x = (1, ..., 1):
+/// with r the last descent of w, s > r the largest index with w(s) < w(r) and
+/// v = w t_{rs}, S_w(1) = S_v(1) + Σ S_{v t_{qr}}(1) over q < r with
+/// ℓ(v t_{qr}) = ℓ(w) — the same recursion as [`SchubertTable`], on integers
+/// instead of polynomials (tests check it against the coefficient sum of S_w).
 ///
 /// ```
 /// use elbowroom::math::{Perm, pipe_dream::count_pipe_dreams};
 /// use num_bigint::BigUint;
+/// // S_{1432} = x1^2 x2 + x1^2 x3 + x1 x2^2 + x1 x2 x3 + x2^2 x3
 /// assert_eq!(count_pipe_dreams(&Perm::parse("1432").unwrap()), BigUint::from(5u8));
 /// ```
 pub fn count_pipe_dreams(w: &Perm) -> BigUint {
+    let mut memo: HashMap<Vec<u8>, BigUint> = HashMap::new();
+    let core = trim(w.as_bytes());
+    transition_count(&core, &mut memo)
+}
+
+/// Drops the fixed points at the end (S_w does not change under S_n ⊂ S_{n+1}).
+fn trim(w: &[u8]) -> Vec<u8> {
+    let mut m = w.len();
+    while m > 1 && w[m - 1] as usize == m {
+        m -= 1;
+    }
+    w[..m].to_vec()
+}
+
+fn transition_count(w: &[u8], memo: &mut HashMap<Vec<u8>, BigUint>) -> BigUint {
+    if let Some(c) = memo.get(w) {
+        return c.clone();
+    }
+    let n = w.len();
+    let Some(r) = (0..n.saturating_sub(1)).rev().find(|&i| w[i] > w[i + 1]) else {
+        return BigUint::from(1u8);
+    };
+    let s = (r + 1..n).rev().find(|&j| w[j] < w[r]).unwrap_or(r + 1);
+    let mut v = w.to_vec();
+    v.swap(r, s);
+    let mut total = transition_count(&trim(&v), memo);
+    for q in 0..r {
+        if v[q] < v[r] && !(q + 1..r).any(|k| v[q] < v[k] && v[k] < v[r]) {
+            let mut u = v.clone();
+            u.swap(q, r);
+            total += transition_count(&trim(&u), memo);
+        }
+    }
+    memo.insert(w.to_vec(), total.clone());
+    total
+}
+
+/// The number of reduced pipe dreams of w as the coefficient sum of S_w (a
+/// second method, through the polynomial).
+pub fn count_pipe_dreams_by_polynomial(w: &Perm) -> BigUint {
     let mut table = SchubertTable::new();
     let sum = table.get(w).coefficient_sum();
     sum.to_biguint().unwrap_or_default()
-}
-
-/// The number of reduced pipe dreams of w as a machine integer, when it fits.
-pub fn count_pipe_dreams_u64(w: &Perm) -> Option<u64> {
-    count_pipe_dreams(w).to_u64()
 }

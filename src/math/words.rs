@@ -126,6 +126,19 @@ impl Hasher for PackedHasher {
 
 type PackedMap<K, V> = HashMap<K, V, BuildHasherDefault<PackedHasher>>;
 
+/// The largest weak-order layer the counts will hold (beyond it they give up
+/// with [`MathError::OutOfRange`] rather than exhaust memory).
+pub const LAYER_LIMIT: usize = 4_000_000;
+
+fn check_layer(len: usize) -> MathResult<()> {
+    if len > LAYER_LIMIT {
+        return Err(MathError::OutOfRange(format!(
+            "more than {LAYER_LIMIT} permutations in one layer of the weak-order interval below w; too large to count here"
+        )));
+    }
+    Ok(())
+}
+
 /// A permutation of size <= 16 packed 4 bits per entry (0-based values), entry i at bits 4i.
 fn pack(w: &Perm) -> u64 {
     w.as_bytes()
@@ -172,6 +185,7 @@ fn count_layers_u128(
                 }
             }
         }
+        check_layer(next.len())?;
         layer = next;
         progress.advance(1);
     }
@@ -197,6 +211,7 @@ fn count_layers_big(
                 }
             }
         }
+        check_layer(next.len())?;
         layer = next;
         progress.advance(1);
     }
@@ -216,15 +231,15 @@ fn count_layers_big(
 /// // w0 in S_4: 6! / (1^3 3^2 5^1) = 16 (Stanley 1984)
 /// assert_eq!(count_reduced_words(&Perm::longest(4)), BigUint::from(16u32));
 /// ```
+///
+/// Returns zero only when the interval below w is too large to count (a layer
+/// beyond [`LAYER_LIMIT`]); use [`count_reduced_words_with`] to get that as an error.
 pub fn count_reduced_words(w: &Perm) -> BigUint {
-    match count_reduced_words_with(w, &Progress::default()) {
-        Ok(c) => c,
-        // an unshared progress record is never canceled
-        Err(_) => BigUint::zero(),
-    }
+    count_reduced_words_with(w, &Progress::default()).unwrap_or_default()
 }
 
-/// [`count_reduced_words`] with progress (one unit per length layer) and cancellation.
+/// [`count_reduced_words`] with progress (one unit per length layer) and
+/// cancellation; [`MathError::OutOfRange`] when a layer exceeds [`LAYER_LIMIT`].
 pub fn count_reduced_words_with(w: &Perm, progress: &Progress) -> MathResult<BigUint> {
     let n = w.n();
     if n < 2 {
@@ -243,7 +258,8 @@ pub fn count_reduced_words_with(w: &Perm, progress: &Progress) -> MathResult<Big
 }
 
 /// The number of reduced words of w with each content (c_i = number of letters
-/// equal to i; vectors of length n - 1), by the same layered propagation.
+/// equal to i; vectors of length n - 1), by the same layered propagation
+/// (empty when too large; see [`counts_by_content_with`]).
 ///
 /// ```
 /// use elbowroom::math::{Perm, words::counts_by_content};
@@ -257,7 +273,8 @@ pub fn counts_by_content(w: &Perm) -> BTreeMap<Vec<usize>, BigUint> {
     counts_by_content_with(w, &Progress::default()).unwrap_or_default()
 }
 
-/// [`counts_by_content`] with progress and cancellation.
+/// [`counts_by_content`] with progress and cancellation; [`MathError::OutOfRange`]
+/// when a layer of (permutation, content) pairs exceeds [`LAYER_LIMIT`].
 pub fn counts_by_content_with(
     w: &Perm,
     progress: &Progress,
@@ -284,6 +301,7 @@ pub fn counts_by_content_with(
                 }
             }
         }
+        check_layer(next.len())?;
         layer = next;
         progress.advance(1);
     }
