@@ -3,13 +3,19 @@
 //! Nothing in here knows about the GUI, files or threads; every quantity
 //! returned is exact (big integers or big rationals where values can grow).
 
+pub mod divsym;
 pub mod error;
+pub mod hessenberg;
+pub mod hessenberg_table;
+pub mod mixed_eulerian;
 pub mod mono;
 pub mod perm;
 pub mod perm_class;
+pub mod permutohedron;
 pub mod poly;
 pub mod progress;
 pub mod schubert;
+pub mod symmetric;
 
 pub use error::{MathError, MathResult};
 pub use mono::{MAX_VARS, Mono};
