@@ -9,6 +9,7 @@ pub mod hessenberg;
 pub mod hessenberg_table;
 pub mod mixed_eulerian;
 pub mod mono;
+pub mod parse;
 pub mod perm;
 pub mod perm_class;
 pub mod permutohedron;
