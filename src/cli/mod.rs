@@ -6,9 +6,15 @@
 //! one-line message on stderr and exit status 2.
 
 pub mod args;
+pub mod cmd_divsym;
+pub mod cmd_eulerian;
+pub mod cmd_hessenberg;
+pub mod cmd_merge;
 pub mod cmd_perm;
 pub mod cmd_schubert;
+pub mod cmd_volume;
 pub mod error;
+pub mod interrupt;
 pub mod json;
 pub mod shard;
 
@@ -52,6 +58,11 @@ pub fn execute(command: &Command) -> Result<String, CliError> {
     match command {
         Command::Perm(a) => cmd_perm::run(a),
         Command::Schubert(a) => cmd_schubert::run(a),
+        Command::Divsym(a) => cmd_divsym::run(a),
+        Command::Hessenberg(a) => cmd_hessenberg::run(a),
+        Command::Volume(a) => cmd_volume::run(a),
+        Command::Eulerian(a) => cmd_eulerian::run(a),
+        Command::Merge(a) => cmd_merge::run(a),
     }
 }
 
