@@ -4,13 +4,18 @@
 //! returned is exact (big integers or big rationals where values can grow).
 
 pub mod error;
+pub mod groebner;
+pub mod lattice_path;
 pub mod mono;
 pub mod parse;
 pub mod perm;
 pub mod perm_class;
 pub mod poly;
 pub mod progress;
+pub mod quasisym;
+pub mod quotient;
 pub mod schubert;
+pub mod survey;
 
 pub use error::{MathError, MathResult};
 pub use mono::{MAX_VARS, Mono};
