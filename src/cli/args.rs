@@ -18,6 +18,12 @@ pub enum Command {
     Perm(PermArgs),
     /// The Schubert polynomial S_w.
     Schubert(SchubertArgs),
+    /// The quasisymmetric quotient Q[x1..xn]/J_n: basis, graded dimensions, Gröbner basis.
+    Quotient(super::cmd_quotient::QuotientArgs),
+    /// The normal form of a polynomial modulo J_n, in the basis of standard monomials.
+    Reduce(super::cmd_reduce::ReduceArgs),
+    /// Positivity survey: reversed Schubert polynomials modulo J_n over S_n.
+    Survey(super::cmd_survey::SurveyArgs),
 }
 
 /// Arguments of `elbowroom perm`.

@@ -7,9 +7,13 @@
 
 pub mod args;
 pub mod cmd_perm;
+pub mod cmd_quotient;
+pub mod cmd_reduce;
 pub mod cmd_schubert;
+pub mod cmd_survey;
 pub mod error;
 pub mod json;
+pub mod merge_survey;
 pub mod shard;
 
 pub use args::{Cli, Command};
@@ -52,6 +56,9 @@ pub fn execute(command: &Command) -> Result<String, CliError> {
     match command {
         Command::Perm(a) => cmd_perm::run(a),
         Command::Schubert(a) => cmd_schubert::run(a),
+        Command::Quotient(a) => cmd_quotient::run(a),
+        Command::Reduce(a) => cmd_reduce::run(a),
+        Command::Survey(a) => cmd_survey::run(a),
     }
 }
 
