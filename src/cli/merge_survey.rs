@@ -110,7 +110,7 @@ mod tests {
         let merged = merge_surveys(&[b.clone(), a.clone()]).unwrap_or(Value::Null);
         assert_eq!(merged["results"][0]["perm"], json!([1, 2]));
         assert_eq!(merged["count"], json!(2));
-        assert!(merge_surveys(&[a.clone()]).is_err());
+        assert!(merge_surveys(std::slice::from_ref(&a)).is_err());
         assert!(merge_surveys(&[a.clone(), a]).is_err());
         assert!(merge_surveys(&[]).is_err());
     }
