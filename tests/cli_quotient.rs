@@ -116,6 +116,21 @@ fn sharded_survey_merges_to_the_whole() {
     let merged = merge_surveys(&pieces).unwrap();
     assert_eq!(merged["results"], whole["results"]);
     assert_eq!(merged["counterexamples"], whole["counterexamples"]);
+    // the same through `elbowroom merge`, from files
+    let dir = std::env::temp_dir().join(format!("elbowroom-survey-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let mut files = Vec::new();
+    for (k, p) in pieces.iter().enumerate() {
+        let f = dir.join(format!("piece{k}.json"));
+        std::fs::write(&f, p.to_string()).unwrap();
+        files.push(f.display().to_string());
+    }
+    let mut args = vec!["merge"];
+    args.extend(files.iter().map(String::as_str));
+    let via_cli = json_of(&args);
+    assert_eq!(via_cli["results"], whole["results"]);
+    assert_eq!(via_cli["kind"], json!("quotient_survey"));
+    let _ = std::fs::remove_dir_all(&dir);
 }
 
 /// Ctrl-C: exit status 130, a message on stderr, nothing on stdout.
