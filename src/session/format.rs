@@ -42,9 +42,10 @@ pub const EXTENSION: &str = "ron";
 #[derive(Deserialize)]
 struct Header {
     #[serde(default)]
-    format: Option<String>,
+    format: String,
+    /// 0 when absent: versions start at 1.
     #[serde(default)]
-    version: Option<u32>,
+    version: u32,
 }
 
 /// Version 1 of the file: the header and the session.
@@ -80,28 +81,26 @@ pub fn encode(session: &Session) -> Result<String, ron::Error> {
 /// The session is not validated here; see [`super::validate`].
 pub fn decode(text: &str, path: &Path) -> Result<Session, SessionError> {
     let header: Header = ron::from_str(text).map_err(|e| syntax(path, &e))?;
-    match header.format.as_deref() {
-        Some(FORMAT_NAME) => {}
-        Some(other) => {
-            return Err(SessionError::NotASession {
-                path: path.into(),
-                reason: format!("its format is \"{other}\", expected \"{FORMAT_NAME}\""),
-            });
-        }
-        None => {
+    match header.format.as_str() {
+        FORMAT_NAME => {}
+        "" => {
             return Err(SessionError::NotASession {
                 path: path.into(),
                 reason: format!("it has no `format: \"{FORMAT_NAME}\"` field"),
             });
         }
+        other => {
+            return Err(SessionError::NotASession {
+                path: path.into(),
+                reason: format!("its format is \"{other}\", expected \"{FORMAT_NAME}\""),
+            });
+        }
     }
-    let Some(version) = header.version else {
-        return Err(SessionError::NotASession {
+    match header.version {
+        0 => Err(SessionError::NotASession {
             path: path.into(),
             reason: "it has no `version` field".into(),
-        });
-    };
-    match version {
+        }),
         1 => {
             let file: FileV1 = ron::from_str(text).map_err(|e| syntax(path, &e))?;
             Ok(file.session)
@@ -113,7 +112,7 @@ pub fn decode(text: &str, path: &Path) -> Result<Session, SessionError> {
         }),
         v => Err(SessionError::NotASession {
             path: path.into(),
-            reason: format!("format version {v} never existed (versions start at 1)"),
+            reason: format!("format version {v} is unknown"),
         }),
     }
 }
