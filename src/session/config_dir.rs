@@ -14,10 +14,10 @@ pub fn config_dir() -> Option<PathBuf> {
     if let Some(xdg) = nonempty("XDG_CONFIG_HOME") {
         return Some(xdg.join("elbowroom"));
     }
-    if cfg!(windows) {
-        if let Some(appdata) = nonempty("APPDATA") {
-            return Some(appdata.join("elbowroom"));
-        }
+    if cfg!(windows)
+        && let Some(appdata) = nonempty("APPDATA")
+    {
+        return Some(appdata.join("elbowroom"));
     }
     nonempty("HOME").map(|h| h.join(".config").join("elbowroom"))
 }

@@ -31,10 +31,10 @@ pub fn default_demo_path() -> Option<PathBuf> {
 /// The default demo session: read from its file when present, else the
 /// compiled-in copy; the plain default session if neither reads.
 pub fn default_demo() -> Session {
-    if let Some(path) = default_demo_path() {
-        if let Ok(s) = store::load(&path) {
-            return s;
-        }
+    if let Some(path) = default_demo_path()
+        && let Ok(s) = store::load(&path)
+    {
+        return s;
     }
     store::load_str(DEFAULT_DEMO_TEXT, Path::new(DEFAULT_DEMO_NAME)).unwrap_or_default()
 }
