@@ -1,0 +1,207 @@
+//! What a session remembers: the current permutation, its history and pins, the
+//! open view and its place in each view, typed inputs, notes and figure settings.
+//!
+//! Only inputs are stored (permutations as one-line vectors, polynomials and λ
+//! as the text the user typed); everything shown is recomputed on open.
+
+use serde::{Deserialize, Serialize};
+
+/// One exploration, as the explorer shows it and as a session file stores it.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(default)]
+pub struct Session {
+    /// A short title shown in the window's title bar.
+    pub title: String,
+    /// Free-text notes the researcher keeps with the exploration.
+    pub notes: String,
+    /// The size n of S_n being explored.
+    pub n: usize,
+    /// The current permutation in one-line notation (1-based values).
+    pub current: Vec<usize>,
+    /// Permutations visited, oldest first.
+    pub history: Vec<Vec<usize>>,
+    /// Position of `current` in `history` (for back and forward).
+    pub history_pos: usize,
+    /// Pinned favourites.
+    pub pins: Vec<Vec<usize>>,
+    /// The view in front.
+    pub view: View,
+    /// The light or dark theme.
+    pub dark: bool,
+    /// Where the permutation browser is.
+    pub browser: BrowserPlace,
+    /// Where the pipe-dream view is.
+    pub dreams: DreamPlace,
+    /// Where the reduced-word view is.
+    pub words: WordPlace,
+    /// Where the quotient view is.
+    pub quotient: QuotientPlace,
+    /// Where the permutohedron view is.
+    pub solid: SolidPlace,
+    /// Where the Hessenberg view is.
+    pub hessenberg: HessenbergPlace,
+    /// Where the polynomial workbench is.
+    pub workbench: WorkbenchPlace,
+    /// How figures are exported.
+    pub figure: FigureSettings,
+}
+
+impl Default for Session {
+    fn default() -> Self {
+        Session {
+            title: "untitled exploration".into(),
+            notes: String::new(),
+            n: 4,
+            current: vec![1, 4, 3, 2],
+            history: vec![vec![1, 4, 3, 2]],
+            history_pos: 0,
+            pins: Vec::new(),
+            view: View::Dreams,
+            dark: false,
+            browser: BrowserPlace::default(),
+            dreams: DreamPlace::default(),
+            words: WordPlace::default(),
+            quotient: QuotientPlace::default(),
+            solid: SolidPlace::default(),
+            hessenberg: HessenbergPlace::default(),
+            workbench: WorkbenchPlace::default(),
+            figure: FigureSettings::default(),
+        }
+    }
+}
+
+/// The views of the explorer.
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, Hash, Serialize, Deserialize)]
+pub enum View {
+    /// Reduced pipe dreams (or bumpless ones).
+    #[default]
+    Dreams,
+    /// Reduced words and wiring diagrams.
+    Words,
+    /// Normal forms in the quasisymmetric quotient, drawn as lattice paths.
+    Quotient,
+    /// Permutohedron volumes and mixed Eulerian numbers.
+    Permutohedron,
+    /// Hessenberg class tables.
+    Hessenberg,
+    /// A typed polynomial: divided symmetrization and normal form.
+    Workbench,
+}
+
+/// How the permutation browser filters and sorts S_n.
+#[derive(Clone, Debug, Default, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(default)]
+pub struct BrowserPlace {
+    /// Smallest length shown, if limited.
+    pub min_length: Option<usize>,
+    /// Largest length shown, if limited.
+    pub max_length: Option<usize>,
+    /// A class filter by key (`dominant`, `grassmannian`, `vexillary`, `fully_commutative`, `coxeter`).
+    pub class: Option<String>,
+    /// Sort by length (then lexicographically) instead of lexicographically.
+    pub by_length: bool,
+}
+
+/// Which pipe dream is shown.
+#[derive(Clone, Debug, Default, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(default)]
+pub struct DreamPlace {
+    /// 0-based index in the enumeration order.
+    pub index: usize,
+    /// Show bumpless pipe dreams instead of reduced pipe dreams.
+    pub bumpless: bool,
+}
+
+/// Which reduced word is selected.
+#[derive(Clone, Debug, Default, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(default)]
+pub struct WordPlace {
+    /// 0-based index in lexicographic order.
+    pub index: usize,
+}
+
+/// What the quotient view reduces.
+#[derive(Clone, Debug, Default, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(default)]
+pub struct QuotientPlace {
+    /// Reduce the typed polynomial instead of the current reversed Schubert polynomial.
+    pub use_typed: bool,
+    /// The typed polynomial, as typed.
+    pub typed: String,
+}
+
+/// The permutohedron view's inputs, as typed (exact rationals like `3/2`).
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(default)]
+pub struct SolidPlace {
+    /// λ for the exact volume and the drawing.
+    pub lambda: Vec<String>,
+    /// The start λ_a of the segment plotted.
+    pub from: Vec<String>,
+    /// The end λ_b of the segment plotted.
+    pub to: Vec<String>,
+    /// Rotation of the n = 4 projection about the vertical axis (radians).
+    pub yaw: f32,
+    /// Rotation of the n = 4 projection about the horizontal axis (radians).
+    pub pitch: f32,
+}
+
+impl Default for SolidPlace {
+    fn default() -> Self {
+        let s = |v: &[&str]| v.iter().map(|x| x.to_string()).collect::<Vec<_>>();
+        SolidPlace {
+            lambda: s(&["3", "2", "1", "0"]),
+            from: s(&["1", "1", "0", "0"]),
+            to: s(&["3", "2", "1", "0"]),
+            yaw: 0.6,
+            pitch: 0.35,
+        }
+    }
+}
+
+/// The Hessenberg view's function h and table order.
+#[derive(Clone, Debug, Default, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(default)]
+pub struct HessenbergPlace {
+    /// h(1), ..., h(n); empty means the default h(i) = i + 1.
+    pub h: Vec<usize>,
+    /// The column the table is sorted by (`perm`, `length`, `value`).
+    pub sort_by: String,
+    /// Sort descending.
+    pub descending: bool,
+}
+
+/// The workbench's typed polynomial and choice of denominator.
+#[derive(Clone, Debug, Default, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(default)]
+pub struct WorkbenchPlace {
+    /// The polynomial, as typed.
+    pub poly: String,
+    /// Use the Hessenberg function of the Hessenberg view instead of DS_n.
+    pub use_h: bool,
+}
+
+/// How figures are exported.
+#[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
+#[serde(default)]
+pub struct FigureSettings {
+    /// Pixels per figure unit for PNG.
+    pub scale: f32,
+    /// A transparent PNG background instead of a solid one.
+    pub transparent: bool,
+    /// Draw row and column labels.
+    pub labels: bool,
+    /// The last directory figures were exported to.
+    pub last_dir: String,
+}
+
+impl Default for FigureSettings {
+    fn default() -> Self {
+        FigureSettings {
+            scale: 4.0,
+            transparent: false,
+            labels: true,
+            last_dir: String::new(),
+        }
+    }
+}
