@@ -178,6 +178,7 @@ fn count_layers_u128(
         let mut next: PackedMap<u64, u128> = PackedMap::default();
         next.reserve(layer.len() * 2);
         for (&p, &c) in &layer {
+            check_layer(next.len())?;
             for i in 0..n - 1 {
                 if nibble(p, i) > nibble(p, i + 1) {
                     let slot = next.entry(swap_adjacent(p, i)).or_insert(0);
@@ -208,6 +209,7 @@ fn count_layers_big(
         progress.check()?;
         let mut next: PackedMap<u64, BigUint> = PackedMap::default();
         for (&p, c) in &layer {
+            check_layer(next.len())?;
             for i in 0..n - 1 {
                 if nibble(p, i) > nibble(p, i + 1) {
                     *next.entry(swap_adjacent(p, i)).or_default() += c;
@@ -385,6 +387,7 @@ pub fn counts_by_content_with(
         progress.check()?;
         let mut next: PackedMap<(u64, u128), BigUint> = PackedMap::default();
         for (&(p, content), c) in &layer {
+            check_layer(next.len())?;
             for i in 0..n.saturating_sub(1) {
                 if nibble(p, i) > nibble(p, i + 1) {
                     let key = (swap_adjacent(p, i), content + (1u128 << (8 * i)));
