@@ -5,7 +5,7 @@
 use criterion::{Criterion, criterion_group, criterion_main};
 use elbowroom::math::divsym::{divided_symmetrize, divided_symmetrize_at};
 use elbowroom::math::hessenberg::HessenbergFn;
-use elbowroom::math::hessenberg_table::hessenberg_table;
+use elbowroom::math::hessenberg_table::{hessenberg_table, hessenberg_table_by_polynomials};
 use elbowroom::math::mixed_eulerian::mixed_eulerian_numbers;
 use elbowroom::math::permutohedron::Permutohedron;
 use elbowroom::math::{Mono, PolyBuilder, Progress, RatPoly};
@@ -81,35 +81,37 @@ fn benches(c: &mut Criterion) {
         b.iter(|| black_box(divided_symmetrize(&big, &h12).unwrap()))
     });
 
-    // fast against the definition at n = 7 on the same 200-term polynomial
-    let small = random_poly(7, 200, 2);
-    let h7 = HessenbergFn::default_for(7).unwrap();
-    let p7 = point(7);
-    g.bench_function("ds_200_terms_n7_fast", |b| {
-        b.iter(|| black_box(divided_symmetrize(&small, &h7).unwrap()))
+    // fast against the definition (a sum over S_6) on one 40-term polynomial
+    let small = random_poly(6, 40, 2);
+    let h6 = HessenbergFn::default_for(6).unwrap();
+    let p6 = point(6);
+    g.bench_function("ds_40_terms_n6_fast", |b| {
+        b.iter(|| black_box(divided_symmetrize(&small, &h6).unwrap()))
     });
-    g.bench_function("ds_200_terms_n7_definition", |b| {
-        b.iter(|| black_box(divided_symmetrize_at(&small, &h7, &p7).unwrap()))
+    g.bench_function("ds_40_terms_n6_definition", |b| {
+        b.iter(|| black_box(divided_symmetrize_at(&small, &h6, &p6).unwrap()))
     });
 
-    // permutohedron volume: n = 12 generic, and n = 7 fast against the definition
+    // permutohedron volume: n = 12 generic, and n = 5 fast against the definition
     let l12 = generic_lambda(12);
     g.bench_function("volume_n12", |b| {
         b.iter(|| black_box(Permutohedron::new(&l12).unwrap().volume()))
     });
-    let l7 = generic_lambda(7);
-    let mut sorted7 = l7.clone();
-    sorted7.sort_by(|a, b| b.cmp(a));
-    let mut lin = RatPoly::zero(7);
-    for (i, l) in sorted7.iter().enumerate() {
-        lin = lin.add(&RatPoly::var(7, i).scale(l));
+    let l5 = generic_lambda(5);
+    let mut sorted5 = l5.clone();
+    sorted5.sort_by(|a, b| b.cmp(a));
+    let mut lin = RatPoly::zero(5);
+    for (i, l) in sorted5.iter().enumerate() {
+        lin = lin.add(&RatPoly::var(5, i).scale(l));
     }
-    let power = lin.pow(6).unwrap();
-    g.bench_function("volume_n7_fast", |b| {
-        b.iter(|| black_box(Permutohedron::new(&l7).unwrap().volume()))
+    let power = lin.pow(4).unwrap();
+    let h5 = HessenbergFn::default_for(5).unwrap();
+    let p5 = point(5);
+    g.bench_function("volume_n5_fast", |b| {
+        b.iter(|| black_box(Permutohedron::new(&l5).unwrap().volume()))
     });
-    g.bench_function("volume_n7_definition", |b| {
-        b.iter(|| black_box(divided_symmetrize_at(&power, &h7, &p7).unwrap()))
+    g.bench_function("volume_n5_definition", |b| {
+        b.iter(|| black_box(divided_symmetrize_at(&power, &h5, &p5).unwrap()))
     });
 
     // mixed Eulerian numbers, n = 9
@@ -117,27 +119,34 @@ fn benches(c: &mut Criterion) {
         b.iter(|| black_box(mixed_eulerian_numbers(9, &Progress::new(0)).unwrap()))
     });
 
-    // Hessenberg tables: n = 9 and n = 6 (fast), n = 6 by the definition entry by entry
+    // Hessenberg tables: n = 9, 10 by transition on values; n = 9 by building each S_w;
+    // n = 5 fast against the definition entry by entry
+    let all = |_: usize| true;
     let h9 = HessenbergFn::default_for(9).unwrap();
     g.bench_function("table_n9", |b| {
-        b.iter(|| black_box(hessenberg_table(&h9, &|_| true, &Progress::new(0)).unwrap()))
+        b.iter(|| black_box(hessenberg_table(&h9, &all, &Progress::new(0)).unwrap()))
     });
-    let h6 = HessenbergFn::default_for(6).unwrap();
-    g.bench_function("table_n6_fast", |b| {
-        b.iter(|| black_box(hessenberg_table(&h6, &|_| true, &Progress::new(0)).unwrap()))
+    let h10 = HessenbergFn::default_for(10).unwrap();
+    g.bench_function("table_n10", |b| {
+        b.iter(|| black_box(hessenberg_table(&h10, &all, &Progress::new(0)).unwrap()))
     });
-    let t6 = hessenberg_table(&h6, &|_| true, &Progress::new(0)).unwrap();
+    g.bench_function("table_n9_by_polynomials", |b| {
+        b.iter(|| black_box(hessenberg_table_by_polynomials(&h9, &all, &Progress::new(0)).unwrap()))
+    });
+    g.bench_function("table_n5_fast", |b| {
+        b.iter(|| black_box(hessenberg_table(&h5, &all, &Progress::new(0)).unwrap()))
+    });
+    let t5 = hessenberg_table(&h5, &all, &Progress::new(0)).unwrap();
     let mut memo = elbowroom::math::schubert::SchubertTable::new();
-    let polys: Vec<RatPoly> = t6
+    let polys: Vec<RatPoly> = t5
         .entries
         .iter()
         .map(|e| memo.get(&e.perm).to_rational())
         .collect();
-    let p6 = point(6);
-    g.bench_function("table_n6_definition", |b| {
+    g.bench_function("table_n5_definition", |b| {
         b.iter(|| {
             for f in &polys {
-                black_box(divided_symmetrize_at(f, &h6, &p6).unwrap());
+                black_box(divided_symmetrize_at(f, &h5, &p5).unwrap());
             }
         })
     });

@@ -26,6 +26,10 @@ use num_traits::{Signed, Zero};
 use rayon::prelude::*;
 use std::collections::HashMap;
 
+/// The largest n a table is computed for (n = 13 takes about a minute and 2.3 GB of memory
+/// on two cores; each step up costs about five times more).
+pub const TABLE_MAX_N: usize = 14;
+
 /// One entry a^h_w of a table.
 #[derive(Clone, Debug, PartialEq, Eq)]
 pub struct TableEntry {
@@ -131,6 +135,11 @@ pub fn hessenberg_table(
     progress: &Progress,
 ) -> MathResult<HessenbergTable> {
     let n = h.n();
+    if n > TABLE_MAX_N {
+        return Err(MathError::OutOfRange(format!(
+            "n = {n}; Hessenberg tables are computed for n <= {TABLE_MAX_N}"
+        )));
+    }
     let listing = perms_of_length(n, h.dimension());
     let listed = listing.len();
     let chosen: Vec<(usize, Perm)> = listing
@@ -230,6 +239,11 @@ pub fn hessenberg_table_by_polynomials(
     progress: &Progress,
 ) -> MathResult<HessenbergTable> {
     let n = h.n();
+    if n > TABLE_MAX_N {
+        return Err(MathError::OutOfRange(format!(
+            "n = {n}; Hessenberg tables are computed for n <= {TABLE_MAX_N}"
+        )));
+    }
     let listing = perms_of_length(n, h.dimension());
     let listed = listing.len();
     let chosen: Vec<(usize, Perm)> = listing
