@@ -192,3 +192,16 @@ fn shards_partition_the_table_and_cancel_stops_the_work() {
         MathError::Canceled
     );
 }
+
+#[test]
+fn transition_values_agree_with_schubert_polynomials() {
+    use elbowroom::math::hessenberg_table::hessenberg_table_by_polynomials;
+    let mut cases: Vec<HessenbergFn> = (1..=5).flat_map(HessenbergFn::all).collect();
+    cases.extend((6..=8).map(|n| HessenbergFn::default_for(n).unwrap()));
+    cases.push(HessenbergFn::new(&[3, 3, 4, 6, 6, 6]).unwrap());
+    for h in cases {
+        let fast = hessenberg_table(&h, &|_| true, &Progress::new(0)).unwrap();
+        let slow = hessenberg_table_by_polynomials(&h, &|_| true, &Progress::new(0)).unwrap();
+        assert_eq!(fast, slow, "h = {h}");
+    }
+}
