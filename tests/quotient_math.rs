@@ -482,3 +482,38 @@ fn fresh_and_cached_bases_agree() {
     let fresh = QuasiGroebner::compute(6, None).unwrap();
     assert_eq!(fresh.polys(), quotient(6).unwrap().polys());
 }
+
+/// As stated in `groebner`'s documentation: for n <= 6 every coefficient of the reduced
+/// basis is 1 or -1 (at n = 7 larger ones appear), every tail monomial is standard, and the leading monomials are the
+/// corners, Catalan(k - 1) of them ending at x_k (so 1 + 1 + 2 + 5 + ... in all).
+#[test]
+fn basis_coefficients_are_units_and_leads_are_corners() {
+    let catalan = [1usize, 1, 2, 5, 14, 42, 132, 429];
+    for n in 1..=8usize {
+        let q = quotient(n).unwrap();
+        let mut by_last = vec![0usize; n];
+        for e in q.elements() {
+            let x = e.corner.exps(n);
+            assert!(elbowroom::math::groebner::is_corner(&x), "{x:?}");
+            by_last[x.iter().rposition(|&a| a > 0).unwrap()] += 1;
+            for (m, c) in &e.tail {
+                assert!(n >= 7 || *c == 1 || *c == -1, "n = {n}: coefficient {c}");
+                assert!(*c != 0);
+                assert!(is_standard(&m.exps(n)));
+                assert!(*m < e.corner && m.degree() == e.corner.degree());
+            }
+        }
+        assert_eq!(by_last, catalan[..n].to_vec(), "n = {n}");
+        let largest = q
+            .elements()
+            .iter()
+            .flat_map(|e| e.tail.iter().map(|t| t.1.abs()))
+            .max();
+        let smallest = q
+            .elements()
+            .iter()
+            .flat_map(|e| e.tail.iter().map(|t| t.1))
+            .min();
+        println!("n = {n}: largest |coefficient| {largest:?}, smallest {smallest:?}");
+    }
+}
