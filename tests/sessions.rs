@@ -173,8 +173,10 @@ proptest! {
 fn a_save_goes_through_the_file_system_and_keeps_a_backup() {
     let dir = scratch("save");
     let path = dir.join("talk.ron");
-    let mut first = Session::default();
-    first.title = "first".into();
+    let first = Session {
+        title: "first".into(),
+        ..Session::default()
+    };
     store::save(&path, &first).unwrap();
     assert_eq!(store::load(&path).unwrap(), first);
     assert!(
@@ -399,8 +401,10 @@ fn an_unwritable_directory_gives_a_clear_error_and_keeps_the_old_file() {
 fn an_impossible_session_is_not_saved() {
     let dir = scratch("invalid-save");
     let path = dir.join("x.ron");
-    let mut s = Session::default();
-    s.current = vec![1, 1, 2, 3];
+    let s = Session {
+        current: vec![1, 1, 2, 3],
+        ..Session::default()
+    };
     let e = store::save(&path, &s).unwrap_err();
     assert!(e.to_string().contains("not a permutation"), "{e}");
     assert!(!path.exists());
@@ -410,8 +414,10 @@ fn an_impossible_session_is_not_saved() {
 fn recovery_is_taken_once_and_kept_aside() {
     let dir = scratch("recovery");
     assert!(recovery::take_recovery_in(&dir).is_none());
-    let mut s = Session::default();
-    s.notes = "unsaved thoughts".into();
+    let s = Session {
+        notes: "unsaved thoughts".into(),
+        ..Session::default()
+    };
     recovery::write_recovery_in(&dir, &s).unwrap();
     assert_eq!(recovery::take_recovery_in(&dir), Some(s));
     assert!(
