@@ -38,6 +38,8 @@ pub enum Command {
     Reduce(super::cmd_reduce::ReduceArgs),
     /// Positivity survey: reversed Schubert polynomials modulo J_n over S_n.
     Survey(super::cmd_survey::SurveyArgs),
+    /// Checks and summarises a session file (`session check FILE`).
+    Session(super::cmd_session::SessionArgs),
 }
 
 /// Arguments of `elbowroom perm`.

@@ -15,6 +15,7 @@ pub mod cmd_perm;
 pub mod cmd_quotient;
 pub mod cmd_reduce;
 pub mod cmd_schubert;
+pub mod cmd_session;
 pub mod cmd_survey;
 pub mod cmd_volume;
 pub mod cmd_words;
@@ -22,6 +23,7 @@ pub mod error;
 pub mod interrupt;
 pub mod json;
 pub mod merge_survey;
+pub mod open_file;
 pub mod shard;
 
 pub use args::{Cli, Command};
@@ -74,6 +76,7 @@ pub fn execute(command: &Command) -> Result<String, CliError> {
         Command::Quotient(a) => cmd_quotient::run(a),
         Command::Reduce(a) => cmd_reduce::run(a),
         Command::Survey(a) => cmd_survey::run(a),
+        Command::Session(a) => cmd_session::run(a),
     }
 }
 

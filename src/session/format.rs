@@ -20,9 +20,9 @@
 //! does, together with a `FileVn` struct and a migration arm in [`decode`].
 //!
 //! An explicit header was chosen over an internally tagged enum
-//! (`#[serde(tag = "version")]`): serde reads tagged enums through a buffered
-//! intermediate value, and with RON that loses the line and column of errors
-//! inside the body and rejects a numeric tag.
+//! (`#[serde(tag = "version")]`): serde reads such enums through a buffered
+//! intermediate value, so an error inside the body would be reported at the
+//! end of the buffered value instead of at its own line and column.
 
 use super::error::SessionError;
 use super::model::Session;
@@ -80,7 +80,12 @@ pub fn encode(session: &Session) -> Result<String, ron::Error> {
 /// migrates it to the current [`Session`]. `path` is used in messages only.
 /// The session is not validated here; see [`super::validate`].
 pub fn decode(text: &str, path: &Path) -> Result<Session, SessionError> {
-    let header: Header = ron::from_str(text).map_err(|e| syntax(path, &e))?;
+    decode_with_version(text, path).map(|(session, _)| session)
+}
+
+/// [`decode`], also returning the format version the file was written in.
+pub fn decode_with_version(text: &str, path: &Path) -> Result<(Session, u32), SessionError> {
+    let header: Header = ron::from_str(text).map_err(|e| syntax(path, text, &e))?;
     match header.format.as_str() {
         FORMAT_NAME => {}
         "" => {
@@ -102,8 +107,8 @@ pub fn decode(text: &str, path: &Path) -> Result<Session, SessionError> {
             reason: "it has no `version` field".into(),
         }),
         1 => {
-            let file: FileV1 = ron::from_str(text).map_err(|e| syntax(path, &e))?;
-            Ok(file.session)
+            let file: FileV1 = ron::from_str(text).map_err(|e| syntax(path, text, &e))?;
+            Ok((file.session, 1))
         }
         v if v > CURRENT_VERSION => Err(SessionError::NewerVersion {
             path: path.into(),
@@ -117,22 +122,46 @@ pub fn decode(text: &str, path: &Path) -> Result<Session, SessionError> {
     }
 }
 
-fn syntax(path: &Path, e: &ron::error::SpannedError) -> SessionError {
+fn syntax(path: &Path, text: &str, e: &ron::error::SpannedError) -> SessionError {
+    let (line, column) = (e.span.start.line, e.span.start.col);
+    let mut message = explain(&e.code);
+    if let Some(field) = field_at(text, line, column) {
+        message.push_str(&format!(" (in the field `{field}`)"));
+    }
     SessionError::Syntax {
         path: path.into(),
-        line: e.span.start.line,
-        column: e.span.start.col,
-        message: explain(&e.code),
+        line,
+        column,
+        message,
     }
 }
 
 /// RON's message, with a plainer word for the end of a truncated file.
 fn explain(code: &ron::Error) -> String {
     match code {
-        ron::Error::Eof => "the file ends too early (is it truncated?)".into(),
+        ron::Error::Eof | ron::Error::ExpectedStringEnd => {
+            "the file ends too early (is it truncated?)".into()
+        }
         other => {
             let text = other.to_string();
-            text.trim_end_matches('.').to_string()
+            format!("{} here", text.trim_end_matches('.'))
         }
     }
+}
+
+/// The name of the field written as `name:` on `line` before `column`, if any.
+fn field_at(text: &str, line: usize, column: usize) -> Option<String> {
+    let src = text.lines().nth(line.checked_sub(1)?)?;
+    let before: String = src.chars().take(column.saturating_sub(1)).collect();
+    let colon = before.rfind(':')?;
+    let name: String = before[..colon]
+        .trim_end()
+        .chars()
+        .rev()
+        .take_while(|c| c.is_ascii_alphanumeric() || *c == '_')
+        .collect::<Vec<_>>()
+        .into_iter()
+        .rev()
+        .collect();
+    (!name.is_empty() && !name.starts_with(|c: char| c.is_ascii_digit())).then_some(name)
 }

@@ -20,21 +20,30 @@ use std::path::{Path, PathBuf};
 /// field of the wrong type, a refused newer version, or the field that makes
 /// the session impossible.
 pub fn load(path: &Path) -> Result<Session, SessionError> {
-    let text = fs::read_to_string(path).map_err(|e| SessionError::Read {
-        path: path.into(),
-        reason: e.to_string(),
-    })?;
-    load_str(&text, path)
+    load_with_version(path).map(|(session, _)| session)
 }
 
 /// Reads a session from file text; `path` is used in messages only.
 pub fn load_str(text: &str, path: &Path) -> Result<Session, SessionError> {
-    let session = format::decode(text, path)?;
+    load_str_with_version(text, path).map(|(session, _)| session)
+}
+
+/// [`load`], also returning the format version the file was written in.
+pub fn load_with_version(path: &Path) -> Result<(Session, u32), SessionError> {
+    let text = fs::read_to_string(path).map_err(|e| SessionError::Read {
+        path: path.into(),
+        reason: e.to_string(),
+    })?;
+    load_str_with_version(&text, path)
+}
+
+fn load_str_with_version(text: &str, path: &Path) -> Result<(Session, u32), SessionError> {
+    let (session, version) = format::decode_with_version(text, path)?;
     validate::check(&session).map_err(|reason| SessionError::Invalid {
         path: path.into(),
         reason,
     })?;
-    Ok(session)
+    Ok((session, version))
 }
 
 /// Saves a session atomically, keeping the previous file as `NAME.bak`.

@@ -1,0 +1,99 @@
+//! `elbowroom session check FILE [--json]`: validates a session file without
+//! opening the explorer, and summarises what it would open.
+
+use super::error::CliError;
+use super::json;
+use crate::session::{SessionError, store};
+use clap::{Args, Subcommand};
+use serde_json::json;
+use std::path::PathBuf;
+
+/// Arguments of `elbowroom session`.
+#[derive(Args, Debug)]
+pub struct SessionArgs {
+    /// What to do with the session file.
+    #[command(subcommand)]
+    pub action: SessionAction,
+}
+
+/// What `elbowroom session` does.
+#[derive(Subcommand, Debug)]
+pub enum SessionAction {
+    /// Reads and validates a session file and summarises it; never writes.
+    Check(SessionCheckArgs),
+}
+
+/// Arguments of `elbowroom session check`.
+#[derive(Args, Debug)]
+pub struct SessionCheckArgs {
+    /// The session file (`.ron`).
+    pub file: PathBuf,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// Runs `elbowroom session ...`.
+pub fn run(args: &SessionArgs) -> Result<String, CliError> {
+    match &args.action {
+        SessionAction::Check(a) => check(a),
+    }
+}
+
+fn check(args: &SessionCheckArgs) -> Result<String, CliError> {
+    let (s, version) = store::load_with_version(&args.file).map_err(session_error)?;
+    let view = format!("{:?}", s.view);
+    if args.json {
+        return Ok(json::render(&json!({
+            "ok": true,
+            "version": version,
+            "title": s.title,
+            "n": s.n,
+            "current": s.current,
+            "view": view,
+            "pins": s.pins.len(),
+            "history": s.history.len(),
+            "notes_lines": s.notes.lines().count(),
+        })));
+    }
+    let one_line = |w: &[usize]| {
+        let sep = if w.len() >= 10 { "," } else { "" };
+        w.iter()
+            .map(|v| v.to_string())
+            .collect::<Vec<_>>()
+            .join(sep)
+    };
+    let mut out = format!(
+        "{}: a valid session (format version {version})\n  title:   {}\n  n:       {}\n  current: {}\n  view:    {view}\n  pins:    {}\n  history: {} permutations\n",
+        args.file.display(),
+        s.title,
+        s.n,
+        one_line(&s.current),
+        s.pins.len(),
+        s.history.len()
+    );
+    if !s.hessenberg.h.is_empty() {
+        out.push_str(&format!(
+            "  h:       ({})\n",
+            s.hessenberg
+                .h
+                .iter()
+                .map(|v| v.to_string())
+                .collect::<Vec<_>>()
+                .join(",")
+        ));
+    }
+    if let Some(first) = s.notes.lines().find(|l| !l.trim().is_empty()) {
+        out.push_str(&format!("  notes:   {first}\n"));
+    }
+    Ok(out)
+}
+
+/// A session error as a CLI error: an unreadable or unwritable file fails
+/// (exit 1) when the operating system refused; a bad file is bad input (exit 2).
+pub fn session_error(e: SessionError) -> CliError {
+    match e {
+        SessionError::Write { .. } | SessionError::NoConfigDir => CliError::Failed(e.to_string()),
+        _ => CliError::Input(e.to_string()),
+    }
+}
