@@ -1,8 +1,10 @@
 #!/bin/sh
-# What CI runs: formatting, lints (warnings are errors), then the whole test suite.
+# What CI runs, and the README's test command: formatting, lints with warnings
+# as errors (this also type-checks the benchmarks), the unit, integration,
+# CLI and headless GUI tests, then the documentation examples.
 set -eu
 cd "$(dirname "$0")/.."
 cargo fmt --all -- --check
 cargo clippy --all-targets -- -D warnings
-cargo test --all-targets
+cargo test --lib --bins --tests
 cargo test --doc

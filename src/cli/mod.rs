@@ -6,8 +6,10 @@
 //! one-line message on stderr and exit status 2.
 
 pub mod args;
+pub mod cmd_dreams;
 pub mod cmd_perm;
 pub mod cmd_schubert;
+pub mod cmd_words;
 pub mod error;
 pub mod json;
 pub mod shard;
@@ -52,6 +54,8 @@ pub fn execute(command: &Command) -> Result<String, CliError> {
     match command {
         Command::Perm(a) => cmd_perm::run(a),
         Command::Schubert(a) => cmd_schubert::run(a),
+        Command::Words(a) => cmd_words::run(a),
+        Command::Dreams(a) => cmd_dreams::run(a),
     }
 }
 

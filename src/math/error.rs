@@ -12,6 +12,19 @@ pub enum MathError {
     /// A polynomial that could not be parsed; the message quotes the input and marks the column.
     #[error("{0}")]
     Parse(String),
+    /// A typed expression that could not be read: the input, the 1-based column
+    /// (in characters) where reading stopped, and what was expected there.
+    #[error("cannot read \"{input}\" at column {column}: {expected}; marked: \"{marked}\"")]
+    Syntax {
+        /// The text as typed.
+        input: String,
+        /// 1-based character column of the problem.
+        column: usize,
+        /// What was wrong and what is accepted there.
+        expected: String,
+        /// The input with `⟦⟧` around the character at the column (`⟦⟧` at the end when input ran out).
+        marked: String,
+    },
     /// An input outside the supported range (too many variables, too large an exponent, ...).
     #[error("out of range: {0}")]
     OutOfRange(String),

@@ -3,13 +3,19 @@
 //! Nothing in here knows about the GUI, files or threads; every quantity
 //! returned is exact (big integers or big rationals where values can grow).
 
+pub mod bumpless;
 pub mod error;
 pub mod mono;
+pub mod parse;
 pub mod perm;
 pub mod perm_class;
+pub mod pipe_dream;
+pub mod pipe_moves;
+pub mod pipe_trace;
 pub mod poly;
 pub mod progress;
 pub mod schubert;
+pub mod words;
 
 pub use error::{MathError, MathResult};
 pub use mono::{MAX_VARS, Mono};

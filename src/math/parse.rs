@@ -1,0 +1,558 @@
+//! Reading typed polynomials in the usual notation.
+//!
+//! Accepted: variables `x1`, `x_1`, `x_{12}`; numbers `3`, `-3/2`, `0.25`
+//! (exact); `+ - * / ^`; implicit multiplication (`2x1 x2`, `3(x1 + x2)`);
+//! parentheses and powers of sums (`(3x1 + 2x2 + x3)^2`); `·`, `×` and `−`
+//! as typeset; named atoms `M(2,1)` and `F(2,1)` for quasisymmetric
+//! polynomials in the n variables of the computation. Division is only by
+//! nonzero constants. A malformed input gives [`MathError::Syntax`], which
+//! quotes the input and marks the column; reading never panics.
+
+use super::error::{MathError, MathResult};
+use super::mono::{MAX_EXP, MAX_VARS};
+use super::poly::RatPoly;
+use num_bigint::BigInt;
+use num_rational::BigRational;
+use num_traits::{One, Zero};
+
+/// Parses a polynomial. With `nvars = Some(n)` the variables are x1..xn and a
+/// larger index is an error; with `None`, n is the largest index used (at least 1).
+///
+/// ```
+/// use elbowroom::math::parse::parse_poly;
+/// let f = parse_poly("(3x1 + 2x_2 + x3)^2 - 3/2", Some(3)).unwrap();
+/// assert_eq!(f.to_text(), "9 x1^2 + 12 x1 x2 + 6 x1 x3 + 4 x2^2 + 4 x2 x3 + x3^2 - 3/2");
+/// assert!(parse_poly("2x1 + * x3", Some(3)).is_err());
+/// ```
+pub fn parse_poly(text: &str, nvars: Option<usize>) -> MathResult<RatPoly> {
+    let tokens = lex(text)?;
+    let declared = nvars;
+    let width = match nvars {
+        Some(n) => {
+            if n == 0 || n > MAX_VARS {
+                return Err(MathError::OutOfRange(format!(
+                    "{n} variables; between 1 and {MAX_VARS} are supported"
+                )));
+            }
+            n
+        }
+        None => tokens
+            .iter()
+            .filter_map(|t| match t.kind {
+                Tok::Var(i) => Some(i),
+                _ => None,
+            })
+            .max()
+            .unwrap_or(1)
+            .max(1),
+    };
+    let mut p = Parser {
+        text,
+        tokens,
+        pos: 0,
+        nvars: width,
+        declared,
+    };
+    if p.tokens.len() == 1 {
+        return Err(p.error_here("the input is empty; type a polynomial such as 2x1 x2 - 3/2 x3^2"));
+    }
+    let value = p.expr()?;
+    if !matches!(p.peek(), Tok::End) {
+        return Err(p.error_here("expected an operator (+ - * / ^) or the end of the input"));
+    }
+    value.with_nvars(width)
+}
+
+#[derive(Clone, Debug, PartialEq)]
+enum Tok {
+    Num(BigRational),
+    Var(usize),
+    Name(String),
+    Plus,
+    Minus,
+    Star,
+    Slash,
+    Caret,
+    LParen,
+    RParen,
+    Comma,
+    End,
+}
+
+#[derive(Clone, Debug)]
+struct Token {
+    kind: Tok,
+    /// 0-based character index where the token starts.
+    at: usize,
+}
+
+fn syntax(text: &str, at: usize, expected: &str) -> MathError {
+    let chars: Vec<char> = text.chars().collect();
+    let mut marked = String::new();
+    for (i, c) in chars.iter().enumerate() {
+        if i == at {
+            marked.push('⟦');
+            marked.push(*c);
+            marked.push('⟧');
+        } else {
+            marked.push(*c);
+        }
+    }
+    if at >= chars.len() {
+        marked.push_str("⟦⟧");
+    }
+    MathError::Syntax {
+        input: text.to_string(),
+        column: at + 1,
+        expected: expected.to_string(),
+        marked,
+    }
+}
+
+fn lex(text: &str) -> MathResult<Vec<Token>> {
+    let chars: Vec<char> = text.chars().collect();
+    let mut out = Vec::new();
+    let mut i = 0;
+    while i < chars.len() {
+        let c = chars[i];
+        let start = i;
+        let simple = match c {
+            '+' => Some(Tok::Plus),
+            '-' | '−' => Some(Tok::Minus),
+            '*' | '·' | '×' => Some(Tok::Star),
+            '/' => Some(Tok::Slash),
+            '^' => Some(Tok::Caret),
+            '(' => Some(Tok::LParen),
+            ')' => Some(Tok::RParen),
+            ',' => Some(Tok::Comma),
+            _ => None,
+        };
+        if let Some(kind) = simple {
+            out.push(Token { kind, at: start });
+            i += 1;
+            continue;
+        }
+        if c.is_whitespace() {
+            i += 1;
+            continue;
+        }
+        if c.is_ascii_digit() || c == '.' {
+            let mut j = i;
+            while j < chars.len() && (chars[j].is_ascii_digit() || chars[j] == '.') {
+                j += 1;
+            }
+            let s: String = chars[i..j].iter().collect();
+            let Some(value) = decimal(&s) else {
+                return Err(syntax(
+                    text,
+                    start,
+                    &format!("'{s}' is not a number; numbers are like 3, 0.25 or 3/2"),
+                ));
+            };
+            out.push(Token {
+                kind: Tok::Num(value),
+                at: start,
+            });
+            i = j;
+            continue;
+        }
+        if c == 'x' || c == 'X' {
+            let mut j = i + 1;
+            if j < chars.len() && chars[j] == '_' {
+                j += 1;
+            }
+            let braced = j < chars.len() && chars[j] == '{';
+            if braced {
+                j += 1;
+            }
+            let d0 = j;
+            while j < chars.len() && chars[j].is_ascii_digit() {
+                j += 1;
+            }
+            if j == d0 {
+                return Err(syntax(
+                    text,
+                    start,
+                    "a variable needs an index, like x1, x_2 or x_{12}",
+                ));
+            }
+            let digits: String = chars[d0..j].iter().collect();
+            if braced {
+                if j < chars.len() && chars[j] == '}' {
+                    j += 1;
+                } else {
+                    return Err(syntax(text, j, "expected '}' to close the variable index"));
+                }
+            }
+            let index: usize = digits.parse().unwrap_or(usize::MAX);
+            if index == 0 || index > MAX_VARS {
+                return Err(syntax(
+                    text,
+                    start,
+                    &format!("variables are x1 to x{MAX_VARS}; x{digits} is not one of them"),
+                ));
+            }
+            out.push(Token {
+                kind: Tok::Var(index),
+                at: start,
+            });
+            i = j;
+            continue;
+        }
+        if c.is_alphabetic() {
+            let mut j = i;
+            while j < chars.len() && chars[j].is_alphanumeric() {
+                j += 1;
+            }
+            let name: String = chars[i..j].iter().collect();
+            out.push(Token {
+                kind: Tok::Name(name),
+                at: start,
+            });
+            i = j;
+            continue;
+        }
+        return Err(syntax(
+            text,
+            start,
+            &format!(
+                "'{c}' is not allowed; use numbers, variables x1..xn, + - * / ^ and parentheses"
+            ),
+        ));
+    }
+    out.push(Token {
+        kind: Tok::End,
+        at: chars.len(),
+    });
+    Ok(out)
+}
+
+fn decimal(s: &str) -> Option<BigRational> {
+    let (int, frac) = match s.split_once('.') {
+        Some((a, b)) => (a, b),
+        None => (s, ""),
+    };
+    if frac.contains('.') || (int.is_empty() && frac.is_empty()) {
+        return None;
+    }
+    let digits = format!("{int}{frac}");
+    let num: BigInt = digits.parse().ok()?;
+    let den = num_traits::pow(BigInt::from(10), frac.len());
+    Some(BigRational::new(num, den))
+}
+
+struct Parser<'a> {
+    text: &'a str,
+    tokens: Vec<Token>,
+    pos: usize,
+    nvars: usize,
+    declared: Option<usize>,
+}
+
+impl Parser<'_> {
+    fn peek(&self) -> &Tok {
+        &self.tokens[self.pos.min(self.tokens.len() - 1)].kind
+    }
+
+    fn at(&self) -> usize {
+        self.tokens[self.pos.min(self.tokens.len() - 1)].at
+    }
+
+    fn bump(&mut self) -> Tok {
+        let t = self.peek().clone();
+        if self.pos < self.tokens.len() - 1 {
+            self.pos += 1;
+        }
+        t
+    }
+
+    fn error_here(&self, expected: &str) -> MathError {
+        syntax(self.text, self.at(), expected)
+    }
+
+    fn fail(&self, at: usize, e: MathError) -> MathError {
+        match e {
+            MathError::Syntax { .. } => e,
+            other => syntax(self.text, at, &other.to_string()),
+        }
+    }
+
+    /// expr := ['+'|'-'] term (('+'|'-') term)*
+    fn expr(&mut self) -> MathResult<RatPoly> {
+        let mut acc = RatPoly::zero(self.nvars);
+        let mut first = true;
+        loop {
+            let negate = match self.peek() {
+                Tok::Plus => {
+                    self.bump();
+                    false
+                }
+                Tok::Minus => {
+                    self.bump();
+                    true
+                }
+                _ if first => false,
+                _ => return Ok(acc),
+            };
+            first = false;
+            let t = self.term()?;
+            acc = if negate { acc.sub(&t) } else { acc.add(&t) };
+        }
+    }
+
+    fn starts_factor(t: &Tok) -> bool {
+        matches!(t, Tok::Num(_) | Tok::Var(_) | Tok::Name(_) | Tok::LParen)
+    }
+
+    /// term := factor (('*' | '/' | implicit) factor)*
+    fn term(&mut self) -> MathResult<RatPoly> {
+        let mut acc = self.factor()?;
+        loop {
+            let at = self.at();
+            match self.peek().clone() {
+                Tok::Star => {
+                    self.bump();
+                    let f = self.factor()?;
+                    acc = acc.mul(&f).map_err(|e| self.fail(at, e))?;
+                }
+                Tok::Slash => {
+                    self.bump();
+                    let at_divisor = self.at();
+                    let f = self.factor()?;
+                    let c = constant_value(&f).filter(|c| !c.is_zero()).ok_or_else(|| {
+                        syntax(
+                            self.text,
+                            at_divisor,
+                            "division is only by a nonzero number, as in x1/2 or 3/2 x1",
+                        )
+                    })?;
+                    acc = acc.scale(&(BigRational::one() / c));
+                }
+                t if Self::starts_factor(&t) => {
+                    let f = self.factor()?;
+                    acc = acc.mul(&f).map_err(|e| self.fail(at, e))?;
+                }
+                _ => return Ok(acc),
+            }
+        }
+    }
+
+    /// factor := '-' factor | primary ['^' integer]
+    fn factor(&mut self) -> MathResult<RatPoly> {
+        if matches!(self.peek(), Tok::Minus) {
+            self.bump();
+            return Ok(self.factor()?.neg());
+        }
+        if matches!(self.peek(), Tok::Plus) {
+            self.bump();
+            return self.factor();
+        }
+        let base = self.primary()?;
+        if !matches!(self.peek(), Tok::Caret) {
+            return Ok(base);
+        }
+        let caret_at = self.at();
+        self.bump();
+        let exp_at = self.at();
+        let k = match self.bump() {
+            Tok::Num(v) if v.is_integer() => v.to_integer(),
+            Tok::LParen => {
+                let inner = match self.bump() {
+                    Tok::Num(v) if v.is_integer() => v.to_integer(),
+                    _ => {
+                        return Err(syntax(
+                            self.text,
+                            exp_at + 1,
+                            "an exponent is a whole number from 0 to 255",
+                        ));
+                    }
+                };
+                if !matches!(self.bump(), Tok::RParen) {
+                    return Err(syntax(self.text, exp_at, "expected ')' after the exponent"));
+                }
+                inner
+            }
+            _ => {
+                return Err(syntax(
+                    self.text,
+                    exp_at,
+                    "an exponent is a whole number from 0 to 255 (no negative or fractional powers)",
+                ));
+            }
+        };
+        let Some(k) = u32::try_from(k).ok().filter(|&k| k <= MAX_EXP) else {
+            return Err(syntax(
+                self.text,
+                exp_at,
+                "an exponent is a whole number from 0 to 255",
+            ));
+        };
+        if matches!(self.peek(), Tok::Caret) {
+            return Err(self.error_here("write repeated powers with parentheses, as (x1^2)^3"));
+        }
+        base.pow(k).map_err(|e| self.fail(caret_at, e))
+    }
+
+    /// primary := number | variable | name '(' integers ')' | '(' expr ')'
+    fn primary(&mut self) -> MathResult<RatPoly> {
+        let at = self.at();
+        match self.bump() {
+            Tok::Num(v) => Ok(RatPoly::constant(self.nvars, v)),
+            Tok::Var(i) => {
+                if let Some(n) = self.declared
+                    && i > n
+                {
+                    return Err(syntax(
+                        self.text,
+                        at,
+                        &format!("x{i} is not among the variables x1..x{n} of this computation"),
+                    ));
+                }
+                Ok(RatPoly::var(self.nvars, i - 1))
+            }
+            Tok::LParen => {
+                let inner = self.expr()?;
+                if !matches!(self.peek(), Tok::RParen) {
+                    return Err(self.error_here("expected ')' to close the parenthesis"));
+                }
+                self.bump();
+                Ok(inner)
+            }
+            Tok::Name(name) => {
+                let args = self.name_arguments(&name, at)?;
+                named_atom(&name, &args, self.declared)
+                    .map_err(|e| self.fail(at, e))
+                    .map(|p| p.with_nvars(self.nvars).unwrap_or(p))
+            }
+            Tok::End => Err(syntax(
+                self.text,
+                at,
+                "the input ends too early; expected a number, a variable like x1, or '('",
+            )),
+            _ => Err(syntax(
+                self.text,
+                at,
+                "expected a number, a variable like x1, or '(' here",
+            )),
+        }
+    }
+
+    fn name_arguments(&mut self, name: &str, at: usize) -> MathResult<Vec<usize>> {
+        if !matches!(self.peek(), Tok::LParen) {
+            return Err(syntax(
+                self.text,
+                at,
+                &format!(
+                    "'{name}' is not known; accepted names are M(a,b,...) and F(a,b,...), variables are x1, x2, ..."
+                ),
+            ));
+        }
+        self.bump();
+        let mut args = Vec::new();
+        loop {
+            let here = self.at();
+            match self.bump() {
+                Tok::Num(v) if v.is_integer() => {
+                    let Some(k) = usize::try_from(v.to_integer())
+                        .ok()
+                        .filter(|k| (1..=255).contains(k))
+                    else {
+                        return Err(syntax(
+                            self.text,
+                            here,
+                            "the parts of a composition are whole numbers from 1 to 255",
+                        ));
+                    };
+                    args.push(k);
+                }
+                _ => {
+                    return Err(syntax(
+                        self.text,
+                        here,
+                        "the parts of a composition are positive whole numbers, as in M(2,1)",
+                    ));
+                }
+            }
+            match self.bump() {
+                Tok::Comma => continue,
+                Tok::RParen => return Ok(args),
+                _ => {
+                    let here = self.tokens[self.pos.saturating_sub(1)].at;
+                    return Err(syntax(
+                        self.text,
+                        here,
+                        "expected ',' or ')' in the composition",
+                    ));
+                }
+            }
+        }
+    }
+}
+
+/// The value of a named atom `NAME(a, b, ...)` in `nvars` variables.
+/// Quasisymmetric atoms `M(α)` and `F(α)` are resolved here.
+fn named_atom(name: &str, args: &[usize], nvars: Option<usize>) -> MathResult<RatPoly> {
+    let _ = (args, nvars);
+    Err(MathError::InvalidInput(format!(
+        "'{name}(...)' is not available in this build; accepted: numbers, variables x1..xn, + - * / ^ and parentheses"
+    )))
+}
+
+fn constant_value(p: &RatPoly) -> Option<BigRational> {
+    match p.terms() {
+        [] => Some(BigRational::zero()),
+        [(m, c)] if m.degree() == 0 => Some(c.clone()),
+        _ => None,
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn text(s: &str, n: Option<usize>) -> String {
+        parse_poly(s, n)
+            .map(|p| p.to_text())
+            .unwrap_or_else(|e| format!("ERR {e}"))
+    }
+
+    #[test]
+    fn notation_variants() {
+        assert_eq!(text("x1 + x_2 + x_{3}", None), "x1 + x2 + x3");
+        assert_eq!(text("2x1 x2", None), "2 x1 x2");
+        assert_eq!(text("3/2 x1 - x1/2", None), "x1");
+        assert_eq!(text("0.25 x2 * 4", None), "x2");
+        assert_eq!(text("-(x1 - x2)^2", None), "-x1^2 + 2 x1 x2 - x2^2");
+        assert_eq!(text("2(x1+1)", None), "2 x1 + 2");
+        assert_eq!(text("x1^0", None), "1");
+        assert_eq!(text("x1 − x2 · x3", None), "x1 - x2 x3");
+        assert_eq!(text("0", Some(3)), "0");
+    }
+
+    #[test]
+    fn errors_mark_the_column() {
+        for (input, col) in [
+            ("2x1 + * x3", 7),
+            ("x1 +", 5),
+            ("(x1 + x2", 9),
+            ("x1^-1", 4),
+            ("x1 $ x2", 4),
+            ("x9", 1),
+            ("x1/x2", 4),
+            ("", 1),
+            ("x1^2^3", 5),
+        ] {
+            match parse_poly(input, Some(4)) {
+                Err(MathError::Syntax { column, .. }) => assert_eq!(column, col, "input {input:?}"),
+                other => panic!("{input:?}: expected a syntax error, got {other:?}"),
+            }
+        }
+    }
+
+    #[test]
+    fn size_limits_are_errors_not_panics() {
+        assert!(parse_poly("x1^300", None).is_err());
+        assert!(parse_poly("x17", None).is_err());
+        assert!(parse_poly("(x1+x2+x3+x4+x5+x6+x7+x8+x9+x10+x11+x12)^200", None).is_err());
+    }
+}
