@@ -10,9 +10,21 @@ fn main() -> ExitCode {
     elbowroom::cli::run(argv)
 }
 
+#[cfg(feature = "gui")]
+fn open_explorer() -> ExitCode {
+    match elbowroom::gui::run(None) {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(e) => {
+            eprintln!("elbowroom: the explorer window could not open: {e}");
+            ExitCode::FAILURE
+        }
+    }
+}
+
+#[cfg(not(feature = "gui"))]
 fn open_explorer() -> ExitCode {
     println!(
-        "The explorer window is not built yet. Try a headless command, for example:\n  elbowroom schubert 31524\n  elbowroom --help"
+        "This build has no explorer window (built without the `gui` feature). Try a headless command, for example:\n  elbowroom schubert 31524\n  elbowroom --help"
     );
     ExitCode::SUCCESS
 }

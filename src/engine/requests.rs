@@ -2,10 +2,12 @@
 //! computed (always by the same `math` functions the command line uses).
 
 use crate::math::perm_class::PermClass;
+use crate::math::bumpless::{BumplessDream, bumpless_dreams};
+use crate::math::pipe_dream::{PipeDream, count_pipe_dreams, pipe_dreams};
+use crate::math::words::{count_reduced_words_with, reduced_words};
 use crate::math::schubert::SchubertTable;
 use crate::math::{IntPoly, MathError, MathResult, Perm, Progress};
-use num_bigint::{BigInt, BigUint};
-use std::fmt::Write as _;
+use num_bigint::BigUint;
 
 /// How the permutation browser filters and orders S_n.
 #[derive(Clone, Debug, PartialEq, Eq, Hash)]
@@ -31,7 +33,20 @@ pub enum JobKey {
     Browse(BrowseKey),
     /// The number of reduced pipe dreams S_w(1, ..., 1) of each permutation.
     Counts(Vec<Perm>),
+    /// The reduced pipe dreams of w (at most [`DREAM_LIMIT`]), in enumeration order.
+    PipeDreams(Perm),
+    /// The bumpless pipe dreams of w.
+    Bumpless(Perm),
+    /// The number of reduced words of w.
+    WordCount(Perm),
+    /// Page k (of [`WORD_PAGE`] words) of the reduced words of w in lex order.
+    Words(Perm, usize),
 }
+
+/// The most pipe dreams the explorer lists for one permutation.
+pub const DREAM_LIMIT: usize = 200_000;
+/// Reduced words per page.
+pub const WORD_PAGE: usize = 200;
 
 impl JobKey {
     /// A short description for the status line.
@@ -40,6 +55,10 @@ impl JobKey {
             JobKey::Schubert(w) => format!("Schubert polynomial of {w}"),
             JobKey::Browse(b) => format!("listing S_{}", b.n),
             JobKey::Counts(ws) => format!("counting pipe dreams of {} permutations", ws.len()),
+            JobKey::PipeDreams(w) => format!("pipe dreams of {w}"),
+            JobKey::Bumpless(w) => format!("bumpless pipe dreams of {w}"),
+            JobKey::WordCount(w) => format!("counting reduced words of {w}"),
+            JobKey::Words(w, p) => format!("reduced words of {w}, page {}", p + 1),
         }
     }
 }
@@ -55,6 +74,14 @@ pub enum Output {
     Counts(Vec<BigUint>),
     /// Plain text.
     Text(String),
+    /// Reduced pipe dreams.
+    Dreams(Vec<PipeDream>),
+    /// Bumpless pipe dreams.
+    Bumpless(Vec<BumplessDream>),
+    /// One exact count.
+    Count(BigUint),
+    /// Words (of a page).
+    Words(Vec<Vec<usize>>),
 }
 
 impl Output {
@@ -82,6 +109,38 @@ impl Output {
         }
     }
 
+    /// The pipe dreams, if these are.
+    pub fn dreams(&self) -> Option<&[PipeDream]> {
+        match self {
+            Output::Dreams(d) => Some(d),
+            _ => None,
+        }
+    }
+
+    /// The bumpless pipe dreams, if these are.
+    pub fn bumpless(&self) -> Option<&[BumplessDream]> {
+        match self {
+            Output::Bumpless(d) => Some(d),
+            _ => None,
+        }
+    }
+
+    /// The count, if this is one.
+    pub fn count(&self) -> Option<&BigUint> {
+        match self {
+            Output::Count(c) => Some(c),
+            _ => None,
+        }
+    }
+
+    /// The words, if these are.
+    pub fn words(&self) -> Option<&[Vec<usize>]> {
+        match self {
+            Output::Words(w) => Some(w),
+            _ => None,
+        }
+    }
+
     /// The text, if this is text.
     pub fn text(&self) -> Option<&str> {
         match self {
@@ -104,24 +163,52 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
         JobKey::Browse(b) => browse(b, progress).map(Output::Perms),
         JobKey::Counts(ws) => {
             progress.set_total(ws.len() as u64);
-            let mut table = SchubertTable::new();
             let mut out = Vec::with_capacity(ws.len());
             for w in ws {
                 progress.check()?;
-                out.push(to_count(table.get(w).coefficient_sum())?);
+                out.push(count_pipe_dreams(w));
                 progress.advance(1);
             }
             Ok(Output::Counts(out))
         }
+        JobKey::PipeDreams(w) => {
+            let total = count_pipe_dreams(w);
+            let total = u64::try_from(&total).unwrap_or(u64::MAX).min(DREAM_LIMIT as u64);
+            progress.set_total(total);
+            let mut out = Vec::new();
+            for d in pipe_dreams(w).take(DREAM_LIMIT) {
+                if out.len() % 256 == 0 {
+                    progress.check()?;
+                    progress.advance(256);
+                }
+                out.push(d);
+            }
+            Ok(Output::Dreams(out))
+        }
+        JobKey::Bumpless(w) => {
+            progress.set_total(1);
+            let out = bumpless_dreams(w);
+            progress.check()?;
+            progress.advance(1);
+            Ok(Output::Bumpless(out))
+        }
+        JobKey::WordCount(w) => count_reduced_words_with(w, progress).map(Output::Count),
+        JobKey::Words(w, page) => {
+            let skip = page.saturating_mul(WORD_PAGE);
+            progress.set_total((skip + WORD_PAGE) as u64);
+            let mut out = Vec::with_capacity(WORD_PAGE);
+            for (k, word) in reduced_words(w).enumerate().take(skip + WORD_PAGE) {
+                if k % 1024 == 0 {
+                    progress.check()?;
+                    progress.advance(1024);
+                }
+                if k >= skip {
+                    out.push(word);
+                }
+            }
+            Ok(Output::Words(out))
+        }
     }
-}
-
-fn to_count(c: BigInt) -> MathResult<BigUint> {
-    c.to_biguint().ok_or_else(|| {
-        let mut msg = String::new();
-        let _ = write!(msg, "a negative count {c}");
-        MathError::InvalidInput(msg)
-    })
 }
 
 fn browse(b: &BrowseKey, progress: &Progress) -> MathResult<Vec<Perm>> {

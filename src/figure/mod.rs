@@ -6,3 +6,7 @@ pub mod palette;
 pub mod scene;
 
 pub use scene::{Anchor, Color, Item, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
+pub mod look;
+pub mod dream;
+pub mod bumpless;
+pub mod wiring;
