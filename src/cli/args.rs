@@ -22,6 +22,16 @@ pub enum Command {
     Words(WordsArgs),
     /// The reduced pipe dreams of w (or its bumpless pipe dreams), and their number.
     Dreams(DreamsArgs),
+    /// Divided symmetrization DS_h(f) of a polynomial.
+    Divsym(DivsymArgs),
+    /// The Hessenberg class table a^h_w = DS_h(S_w), ℓ(w) = Σ (h(i) - i).
+    Hessenberg(HessenbergArgs),
+    /// The exact volume of the permutohedron P_λ.
+    Volume(VolumeArgs),
+    /// Mixed Eulerian numbers A_c.
+    Eulerian(EulerianArgs),
+    /// Combines the JSON outputs of the pieces of a sharded run into one.
+    Merge(MergeArgs),
 }
 
 /// Arguments of `elbowroom perm`.
@@ -80,4 +90,76 @@ pub struct DreamsArgs {
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
+}
+
+/// Arguments of `elbowroom divsym`.
+#[derive(Args, Debug)]
+pub struct DivsymArgs {
+    /// The polynomial f, for example "x1^2 x3 - 3/2 x2^3" (x1 or x_1; + - * ^ / and parentheses).
+    pub poly: String,
+    /// The number of variables n.
+    #[arg(long)]
+    pub n: usize,
+    /// A Hessenberg function h(1),...,h(n) (default h(i) = i+1, i.e. DS_n).
+    #[arg(long)]
+    pub h: Option<String>,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// Arguments of `elbowroom hessenberg`.
+#[derive(Args, Debug)]
+pub struct HessenbergArgs {
+    /// The number of variables n.
+    #[arg(long)]
+    pub n: usize,
+    /// A Hessenberg function h(1),...,h(n) (default h(i) = i+1 for i < n).
+    #[arg(long)]
+    pub h: Option<String>,
+    /// Compute only piece K of N (K/N): the permutations at listing positions i with i mod N = K-1.
+    #[arg(long)]
+    pub shard: Option<String>,
+    /// Print one JSON object instead of text.
+    #[arg(long, conflicts_with_all = ["csv", "latex"])]
+    pub json: bool,
+    /// Print CSV: a header and one row per permutation.
+    #[arg(long, conflicts_with = "latex")]
+    pub csv: bool,
+    /// Print a LaTeX tabular (w, ℓ(w), a^h_w).
+    #[arg(long)]
+    pub latex: bool,
+}
+
+/// Arguments of `elbowroom volume`.
+#[derive(Args, Debug)]
+pub struct VolumeArgs {
+    /// λ_1,...,λ_n: rationals in any order, repeats allowed (for example 3,1/2,-1,0).
+    #[arg(long, allow_hyphen_values = true)]
+    pub lambda: String,
+    /// Also give the volume as a polynomial in λ_1..λ_n (valid on λ_1 >= ... >= λ_n).
+    #[arg(long)]
+    pub polynomial: bool,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// Arguments of `elbowroom eulerian`.
+#[derive(Args, Debug)]
+pub struct EulerianArgs {
+    /// The number of variables n (compositions of n-1 into n-1 parts).
+    #[arg(long)]
+    pub n: usize,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// Arguments of `elbowroom merge`.
+#[derive(Args, Debug)]
+pub struct MergeArgs {
+    /// The JSON outputs of the pieces of one sharded run.
+    #[arg(required = true)]
+    pub files: Vec<std::path::PathBuf>,
 }

@@ -1,0 +1,134 @@
+//! `elbowroom volume --lambda l1,...,ln [--polynomial]`: the exact volume of P_λ.
+
+use super::args::VolumeArgs;
+use super::error::CliError;
+use super::json;
+use crate::math::permutohedron::{POLYNOMIAL_MAX_N, Permutohedron, volume_polynomial};
+use num_bigint::BigInt;
+use num_rational::BigRational;
+use serde_json::{Value, json};
+
+/// Vertices are listed (exactly, and for drawing) up to this many.
+pub const VERTEX_LIST_LIMIT: usize = 720;
+
+/// Parses one exact rational: `3`, `-3/2` or `0.25`.
+pub fn parse_rational(text: &str) -> Result<BigRational, CliError> {
+    let t = text.trim();
+    let bad = || {
+        CliError::Input(format!(
+            "'{t}' is not a rational number; accepted: integers, fractions p/q and decimals (3, -3/2, 0.25)"
+        ))
+    };
+    if let Some((p, q)) = t.split_once('/') {
+        let p: BigInt = p.trim().parse().map_err(|_| bad())?;
+        let q: BigInt = q.trim().parse().map_err(|_| bad())?;
+        if q == BigInt::from(0) {
+            return Err(CliError::Input(format!("'{t}' divides by zero")));
+        }
+        return Ok(BigRational::new(p, q));
+    }
+    if let Some((whole, frac)) = t.split_once('.') {
+        let negative = whole.trim_start().starts_with('-');
+        if frac.is_empty() || !frac.chars().all(|c| c.is_ascii_digit()) {
+            return Err(bad());
+        }
+        let w: BigInt = if whole.is_empty() || whole == "-" {
+            BigInt::from(0)
+        } else {
+            whole.parse().map_err(|_| bad())?
+        };
+        let f: BigInt = frac.parse().map_err(|_| bad())?;
+        let scale = num_traits::pow(BigInt::from(10), frac.len());
+        let mag = BigRational::new(f, scale);
+        let base = BigRational::from_integer(w);
+        return Ok(if negative { base - mag } else { base + mag });
+    }
+    let v: BigInt = t.parse().map_err(|_| bad())?;
+    Ok(BigRational::from_integer(v))
+}
+
+/// Parses `l1,...,ln`.
+pub fn parse_lambda(text: &str) -> Result<Vec<BigRational>, CliError> {
+    let parts: Vec<&str> = text.split([',', ' ']).filter(|s| !s.is_empty()).collect();
+    if parts.is_empty() {
+        return Err(CliError::Input(
+            "--lambda is empty; give λ_1,...,λ_n as rationals, for example 3,1/2,0".into(),
+        ));
+    }
+    parts.iter().map(|p| parse_rational(p)).collect()
+}
+
+/// Runs the command.
+pub fn run(args: &VolumeArgs) -> Result<String, CliError> {
+    let lambda = parse_lambda(&args.lambda)?;
+    let p = Permutohedron::new(&lambda)?;
+    let n = p.n();
+    let volume = p.volume();
+    let count = p.vertex_count();
+    let polynomial = if args.polynomial {
+        if n > POLYNOMIAL_MAX_N {
+            return Err(CliError::Input(format!(
+                "--polynomial is available for n <= {POLYNOMIAL_MAX_N} (it has C(2n-2, n-1) terms); λ has {n} entries"
+            )));
+        }
+        Some(volume_polynomial(n)?)
+    } else {
+        None
+    };
+    let listed = if count <= num_bigint::BigUint::from(VERTEX_LIST_LIMIT) {
+        Some(p.vertices(VERTEX_LIST_LIMIT)?)
+    } else {
+        None
+    };
+    if args.json {
+        let mut v = json!({
+            "n": n,
+            "lambda": p.lambda().iter().map(json::exact).collect::<Vec<Value>>(),
+            "volume": json::exact(&volume),
+            "vertices": json::exact(&count),
+        });
+        let Some(obj) = v.as_object_mut() else {
+            return Err(CliError::Failed("could not build the output".into()));
+        };
+        if let Some(poly) = &polynomial {
+            obj.insert("polynomial".into(), json::poly(poly));
+        }
+        if let Some(vs) = &listed {
+            let exact: Vec<Value> = vs
+                .iter()
+                .map(|v| Value::Array(v.iter().map(json::exact).collect()))
+                .collect();
+            obj.insert("vertex_list".into(), Value::Array(exact));
+            if n == 3 || n == 4 {
+                let points = Permutohedron::drawing_coordinates(vs);
+                let edges: Vec<Value> = p.edges(vs).iter().map(|(a, b)| json!([a, b])).collect();
+                obj.insert(
+                    "drawing".into(),
+                    json!({"dimension": n - 1, "points": points, "edges": edges}),
+                );
+            }
+        }
+        return Ok(json::render(&v));
+    }
+    let shown: Vec<String> = p.lambda().iter().map(|v| v.to_string()).collect();
+    let mut out = format!(
+        "λ (sorted)  ({})\nvolume      {volume}\nvertices    {count}\n",
+        shown.join(", ")
+    );
+    if let Some(poly) = &polynomial {
+        out.push_str(&format!(
+            "polynomial  {poly}\n            (x_i stands for λ_i; valid for λ_1 >= ... >= λ_n)\n"
+        ));
+    }
+    if let Some(vs) = &listed
+        && n <= 4
+    {
+        let edges = p.edges(vs);
+        out.push_str(&format!("edges       {}\n", edges.len()));
+        for (k, v) in vs.iter().enumerate() {
+            let c: Vec<String> = v.iter().map(|x| x.to_string()).collect();
+            out.push_str(&format!("  v{:<3} ({})\n", k, c.join(", ")));
+        }
+    }
+    Ok(out)
+}

@@ -1,0 +1,235 @@
+//! Hessenberg functions h: [n] -> [n] and the two products they define.
+//!
+//! A Hessenberg function is weakly increasing with h(i) >= i and h(n) = n.
+//! It defines the denominator D_h = Π_{i < j <= h(i)} (x_i - x_j) of the divided
+//! symmetrization DS_h, and its complement Q_h = Π_{i < j, j > h(i)} (x_i - x_j),
+//! so that D_h · Q_h = Δ = Π_{i<j} (x_i - x_j). The number of factors of D_h,
+//! Σ_i (h(i) - i), is the dimension of the regular Hessenberg variety of h.
+
+use super::error::{MathError, MathResult};
+use super::perm::MAX_N;
+use super::poly::{IntPoly, RatPoly};
+use num_rational::BigRational;
+use num_traits::One;
+use std::fmt;
+
+/// A Hessenberg function, stored 1-based: `values()[i - 1] = h(i)`.
+#[derive(Clone, PartialEq, Eq, Hash, Debug, PartialOrd, Ord)]
+pub struct HessenbergFn {
+    values: Vec<usize>,
+}
+
+const ACCEPTED: &str = "a Hessenberg function h(1),...,h(n) is weakly increasing, with i <= h(i) <= n and h(n) = n (for example 2,3,4,4)";
+
+impl HessenbergFn {
+    /// Checks and wraps h(1), ..., h(n).
+    pub fn new(values: &[usize]) -> MathResult<HessenbergFn> {
+        let n = values.len();
+        if n == 0 {
+            return Err(MathError::InvalidInput(format!(
+                "empty Hessenberg function; {ACCEPTED}"
+            )));
+        }
+        if n > MAX_N {
+            return Err(MathError::OutOfRange(format!(
+                "n = {n}; Hessenberg functions of size up to {MAX_N} are supported"
+            )));
+        }
+        for (k, &v) in values.iter().enumerate() {
+            let i = k + 1;
+            if v < i || v > n {
+                return Err(MathError::InvalidInput(format!(
+                    "h({i}) = {v} is not in {i}..{n}; {ACCEPTED}"
+                )));
+            }
+            if k > 0 && v < values[k - 1] {
+                return Err(MathError::InvalidInput(format!(
+                    "h({i}) = {v} is smaller than h({}) = {}; {ACCEPTED}",
+                    i - 1,
+                    values[k - 1]
+                )));
+            }
+        }
+        Ok(HessenbergFn {
+            values: values.to_vec(),
+        })
+    }
+
+    /// Parses `2,3,4,4` (commas or spaces); if `n` is given the length must be n.
+    pub fn parse(text: &str, n: Option<usize>) -> MathResult<HessenbergFn> {
+        let mut values = Vec::new();
+        for tok in text.split([',', ' ', '\t']).filter(|t| !t.is_empty()) {
+            let v: usize = tok.trim().parse().map_err(|_| {
+                MathError::InvalidInput(format!(
+                    "'{tok}' in the Hessenberg function '{text}' is not a positive integer; {ACCEPTED}"
+                ))
+            })?;
+            values.push(v);
+        }
+        if let Some(n) = n
+            && values.len() != n
+        {
+            return Err(MathError::InvalidInput(format!(
+                "the Hessenberg function '{text}' has {} entries but n = {n}; {ACCEPTED}",
+                values.len()
+            )));
+        }
+        HessenbergFn::new(&values)
+    }
+
+    /// The default h(i) = i + 1 for i < n, h(n) = n, whose DS_h is Postnikov's DS_n.
+    pub fn default_for(n: usize) -> MathResult<HessenbergFn> {
+        let values: Vec<usize> = (1..=n).map(|i| (i + 1).min(n)).collect();
+        HessenbergFn::new(&values)
+    }
+
+    /// Every Hessenberg function of size n, in lexicographic order (Catalan(n) of them).
+    pub fn all(n: usize) -> Vec<HessenbergFn> {
+        fn extend(prefix: &mut Vec<usize>, n: usize, out: &mut Vec<HessenbergFn>) {
+            let i = prefix.len() + 1;
+            if i > n {
+                out.push(HessenbergFn {
+                    values: prefix.clone(),
+                });
+                return;
+            }
+            let low = prefix.last().copied().unwrap_or(1).max(i);
+            for v in low..=n {
+                prefix.push(v);
+                extend(prefix, n, out);
+                prefix.pop();
+            }
+        }
+        let mut out = Vec::new();
+        if (1..=MAX_N).contains(&n) {
+            extend(&mut Vec::new(), n, &mut out);
+        }
+        out
+    }
+
+    /// The size n.
+    pub fn n(&self) -> usize {
+        self.values.len()
+    }
+
+    /// h(1), ..., h(n).
+    pub fn values(&self) -> &[usize] {
+        &self.values
+    }
+
+    /// h(i) for 1 <= i <= n.
+    pub fn at(&self, i: usize) -> usize {
+        self.values[i - 1]
+    }
+
+    /// Whether this is h(i) = i + 1 (i < n), the denominator of DS_n.
+    pub fn is_default(&self) -> bool {
+        self.values
+            .iter()
+            .enumerate()
+            .all(|(k, &v)| v == (k + 2).min(self.n()))
+    }
+
+    /// Σ_i (h(i) - i): the number of factors of D_h and the degree at which DS_h is a number.
+    pub fn dimension(&self) -> usize {
+        self.values
+            .iter()
+            .enumerate()
+            .map(|(k, &v)| v - (k + 1))
+            .sum()
+    }
+
+    /// The pairs (i, j), 1-based, i < j <= h(i): the factors x_i - x_j of D_h.
+    pub fn denominator_pairs(&self) -> Vec<(usize, usize)> {
+        let n = self.n();
+        let mut out = Vec::new();
+        for i in 1..=n {
+            for j in i + 1..=self.at(i) {
+                out.push((i, j));
+            }
+        }
+        out
+    }
+
+    /// The pairs (i, j), 1-based, i < j with j > h(i): the factors x_i - x_j of Q_h.
+    pub fn complement_pairs(&self) -> Vec<(usize, usize)> {
+        let n = self.n();
+        let mut out = Vec::new();
+        for i in 1..=n {
+            for j in self.at(i) + 1..=n {
+                out.push((i, j));
+            }
+        }
+        out
+    }
+
+    /// D_h = Π_{i < j <= h(i)} (x_i - x_j), evaluated at a rational point.
+    pub fn denominator_at(&self, point: &[BigRational]) -> BigRational {
+        let mut d = BigRational::one();
+        for (i, j) in self.denominator_pairs() {
+            d *= &point[i - 1] - &point[j - 1];
+        }
+        d
+    }
+
+    /// Q_h = Π_{i < j, j > h(i)} (x_i - x_j) as a polynomial (the class of the
+    /// regular Hessenberg variety in Anderson–Tymoczko's description).
+    pub fn complement_product(&self) -> MathResult<IntPoly> {
+        let n = self.n();
+        let mut q = IntPoly::one(n);
+        for (i, j) in self.complement_pairs() {
+            let factor = IntPoly::var(n, i - 1).sub(&IntPoly::var(n, j - 1));
+            q = q.mul(&factor)?;
+        }
+        Ok(q)
+    }
+
+    /// D_h as a polynomial with rational coefficients (used by reference methods).
+    pub fn denominator(&self) -> MathResult<RatPoly> {
+        let n = self.n();
+        let mut d = RatPoly::one(n);
+        for (i, j) in self.denominator_pairs() {
+            let factor = RatPoly::var(n, i - 1).sub(&RatPoly::var(n, j - 1));
+            d = d.mul(&factor)?;
+        }
+        Ok(d)
+    }
+}
+
+impl fmt::Display for HessenbergFn {
+    fn fmt(&self, f: &mut fmt::Formatter<'_>) -> fmt::Result {
+        let parts: Vec<String> = self.values.iter().map(|v| v.to_string()).collect();
+        write!(f, "({})", parts.join(","))
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn validation_explains_what_is_accepted() {
+        assert!(HessenbergFn::new(&[2, 3, 3]).is_ok());
+        let e = HessenbergFn::new(&[2, 1, 3]).unwrap_err().to_string();
+        assert!(e.contains("weakly increasing"), "{e}");
+        assert!(HessenbergFn::new(&[3, 3, 2]).is_err());
+        assert!(HessenbergFn::new(&[1, 2, 4]).is_err());
+        assert!(HessenbergFn::new(&[]).is_err());
+        assert!(HessenbergFn::parse("2,3", Some(3)).is_err());
+        assert!(HessenbergFn::parse("2,x,3", None).is_err());
+        assert_eq!(
+            HessenbergFn::default_for(4).unwrap().values(),
+            &[2, 3, 4, 4]
+        );
+        assert_eq!(HessenbergFn::default_for(4).unwrap().dimension(), 3);
+    }
+
+    #[test]
+    fn there_are_catalan_many_hessenberg_functions() {
+        // Catalan numbers, OEIS A000108
+        let catalan = [1usize, 1, 2, 5, 14, 42, 132, 429];
+        for (n, &count) in catalan.iter().enumerate().skip(1) {
+            assert_eq!(HessenbergFn::all(n).len(), count, "n = {n}");
+        }
+    }
+}
