@@ -4,7 +4,15 @@
 use crate::math::perm_class::PermClass;
 use crate::math::bumpless::{BumplessDream, bumpless_dreams};
 use crate::math::pipe_dream::{PipeDream, count_pipe_dreams, pipe_dreams};
+use crate::math::divsym::{DividedSymmetrization, divided_symmetrize};
+use crate::math::hessenberg::HessenbergFn;
+use crate::math::parse::parse_poly;
+use crate::math::hessenberg_table::{HessenbergTable, hessenberg_table};
+use crate::math::mixed_eulerian::mixed_eulerian_numbers;
+use crate::math::permutohedron::Permutohedron;
 use crate::math::words::{count_reduced_words_with, reduced_words};
+use num_bigint::BigInt;
+use num_rational::BigRational;
 use crate::math::schubert::SchubertTable;
 use crate::math::{IntPoly, MathError, MathResult, Perm, Progress};
 use num_bigint::BigUint;
@@ -41,6 +49,18 @@ pub enum JobKey {
     WordCount(Perm),
     /// Page k (of [`WORD_PAGE`] words) of the reduced words of w in lex order.
     Words(Perm, usize),
+    /// The table a^h_w = DS_h(S_w) over w of length |h|, for h(1), ..., h(n).
+    Hessenberg(Vec<usize>),
+    /// The exact volume of P_λ.
+    Volume(Vec<BigRational>),
+    /// Vol P_λ at λ = (1 - t) a + t b for t = k / m, k = 0..=m.
+    VolumeSegment(Vec<BigRational>, Vec<BigRational>, usize),
+    /// The mixed Eulerian numbers A_c of n.
+    Eulerian(usize),
+    /// The vertices and edges of P_λ with drawing coordinates (n <= 5).
+    Polytope(Vec<BigRational>),
+    /// DS_h(f) for a typed polynomial f (as typed) and h(1), ..., h(n).
+    DivSym(String, Vec<usize>),
 }
 
 /// The most pipe dreams the explorer lists for one permutation.
@@ -57,8 +77,78 @@ impl JobKey {
             JobKey::Counts(ws) => format!("counting pipe dreams of {} permutations", ws.len()),
             JobKey::PipeDreams(w) => format!("pipe dreams of {w}"),
             JobKey::Bumpless(w) => format!("bumpless pipe dreams of {w}"),
-            JobKey::WordCount(w) => format!("counting reduced words of {w}"),
+            JobKey::Hessenberg(h) => {
+            let h = HessenbergFn::new(h)?;
+            hessenberg_table(&h, &|_| true, progress).map(Output::Hessenberg)
+        }
+        JobKey::Volume(lambda) => {
+            progress.set_total(1);
+            let v = Permutohedron::new(lambda)?.volume();
+            progress.advance(1);
+            Ok(Output::Rational(v))
+        }
+        JobKey::VolumeSegment(a, b, m) => {
+            if a.len() != b.len() || *m == 0 {
+                return Err(MathError::InvalidInput(
+                    "the two ends of the segment need the same number of entries".into(),
+                ));
+            }
+            progress.set_total(*m as u64 + 1);
+            let mut out = Vec::with_capacity(m + 1);
+            for k in 0..=*m {
+                progress.check()?;
+                let t = BigRational::new(BigInt::from(k), BigInt::from(*m));
+                let one_minus = BigRational::from_integer(BigInt::from(1)) - &t;
+                let lambda: Vec<BigRational> = a
+                    .iter()
+                    .zip(b)
+                    .map(|(x, y)| &one_minus * x + &t * y)
+                    .collect();
+                out.push((t, Permutohedron::new(&lambda)?.volume()));
+                progress.advance(1);
+            }
+            Ok(Output::Samples(out))
+        }
+        JobKey::Eulerian(n) => mixed_eulerian_numbers(*n, progress).map(Output::Eulerian),
+        JobKey::Polytope(lambda) => {
+            let p = Permutohedron::new(lambda)?;
+            if p.n() > 5 {
+                return Err(MathError::OutOfRange(
+                    "P_λ is drawn for n <= 5".into(),
+                ));
+            }
+            let vertices = p.vertices(120)?;
+            let edges = p.edges(&vertices);
+            let coords = Permutohedron::drawing_coordinates(&vertices);
+            let labels = vertices
+                .iter()
+                .map(|v| {
+                    let t: Vec<String> = v.iter().map(|x| x.to_string()).collect();
+                    format!("({})", t.join(", "))
+                })
+                .collect();
+            Ok(Output::Polytope(PolytopeDrawing {
+                labels,
+                coords,
+                edges,
+            }))
+        }
+        JobKey::DivSym(text, h) => {
+            progress.set_total(1);
+            let h = HessenbergFn::new(h)?;
+            let f = parse_poly(text, Some(h.n()))?;
+            let out = divided_symmetrize(&f, &h)?;
+            progress.advance(1);
+            Ok(Output::DivSym(out))
+        }
+        JobKey::WordCount(w) => format!("counting reduced words of {w}"),
             JobKey::Words(w, p) => format!("reduced words of {w}, page {}", p + 1),
+            JobKey::Hessenberg(h) => format!("Hessenberg table of h = {h:?}"),
+            JobKey::Volume(_) => "volume of P_λ".to_string(),
+            JobKey::VolumeSegment(..) => "volumes along a segment".to_string(),
+            JobKey::Eulerian(n) => format!("mixed Eulerian numbers of {n}"),
+            JobKey::Polytope(_) => "vertices of P_λ".to_string(),
+            JobKey::DivSym(_, h) => format!("divided symmetrization for h = {h:?}"),
         }
     }
 }
@@ -82,6 +172,29 @@ pub enum Output {
     Count(BigUint),
     /// Words (of a page).
     Words(Vec<Vec<usize>>),
+    /// A Hessenberg class table.
+    Hessenberg(HessenbergTable),
+    /// One exact rational.
+    Rational(BigRational),
+    /// Exact samples (t, value).
+    Samples(Vec<(BigRational, BigRational)>),
+    /// Mixed Eulerian numbers (c, A_c).
+    Eulerian(Vec<(Vec<u32>, BigInt)>),
+    /// A polytope for drawing: vertex labels, coordinates (floats, for pictures) and edges.
+    Polytope(PolytopeDrawing),
+    /// A divided symmetrization.
+    DivSym(DividedSymmetrization),
+}
+
+/// The vertices and edges of a permutohedron, with coordinates for drawing.
+#[derive(Clone, Debug)]
+pub struct PolytopeDrawing {
+    /// Each vertex as text, e.g. `(3, 1, 2)`.
+    pub labels: Vec<String>,
+    /// Coordinates in the hyperplane Σ x_i = Σ λ_i (n - 1 of them per vertex).
+    pub coords: Vec<Vec<f64>>,
+    /// Pairs of adjacent vertices.
+    pub edges: Vec<(usize, usize)>,
 }
 
 impl Output {
@@ -141,6 +254,22 @@ impl Output {
         }
     }
 
+    /// The Hessenberg table, if this is one.
+    pub fn hessenberg(&self) -> Option<&HessenbergTable> {
+        match self {
+            Output::Hessenberg(t) => Some(t),
+            _ => None,
+        }
+    }
+
+    /// The rational, if this is one.
+    pub fn rational(&self) -> Option<&BigRational> {
+        match self {
+            Output::Rational(r) => Some(r),
+            _ => None,
+        }
+    }
+
     /// The text, if this is text.
     pub fn text(&self) -> Option<&str> {
         match self {
@@ -191,6 +320,70 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
             progress.check()?;
             progress.advance(1);
             Ok(Output::Bumpless(out))
+        }
+        JobKey::Hessenberg(h) => {
+            let h = HessenbergFn::new(h)?;
+            hessenberg_table(&h, &|_| true, progress).map(Output::Hessenberg)
+        }
+        JobKey::Volume(lambda) => {
+            progress.set_total(1);
+            let v = Permutohedron::new(lambda)?.volume();
+            progress.advance(1);
+            Ok(Output::Rational(v))
+        }
+        JobKey::VolumeSegment(a, b, m) => {
+            if a.len() != b.len() || *m == 0 {
+                return Err(MathError::InvalidInput(
+                    "the two ends of the segment need the same number of entries".into(),
+                ));
+            }
+            progress.set_total(*m as u64 + 1);
+            let mut out = Vec::with_capacity(m + 1);
+            for k in 0..=*m {
+                progress.check()?;
+                let t = BigRational::new(BigInt::from(k), BigInt::from(*m));
+                let one_minus = BigRational::from_integer(BigInt::from(1)) - &t;
+                let lambda: Vec<BigRational> = a
+                    .iter()
+                    .zip(b)
+                    .map(|(x, y)| &one_minus * x + &t * y)
+                    .collect();
+                out.push((t, Permutohedron::new(&lambda)?.volume()));
+                progress.advance(1);
+            }
+            Ok(Output::Samples(out))
+        }
+        JobKey::Eulerian(n) => mixed_eulerian_numbers(*n, progress).map(Output::Eulerian),
+        JobKey::Polytope(lambda) => {
+            let p = Permutohedron::new(lambda)?;
+            if p.n() > 5 {
+                return Err(MathError::OutOfRange(
+                    "P_λ is drawn for n <= 5".into(),
+                ));
+            }
+            let vertices = p.vertices(120)?;
+            let edges = p.edges(&vertices);
+            let coords = Permutohedron::drawing_coordinates(&vertices);
+            let labels = vertices
+                .iter()
+                .map(|v| {
+                    let t: Vec<String> = v.iter().map(|x| x.to_string()).collect();
+                    format!("({})", t.join(", "))
+                })
+                .collect();
+            Ok(Output::Polytope(PolytopeDrawing {
+                labels,
+                coords,
+                edges,
+            }))
+        }
+        JobKey::DivSym(text, h) => {
+            progress.set_total(1);
+            let h = HessenbergFn::new(h)?;
+            let f = parse_poly(text, Some(h.n()))?;
+            let out = divided_symmetrize(&f, &h)?;
+            progress.advance(1);
+            Ok(Output::DivSym(out))
         }
         JobKey::WordCount(w) => count_reduced_words_with(w, progress).map(Output::Count),
         JobKey::Words(w, page) => {

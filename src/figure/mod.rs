@@ -10,3 +10,5 @@ pub mod look;
 pub mod dream;
 pub mod bumpless;
 pub mod wiring;
+pub mod permutohedron;
+pub mod volume;

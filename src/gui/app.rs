@@ -5,7 +5,10 @@ use super::app_ctx::AppCtx;
 use super::picker::Picker;
 use super::status::{self, FrameTimes};
 use super::theme;
-use super::views::{self, dreams::DreamsView, words::WordsView};
+use super::views::{
+    self, dreams::DreamsView, hessenberg::HessenbergView, solid::SolidView, words::WordsView,
+    workbench::WorkbenchView,
+};
 use crate::engine::Engine;
 use crate::session::Session;
 use crate::session::model::View;
@@ -28,6 +31,12 @@ pub struct Explorer {
     pub dreams: DreamsView,
     /// The reduced-word view.
     pub words: WordsView,
+    /// The Hessenberg view.
+    pub hessenberg: HessenbergView,
+    /// The permutohedron view.
+    pub solid: SolidView,
+    /// The polynomial workbench.
+    pub workbench: WorkbenchView,
     times: FrameTimes,
     log_frames: bool,
 }
@@ -63,6 +72,9 @@ impl Explorer {
             picker: Picker::default(),
             dreams: DreamsView::default(),
             words: WordsView::default(),
+            hessenberg: HessenbergView::default(),
+            solid: SolidView::default(),
+            workbench: WorkbenchView::default(),
             times: FrameTimes::default(),
             log_frames: std::env::var_os("ELBOWROOM_FRAME_LOG").is_some(),
         }
@@ -111,6 +123,9 @@ impl Explorer {
             }
             match ctx.session.view {
                 View::Words => self.words.ui(ui, &mut ctx),
+                View::Hessenberg => self.hessenberg.ui(ui, &mut ctx),
+                View::Permutohedron => self.solid.ui(ui, &mut ctx),
+                View::Workbench => self.workbench.ui(ui, &mut ctx),
                 _ => self.dreams.ui(ui, &mut ctx),
             }
         });

@@ -28,6 +28,10 @@ pub struct DreamsView {
     hover_pipe: Option<usize>,
     /// What the last click did.
     pub note: Option<String>,
+    /// The dream drawn in the last frame.
+    pub shown: Option<PipeDream>,
+    /// Where the canvas was drawn in the last frame: its rectangle and screen points per figure unit.
+    pub canvas: Option<(egui::Rect, f32)>,
 }
 
 #[derive(Clone, PartialEq)]
@@ -168,6 +172,8 @@ impl DreamsView {
                 size: Some(egui::vec2(side, side)),
             };
             let r = scene_painter::show(ui, &scene, &opts);
+            self.canvas = Some((r.response.rect, r.scale));
+            self.shown = Some(dream.clone());
             self.hover_pipe = match r.hovered_where(|t| matches!(t, Tag::Pipe(_))) {
                 Some(Tag::Pipe(k)) => Some(k),
                 _ => None,

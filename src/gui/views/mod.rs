@@ -1,6 +1,9 @@
 //! The views of the central area, one file each, and their tab names.
 
 pub mod dreams;
+pub mod hessenberg;
+pub mod solid;
+pub mod workbench;
 pub mod words;
 
 use crate::session::model::View;
@@ -18,11 +21,10 @@ pub fn title(v: View) -> &'static str {
 }
 
 /// The views in tab order.
-pub const ORDER: [View; 6] = [
+pub const ORDER: [View; 5] = [
     View::Dreams,
     View::Words,
     View::Hessenberg,
-    View::Quotient,
     View::Permutohedron,
     View::Workbench,
 ];
