@@ -32,6 +32,12 @@ pub enum Command {
     Eulerian(EulerianArgs),
     /// Combines the JSON outputs of the pieces of a sharded run into one.
     Merge(MergeArgs),
+    /// The quasisymmetric quotient Q[x1..xn]/J_n: basis, graded dimensions, Gröbner basis.
+    Quotient(super::cmd_quotient::QuotientArgs),
+    /// The normal form of a polynomial modulo J_n, in the basis of standard monomials.
+    Reduce(super::cmd_reduce::ReduceArgs),
+    /// Positivity survey: reversed Schubert polynomials modulo J_n over S_n.
+    Survey(super::cmd_survey::SurveyArgs),
 }
 
 /// Arguments of `elbowroom perm`.

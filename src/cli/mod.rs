@@ -12,12 +12,16 @@ pub mod cmd_eulerian;
 pub mod cmd_hessenberg;
 pub mod cmd_merge;
 pub mod cmd_perm;
+pub mod cmd_quotient;
+pub mod cmd_reduce;
 pub mod cmd_schubert;
+pub mod cmd_survey;
 pub mod cmd_volume;
 pub mod cmd_words;
 pub mod error;
 pub mod interrupt;
 pub mod json;
+pub mod merge_survey;
 pub mod shard;
 
 pub use args::{Cli, Command};
@@ -67,6 +71,9 @@ pub fn execute(command: &Command) -> Result<String, CliError> {
         Command::Volume(a) => cmd_volume::run(a),
         Command::Eulerian(a) => cmd_eulerian::run(a),
         Command::Merge(a) => cmd_merge::run(a),
+        Command::Quotient(a) => cmd_quotient::run(a),
+        Command::Reduce(a) => cmd_reduce::run(a),
+        Command::Survey(a) => cmd_survey::run(a),
     }
 }
 

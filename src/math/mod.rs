@@ -6,8 +6,10 @@
 pub mod bumpless;
 pub mod divsym;
 pub mod error;
+pub mod groebner;
 pub mod hessenberg;
 pub mod hessenberg_table;
+pub mod lattice_path;
 pub mod mixed_eulerian;
 pub mod mono;
 pub mod parse;
@@ -19,7 +21,10 @@ pub mod pipe_moves;
 pub mod pipe_trace;
 pub mod poly;
 pub mod progress;
+pub mod quasisym;
+pub mod quotient;
 pub mod schubert;
+pub mod survey;
 pub mod symmetric;
 pub mod words;
 
