@@ -7,6 +7,7 @@ use crate::math::pipe_dream::{PipeDream, count_pipe_dreams, pipe_dreams};
 use crate::math::divsym::{DividedSymmetrization, divided_symmetrize};
 use crate::math::hessenberg::HessenbergFn;
 use crate::math::parse::parse_poly;
+use crate::math::quotient::{NormalForm, hilbert_series, normal_form, quotient};
 use crate::math::hessenberg_table::{HessenbergTable, hessenberg_table};
 use crate::math::mixed_eulerian::mixed_eulerian_numbers;
 use crate::math::permutohedron::Permutohedron;
@@ -61,6 +62,30 @@ pub enum JobKey {
     Polytope(Vec<BigRational>),
     /// DS_h(f) for a typed polynomial f (as typed) and h(1), ..., h(n).
     DivSym(String, Vec<usize>),
+    /// A normal form modulo J_n, with the Hilbert series of the quotient.
+    NormalForm(QuotientInput),
+}
+
+/// What the quotient view reduces.
+#[derive(Clone, Debug, PartialEq, Eq, Hash)]
+pub enum QuotientInput {
+    /// The reversed Schubert polynomial S_w(x_n, ..., x_1) in n = |w| variables.
+    ReversedSchubert(Perm),
+    /// A typed polynomial (as typed) in n variables.
+    Typed(String, usize),
+}
+
+/// A normal form with what the quotient view shows beside it.
+#[derive(Clone, Debug)]
+pub struct Reduced {
+    /// The number of variables.
+    pub n: usize,
+    /// The polynomial reduced, as text.
+    pub input: String,
+    /// Its normal form.
+    pub normal: NormalForm,
+    /// The graded dimensions of Q[x]/J_n.
+    pub hilbert: Vec<usize>,
 }
 
 /// The most pipe dreams the explorer lists for one permutation.
@@ -77,71 +102,7 @@ impl JobKey {
             JobKey::Counts(ws) => format!("counting pipe dreams of {} permutations", ws.len()),
             JobKey::PipeDreams(w) => format!("pipe dreams of {w}"),
             JobKey::Bumpless(w) => format!("bumpless pipe dreams of {w}"),
-            JobKey::Hessenberg(h) => {
-            let h = HessenbergFn::new(h)?;
-            hessenberg_table(&h, &|_| true, progress).map(Output::Hessenberg)
-        }
-        JobKey::Volume(lambda) => {
-            progress.set_total(1);
-            let v = Permutohedron::new(lambda)?.volume();
-            progress.advance(1);
-            Ok(Output::Rational(v))
-        }
-        JobKey::VolumeSegment(a, b, m) => {
-            if a.len() != b.len() || *m == 0 {
-                return Err(MathError::InvalidInput(
-                    "the two ends of the segment need the same number of entries".into(),
-                ));
-            }
-            progress.set_total(*m as u64 + 1);
-            let mut out = Vec::with_capacity(m + 1);
-            for k in 0..=*m {
-                progress.check()?;
-                let t = BigRational::new(BigInt::from(k), BigInt::from(*m));
-                let one_minus = BigRational::from_integer(BigInt::from(1)) - &t;
-                let lambda: Vec<BigRational> = a
-                    .iter()
-                    .zip(b)
-                    .map(|(x, y)| &one_minus * x + &t * y)
-                    .collect();
-                out.push((t, Permutohedron::new(&lambda)?.volume()));
-                progress.advance(1);
-            }
-            Ok(Output::Samples(out))
-        }
-        JobKey::Eulerian(n) => mixed_eulerian_numbers(*n, progress).map(Output::Eulerian),
-        JobKey::Polytope(lambda) => {
-            let p = Permutohedron::new(lambda)?;
-            if p.n() > 5 {
-                return Err(MathError::OutOfRange(
-                    "P_λ is drawn for n <= 5".into(),
-                ));
-            }
-            let vertices = p.vertices(120)?;
-            let edges = p.edges(&vertices);
-            let coords = Permutohedron::drawing_coordinates(&vertices);
-            let labels = vertices
-                .iter()
-                .map(|v| {
-                    let t: Vec<String> = v.iter().map(|x| x.to_string()).collect();
-                    format!("({})", t.join(", "))
-                })
-                .collect();
-            Ok(Output::Polytope(PolytopeDrawing {
-                labels,
-                coords,
-                edges,
-            }))
-        }
-        JobKey::DivSym(text, h) => {
-            progress.set_total(1);
-            let h = HessenbergFn::new(h)?;
-            let f = parse_poly(text, Some(h.n()))?;
-            let out = divided_symmetrize(&f, &h)?;
-            progress.advance(1);
-            Ok(Output::DivSym(out))
-        }
-        JobKey::WordCount(w) => format!("counting reduced words of {w}"),
+            JobKey::WordCount(w) => format!("counting reduced words of {w}"),
             JobKey::Words(w, p) => format!("reduced words of {w}, page {}", p + 1),
             JobKey::Hessenberg(h) => format!("Hessenberg table of h = {h:?}"),
             JobKey::Volume(_) => "volume of P_λ".to_string(),
@@ -149,6 +110,7 @@ impl JobKey {
             JobKey::Eulerian(n) => format!("mixed Eulerian numbers of {n}"),
             JobKey::Polytope(_) => "vertices of P_λ".to_string(),
             JobKey::DivSym(_, h) => format!("divided symmetrization for h = {h:?}"),
+            JobKey::NormalForm(_) => "normal form modulo J_n".to_string(),
         }
     }
 }
@@ -184,6 +146,8 @@ pub enum Output {
     Polytope(PolytopeDrawing),
     /// A divided symmetrization.
     DivSym(DividedSymmetrization),
+    /// A normal form in the quotient.
+    Reduced(Reduced),
 }
 
 /// The vertices and edges of a permutohedron, with coordinates for drawing.
@@ -384,6 +348,27 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
             let out = divided_symmetrize(&f, &h)?;
             progress.advance(1);
             Ok(Output::DivSym(out))
+        }
+        JobKey::NormalForm(input) => {
+            progress.set_total(2);
+            let (n, f) = match input {
+                QuotientInput::ReversedSchubert(w) => {
+                    let s = SchubertTable::new().get(w);
+                    (w.n(), s.reverse_vars().to_rational())
+                }
+                QuotientInput::Typed(text, n) => (*n, parse_poly(text, Some(*n))?),
+            };
+            let q = quotient(n)?;
+            progress.advance(1);
+            progress.check()?;
+            let normal = normal_form(&q, &f)?;
+            progress.advance(1);
+            Ok(Output::Reduced(Reduced {
+                n,
+                input: f.to_text(),
+                normal,
+                hilbert: hilbert_series(&q),
+            }))
         }
         JobKey::WordCount(w) => count_reduced_words_with(w, progress).map(Output::Count),
         JobKey::Words(w, page) => {

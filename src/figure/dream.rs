@@ -53,11 +53,6 @@ pub fn passage_cmd(o: Pt, s: f32, enters: Side, leaves: Side) -> PathCmd {
     } else {
         o.x
     };
-    let cy = if matches!(enters, Side::Bottom) || matches!(leaves, Side::Bottom) {
-        o.y + s
-    } else {
-        o.y
-    };
     // each handle starts at its end point and runs perpendicular to the radius
     let toward = |p: Pt, q: Pt| {
         // tangent at p points toward the other side: along the side the corner is not on

@@ -12,3 +12,4 @@ pub mod bumpless;
 pub mod wiring;
 pub mod permutohedron;
 pub mod volume;
+pub mod paths;

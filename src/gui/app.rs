@@ -6,7 +6,8 @@ use super::picker::Picker;
 use super::status::{self, FrameTimes};
 use super::theme;
 use super::views::{
-    self, dreams::DreamsView, hessenberg::HessenbergView, solid::SolidView, words::WordsView,
+    self, dreams::DreamsView, hessenberg::HessenbergView, quotient::QuotientView, solid::SolidView,
+    words::WordsView,
     workbench::WorkbenchView,
 };
 use crate::engine::Engine;
@@ -33,6 +34,8 @@ pub struct Explorer {
     pub words: WordsView,
     /// The Hessenberg view.
     pub hessenberg: HessenbergView,
+    /// The quotient view.
+    pub quotient: QuotientView,
     /// The permutohedron view.
     pub solid: SolidView,
     /// The polynomial workbench.
@@ -42,9 +45,9 @@ pub struct Explorer {
 }
 
 /// The exploration the window opens on when no session is given: S_5 around
-/// the vexillary permutation 15342 (14 reduced pipe dreams), a few pins.
+/// the vexillary permutation 15432 (14 reduced pipe dreams), a few pins.
 pub fn demo_session() -> Session {
-    let current = vec![1, 5, 3, 4, 2];
+    let current = vec![1, 5, 4, 3, 2];
     Session {
         title: "pipe dreams in S_5".into(),
         n: 5,
@@ -54,7 +57,7 @@ pub fn demo_session() -> Session {
         pins: vec![
             vec![1, 4, 3, 2, 5],
             vec![2, 1, 4, 3, 5],
-            vec![1, 5, 3, 4, 2],
+            vec![1, 5, 4, 3, 2],
             vec![3, 1, 5, 2, 4],
             vec![5, 4, 3, 2, 1],
         ],
@@ -73,6 +76,7 @@ impl Explorer {
             dreams: DreamsView::default(),
             words: WordsView::default(),
             hessenberg: HessenbergView::default(),
+            quotient: QuotientView::default(),
             solid: SolidView::default(),
             workbench: WorkbenchView::default(),
             times: FrameTimes::default(),
@@ -86,7 +90,15 @@ impl Explorer {
         theme::apply(ui.ctx(), self.session.dark);
         self.shortcuts(ui);
         egui::Panel::bottom("status_line").show(ui, |ui| {
-            status::ui(ui, &self.engine, &mut self.message, &self.times);
+            ui.horizontal(|ui| {
+                let label = if self.session.dark { "light theme" } else { "dark theme" };
+                if ui.small_button(label).clicked() {
+                    self.session.dark = !self.session.dark;
+                }
+                ui.checkbox(&mut self.session.figure.labels, "figure labels");
+                ui.separator();
+                status::ui(ui, &self.engine, &mut self.message, &self.times);
+            });
         });
         egui::Panel::left("picker")
             .default_size(300.0)
@@ -103,13 +115,6 @@ impl Explorer {
                 for v in views::ORDER {
                     ui.selectable_value(&mut self.session.view, v, views::title(v));
                 }
-                ui.with_layout(egui::Layout::right_to_left(egui::Align::Center), |ui| {
-                    let label = if self.session.dark { "light theme" } else { "dark theme" };
-                    if ui.button(label).clicked() {
-                        self.session.dark = !self.session.dark;
-                    }
-                    ui.checkbox(&mut self.session.figure.labels, "labels");
-                });
             });
         });
         egui::CentralPanel::default().show(ui, |ui| {
@@ -124,6 +129,7 @@ impl Explorer {
             match ctx.session.view {
                 View::Words => self.words.ui(ui, &mut ctx),
                 View::Hessenberg => self.hessenberg.ui(ui, &mut ctx),
+                View::Quotient => self.quotient.ui(ui, &mut ctx),
                 View::Permutohedron => self.solid.ui(ui, &mut ctx),
                 View::Workbench => self.workbench.ui(ui, &mut ctx),
                 _ => self.dreams.ui(ui, &mut ctx),

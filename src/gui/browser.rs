@@ -121,7 +121,7 @@ impl Browser {
                         .and_then(|o| o.as_ref())
                         .and_then(|out| out.counts())
                         .and_then(|c| c.get(row - page * PAGE))
-                        .map_or("…".to_string(), |c| c.to_string());
+                        .map_or("...".to_string(), |c| c.to_string());
                     ui.horizontal(|ui| {
                         let text = egui::RichText::new(w.to_string()).monospace();
                         if ui.selectable_label(w == current, text).clicked() {

@@ -76,14 +76,14 @@ impl Picker {
                 ctx.go_to(next.unwrap_or_else(|| Perm::identity(n)));
             }
             if ui
-                .add_enabled(ctx.session.history_pos > 0, egui::Button::new("◀ back"))
+                .add_enabled(ctx.session.history_pos > 0, egui::Button::new("< back"))
                 .clicked()
             {
                 step_history(ctx.session, -1);
             }
             let can_forward = ctx.session.history_pos + 1 < ctx.session.history.len();
             if ui
-                .add_enabled(can_forward, egui::Button::new("forward ▶"))
+                .add_enabled(can_forward, egui::Button::new("forward >"))
                 .clicked()
             {
                 step_history(ctx.session, 1);
@@ -135,7 +135,7 @@ impl Picker {
         match self.count.fetch(ctx.engine, JobKey::Counts(vec![w.clone()])) {
             Fetch::Ready(out) => {
                 if let Some(c) = out.counts().and_then(|c| c.first()) {
-                    ui.label(format!("pipe dreams S_w(1,…,1) = {c}"));
+                    ui.label(format!("pipe dreams S_w(1,...,1) = {c}"));
                 }
             }
             Fetch::Running(..) => {
@@ -155,13 +155,13 @@ impl Picker {
         if n < 2 {
             return;
         }
-        for (left, title) in [(false, "w·s_i (swap positions)"), (true, "s_i·w (swap values)")] {
+        for (left, title) in [(false, "w·s_i (swap positions; + longer, - shorter)"), (true, "s_i·w (swap values)")] {
             ui.weak(title);
             ui.horizontal_wrapped(|ui| {
                 for i in 1..n {
                     let next = if left { w.s_times(i) } else { w.times_s(i) };
                     let Ok(next) = next else { continue };
-                    let arrow = if next.length() > w.length() { "↑" } else { "↓" };
+                    let arrow = if next.length() > w.length() { "+" } else { "-" };
                     let label = if left {
                         format!("s{i}·{arrow}")
                     } else {

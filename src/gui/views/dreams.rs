@@ -84,25 +84,26 @@ impl DreamsView {
 
     fn stepper(ui: &mut egui::Ui, index: &mut usize, total: usize, moved: &mut Option<PipeDream>) {
         let step = arrow_step(ui);
+        let mut target: Option<usize> = None;
         ui.horizontal(|ui| {
-            let mut go = |i: usize| {
-                *index = i;
-                *moved = None;
-            };
-            if ui.button("⏮").on_hover_text("first").clicked() {
-                go(0);
+            if ui.button("|<").on_hover_text("first").clicked() {
+                target = Some(0);
             }
-            if ui.button("◀").on_hover_text("previous (←)").clicked() || step < 0 {
-                go(index.saturating_sub(1));
+            if ui.button("<").on_hover_text("previous (left arrow)").clicked() || step < 0 {
+                target = Some(index.saturating_sub(1));
             }
             ui.label(egui::RichText::new(format!("{} of {total}", *index + 1)).strong());
-            if ui.button("▶").on_hover_text("next (→)").clicked() || step > 0 {
-                go((*index + 1).min(total.saturating_sub(1)));
+            if ui.button(">").on_hover_text("next (right arrow)").clicked() || step > 0 {
+                target = Some((*index + 1).min(total.saturating_sub(1)));
             }
-            if ui.button("⏭").on_hover_text("last").clicked() {
-                go(total.saturating_sub(1));
+            if ui.button(">|").on_hover_text("last").clicked() {
+                target = Some(total.saturating_sub(1));
             }
         });
+        if let Some(t) = target {
+            *index = t;
+            *moved = None;
+        }
     }
 
     fn dreams_ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
@@ -224,7 +225,7 @@ impl DreamsView {
                     dream.crosses().iter().map(|(i, j)| format!("({i},{j})")).collect();
                 ui.label(crosses.join(" "));
                 ui.add_space(6.0);
-                ui.weak("Click a cell with a dot: ladder move (or chute).\nShift-click: the inverse move.\n←/→ step through the dreams.");
+                ui.weak("Click a cell with a dot: ladder move (or chute).\nShift-click: the inverse move.\nLeft/Right arrow keys step through the dreams.");
                 if let Some(n) = &self.note {
                     ui.add_space(6.0);
                     ui.label(n);
@@ -253,12 +254,12 @@ impl DreamsView {
             return;
         }
         let total = list.len();
+        let look = Self::look(ctx);
         let place = &mut ctx.session.dreams;
         place.index = place.index.min(total - 1);
         let mut none = None;
         Self::stepper(ui, &mut place.index, total, &mut none);
         let d = &list[place.index];
-        let look = Self::look(ctx);
         let key = SceneKey::Bumpless(w.clone(), place.index, look);
         let scene = match &self.scene {
             Some((k, s)) if *k == key => s.clone(),
@@ -288,7 +289,7 @@ impl DreamsView {
                 ui.label(egui::RichText::new("blank tiles").weak());
                 ui.label(blanks.join(" "));
                 ui.add_space(6.0);
-                ui.weak("The first dream is the Rothe dream (blanks = Rothe diagram).\n←/→ step through the dreams.");
+                ui.weak("The first dream is the Rothe dream (blanks = Rothe diagram).\nLeft/Right arrow keys step through the dreams.");
             });
         });
     }

@@ -178,6 +178,7 @@ impl HessenbergView {
             negatives
         ));
         // sort order, cached per (h, column, direction)
+        let current = ctx.perm();
         let place = &mut ctx.session.hessenberg;
         let col = if place.sort_by.is_empty() { "perm".to_string() } else { place.sort_by.clone() };
         let needs = self
@@ -198,7 +199,6 @@ impl HessenbergView {
             self.order = Some((wanted.clone(), col.clone(), place.descending, idx));
         }
         let Some((_, _, _, idx)) = &self.order else { return };
-        let current = ctx.perm();
         let mut chosen: Option<Perm> = None;
         let widths = [120.0, 60.0, 140.0];
         ui.horizontal(|ui| {
@@ -207,7 +207,7 @@ impl HessenbergView {
                 .enumerate()
             {
                 let arrow = if col == key {
-                    if place.descending { " ▼" } else { " ▲" }
+                    if place.descending { " (desc)" } else { " (asc)" }
                 } else {
                     ""
                 };

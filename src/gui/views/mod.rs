@@ -2,6 +2,7 @@
 
 pub mod dreams;
 pub mod hessenberg;
+pub mod quotient;
 pub mod solid;
 pub mod workbench;
 pub mod words;
@@ -14,17 +15,18 @@ pub fn title(v: View) -> &'static str {
         View::Dreams => "Pipe dreams",
         View::Words => "Reduced words & wiring",
         View::Hessenberg => "Hessenberg classes",
-        View::Quotient => "Quotient normal form",
-        View::Permutohedron => "Permutohedron volume",
+        View::Quotient => "Quotient by J_n",
+        View::Permutohedron => "Permutohedra",
         View::Workbench => "Polynomial workbench",
     }
 }
 
 /// The views in tab order.
-pub const ORDER: [View; 5] = [
+pub const ORDER: [View; 6] = [
     View::Dreams,
     View::Words,
     View::Hessenberg,
+    View::Quotient,
     View::Permutohedron,
     View::Workbench,
 ];

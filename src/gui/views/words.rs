@@ -94,7 +94,7 @@ impl WordsView {
             labels: ctx.session.figure.labels,
         };
         ui.horizontal(|ui| {
-            if ui.add_enabled(page_no > 0, egui::Button::new("◀ page")).clicked() {
+            if ui.add_enabled(page_no > 0, egui::Button::new("< page")).clicked() {
                 *index = (page_no - 1) * WORD_PAGE;
                 self.moved = None;
             }
@@ -106,7 +106,7 @@ impl WordsView {
                 *index + 1
             ));
             let more = words.len() == WORD_PAGE && total.is_none_or(|t| shown_to < t);
-            if ui.add_enabled(more, egui::Button::new("page ▶")).clicked() {
+            if ui.add_enabled(more, egui::Button::new("page >")).clicked() {
                 *index = (page_no + 1) * WORD_PAGE;
                 self.moved = None;
             }

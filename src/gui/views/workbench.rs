@@ -15,6 +15,7 @@ use eframe::egui;
 #[derive(Default)]
 pub struct WorkbenchView {
     divsym: Slot,
+    normal: Slot,
     parsed: Option<(String, usize, Result<String, MathError>)>,
 }
 
@@ -109,6 +110,37 @@ impl WorkbenchView {
                 }
             }
             Fetch::Running(f, _) => computing(ui, "divided symmetrization", f, &self.divsym),
+            Fetch::Failed(e) => {
+                let e = e.clone();
+                show_parse_error(ui, &e);
+            }
+        }
+        ui.separator();
+        let m = h.len();
+        if m > crate::math::groebner::MAX_QUOTIENT_N {
+            return;
+        }
+        let key = JobKey::NormalForm(crate::engine::requests::QuotientInput::Typed(
+            ctx.session.workbench.poly.clone(),
+            m,
+        ));
+        match self.normal.fetch(ctx.engine, key) {
+            Fetch::Ready(out) => {
+                if let Output::Reduced(r) = out.as_ref() {
+                    ui.label(
+                        egui::RichText::new(format!(
+                            "normal form modulo J_{m}: {}",
+                            r.normal.poly.to_text()
+                        ))
+                        .monospace(),
+                    );
+                    ui.weak(format!(
+                        "{} standard monomials with nonzero coefficient; the Quotient tab draws them as lattice paths",
+                        r.normal.coefficients.len()
+                    ));
+                }
+            }
+            Fetch::Running(f, _) => computing(ui, "normal form", f, &self.normal),
             Fetch::Failed(e) => {
                 let e = e.clone();
                 show_parse_error(ui, &e);
