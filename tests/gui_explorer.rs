@@ -41,7 +41,7 @@ fn settle(h: &mut Harness<'static, Explorer>, done: impl Fn(&Harness<'static, Ex
 }
 
 fn has(h: &Harness<'static, Explorer>, text: &str) -> bool {
-    h.query_by_label_contains(text).is_some()
+    h.query_all_by_label_contains(text).next().is_some()
 }
 
 fn type_and_go(h: &mut Harness<'static, Explorer>, text: &str) {
@@ -102,7 +102,7 @@ fn the_arrow_keys_step_to_the_last_dream() {
 fn clicking_a_cell_applies_a_ladder_move() {
     let mut h = harness();
     settle(&mut h, |h| h.state().dreams.shown.is_some());
-    let dream = h.state().dreams.shown.clone().unwrap();
+    let dream = h.state().dreams.shown.unwrap();
     let w = dream.permutation();
     let (i, j) = dream
         .crosses()
@@ -126,7 +126,7 @@ fn clicking_a_cell_applies_a_ladder_move() {
         h.step();
     }
     h.step();
-    let shown = h.state().dreams.shown.clone().unwrap();
+    let shown = h.state().dreams.shown.unwrap();
     assert_ne!(shown, dream);
     assert_eq!(shown, expected);
     assert_eq!(shown.permutation(), w);
@@ -155,7 +155,13 @@ fn cancelling_a_job_leaves_the_window_usable() {
     settle(&mut h, |h| !h.state().engine.running().is_empty());
     h.get_all_by_label("cancel").next().unwrap().click();
     settle(&mut h, |h| has(h, "canceled"));
-    assert!(h.state().engine.running().iter().all(|r| r.progress.is_canceled()));
+    assert!(
+        h.state()
+            .engine
+            .running()
+            .iter()
+            .all(|r| r.progress.is_canceled())
+    );
     // the window still answers: back to the pipe dreams of a new permutation
     h.get_by_label("Pipe dreams").click();
     type_and_go(&mut h, "1432");

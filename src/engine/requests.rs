@@ -1,22 +1,22 @@
 //! What the explorer can ask for, keyed by its inputs, and how each answer is
 //! computed (always by the same `math` functions the command line uses).
 
-use crate::math::perm_class::PermClass;
 use crate::math::bumpless::{BumplessDream, bumpless_dreams};
-use crate::math::pipe_dream::{PipeDream, count_pipe_dreams, pipe_dreams};
 use crate::math::divsym::{DividedSymmetrization, divided_symmetrize};
 use crate::math::hessenberg::HessenbergFn;
-use crate::math::parse::parse_poly;
-use crate::math::quotient::{NormalForm, hilbert_series, normal_form, quotient};
 use crate::math::hessenberg_table::{HessenbergTable, hessenberg_table};
 use crate::math::mixed_eulerian::mixed_eulerian_numbers;
+use crate::math::parse::parse_poly;
+use crate::math::perm_class::PermClass;
 use crate::math::permutohedron::Permutohedron;
-use crate::math::words::{count_reduced_words_with, reduced_words};
-use num_bigint::BigInt;
-use num_rational::BigRational;
+use crate::math::pipe_dream::{PipeDream, count_pipe_dreams, pipe_dreams};
+use crate::math::quotient::{NormalForm, hilbert_series, normal_form, quotient};
 use crate::math::schubert::SchubertTable;
+use crate::math::words::{count_reduced_words_with, reduced_words};
 use crate::math::{IntPoly, MathError, MathResult, Perm, Progress};
+use num_bigint::BigInt;
 use num_bigint::BigUint;
+use num_rational::BigRational;
 
 /// How the permutation browser filters and orders S_n.
 #[derive(Clone, Debug, PartialEq, Eq, Hash)]
@@ -94,6 +94,12 @@ pub const DREAM_LIMIT: usize = 200_000;
 pub const WORD_PAGE: usize = 200;
 
 impl JobKey {
+    /// Whether the job is batch work that uses rayon inside (it then runs in
+    /// the engine's pool, which leaves one core to the window).
+    pub fn is_batch(&self) -> bool {
+        matches!(self, JobKey::Hessenberg(_) | JobKey::Eulerian(_))
+    }
+
     /// A short description for the status line.
     pub fn label(&self) -> String {
         match self {
@@ -266,7 +272,9 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
         }
         JobKey::PipeDreams(w) => {
             let total = count_pipe_dreams(w);
-            let total = u64::try_from(&total).unwrap_or(u64::MAX).min(DREAM_LIMIT as u64);
+            let total = u64::try_from(&total)
+                .unwrap_or(u64::MAX)
+                .min(DREAM_LIMIT as u64);
             progress.set_total(total);
             let mut out = Vec::new();
             for d in pipe_dreams(w).take(DREAM_LIMIT) {
@@ -321,9 +329,7 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
         JobKey::Polytope(lambda) => {
             let p = Permutohedron::new(lambda)?;
             if p.n() > 5 {
-                return Err(MathError::OutOfRange(
-                    "P_λ is drawn for n <= 5".into(),
-                ));
+                return Err(MathError::OutOfRange("P_λ is drawn for n <= 5".into()));
             }
             let vertices = p.vertices(120)?;
             let edges = p.edges(&vertices);
@@ -440,9 +446,15 @@ mod tests {
         assert_eq!(all.len(), 24);
         assert!(all.windows(2).all(|w| w[0].length() <= w[1].length()));
         // 132-avoiding permutations of S_4: Catalan(4) = 14 (OEIS A000108)
-        assert_eq!(browse(&key(Some(PermClass::Dominant)), &p).unwrap().len(), 14);
+        assert_eq!(
+            browse(&key(Some(PermClass::Dominant)), &p).unwrap().len(),
+            14
+        );
         // 2143-avoiding permutations of S_4: 23 (OEIS A005802)
-        assert_eq!(browse(&key(Some(PermClass::Vexillary)), &p).unwrap().len(), 23);
+        assert_eq!(
+            browse(&key(Some(PermClass::Vexillary)), &p).unwrap().len(),
+            23
+        );
     }
 
     #[test]
@@ -450,7 +462,12 @@ mod tests {
         // S_{1432}(1,1,1) = 5 and S_{w0} = x1^2 x2 has one pipe dream (Macdonald's table)
         let ws = vec![Perm::parse("1432").unwrap(), Perm::parse("321").unwrap()];
         let out = compute(&JobKey::Counts(ws), &Progress::new(0)).unwrap();
-        let c: Vec<String> = out.counts().unwrap().iter().map(|c| c.to_string()).collect();
+        let c: Vec<String> = out
+            .counts()
+            .unwrap()
+            .iter()
+            .map(|c| c.to_string())
+            .collect();
         assert_eq!(c, ["5", "1"]);
     }
 }

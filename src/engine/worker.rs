@@ -8,7 +8,7 @@ use super::requests::{self, JobKey, Output};
 use crate::math::{MathError, MathResult, Progress};
 use std::sync::atomic::{AtomicU64, Ordering};
 use std::sync::mpsc;
-use std::sync::{Arc, Mutex};
+use std::sync::{Arc, Mutex, OnceLock};
 
 /// A job listed in the status line.
 #[derive(Clone)]
@@ -58,7 +58,14 @@ impl Engine {
     /// Starts computing `key` (see [`requests::compute`]).
     pub fn start(&self, key: JobKey) -> Job {
         let k = key.clone();
-        self.start_with(key, move |p| requests::compute(&k, p))
+        if key.is_batch() {
+            self.start_with(key, move |p| match batch_pool() {
+                Some(pool) => pool.install(|| requests::compute(&k, p)),
+                None => requests::compute(&k, p),
+            })
+        } else {
+            self.start_with(key, move |p| requests::compute(&k, p))
+        }
     }
 
     /// Starts `work` on a background thread and files its result under `key`.
@@ -114,6 +121,21 @@ impl Engine {
             r.progress.cancel();
         }
     }
+}
+
+/// The pool batch jobs run in: one thread fewer than the machine has cores
+/// (at least one), so that the window keeps a core while a table computes.
+fn batch_pool() -> Option<&'static rayon::ThreadPool> {
+    static POOL: OnceLock<Option<rayon::ThreadPool>> = OnceLock::new();
+    POOL.get_or_init(|| {
+        let cores = std::thread::available_parallelism().map_or(2, |c| c.get());
+        rayon::ThreadPoolBuilder::new()
+            .num_threads(cores.saturating_sub(1).max(1))
+            .thread_name(|i| format!("elbowroom-batch-{i}"))
+            .build()
+            .ok()
+    })
+    .as_ref()
 }
 
 fn lock<T>(m: &Mutex<T>) -> std::sync::MutexGuard<'_, T> {

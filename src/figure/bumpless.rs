@@ -95,7 +95,9 @@ pub fn bumpless_scene(d: &BumplessDream, look: &Look) -> Scene {
         }
     }
     for col in 1..=n {
-        let Some((row, cmds)) = route(d, col) else { continue };
+        let Some((row, cmds)) = route(d, col) else {
+            continue;
+        };
         scene.push(
             ItemKind::Path {
                 cmds,

@@ -42,7 +42,10 @@ pub fn passage_cmd(o: Pt, s: f32, enters: Side, leaves: Side) -> PathCmd {
     let b = side_mid(o, s, leaves);
     let opposite = matches!(
         (enters, leaves),
-        (Side::Left, Side::Right) | (Side::Right, Side::Left) | (Side::Top, Side::Bottom) | (Side::Bottom, Side::Top)
+        (Side::Left, Side::Right)
+            | (Side::Right, Side::Left)
+            | (Side::Top, Side::Bottom)
+            | (Side::Bottom, Side::Top)
     );
     if opposite {
         return PathCmd::LineTo(b);
@@ -102,7 +105,9 @@ pub fn dream_scene(dream: &PipeDream, look: &Look, hints: &[(usize, usize)]) -> 
     for pipe in &trace.pipes {
         let mut cmds = Vec::with_capacity(pipe.cells.len() + 2);
         for (k, &(i, j)) in pipe.cells.iter().enumerate() {
-            let Some(tile) = trace.tile(i, j) else { continue };
+            let Some(tile) = trace.tile(i, j) else {
+                continue;
+            };
             let Some(p) = tile.passages.iter().find(|p| p.label == pipe.label) else {
                 continue;
             };
@@ -210,7 +215,8 @@ mod tests {
     #[test]
     fn elbows_are_quarter_circles() {
         // left side to top side of the unit cell: an arc about the top-left corner
-        let PathCmd::CubicTo(c1, c2, end) = passage_cmd(Pt::new(0.0, 0.0), 2.0, Side::Left, Side::Top)
+        let PathCmd::CubicTo(c1, c2, end) =
+            passage_cmd(Pt::new(0.0, 0.0), 2.0, Side::Left, Side::Top)
         else {
             panic!("an elbow is a curve");
         };

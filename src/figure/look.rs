@@ -24,7 +24,11 @@ impl Look {
 
     /// The background.
     pub fn background(&self) -> Color {
-        if self.dark { palette::SLATE } else { palette::PAPER }
+        if self.dark {
+            palette::SLATE
+        } else {
+            palette::PAPER
+        }
     }
 
     /// Text and strong lines.

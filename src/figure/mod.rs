@@ -11,10 +11,10 @@ pub mod table;
 pub mod tikz;
 
 pub use scene::{Anchor, Color, Item, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
-pub mod look;
-pub mod dream;
 pub mod bumpless;
-pub mod wiring;
+pub mod dream;
+pub mod look;
+pub mod paths;
 pub mod permutohedron;
 pub mod volume;
-pub mod paths;
+pub mod wiring;

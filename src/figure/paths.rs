@@ -37,7 +37,11 @@ pub fn path_grid_scene(panels: &[PathPanel], n: usize, columns: usize, look: &Lo
     for (k, panel) in panels.iter().enumerate() {
         let x0 = GAP + (k % columns) as f32 * (PANEL + GAP);
         let y0 = GAP + (k / columns) as f32 * (PANEL + CAPTION + GAP);
-        let frame = if panel.negative { look.alert() } else { look.grid() };
+        let frame = if panel.negative {
+            look.alert()
+        } else {
+            look.grid()
+        };
         scene.push(
             ItemKind::Path {
                 cmds: vec![
@@ -108,7 +112,11 @@ pub fn path_grid_scene(panels: &[PathPanel], n: usize, columns: usize, look: &Lo
         let mut cmds = Vec::new();
         for (s, &(a, b)) in vertices.iter().enumerate() {
             let p = at(a, b);
-            cmds.push(if s == 0 { PathCmd::MoveTo(p) } else { PathCmd::LineTo(p) });
+            cmds.push(if s == 0 {
+                PathCmd::MoveTo(p)
+            } else {
+                PathCmd::LineTo(p)
+            });
         }
         scene.push(
             ItemKind::Path {
@@ -138,7 +146,11 @@ pub fn path_grid_scene(panels: &[PathPanel], n: usize, columns: usize, look: &Lo
                 );
             }
         }
-        let text_color: Color = if panel.negative { look.alert() } else { look.ink() };
+        let text_color: Color = if panel.negative {
+            look.alert()
+        } else {
+            look.ink()
+        };
         scene.push(
             ItemKind::Text {
                 pos: Pt::new(x0 + PANEL / 2.0, y0 + PANEL + 6.0),
@@ -194,7 +206,10 @@ mod tests {
         let frames = scene
             .items
             .iter()
-            .filter(|i| matches!(i.tag, Tag::Panel(_)) && matches!(&i.kind, ItemKind::Path { fill: Some(_), .. }))
+            .filter(|i| {
+                matches!(i.tag, Tag::Panel(_))
+                    && matches!(&i.kind, ItemKind::Path { fill: Some(_), .. })
+            })
             .count();
         assert_eq!(frames, 2);
     }

@@ -46,7 +46,11 @@ pub fn polytope_scene(
             if dim >= 3 {
                 rotate(c, yaw, pitch)
             } else {
-                (c.first().copied().unwrap_or(0.0), c.get(1).copied().unwrap_or(0.0), 0.0)
+                (
+                    c.first().copied().unwrap_or(0.0),
+                    c.get(1).copied().unwrap_or(0.0),
+                    0.0,
+                )
             }
         })
         .collect();
@@ -56,7 +60,9 @@ pub fn polytope_scene(
         .fold(0.0f64, f64::max)
         .max(1e-9);
     let k = ((SIZE / 2.0 - PAD) as f64) / extent;
-    let to_pt = |(x, y, _): (f64, f64, f64)| Pt::new(SIZE / 2.0 + (x * k) as f32, SIZE / 2.0 - (y * k) as f32);
+    let to_pt = |(x, y, _): (f64, f64, f64)| {
+        Pt::new(SIZE / 2.0 + (x * k) as f32, SIZE / 2.0 - (y * k) as f32)
+    };
     let (zmin, zmax) = projected
         .iter()
         .fold((f64::MAX, f64::MIN), |(a, b), p| (a.min(p.2), b.max(p.2)));
@@ -73,7 +79,11 @@ pub fn polytope_scene(
         let mut cmds: Vec<PathCmd> = Vec::new();
         for (i, &v) in order.iter().enumerate() {
             let p = to_pt(projected[v]);
-            cmds.push(if i == 0 { PathCmd::MoveTo(p) } else { PathCmd::LineTo(p) });
+            cmds.push(if i == 0 {
+                PathCmd::MoveTo(p)
+            } else {
+                PathCmd::LineTo(p)
+            });
         }
         cmds.push(PathCmd::Close);
         let fill = label_color(3, 6);
@@ -127,7 +137,7 @@ pub fn polytope_scene(
             },
             Tag::Vertex(v),
         );
-        if look.labels && projected.len() <= 24 {
+        if look.labels && dim == 2 {
             let out_x = at.x - SIZE / 2.0;
             let out_y = at.y - SIZE / 2.0;
             let len = (out_x * out_x + out_y * out_y).sqrt().max(1e-3);
@@ -175,7 +185,11 @@ mod tests {
         let edges: Vec<(usize, usize)> = (0..6).map(|k| (k, (k + 1) % 6)).collect();
         let labels: Vec<String> = (0..6).map(|k| k.to_string()).collect();
         let s = polytope_scene(&hexagon, &edges, &labels, 0.0, 0.0, &Look::light());
-        let tagged = s.items.iter().filter(|i| matches!(i.tag, Tag::Vertex(_))).count();
+        let tagged = s
+            .items
+            .iter()
+            .filter(|i| matches!(i.tag, Tag::Vertex(_)))
+            .count();
         assert_eq!(tagged, 6);
     }
 }

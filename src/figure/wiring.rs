@@ -30,8 +30,7 @@ pub fn wiring_scene(word: &[usize], n: usize, look: &Look, selected: Option<usiz
             continue;
         }
         let (x0, x1) = (x(k), x(k) + STEP);
-        for h in 1..=n {
-            let wire = wire_at[h];
+        for (h, &wire) in wire_at.iter().enumerate().skip(1) {
             let target = if h == a {
                 a + 1
             } else if h == a + 1 {
@@ -55,8 +54,7 @@ pub fn wiring_scene(word: &[usize], n: usize, look: &Look, selected: Option<usiz
         wire_at.swap(a, a + 1);
     }
     let end = width - MARGIN;
-    for h in 1..=n {
-        let wire = wire_at[h];
+    for (h, &wire) in wire_at.iter().enumerate().skip(1) {
         paths[wire].push(PathCmd::LineTo(Pt::new(end, y(h))));
     }
     for (wire, cmds) in paths.into_iter().enumerate().skip(1) {
@@ -104,7 +102,7 @@ pub fn wiring_scene(word: &[usize], n: usize, look: &Look, selected: Option<usiz
         }
     }
     if look.labels {
-        for h in 1..=n {
+        for (h, &wire) in wire_at.iter().enumerate().skip(1) {
             scene.push(
                 ItemKind::Text {
                     pos: Pt::new(MARGIN - 8.0, y(h)),
@@ -118,7 +116,7 @@ pub fn wiring_scene(word: &[usize], n: usize, look: &Look, selected: Option<usiz
             scene.push(
                 ItemKind::Text {
                     pos: Pt::new(end + 8.0, y(h)),
-                    text: wire_at[h].to_string(),
+                    text: wire.to_string(),
                     size: 11.0,
                     color: look.ink(),
                     anchor: Anchor::Left,
@@ -145,7 +143,11 @@ mod tests {
             .items
             .iter()
             .filter_map(|i| match &i.kind {
-                ItemKind::Text { text, anchor: Anchor::Left, .. } => Some(text.clone()),
+                ItemKind::Text {
+                    text,
+                    anchor: Anchor::Left,
+                    ..
+                } => Some(text.clone()),
                 _ => None,
             })
             .collect();

@@ -2,13 +2,13 @@
 //! in the middle, the status line at the bottom.
 
 use super::app_ctx::AppCtx;
+use super::files::{FileAction, FilePanel};
 use super::picker::Picker;
 use super::status::{self, FrameTimes};
 use super::theme;
 use super::views::{
     self, dreams::DreamsView, hessenberg::HessenbergView, quotient::QuotientView, solid::SolidView,
-    words::WordsView,
-    workbench::WorkbenchView,
+    words::WordsView, workbench::WorkbenchView,
 };
 use crate::engine::Engine;
 use crate::session::Session;
@@ -40,6 +40,8 @@ pub struct Explorer {
     pub solid: SolidView,
     /// The polynomial workbench.
     pub workbench: WorkbenchView,
+    /// The save / open / export window.
+    pub files: FilePanel,
     times: FrameTimes,
     log_frames: bool,
 }
@@ -79,6 +81,7 @@ impl Explorer {
             quotient: QuotientView::default(),
             solid: SolidView::default(),
             workbench: WorkbenchView::default(),
+            files: FilePanel::default(),
             times: FrameTimes::default(),
             log_frames: std::env::var_os("ELBOWROOM_FRAME_LOG").is_some(),
         }
@@ -89,9 +92,27 @@ impl Explorer {
         let started = Instant::now();
         theme::apply(ui.ctx(), self.session.dark);
         self.shortcuts(ui);
+        let mut file_action = None;
         egui::Panel::bottom("status_line").show(ui, |ui| {
             ui.horizontal(|ui| {
-                let label = if self.session.dark { "light theme" } else { "dark theme" };
+                if ui.small_button("open").on_hover_text("Ctrl+O").clicked() {
+                    file_action = Some(FileAction::Open);
+                }
+                if ui.small_button("save").on_hover_text("Ctrl+S").clicked() {
+                    file_action = Some(FileAction::Save);
+                }
+                if ui
+                    .small_button("export figure")
+                    .on_hover_text("Ctrl+E")
+                    .clicked()
+                {
+                    file_action = Some(FileAction::Export);
+                }
+                let label = if self.session.dark {
+                    "light theme"
+                } else {
+                    "dark theme"
+                };
                 if ui.small_button(label).clicked() {
                     self.session.dark = !self.session.dark;
                 }
@@ -100,6 +121,9 @@ impl Explorer {
                 status::ui(ui, &self.engine, &mut self.message, &self.times);
             });
         });
+        if let Some(a) = file_action {
+            self.files.start(a, &self.session);
+        }
         egui::Panel::left("picker")
             .default_size(300.0)
             .show(ui, |ui| {
@@ -135,6 +159,15 @@ impl Explorer {
                 _ => self.dreams.ui(ui, &mut ctx),
             }
         });
+        let figures = match self.session.view {
+            View::Dreams => self.dreams.figures(),
+            View::Words => self.words.figures(),
+            View::Quotient => self.quotient.figures(),
+            View::Permutohedron => self.solid.figures(),
+            _ => Vec::new(),
+        };
+        self.files
+            .ui(ui.ctx(), &mut self.session, &figures, &mut self.message);
         if !self.engine.running().is_empty() {
             ui.ctx().request_repaint_after(Duration::from_millis(50));
         }
@@ -158,10 +191,17 @@ impl Explorer {
                 i.consume_key(cmd, egui::Key::E),
             )
         });
-        if save || open || export {
-            self.message = Some(
-                "Ctrl+S, Ctrl+O and Ctrl+E are reserved for saving, opening and exporting".into(),
-            );
+        let action = if save {
+            Some(FileAction::Save)
+        } else if open {
+            Some(FileAction::Open)
+        } else if export {
+            Some(FileAction::Export)
+        } else {
+            None
+        };
+        if let Some(a) = action {
+            self.files.start(a, &self.session);
         }
     }
 }
@@ -174,7 +214,7 @@ impl eframe::App for Explorer {
 
 /// Opens the explorer window on `session` (or the demo exploration).
 pub fn run(session: Option<Session>) -> eframe::Result {
-    let session = session.unwrap_or_else(demo_session);
+    let session = session.unwrap_or_else(crate::session::demo::default_demo);
     let options = eframe::NativeOptions {
         viewport: egui::ViewportBuilder::default()
             .with_inner_size([1280.0, 800.0])

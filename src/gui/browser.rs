@@ -44,11 +44,17 @@ impl Browser {
             let mut lo = key.min_length;
             let mut hi = key.max_length;
             ui.label("ℓ from");
-            if ui.add(egui::DragValue::new(&mut lo).range(0..=top)).changed() {
+            if ui
+                .add(egui::DragValue::new(&mut lo).range(0..=top))
+                .changed()
+            {
                 ctx.session.browser.min_length = Some(lo);
             }
             ui.label("to");
-            if ui.add(egui::DragValue::new(&mut hi).range(0..=top)).changed() {
+            if ui
+                .add(egui::DragValue::new(&mut hi).range(0..=top))
+                .changed()
+            {
                 ctx.session.browser.max_length = Some(hi);
             }
         });
@@ -57,16 +63,26 @@ impl Browser {
             egui::ComboBox::from_id_salt("class_filter")
                 .selected_text(shown)
                 .show_ui(ui, |ui| {
-                    if ui.selectable_label(key.class.is_none(), "any class").clicked() {
+                    if ui
+                        .selectable_label(key.class.is_none(), "any class")
+                        .clicked()
+                    {
                         ctx.session.browser.class = None;
                     }
                     for c in PermClass::ALL {
-                        if ui.selectable_label(key.class == Some(c), c.label()).clicked() {
+                        if ui
+                            .selectable_label(key.class == Some(c), c.label())
+                            .clicked()
+                        {
                             ctx.session.browser.class = Some(c.key().to_string());
                         }
                     }
                 });
-            let order = if key.by_length { "by length" } else { "lexicographic" };
+            let order = if key.by_length {
+                "by length"
+            } else {
+                "lexicographic"
+            };
             egui::ComboBox::from_id_salt("sort_order")
                 .selected_text(order)
                 .show_ui(ui, |ui| {
@@ -90,8 +106,13 @@ impl Browser {
             }
         };
         let Some(perms) = perms.perms() else { return };
-        ui.weak(format!("{} permutations; w, ℓ(w), number of pipe dreams", perms.len()));
-        let row_h = ui.text_style_height(&egui::TextStyle::Monospace).max(ui.spacing().interact_size.y);
+        ui.weak(format!(
+            "{} permutations; w, ℓ(w), number of pipe dreams",
+            perms.len()
+        ));
+        let row_h = ui
+            .text_style_height(&egui::TextStyle::Monospace)
+            .max(ui.spacing().interact_size.y);
         let mut chosen = None;
         egui::ScrollArea::vertical()
             .id_salt("perm_list")
@@ -105,7 +126,8 @@ impl Browser {
                 let mut counts: HashMap<usize, Option<std::sync::Arc<crate::engine::Output>>> =
                     HashMap::new();
                 for page in first_page..=last_page {
-                    let block: Vec<Perm> = perms.iter().skip(page * PAGE).take(PAGE).cloned().collect();
+                    let block: Vec<Perm> =
+                        perms.iter().skip(page * PAGE).take(PAGE).cloned().collect();
                     let slot = self.pages.entry(page).or_default();
                     let got = match slot.fetch(ctx.engine, JobKey::Counts(block)) {
                         Fetch::Ready(out) => Some(out.clone()),

@@ -7,6 +7,7 @@
 pub mod app;
 pub mod app_ctx;
 pub mod browser;
+pub mod files;
 pub mod picker;
 pub mod scene_painter;
 pub mod status;

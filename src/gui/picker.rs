@@ -31,9 +31,7 @@ pub fn parse_entry(text: &str, n: usize) -> MathResult<Perm> {
             .filter(|s| !s.is_empty())
             .map(|s| {
                 s.parse::<usize>().map_err(|_| {
-                    MathError::InvalidPermutation(format!(
-                        "'{s}' is not a non-negative integer"
-                    ))
+                    MathError::InvalidPermutation(format!("'{s}' is not a non-negative integer"))
                 })
             })
             .collect()
@@ -132,7 +130,10 @@ impl Picker {
         if !classes.is_empty() {
             ui.weak(classes.join(", "));
         }
-        match self.count.fetch(ctx.engine, JobKey::Counts(vec![w.clone()])) {
+        match self
+            .count
+            .fetch(ctx.engine, JobKey::Counts(vec![w.clone()]))
+        {
             Fetch::Ready(out) => {
                 if let Some(c) = out.counts().and_then(|c| c.first()) {
                     ui.label(format!("pipe dreams S_w(1,...,1) = {c}"));
@@ -155,7 +156,10 @@ impl Picker {
         if n < 2 {
             return;
         }
-        for (left, title) in [(false, "w·s_i (swap positions; + longer, - shorter)"), (true, "s_i·w (swap values)")] {
+        for (left, title) in [
+            (false, "w·s_i (swap positions; + longer, - shorter)"),
+            (true, "s_i·w (swap values)"),
+        ] {
             ui.weak(title);
             ui.horizontal_wrapped(|ui| {
                 for i in 1..n {
@@ -220,7 +224,10 @@ mod tests {
     #[test]
     fn entries_in_three_notations() {
         // the code (2,0,2,0) is that of 31524 (c_1 = #{j > 1 : w(j) < 3} = 2, ...)
-        assert_eq!(parse_entry("code: 2,0,2,0", 5).unwrap().to_string(), "31524");
+        assert_eq!(
+            parse_entry("code: 2,0,2,0", 5).unwrap().to_string(),
+            "31524"
+        );
         // s1 s3 s2 s3 = s1 s2 s3 s2 ; one-line 2431
         assert_eq!(parse_entry("word: 1 3 2 3", 4).unwrap().to_string(), "2431");
         assert_eq!(parse_entry("213", 5).unwrap().to_string(), "21345");

@@ -145,7 +145,10 @@ pub fn show(ui: &mut egui::Ui, scene: &Scene, opts: &PaintOptions) -> SceneRespo
     let avail = opts.size.unwrap_or_else(|| ui.available_size());
     let sw = scene.width.max(1.0);
     let sh = scene.height.max(1.0);
-    let scale = (avail.x / sw).min(avail.y / sh).min(opts.max_scale).max(0.05);
+    let scale = (avail.x / sw)
+        .min(avail.y / sh)
+        .min(opts.max_scale)
+        .max(0.05);
     let (rect, response) =
         ui.allocate_exact_size(Vec2::new(sw * scale, sh * scale), Sense::click_and_drag());
     let origin = rect.min;
@@ -155,7 +158,9 @@ pub fn show(ui: &mut egui::Ui, scene: &Scene, opts: &PaintOptions) -> SceneRespo
         .iter()
         .map(|item| match &item.kind {
             ItemKind::Path { cmds, .. } => Geometry::Lines(flatten(cmds, map)),
-            ItemKind::Circle { center, radius, .. } => Geometry::Circle(map(*center), radius * scale),
+            ItemKind::Circle { center, radius, .. } => {
+                Geometry::Circle(map(*center), radius * scale)
+            }
             ItemKind::Text { .. } => Geometry::Text,
         })
         .collect();
@@ -173,7 +178,8 @@ pub fn show(ui: &mut egui::Ui, scene: &Scene, opts: &PaintOptions) -> SceneRespo
                     (fill.is_some() && lines.iter().any(|l| inside(p, l)))
                         || (stroke.is_some()
                             && lines.iter().any(|l| {
-                                l.windows(2).any(|s| distance_to_segment(p, s[0], s[1]) <= tol)
+                                l.windows(2)
+                                    .any(|s| distance_to_segment(p, s[0], s[1]) <= tol)
                             }))
                 }
                 (Geometry::Circle(c, r), _) => p.distance(*c) <= r + 3.0,
@@ -202,7 +208,15 @@ pub fn show(ui: &mut egui::Ui, scene: &Scene, opts: &PaintOptions) -> SceneRespo
         paint_item(&painter, item, geo, scale, 1.0, None, origin);
     }
     for k in emphasised {
-        paint_item(&painter, &scene.items[k], &geometry[k], scale, 1.6, Some(halo), origin);
+        paint_item(
+            &painter,
+            &scene.items[k],
+            &geometry[k],
+            scale,
+            1.6,
+            Some(halo),
+            origin,
+        );
     }
     SceneResponse {
         response,
@@ -238,12 +252,7 @@ fn paint_item(
                 }
             }
         }
-        (
-            ItemKind::Circle {
-                stroke, fill, ..
-            },
-            Geometry::Circle(c, r),
-        ) => {
+        (ItemKind::Circle { stroke, fill, .. }, Geometry::Circle(c, r)) => {
             if let Some(h) = halo {
                 painter.circle_filled(*c, r * widen + 2.0, h);
             }
@@ -280,4 +289,3 @@ fn paint_item(
         _ => {}
     }
 }
-

@@ -46,12 +46,30 @@ pub fn monomial_text(exps: &[u32]) -> String {
         .iter()
         .enumerate()
         .filter(|(_, e)| **e > 0)
-        .map(|(i, &e)| if e == 1 { format!("x{}", i + 1) } else { format!("x{}^{e}", i + 1) })
+        .map(|(i, &e)| {
+            if e == 1 {
+                format!("x{}", i + 1)
+            } else {
+                format!("x{}^{e}", i + 1)
+            }
+        })
         .collect();
-    if parts.is_empty() { "1".into() } else { parts.join(" ") }
+    if parts.is_empty() {
+        "1".into()
+    } else {
+        parts.join(" ")
+    }
 }
 
 impl DreamsView {
+    /// The figures this view can export: the dream on screen.
+    pub fn figures(&self) -> Vec<(String, Arc<Scene>)> {
+        self.scene
+            .iter()
+            .map(|(_, s)| ("the pipe dream shown".to_string(), s.clone()))
+            .collect()
+    }
+
     /// Draws the view.
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
@@ -89,7 +107,12 @@ impl DreamsView {
             if ui.button("|<").on_hover_text("first").clicked() {
                 target = Some(0);
             }
-            if ui.button("<").on_hover_text("previous (left arrow)").clicked() || step < 0 {
+            if ui
+                .button("<")
+                .on_hover_text("previous (left arrow)")
+                .clicked()
+                || step < 0
+            {
                 target = Some(index.saturating_sub(1));
             }
             ui.label(egui::RichText::new(format!("{} of {total}", *index + 1)).strong());
@@ -135,12 +158,9 @@ impl DreamsView {
         if total == DREAM_LIMIT {
             ui.weak(format!("only the first {DREAM_LIMIT} dreams are listed"));
         }
-        let dream = self
-            .moved
-            .clone()
-            .unwrap_or_else(|| dreams[place.index].clone());
+        let dream = self.moved.unwrap_or(dreams[place.index]);
         let look = Self::look(ctx);
-        let key = SceneKey::Dream(dream.clone(), look);
+        let key = SceneKey::Dream(dream, look);
         let scene = match &self.scene {
             Some((k, s)) if *k == key => s.clone(),
             _ => {
@@ -174,7 +194,7 @@ impl DreamsView {
             };
             let r = scene_painter::show(ui, &scene, &opts);
             self.canvas = Some((r.response.rect, r.scale));
-            self.shown = Some(dream.clone());
+            self.shown = Some(dream);
             self.hover_pipe = match r.hovered_where(|t| matches!(t, Tag::Pipe(_))) {
                 Some(Tag::Pipe(k)) => Some(k),
                 _ => None,
@@ -249,7 +269,9 @@ impl DreamsView {
                 return;
             }
         };
-        let Output::Bumpless(list) = out.as_ref() else { return };
+        let Output::Bumpless(list) = out.as_ref() else {
+            return;
+        };
         if list.is_empty() {
             return;
         }
@@ -270,7 +292,9 @@ impl DreamsView {
             }
         };
         ui.horizontal_top(|ui| {
-            let side = (ui.available_height() - 8.0).min(ui.available_width() - 300.0).max(160.0);
+            let side = (ui.available_height() - 8.0)
+                .min(ui.available_width() - 300.0)
+                .max(160.0);
             let opts = PaintOptions {
                 highlight: self.hover_pipe.map(Tag::Pipe).into_iter().collect(),
                 max_scale: 4.0,
@@ -283,13 +307,26 @@ impl DreamsView {
             };
             ui.vertical(|ui| {
                 ui.label(egui::RichText::new("weight (blank tiles)").weak());
-                ui.label(egui::RichText::new(monomial_text(&d.monomial())).monospace().strong());
+                ui.label(
+                    egui::RichText::new(monomial_text(&d.monomial()))
+                        .monospace()
+                        .strong(),
+                );
                 ui.add_space(6.0);
-                let blanks: Vec<String> = d.blanks().iter().map(|(i, j)| format!("({i},{j})")).collect();
+                let blanks: Vec<String> = d
+                    .blanks()
+                    .iter()
+                    .map(|(i, j)| format!("({i},{j})"))
+                    .collect();
                 ui.label(egui::RichText::new("blank tiles").weak());
                 ui.label(blanks.join(" "));
                 ui.add_space(6.0);
-                ui.weak("The first dream is the Rothe dream (blanks = Rothe diagram).\nLeft/Right arrow keys step through the dreams.");
+                if *d == crate::math::bumpless::BumplessDream::rothe(w) {
+                    ui.label(
+                        "This is the Rothe dream: its blank tiles form the Rothe diagram of w.",
+                    );
+                }
+                ui.weak("Left/Right arrow keys step through the dreams.");
             });
         });
     }

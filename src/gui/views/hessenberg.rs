@@ -6,9 +6,9 @@
 use super::computing;
 use crate::engine::{Fetch, JobKey, Slot};
 use crate::gui::AppCtx;
-use crate::math::hessenberg_table::TableEntry;
 use crate::math::Perm;
-use eframe::egui::{self, Color32, Rect, Sense, Stroke, Vec2};
+use crate::math::hessenberg_table::TableEntry;
+use eframe::egui::{self, Rect, Sense, Stroke, Vec2};
 use num_traits::{Signed, Zero};
 
 /// Tables up to this n start as soon as h changes; larger ones wait for the button.
@@ -78,7 +78,7 @@ impl HessenbergView {
         });
     }
 
-    fn grid(&mut self, ui: &mut egui::Ui, h: &mut Vec<usize>) {
+    fn grid(&mut self, ui: &mut egui::Ui, h: &mut [usize]) {
         let n = h.len();
         let cell = (220.0 / n as f32).clamp(18.0, 34.0);
         let (rect, response) =
@@ -91,7 +91,8 @@ impl HessenbergView {
         let hover = response.hover_pos();
         for i in 1..=n {
             for j in 1..=n {
-                let min = rect.min + Vec2::new((j - 1) as f32 * cell + 1.0, (i - 1) as f32 * cell + 1.0);
+                let min =
+                    rect.min + Vec2::new((j - 1) as f32 * cell + 1.0, (i - 1) as f32 * cell + 1.0);
                 let r = Rect::from_min_size(min, Vec2::splat(cell));
                 let inside = j <= h[i - 1];
                 let fill = if j < i {
@@ -115,7 +116,7 @@ impl HessenbergView {
                     );
                 }
                 if response.clicked()
-                    && let Some(p) = response.interact_pointer_pos()
+                    && let Some(p) = response.hover_pos()
                     && r.contains(p)
                     && j >= i
                 {
@@ -127,7 +128,6 @@ impl HessenbergView {
                 }
             }
         }
-        let _ = Color32::TRANSPARENT;
     }
 
     fn table(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
@@ -150,9 +150,14 @@ impl HessenbergView {
             return;
         };
         if wanted != h {
-            ui.weak(format!("showing h = {wanted:?}; press the button for the new h"));
+            ui.weak(format!(
+                "showing h = {wanted:?}; press the button for the new h"
+            ));
         }
-        let out = match self.slot.fetch(ctx.engine, JobKey::Hessenberg(wanted.clone())) {
+        let out = match self
+            .slot
+            .fetch(ctx.engine, JobKey::Hessenberg(wanted.clone()))
+        {
             Fetch::Ready(out) => out.clone(),
             Fetch::Running(f, secs) => {
                 computing(ui, &format!("computing a^h_w ({secs:.0} s)"), f, &self.slot);
@@ -166,8 +171,14 @@ impl HessenbergView {
                 return;
             }
         };
-        let Some(table) = out.hessenberg() else { return };
-        let negatives = table.entries.iter().filter(|e| e.value.is_negative()).count();
+        let Some(table) = out.hessenberg() else {
+            return;
+        };
+        let negatives = table
+            .entries
+            .iter()
+            .filter(|e| e.value.is_negative())
+            .count();
         ui.label(format!(
             "{} permutations of length {}; Σ a^h_w = {}; nonzero {}; largest {}; negative {}",
             table.listed,
@@ -180,7 +191,11 @@ impl HessenbergView {
         // sort order, cached per (h, column, direction)
         let current = ctx.perm();
         let place = &mut ctx.session.hessenberg;
-        let col = if place.sort_by.is_empty() { "perm".to_string() } else { place.sort_by.clone() };
+        let col = if place.sort_by.is_empty() {
+            "perm".to_string()
+        } else {
+            place.sort_by.clone()
+        };
         let needs = self
             .order
             .as_ref()
@@ -198,7 +213,9 @@ impl HessenbergView {
             }
             self.order = Some((wanted.clone(), col.clone(), place.descending, idx));
         }
-        let Some((_, _, _, idx)) = &self.order else { return };
+        let Some((_, _, _, idx)) = &self.order else {
+            return;
+        };
         let mut chosen: Option<Perm> = None;
         let widths = [120.0, 60.0, 140.0];
         ui.horizontal(|ui| {
@@ -207,7 +224,11 @@ impl HessenbergView {
                 .enumerate()
             {
                 let arrow = if col == key {
-                    if place.descending { " (desc)" } else { " (asc)" }
+                    if place.descending {
+                        " (desc)"
+                    } else {
+                        " (asc)"
+                    }
                 } else {
                     ""
                 };
@@ -231,7 +252,9 @@ impl HessenbergView {
             .auto_shrink([false, false])
             .show_rows(ui, row_h, idx.len(), |ui, rows| {
                 for r in rows {
-                    let Some(entry): Option<&TableEntry> = idx.get(r).and_then(|&i| table.entries.get(i)) else {
+                    let Some(entry): Option<&TableEntry> =
+                        idx.get(r).and_then(|&i| table.entries.get(i))
+                    else {
                         continue;
                     };
                     ui.horizontal(|ui| {
@@ -245,7 +268,10 @@ impl HessenbergView {
                         if sel.clicked() {
                             chosen = Some(entry.perm.clone());
                         }
-                        ui.add_sized([widths[1], row_h], egui::Label::new(entry.perm.length().to_string()));
+                        ui.add_sized(
+                            [widths[1], row_h],
+                            egui::Label::new(entry.perm.length().to_string()),
+                        );
                         let text = egui::RichText::new(entry.value.to_string()).monospace();
                         let text = if entry.value.is_negative() {
                             text.color(crate::gui::theme::alert())

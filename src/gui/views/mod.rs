@@ -4,8 +4,8 @@ pub mod dreams;
 pub mod hessenberg;
 pub mod quotient;
 pub mod solid;
-pub mod workbench;
 pub mod words;
+pub mod workbench;
 
 use crate::session::model::View;
 

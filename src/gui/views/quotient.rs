@@ -27,18 +27,29 @@ pub struct QuotientView {
 }
 
 fn monomial_text(m: Mono, n: usize) -> String {
-    let t = RatPoly::monomial(n, m, num_rational::BigRational::from_integer(1.into())).to_text();
-    t
+    RatPoly::monomial(n, m, num_rational::BigRational::from_integer(1.into())).to_text()
 }
 
 impl QuotientView {
+    /// The figures this view can export: the grid of lattice paths.
+    pub fn figures(&self) -> Vec<(String, Arc<crate::figure::Scene>)> {
+        self.scene
+            .iter()
+            .map(|(_, _, s)| ("the lattice-path normal form".to_string(), s.clone()))
+            .collect()
+    }
+
     /// Draws the view.
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
         ui.heading("Normal form in Q[x1..xn]/J_n (lex order x1 > x2 > ... > xn)");
         let place = &mut ctx.session.quotient;
         ui.horizontal(|ui| {
-            ui.radio_value(&mut place.use_typed, false, format!("reversed Schubert polynomial of w = {w}"));
+            ui.radio_value(
+                &mut place.use_typed,
+                false,
+                format!("reversed Schubert polynomial of w = {w}"),
+            );
             ui.radio_value(&mut place.use_typed, true, "a typed polynomial");
         });
         let n = w.n();
@@ -80,7 +91,9 @@ impl QuotientView {
                 return;
             }
         };
-        let Output::Reduced(r) = out.as_ref() else { return };
+        let Output::Reduced(r) = out.as_ref() else {
+            return;
+        };
         ui.label(egui::RichText::new(format!("f = {}", r.input)).monospace());
         ui.label(
             egui::RichText::new(format!("NF(f) = {}", r.normal.poly.to_text()))
@@ -98,7 +111,12 @@ impl QuotientView {
             })
             .collect();
         let dim: usize = r.hilbert.iter().sum();
-        let negatives = r.normal.coefficients.iter().filter(|c| c.2.is_negative()).count();
+        let negatives = r
+            .normal
+            .coefficients
+            .iter()
+            .filter(|c| c.2.is_negative())
+            .count();
         ui.label(format!(
             "Hilbert series of Q[x]/J_{}: {}  (dimension {dim}, the Catalan number);  {} basis terms, {} negative, coefficient sum {}",
             r.n,
@@ -138,21 +156,23 @@ impl QuotientView {
             ui.label("NF(f) = 0: f lies in J_n.");
             return;
         }
-        egui::ScrollArea::vertical().id_salt("paths").show(ui, |ui| {
-            let width = ui.available_width();
-            let scale = (width / scene.width).min(1.6);
-            let opts = PaintOptions {
-                highlight: Vec::new(),
-                max_scale: scale,
-                size: Some(egui::vec2(width, scene.height * scale)),
-            };
-            let resp = scene_painter::show(ui, &scene, &opts);
-            if let Some(Tag::Panel(k)) = resp.hovered_where(|t| matches!(t, Tag::Panel(_)))
-                && let Some((_, m, c)) = r.normal.coefficients.get(k)
-            {
-                resp.response
-                    .on_hover_text(format!("{c} · {}", monomial_text(*m, r.n)));
-            }
-        });
+        egui::ScrollArea::vertical()
+            .id_salt("paths")
+            .show(ui, |ui| {
+                let width = ui.available_width();
+                let scale = (width / scene.width).min(1.6);
+                let opts = PaintOptions {
+                    highlight: Vec::new(),
+                    max_scale: scale,
+                    size: Some(egui::vec2(width, scene.height * scale)),
+                };
+                let resp = scene_painter::show(ui, &scene, &opts);
+                if let Some(Tag::Panel(k)) = resp.hovered_where(|t| matches!(t, Tag::Panel(_)))
+                    && let Some((_, m, c)) = r.normal.coefficients.get(k)
+                {
+                    resp.response
+                        .on_hover_text(format!("{c} · {}", monomial_text(*m, r.n)));
+                }
+            });
     }
 }

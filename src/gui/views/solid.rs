@@ -6,8 +6,10 @@
 use super::computing;
 use crate::engine::requests::Output;
 use crate::engine::{Fetch, JobKey, Slot};
+use crate::figure::Scene;
 use crate::figure::look::Look;
 use crate::figure::permutohedron::polytope_scene;
+use crate::figure::volume::volume_plot_scene;
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
 use crate::math::permutohedron::rational_to_f64;
@@ -15,6 +17,7 @@ use eframe::egui;
 use egui_plot::{Line, Plot, Points};
 use num_rational::BigRational;
 use std::str::FromStr;
+use std::sync::Arc;
 
 /// Samples along the segment.
 const SAMPLES: usize = 24;
@@ -26,6 +29,8 @@ pub struct SolidView {
     segment: Slot,
     eulerian: Slot,
     polytope: Slot,
+    polytope_scene: Option<Arc<Scene>>,
+    plot_scene: Option<Arc<Scene>>,
 }
 
 /// Reads an exact rational: `3`, `-2`, `3/2`, or a decimal such as `1.25`.
@@ -38,7 +43,8 @@ pub fn parse_rational(text: &str) -> Result<BigRational, String> {
         let den = num_bigint::BigInt::from(10u32).pow(frac.len() as u32);
         return Ok(BigRational::new(num, den));
     }
-    BigRational::from_str(t).map_err(|_| format!("'{t}' is not a number; accepted: 3, -2, 3/2, 1.25"))
+    BigRational::from_str(t)
+        .map_err(|_| format!("'{t}' is not a number; accepted: 3, -2, 3/2, 1.25"))
 }
 
 fn parse_all(v: &[String]) -> Result<Vec<BigRational>, String> {
@@ -60,7 +66,9 @@ fn entries(ui: &mut egui::Ui, id: &str, v: &mut [String], sliders: bool) -> bool
                 }
                 changed |= ui.add(edit).changed();
                 if sliders {
-                    let mut x = parse_rational(s).map(|r| rational_to_f64(&r)).unwrap_or(0.0);
+                    let mut x = parse_rational(s)
+                        .map(|r| rational_to_f64(&r))
+                        .unwrap_or(0.0);
                     let r = ui.add(
                         egui::Slider::new(&mut x, 0.0..=10.0)
                             .step_by(0.5)
@@ -83,6 +91,18 @@ fn entries(ui: &mut egui::Ui, id: &str, v: &mut [String], sliders: bool) -> bool
 }
 
 impl SolidView {
+    /// The figures this view can export: the drawing of P_λ and the volume plot.
+    pub fn figures(&self) -> Vec<(String, Arc<Scene>)> {
+        let mut v = Vec::new();
+        if let Some(s) = &self.polytope_scene {
+            v.push(("the drawing of P_λ".to_string(), s.clone()));
+        }
+        if let Some(s) = &self.plot_scene {
+            v.push(("the volume along the segment".to_string(), s.clone()));
+        }
+        v
+    }
+
     /// Draws the view.
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let place = &mut ctx.session.solid;
@@ -95,7 +115,9 @@ impl SolidView {
                 let regular: Vec<String> = (0..n).rev().map(|k| k.to_string()).collect();
                 place.lambda = regular.clone();
                 place.to = regular;
-                place.from = (0..n).map(|k| if k == 0 { "1" } else { "0" }.to_string()).collect();
+                place.from = (0..n)
+                    .map(|k| if k == 0 { "1" } else { "0" }.to_string())
+                    .collect();
             }
         });
         for v in [&mut place.lambda, &mut place.from, &mut place.to] {
@@ -158,6 +180,10 @@ impl SolidView {
                                         .iter()
                                         .map(|(t, v)| [rational_to_f64(t), rational_to_f64(v)])
                                         .collect();
+                                    self.plot_scene = Some(Arc::new(volume_plot_scene(
+                                        &pts.iter().map(|p| (p[0], p[1])).collect::<Vec<_>>(),
+                                        &look,
+                                    )));
                                     Plot::new("volume_segment")
                                         .height(200.0)
                                         .x_axis_label("t")
@@ -203,11 +229,21 @@ impl SolidView {
             ui.weak("P_λ is drawn for n = 3 (the polygon) and n = 4 (a projection).");
             return;
         }
-        match self.polytope.fetch(engine, JobKey::Polytope(lambda.to_vec())) {
+        match self
+            .polytope
+            .fetch(engine, JobKey::Polytope(lambda.to_vec()))
+        {
             Fetch::Ready(out) => {
-                let Output::Polytope(p) = out.as_ref() else { return };
-                let scene = polytope_scene(&p.coords, &p.edges, &p.labels, place.yaw, place.pitch, look);
-                let side = ui.available_width().min(ui.available_height() - 20.0).max(200.0);
+                let Output::Polytope(p) = out.as_ref() else {
+                    return;
+                };
+                let scene =
+                    polytope_scene(&p.coords, &p.edges, &p.labels, place.yaw, place.pitch, look);
+                self.polytope_scene = Some(Arc::new(scene.clone()));
+                let side = ui
+                    .available_width()
+                    .min(ui.available_height() - 20.0)
+                    .max(200.0);
                 let opts = PaintOptions {
                     highlight: Vec::new(),
                     max_scale: 3.0,
@@ -223,7 +259,10 @@ impl SolidView {
                 if let Some(crate::figure::Tag::Vertex(k)) =
                     r.hovered_where(|t| matches!(t, crate::figure::Tag::Vertex(_)))
                 {
-                    r.response.on_hover_text(format!("vertex {}", p.labels.get(k).cloned().unwrap_or_default()));
+                    r.response.on_hover_text(format!(
+                        "vertex {}",
+                        p.labels.get(k).cloned().unwrap_or_default()
+                    ));
                 }
             }
             Fetch::Running(f, _) => computing(ui, "vertices", f, &self.polytope),
@@ -237,7 +276,9 @@ impl SolidView {
         ui.label(format!("Mixed Eulerian numbers A_c of n = {n}"));
         match self.eulerian.fetch(engine, JobKey::Eulerian(n)) {
             Fetch::Ready(out) => {
-                let Output::Eulerian(rows) = out.as_ref() else { return };
+                let Output::Eulerian(rows) = out.as_ref() else {
+                    return;
+                };
                 egui::ScrollArea::vertical()
                     .id_salt("eulerian")
                     .max_height(ui.available_height() - 4.0)
@@ -248,7 +289,10 @@ impl SolidView {
                             ui.horizontal(|ui| {
                                 ui.add_sized(
                                     [140.0, 18.0],
-                                    egui::Label::new(egui::RichText::new(format!("c = ({})", c.join(","))).monospace()),
+                                    egui::Label::new(
+                                        egui::RichText::new(format!("c = ({})", c.join(",")))
+                                            .monospace(),
+                                    ),
                                 );
                                 ui.label(egui::RichText::new(a.to_string()).monospace());
                             });

@@ -21,6 +21,7 @@ pub struct WordsView {
     /// A word reached by a move (shown instead of the indexed one).
     moved: Option<Vec<usize>>,
     hover_crossing: Option<usize>,
+    last: Option<std::sync::Arc<crate::figure::Scene>>,
 }
 
 fn word_text(word: &[usize]) -> String {
@@ -29,6 +30,14 @@ fn word_text(word: &[usize]) -> String {
 }
 
 impl WordsView {
+    /// The figures this view can export: the wiring diagram on screen.
+    pub fn figures(&self) -> Vec<(String, std::sync::Arc<crate::figure::Scene>)> {
+        self.last
+            .iter()
+            .map(|s| ("the wiring diagram shown".to_string(), s.clone()))
+            .collect()
+    }
+
     /// Draws the view.
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
@@ -65,7 +74,10 @@ impl WordsView {
             }
         }
         let page_no = *index / WORD_PAGE;
-        let out = match self.page.fetch(ctx.engine, JobKey::Words(w.clone(), page_no)) {
+        let out = match self
+            .page
+            .fetch(ctx.engine, JobKey::Words(w.clone(), page_no))
+        {
             Fetch::Ready(out) => out.clone(),
             Fetch::Running(f, _) => {
                 computing(ui, "listing reduced words", f, &self.page);
@@ -94,7 +106,10 @@ impl WordsView {
             labels: ctx.session.figure.labels,
         };
         ui.horizontal(|ui| {
-            if ui.add_enabled(page_no > 0, egui::Button::new("< page")).clicked() {
+            if ui
+                .add_enabled(page_no > 0, egui::Button::new("< page"))
+                .clicked()
+            {
                 *index = (page_no - 1) * WORD_PAGE;
                 self.moved = None;
             }
@@ -124,10 +139,18 @@ impl WordsView {
                     .show_rows(ui, row_h, words.len(), |ui, rows| {
                         for r in rows {
                             let wd = &words[r];
-                            let c: Vec<String> = content(wd, n).iter().map(|c| c.to_string()).collect();
-                            let text = egui::RichText::new(format!("{}   ({})", word_text(wd), c.join(",")))
-                                .monospace();
-                            if ui.selectable_label(r == in_page && self.moved.is_none(), text).clicked() {
+                            let c: Vec<String> =
+                                content(wd, n).iter().map(|c| c.to_string()).collect();
+                            let text = egui::RichText::new(format!(
+                                "{}   ({})",
+                                word_text(wd),
+                                c.join(",")
+                            ))
+                            .monospace();
+                            if ui
+                                .selectable_label(r == in_page && self.moved.is_none(), text)
+                                .clicked()
+                            {
                                 *index = page_no * WORD_PAGE + r;
                                 self.moved = None;
                             }
@@ -141,7 +164,10 @@ impl WordsView {
                     ui.label("word");
                     for (k, a) in word.iter().enumerate() {
                         let lit = self.hover_crossing == Some(k);
-                        let r = ui.selectable_label(lit, egui::RichText::new(a.to_string()).monospace().strong());
+                        let r = ui.selectable_label(
+                            lit,
+                            egui::RichText::new(a.to_string()).monospace().strong(),
+                        );
                         if r.hovered() {
                             self.hover_crossing = Some(k);
                         }
@@ -150,6 +176,7 @@ impl WordsView {
                 let c: Vec<String> = content(&word, n).iter().map(|c| c.to_string()).collect();
                 ui.label(format!("content ({})", c.join(", ")));
                 let scene = wiring_scene(&word, n, &look, self.hover_crossing);
+                self.last = Some(std::sync::Arc::new(wiring_scene(&word, n, &look, None)));
                 let avail = ui.available_size();
                 let opts = PaintOptions {
                     highlight: self.hover_crossing.map(Tag::Crossing).into_iter().collect(),

@@ -31,7 +31,11 @@ pub fn show_parse_error(ui: &mut egui::Ui, e: &MathError) {
         } => {
             ui.colored_label(alert, format!("column {column}: {expected}"));
             let caret = format!("{}^", " ".repeat(column.saturating_sub(1)));
-            ui.label(egui::RichText::new(format!("{input}\n{caret}")).monospace().color(alert));
+            ui.label(
+                egui::RichText::new(format!("{input}\n{caret}"))
+                    .monospace()
+                    .color(alert),
+            );
         }
         other => {
             ui.colored_label(alert, other.to_string());
@@ -56,13 +60,20 @@ impl WorkbenchView {
         let hview = &ctx.session.hessenberg.h;
         let n = ctx.session.n.max(2);
         ui.horizontal(|ui| {
-            ui.radio_value(&mut ctx.session.workbench.use_h, false, format!("DS_n with n = {n} (the current S_n)"));
+            ui.radio_value(
+                &mut ctx.session.workbench.use_h,
+                false,
+                format!("DS_n with n = {n} (the current S_n)"),
+            );
             let htext: Vec<String> = hview.iter().map(|v| v.to_string()).collect();
             ui.add_enabled_ui(!hview.is_empty(), |ui| {
                 ui.radio_value(
                     &mut ctx.session.workbench.use_h,
                     true,
-                    format!("DS_h with h = ({}) from the Hessenberg view", htext.join(",")),
+                    format!(
+                        "DS_h with h = ({}) from the Hessenberg view",
+                        htext.join(",")
+                    ),
                 );
             });
         });
@@ -80,7 +91,9 @@ impl WorkbenchView {
             let r = parse_poly(&text, Some(h.len())).map(|p| p.to_text());
             self.parsed = Some((text.clone(), h.len(), r));
         }
-        let Some((_, _, parsed)) = &self.parsed else { return };
+        let Some((_, _, parsed)) = &self.parsed else {
+            return;
+        };
         match parsed {
             Err(e) => {
                 show_parse_error(ui, e);
@@ -91,11 +104,22 @@ impl WorkbenchView {
             }
         }
         ui.separator();
-        match self.divsym.fetch(ctx.engine, JobKey::DivSym(text, h.clone())) {
+        match self
+            .divsym
+            .fetch(ctx.engine, JobKey::DivSym(text, h.clone()))
+        {
             Fetch::Ready(out) => {
                 if let Output::DivSym(d) = out.as_ref() {
-                    let name = if ctx.session.workbench.use_h { "DS_h(f)" } else { "DS_n(f)" };
-                    ui.label(egui::RichText::new(format!("{name} = {}", d.value.to_text())).monospace().strong());
+                    let name = if ctx.session.workbench.use_h {
+                        "DS_h(f)"
+                    } else {
+                        "DS_n(f)"
+                    };
+                    ui.label(
+                        egui::RichText::new(format!("{name} = {}", d.value.to_text()))
+                            .monospace()
+                            .strong(),
+                    );
                     if !d.symmetric.is_empty() {
                         let parts: Vec<String> = d
                             .symmetric
@@ -105,7 +129,10 @@ impl WorkbenchView {
                                 format!("{c}·m({})", l.join(","))
                             })
                             .collect();
-                        ui.label(format!("in monomial symmetric functions: {}", parts.join(" + ")));
+                        ui.label(format!(
+                            "in monomial symmetric functions: {}",
+                            parts.join(" + ")
+                        ));
                     }
                 }
             }
