@@ -2,6 +2,7 @@
 //! in the middle, the status line at the bottom.
 
 use super::app_ctx::AppCtx;
+use super::autosave::Autosave;
 use super::files::{FileAction, FilePanel};
 use super::picker::Picker;
 use super::status::{self, FrameTimes};
@@ -42,6 +43,8 @@ pub struct Explorer {
     pub workbench: WorkbenchView,
     /// The save / open / export window.
     pub files: FilePanel,
+    /// The recovery-file timer and the offer of a recovered session.
+    pub autosave: Autosave,
     times: FrameTimes,
     log_frames: bool,
 }
@@ -82,6 +85,7 @@ impl Explorer {
             solid: SolidView::default(),
             workbench: WorkbenchView::default(),
             files: FilePanel::default(),
+            autosave: Autosave::default(),
             times: FrameTimes::default(),
             log_frames: std::env::var_os("ELBOWROOM_FRAME_LOG").is_some(),
         }
@@ -168,6 +172,10 @@ impl Explorer {
         };
         self.files
             .ui(ui.ctx(), &mut self.session, &figures, &mut self.message);
+        self.autosave.offer_ui(ui.ctx(), &mut self.session);
+        if let Some(m) = self.autosave.tick(&self.session, ui.ctx()) {
+            self.message = Some(m);
+        }
         if !self.engine.running().is_empty() {
             ui.ctx().request_repaint_after(Duration::from_millis(50));
         }
@@ -210,6 +218,10 @@ impl eframe::App for Explorer {
     fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
         self.show(ui);
     }
+
+    fn on_exit(&mut self, _gl: Option<&eframe::glow::Context>) {
+        self.autosave.finish();
+    }
 }
 
 /// Opens the explorer window on `session` (or the demo exploration).
@@ -238,6 +250,7 @@ fn launch(session: Session, path: Option<std::path::PathBuf>) -> eframe::Result 
             let engine = Engine::new(Arc::new(move || ctx.request_repaint()));
             let mut explorer = Explorer::new(session, engine);
             explorer.files.session_path = path;
+            explorer.autosave = Autosave::enabled(crate::session::take_recovery());
             Ok(Box::new(explorer))
         }),
     )

@@ -1,5 +1,6 @@
 //! Saving and opening sessions and exporting figures (Ctrl+S, Ctrl+O, Ctrl+E):
-//! a small window with a typed path (no native dialog is needed), the demo
+//! a small window with a typed path (and the desktop's file dialog where one
+//! runs; the typed path always works), the demo
 //! sessions and the recent ones to pick from, and the figures the current view
 //! can export.
 
@@ -103,7 +104,28 @@ impl FilePanel {
                     FileAction::Open => "open",
                     FileAction::Export => "export",
                 };
-                if ui.button(verb).clicked() || enter {
+                let mut go = false;
+                ui.horizontal(|ui| {
+                    go = ui.button(verb).clicked() || enter;
+                    if ui
+                        .button("browse…")
+                        .on_hover_text("the system's file dialog, where a dialog service runs")
+                        .clicked()
+                    {
+                        match native_dialog(action, &self.path) {
+                            Some(p) => {
+                                self.path = p.display().to_string();
+                                go = true;
+                            }
+                            None => {
+                                *message = Some(
+                                    "no file chosen (or no file dialog service here); type the path instead".into(),
+                                );
+                            }
+                        }
+                    }
+                });
+                if go {
                     done = self.perform(action, session, figures, message);
                 }
                 if action == FileAction::Open {
@@ -196,5 +218,26 @@ impl FilePanel {
                 }
             }
         }
+    }
+}
+
+/// Asks the desktop's file dialog (through the XDG portal) for a path; `None`
+/// when the user cancels or no dialog service is running, so the typed path stays
+/// the way in.
+fn native_dialog(action: FileAction, current: &str) -> Option<PathBuf> {
+    let current = Path::new(current);
+    let mut dialog = rfd::FileDialog::new();
+    if let Some(dir) = current.parent().filter(|d| d.is_dir()) {
+        dialog = dialog.set_directory(dir);
+    }
+    if let Some(name) = current.file_name() {
+        dialog = dialog.set_file_name(name.to_string_lossy());
+    }
+    match action {
+        FileAction::Open => dialog.add_filter("elbowroom session", &["ron"]).pick_file(),
+        FileAction::Save => dialog.add_filter("elbowroom session", &["ron"]).save_file(),
+        FileAction::Export => dialog
+            .add_filter("figure", &["png", "svg", "tex"])
+            .save_file(),
     }
 }

@@ -6,6 +6,7 @@
 
 pub mod app;
 pub mod app_ctx;
+pub mod autosave;
 pub mod browser;
 pub mod files;
 pub mod picker;
