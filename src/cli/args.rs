@@ -18,6 +18,10 @@ pub enum Command {
     Perm(PermArgs),
     /// The Schubert polynomial S_w.
     Schubert(SchubertArgs),
+    /// The reduced words of w in lexicographic order, and their number.
+    Words(WordsArgs),
+    /// The reduced pipe dreams of w (or its bumpless pipe dreams), and their number.
+    Dreams(DreamsArgs),
     /// Divided symmetrization DS_h(f) of a polynomial.
     Divsym(DivsymArgs),
     /// The Hessenberg class table a^h_w = DS_h(S_w), ℓ(w) = Σ (h(i) - i).
@@ -28,6 +32,12 @@ pub enum Command {
     Eulerian(EulerianArgs),
     /// Combines the JSON outputs of the pieces of a sharded run into one.
     Merge(MergeArgs),
+    /// The quasisymmetric quotient Q[x1..xn]/J_n: basis, graded dimensions, Gröbner basis.
+    Quotient(super::cmd_quotient::QuotientArgs),
+    /// The normal form of a polynomial modulo J_n, in the basis of standard monomials.
+    Reduce(super::cmd_reduce::ReduceArgs),
+    /// Positivity survey: reversed Schubert polynomials modulo J_n over S_n.
+    Survey(super::cmd_survey::SurveyArgs),
 }
 
 /// Arguments of `elbowroom perm`.
@@ -51,6 +61,41 @@ pub struct SchubertArgs {
     /// Print the polynomial in LaTeX instead of plain text.
     #[arg(long, conflicts_with = "json")]
     pub latex: bool,
+}
+
+/// Arguments of `elbowroom words`.
+#[derive(Args, Debug)]
+pub struct WordsArgs {
+    /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4.
+    pub perm: String,
+    /// List at most this many words (the first ones in lexicographic order).
+    #[arg(long, default_value_t = 1000)]
+    pub limit: usize,
+    /// Only count; list no words.
+    #[arg(long)]
+    pub count: bool,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// Arguments of `elbowroom dreams`.
+#[derive(Args, Debug)]
+pub struct DreamsArgs {
+    /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4.
+    pub perm: String,
+    /// List at most this many dreams.
+    #[arg(long, default_value_t = 1000)]
+    pub limit: usize,
+    /// Only count; list no dreams.
+    #[arg(long)]
+    pub count: bool,
+    /// Bumpless pipe dreams (n×n grids) instead of reduced pipe dreams.
+    #[arg(long)]
+    pub bumpless: bool,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
 }
 
 /// Arguments of `elbowroom divsym`.

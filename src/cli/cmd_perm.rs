@@ -3,13 +3,17 @@
 use super::args::PermArgs;
 use super::error::CliError;
 use super::json;
-use crate::math::{Perm, perm_class::classes_of};
+use crate::math::pipe_dream::count_pipe_dreams;
+use crate::math::words::count_reduced_words_with;
+use crate::math::{Perm, Progress, perm_class::classes_of};
 use serde_json::json;
 
 /// Runs the command.
 pub fn run(args: &PermArgs) -> Result<String, CliError> {
     let w = Perm::parse(&args.perm)?;
     let classes: Vec<&str> = classes_of(&w).iter().map(|c| c.key()).collect();
+    let words = count_reduced_words_with(&w, &Progress::default())?;
+    let dreams = count_pipe_dreams(&w);
     if args.json {
         return Ok(json::render(&json!({
             "perm": w.one_line(),
@@ -19,11 +23,13 @@ pub fn run(args: &PermArgs) -> Result<String, CliError> {
             "inverse": w.inverse().one_line(),
             "descents": w.descents(),
             "classes": classes,
+            "reduced_words": json::exact(&words),
+            "pipe_dreams": json::exact(&dreams),
         })));
     }
     let labels: Vec<&str> = classes_of(&w).iter().map(|c| c.label()).collect();
     Ok(format!(
-        "w = {w}  (n = {})\nlength    {}\ncode      {:?}\ninverse   {}\ndescents  {:?}\nclasses   {}",
+        "w = {w}  (n = {})\nlength    {}\ncode      {:?}\ninverse   {}\ndescents  {:?}\nclasses   {}\nreduced words  {words}\npipe dreams    {dreams}",
         w.n(),
         w.length(),
         w.code(),

@@ -7,15 +7,21 @@
 
 pub mod args;
 pub mod cmd_divsym;
+pub mod cmd_dreams;
 pub mod cmd_eulerian;
 pub mod cmd_hessenberg;
 pub mod cmd_merge;
 pub mod cmd_perm;
+pub mod cmd_quotient;
+pub mod cmd_reduce;
 pub mod cmd_schubert;
+pub mod cmd_survey;
 pub mod cmd_volume;
+pub mod cmd_words;
 pub mod error;
 pub mod interrupt;
 pub mod json;
+pub mod merge_survey;
 pub mod shard;
 
 pub use args::{Cli, Command};
@@ -58,11 +64,16 @@ pub fn execute(command: &Command) -> Result<String, CliError> {
     match command {
         Command::Perm(a) => cmd_perm::run(a),
         Command::Schubert(a) => cmd_schubert::run(a),
+        Command::Words(a) => cmd_words::run(a),
+        Command::Dreams(a) => cmd_dreams::run(a),
         Command::Divsym(a) => cmd_divsym::run(a),
         Command::Hessenberg(a) => cmd_hessenberg::run(a),
         Command::Volume(a) => cmd_volume::run(a),
         Command::Eulerian(a) => cmd_eulerian::run(a),
         Command::Merge(a) => cmd_merge::run(a),
+        Command::Quotient(a) => cmd_quotient::run(a),
+        Command::Reduce(a) => cmd_reduce::run(a),
+        Command::Survey(a) => cmd_survey::run(a),
     }
 }
 

@@ -2,7 +2,12 @@
 //! objects; the explorer's canvas and every export (PNG, SVG, TikZ) draw the
 //! same scene, so what is on screen is what lands in the file.
 
+pub mod export;
 pub mod palette;
+pub mod png;
 pub mod scene;
+pub mod svg;
+pub mod table;
+pub mod tikz;
 
 pub use scene::{Anchor, Color, Item, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};

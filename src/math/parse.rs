@@ -492,10 +492,7 @@ impl Parser<'_> {
 /// The value of a named atom `NAME(a, b, ...)` in `nvars` variables.
 /// Quasisymmetric atoms `M(α)` and `F(α)` are resolved here.
 fn named_atom(name: &str, args: &[usize], nvars: Option<usize>) -> MathResult<RatPoly> {
-    let _ = (args, nvars);
-    Err(MathError::InvalidInput(format!(
-        "'{name}(...)' is not available in this build; accepted: numbers, variables x1..xn, + - * / ^ and parentheses"
-    )))
+    super::quasisym::named_atom(name, args, nvars)
 }
 
 fn constant_value(p: &RatPoly) -> Option<BigRational> {

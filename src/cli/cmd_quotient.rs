@@ -1,0 +1,95 @@
+//! `elbowroom quotient --n N`: the quasisymmetric quotient Q[x_1..x_n]/J_n — its basis of
+//! standard monomials (with their lattice paths), graded dimensions and Gröbner basis.
+
+use super::error::CliError;
+use super::json;
+use crate::math::groebner::MAX_QUOTIENT_N;
+use crate::math::lattice_path::{LatticePath, Step};
+use crate::math::quotient::{hilbert_series, quotient};
+use clap::Args;
+use serde_json::{Value, json};
+
+/// Arguments of `elbowroom quotient`.
+#[derive(Args, Debug)]
+pub struct QuotientArgs {
+    /// The number of variables n (1 to 8).
+    #[arg(long)]
+    pub n: usize,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+    /// Draw every basis path in the text output (by default only for n <= 4).
+    #[arg(long, conflicts_with = "json")]
+    pub draw: bool,
+}
+
+/// The steps of a path as JSON: the word and, per step, the variable it carries (or null).
+pub fn path_json(p: &LatticePath) -> Value {
+    let labels: Vec<Value> = p
+        .steps
+        .iter()
+        .map(|s| match s {
+            Step::North { var: Some(i) } => json!(i),
+            _ => Value::Null,
+        })
+        .collect();
+    json!({"size": p.size, "monomial": p.exponents, "steps": p.word(), "labels": labels})
+}
+
+/// Runs the command.
+pub fn run(args: &QuotientArgs) -> Result<String, CliError> {
+    let n = args.n;
+    if n == 0 || n > MAX_QUOTIENT_N {
+        return Err(CliError::Input(format!(
+            "--n {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
+        )));
+    }
+    let q = quotient(n)?;
+    let hilbert = hilbert_series(&q);
+    let basis: Vec<Vec<u32>> = q.basis().iter().map(|m| m.exps(n)).collect();
+    let mut paths = Vec::with_capacity(basis.len());
+    for e in &basis {
+        paths.push(LatticePath::of_monomial(e)?);
+    }
+    let gb = q.polys();
+    if args.json {
+        return Ok(json::render(&json!({
+            "n": n,
+            "order": "lex, x1 > x2 > ... > xn",
+            "dimension": q.basis().len().to_string(),
+            "basis": basis,
+            "hilbert": hilbert,
+            "groebner_size": gb.len(),
+            "groebner": gb.iter().map(json::poly).collect::<Vec<_>>(),
+            "paths": paths.iter().map(path_json).collect::<Vec<_>>(),
+        })));
+    }
+    let mut out = String::new();
+    out.push_str(&format!(
+        "Q[x1..x{n}]/J_{n}, lex order x1 > ... > x{n}\ndimension {} (standard monomials x^e with e1+...+ei <= i-1)\n",
+        q.basis().len()
+    ));
+    out.push_str("\ndegree  dimension\n");
+    for (d, h) in hilbert.iter().enumerate() {
+        out.push_str(&format!("{d:>6}  {h:>9}\n"));
+    }
+    out.push_str(&format!(
+        "\nreduced Gröbner basis ({} elements):\n",
+        gb.len()
+    ));
+    for p in &gb {
+        out.push_str(&format!("  {p}\n"));
+    }
+    let draw = args.draw || n <= 4;
+    out.push_str("\nbasis (monomial, path word; E = east, N = north)\n");
+    for (m, p) in q.basis().iter().zip(&paths) {
+        let mono = super::cmd_reduce::monomial_text(n, *m);
+        out.push_str(&format!("  {mono:<16} {}\n", p.word()));
+        if draw {
+            for line in p.ascii().lines() {
+                out.push_str(&format!("      {line}\n"));
+            }
+        }
+    }
+    Ok(out)
+}

@@ -1,0 +1,70 @@
+//! `elbowroom reduce POLY --n N`: the normal form of a polynomial modulo J_n and its
+//! coefficients on the standard monomials (the lattice-path basis).
+
+use super::error::CliError;
+use super::json;
+use crate::math::groebner::MAX_QUOTIENT_N;
+use crate::math::parse::parse_poly;
+use crate::math::quotient::{normal_form, quotient};
+use crate::math::{IntPoly, Mono};
+use clap::Args;
+use num_bigint::BigInt;
+use serde_json::json;
+
+/// Arguments of `elbowroom reduce`.
+#[derive(Args, Debug)]
+pub struct ReduceArgs {
+    /// The polynomial, e.g. "x1^2 x2 - 3/2 x3" or "M(2,1) + F(1,1)".
+    pub poly: String,
+    /// The number of variables n (1 to 8).
+    #[arg(long)]
+    pub n: usize,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// Runs the command.
+pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
+    let n = args.n;
+    if n == 0 || n > MAX_QUOTIENT_N {
+        return Err(CliError::Input(format!(
+            "--n {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
+        )));
+    }
+    let f = parse_poly(&args.poly, Some(n))?;
+    let q = quotient(n)?;
+    let nf = normal_form(&q, &f)?;
+    if args.json {
+        let coefficients: Vec<_> = nf
+            .coefficients
+            .iter()
+            .map(|(i, m, c)| json!({"monomial": m.exps(n), "basis_index": i, "value": c.to_string()}))
+            .collect();
+        return Ok(json::render(&json!({
+            "n": n,
+            "input": json::poly(&f),
+            "normal_form": json::poly(&nf.poly),
+            "coefficients": coefficients,
+            "sum": nf.coefficient_sum().to_string(),
+        })));
+    }
+    let mut out = format!("f        = {f}\nNF(f)    = {}\n", nf.poly);
+    out.push_str(&format!(
+        "sum of coefficients {}\n\ncoefficient  standard monomial\n",
+        nf.coefficient_sum()
+    ));
+    for (_, m, c) in &nf.coefficients {
+        out.push_str(&format!(
+            "{:>11}  {}\n",
+            c.to_string(),
+            monomial_text(n, *m)
+        ));
+    }
+    Ok(out)
+}
+
+/// A monomial in plain text, e.g. `x2 x3^2` (`1` for the constant monomial).
+pub fn monomial_text(n: usize, m: Mono) -> String {
+    IntPoly::monomial(n, m, BigInt::from(1)).to_text()
+}

@@ -1,0 +1,227 @@
+//! `elbowroom survey (--n N | --perm W)`: for each permutation w, the normal form modulo
+//! J_n of the reversed Schubert polynomial S_w(x_n, ..., x_1), whether its coefficients are
+//! all nonnegative, its number of terms and coefficient sum, and every counterexample.
+//!
+//! Ctrl-C stops the run: stderr says how far it got, the exit status is 130 and nothing
+//! is printed on stdout.
+
+use super::cmd_reduce::monomial_text;
+use super::error::CliError;
+use super::json;
+use super::shard::Shard;
+use crate::math::groebner::MAX_QUOTIENT_N;
+use crate::math::survey::{SurveyEntry, survey};
+use crate::math::{MathError, Perm, Progress};
+use clap::Args;
+use serde_json::{Value, json};
+use std::sync::Arc;
+
+/// The `"kind"` of the survey's JSON output, for `elbowroom merge`.
+pub const KIND: &str = "quotient_survey";
+
+/// Arguments of `elbowroom survey`.
+#[derive(Args, Debug)]
+pub struct SurveyArgs {
+    /// Survey all of S_n (1 <= n <= 8).
+    #[arg(long, conflicts_with = "perm", required_unless_present = "perm")]
+    pub n: Option<usize>,
+    /// Survey one permutation, e.g. 2143.
+    #[arg(long)]
+    pub perm: Option<String>,
+    /// Print one JSON object instead of text.
+    #[arg(long, conflicts_with = "csv")]
+    pub json: bool,
+    /// Print CSV, one row per permutation.
+    #[arg(long)]
+    pub csv: bool,
+    /// Leave out the per-permutation normal forms.
+    #[arg(long)]
+    pub summary: bool,
+    /// Run only piece K of N of the listing (item i goes to piece (i mod N) + 1).
+    #[arg(long, value_name = "K/N")]
+    pub shard: Option<String>,
+}
+
+fn negatives_json(e: &SurveyEntry, n: usize) -> Vec<Value> {
+    e.negatives()
+        .iter()
+        .map(|(m, c)| json!({"monomial": m.exps(n), "value": c.to_string()}))
+        .collect()
+}
+
+/// Runs the command.
+pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
+    let shard = match &args.shard {
+        Some(s) => Shard::parse(s)?,
+        None => Shard::WHOLE,
+    };
+    let (n, perms): (usize, Vec<Perm>) = match (&args.perm, args.n) {
+        (Some(text), _) => {
+            let w = Perm::parse(text)?;
+            if w.n() > MAX_QUOTIENT_N {
+                return Err(CliError::Input(format!(
+                    "{w} has n = {}; surveys run for n from 1 to {MAX_QUOTIENT_N}",
+                    w.n()
+                )));
+            }
+            (w.n(), vec![w])
+        }
+        (None, Some(n)) => {
+            if n == 0 || n > MAX_QUOTIENT_N {
+                return Err(CliError::Input(format!(
+                    "--n {n} is out of range; surveys run for n from 1 to {MAX_QUOTIENT_N}"
+                )));
+            }
+            (n, Perm::all(n).collect())
+        }
+        (None, None) => {
+            return Err(CliError::Input(
+                "give --n N (all of S_N) or --perm W (one permutation)".into(),
+            ));
+        }
+    };
+    let perms: Vec<Perm> = perms
+        .into_iter()
+        .enumerate()
+        .filter(|(i, _)| shard.selects(*i))
+        .map(|(_, w)| w)
+        .collect();
+    let progress = Arc::new(Progress::new(perms.len() as u64));
+    let _watch = super::interrupt::watch(progress.clone());
+    let entries = match survey(&perms, &progress) {
+        Ok(e) => e,
+        Err(MathError::Canceled) => {
+            return Err(CliError::Canceled(format!(
+                "survey canceled after {} of {} permutations; no output written",
+                progress.done(),
+                progress.total()
+            )));
+        }
+        Err(e) => return Err(e.into()),
+    };
+    let shard_text = format!("{}/{}", shard.index, shard.count);
+    if args.json {
+        return Ok(json::render(&survey_json(
+            n,
+            &shard_text,
+            &entries,
+            args.summary,
+        )));
+    }
+    if args.csv {
+        return Ok(survey_csv(n, &entries, args.summary));
+    }
+    Ok(survey_text(n, &shard_text, &entries, args.summary))
+}
+
+/// The survey as the JSON object of the command (`"kind": "quotient_survey"`).
+pub fn survey_json(n: usize, shard: &str, entries: &[SurveyEntry], summary: bool) -> Value {
+    let results: Vec<Value> = entries
+        .iter()
+        .map(|e| {
+            let mut v = json!({
+                "perm": e.perm.one_line(),
+                "length": e.perm.length(),
+                "nonnegative": e.nonnegative(),
+                "terms": e.terms(),
+                "sum": e.sum().to_string(),
+            });
+            if !summary {
+                v["normal_form"] = json::poly(&e.normal_form.poly);
+            }
+            v
+        })
+        .collect();
+    let counterexamples: Vec<Value> = entries
+        .iter()
+        .filter(|e| !e.nonnegative())
+        .map(|e| json!({"perm": e.perm.one_line(), "negative_coefficients": negatives_json(e, n)}))
+        .collect();
+    json!({
+        "kind": KIND,
+        "n": n,
+        "shard": shard,
+        "count": entries.len(),
+        "all_nonnegative": counterexamples.is_empty(),
+        "results": results,
+        "counterexamples": counterexamples,
+    })
+}
+
+fn csv_quote(s: &str) -> String {
+    format!("\"{}\"", s.replace('"', "\"\""))
+}
+
+fn survey_csv(n: usize, entries: &[SurveyEntry], summary: bool) -> String {
+    let mut out = String::from("perm,length,nonnegative,terms,sum,negative_coefficients");
+    if !summary {
+        out.push_str(",normal_form");
+    }
+    out.push('\n');
+    for e in entries {
+        let negs: Vec<String> = e
+            .negatives()
+            .iter()
+            .map(|(m, c)| format!("{c}*{}", monomial_text(n, *m)))
+            .collect();
+        out.push_str(&format!(
+            "{},{},{},{},{},{}",
+            csv_quote(&e.perm.to_string()),
+            e.perm.length(),
+            e.nonnegative(),
+            e.terms(),
+            csv_quote(&e.sum().to_string()),
+            csv_quote(&negs.join(" ")),
+        ));
+        if !summary {
+            out.push(',');
+            out.push_str(&csv_quote(&e.normal_form.poly.to_text()));
+        }
+        out.push('\n');
+    }
+    out
+}
+
+fn survey_text(n: usize, shard: &str, entries: &[SurveyEntry], summary: bool) -> String {
+    let bad = entries.iter().filter(|e| !e.nonnegative()).count();
+    let mut out = format!(
+        "normal forms of S_w(x{n}, ..., x1) modulo J_{n} (piece {shard}): {} permutations, {} with a negative coefficient\n\n",
+        entries.len(),
+        bad
+    );
+    out.push_str(&format!(
+        "{:<10} {:>3} {:>6} {:>8} {:>6}{}\n",
+        "w",
+        "ℓ",
+        "terms",
+        "sum",
+        "≥ 0",
+        if summary { "" } else { "  normal form" }
+    ));
+    for e in entries {
+        out.push_str(&format!(
+            "{:<10} {:>3} {:>6} {:>8} {:>6}",
+            e.perm.to_string(),
+            e.perm.length(),
+            e.terms(),
+            e.sum().to_string(),
+            if e.nonnegative() { "yes" } else { "NO" }
+        ));
+        if !summary {
+            out.push_str(&format!("  {}", e.normal_form.poly));
+        }
+        out.push('\n');
+    }
+    if bad > 0 {
+        out.push_str("\ncounterexamples (negative coefficients):\n");
+        for e in entries.iter().filter(|e| !e.nonnegative()) {
+            let negs: Vec<String> = e
+                .negatives()
+                .iter()
+                .map(|(m, c)| format!("{c}·{}", monomial_text(n, *m)))
+                .collect();
+            out.push_str(&format!("  {}: {}\n", e.perm, negs.join(", ")));
+        }
+    }
+    out
+}

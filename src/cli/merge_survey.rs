@@ -1,0 +1,117 @@
+//! Merging the pieces of a sharded survey (`elbowroom survey --shard K/N --json`) back
+//! into one survey, as if it had been run whole.
+
+use super::error::CliError;
+use serde_json::{Value, json};
+use std::cmp::Ordering;
+
+fn perm_key(v: &Value) -> Vec<u64> {
+    v.get("perm")
+        .and_then(Value::as_array)
+        .map(|a| a.iter().filter_map(Value::as_u64).collect())
+        .unwrap_or_default()
+}
+
+fn bad(msg: String) -> CliError {
+    CliError::Input(msg)
+}
+
+/// Merges survey documents (`"kind": "quotient_survey"`) of the same n whose shards
+/// K/N cover 1..N exactly once. Results and counterexamples come back in listing order
+/// (lex order of the permutations), with `"shard": "1/1"` and `"merged_from": N`.
+pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
+    let Some(first) = docs.first() else {
+        return Err(bad(
+            "nothing to merge: give the JSON files of the pieces".into()
+        ));
+    };
+    let n = first.get("n").and_then(Value::as_u64);
+    let mut seen: Vec<bool> = Vec::new();
+    let mut count: Option<usize> = None;
+    let mut results: Vec<Value> = Vec::new();
+    let mut counterexamples: Vec<Value> = Vec::new();
+    for (i, doc) in docs.iter().enumerate() {
+        if doc.get("kind").and_then(Value::as_str) != Some(super::cmd_survey::KIND) {
+            return Err(bad(format!(
+                "piece {} is not a quotient survey (its \"kind\" is not \"quotient_survey\")",
+                i + 1
+            )));
+        }
+        if doc.get("n").and_then(Value::as_u64) != n {
+            return Err(bad(format!("piece {} surveys a different n", i + 1)));
+        }
+        let shard = doc.get("shard").and_then(Value::as_str).unwrap_or("");
+        let parsed = super::shard::Shard::parse(shard)
+            .map_err(|_| bad(format!("piece {} has no valid \"shard\": \"K/N\"", i + 1)))?;
+        match count {
+            None => {
+                count = Some(parsed.count);
+                seen = vec![false; parsed.count];
+            }
+            Some(c) if c != parsed.count => {
+                return Err(bad(format!(
+                    "piece {} is one of {} pieces, the others of {c}",
+                    i + 1,
+                    parsed.count
+                )));
+            }
+            _ => {}
+        }
+        if std::mem::replace(&mut seen[parsed.index - 1], true) {
+            return Err(bad(format!("piece {shard} is given twice")));
+        }
+        let (Some(r), Some(c)) = (
+            doc.get("results").and_then(Value::as_array),
+            doc.get("counterexamples").and_then(Value::as_array),
+        ) else {
+            return Err(bad(format!(
+                "piece {} lacks \"results\" or \"counterexamples\"",
+                i + 1
+            )));
+        };
+        results.extend(r.iter().cloned());
+        counterexamples.extend(c.iter().cloned());
+    }
+    if let Some(missing) = seen.iter().position(|s| !s) {
+        return Err(bad(format!(
+            "piece {}/{} is missing",
+            missing + 1,
+            seen.len()
+        )));
+    }
+    let by_perm = |a: &Value, b: &Value| -> Ordering { perm_key(a).cmp(&perm_key(b)) };
+    results.sort_by(by_perm);
+    counterexamples.sort_by(by_perm);
+    Ok(json!({
+        "kind": super::cmd_survey::KIND,
+        "n": n,
+        "shard": "1/1",
+        "merged_from": seen.len(),
+        "count": results.len(),
+        "all_nonnegative": counterexamples.is_empty(),
+        "results": results,
+        "counterexamples": counterexamples,
+    }))
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn pieces_must_cover_once() {
+        let piece = |k: usize, perms: &[[u64; 2]]| {
+            json!({"kind": "quotient_survey", "n": 2, "shard": format!("{k}/2"),
+                   "results": perms.iter().map(|p| json!({"perm": p})).collect::<Vec<_>>(),
+                   "counterexamples": []})
+        };
+        let a = piece(1, &[[1, 2]]);
+        let b = piece(2, &[[2, 1]]);
+        let merged = merge_surveys(&[b.clone(), a.clone()]).unwrap_or(Value::Null);
+        assert_eq!(merged["results"][0]["perm"], json!([1, 2]));
+        assert_eq!(merged["count"], json!(2));
+        assert!(merge_surveys(std::slice::from_ref(&a)).is_err());
+        assert!(merge_surveys(&[a.clone(), a]).is_err());
+        assert!(merge_surveys(&[]).is_err());
+    }
+}

@@ -1,0 +1,224 @@
+//! Tables for papers and spreadsheets: a header and rows of strings, written
+//! as CSV (RFC 4180 quoting) or as a LaTeX `tabular` that needs no package.
+//!
+//! Columns are either text (escaped, left-aligned) or mathematics (set in
+//! math mode, right-aligned): permutations, coefficients and other values.
+//! A header cell written as `$...$` is copied into LaTeX unchanged, so headers
+//! can use real notation (`$\mathrm{DS}_h(\mathfrak{S}_w)$`); in CSV the
+//! dollar signs are dropped.
+//!
+//! ```
+//! use elbowroom::figure::table::{Column, Table};
+//! let mut t = Table::new(vec![Column::math("$w$"), Column::math("$A_c$")]);
+//! t.push(vec!["312".into(), "-3/2".into()]);
+//! assert_eq!(t.to_csv(), "w,A_c\n312,-3/2\n");
+//! assert!(t.to_latex().contains("$312$ & $-3/2$ \\\\"));
+//! ```
+
+/// How a column's cells are set.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+pub enum ColumnKind {
+    /// Plain text, escaped, left-aligned.
+    Text,
+    /// Mathematics (numbers, permutations, compositions): math mode, right-aligned.
+    Math,
+}
+
+/// A column: its header and kind.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct Column {
+    /// The header (a `$...$` header goes to LaTeX as it is).
+    pub header: String,
+    /// How the cells are set.
+    pub kind: ColumnKind,
+}
+
+impl Column {
+    /// A text column.
+    pub fn text(header: &str) -> Column {
+        Column {
+            header: header.into(),
+            kind: ColumnKind::Text,
+        }
+    }
+
+    /// A mathematics column.
+    pub fn math(header: &str) -> Column {
+        Column {
+            header: header.into(),
+            kind: ColumnKind::Math,
+        }
+    }
+}
+
+/// A header and rows of cells (rows shorter than the header are padded with
+/// empty cells; longer ones are cut).
+#[derive(Clone, Debug, Default, PartialEq, Eq)]
+pub struct Table {
+    /// The columns.
+    pub columns: Vec<Column>,
+    /// The rows, each a list of cells.
+    pub rows: Vec<Vec<String>>,
+}
+
+impl Table {
+    /// An empty table with these columns.
+    pub fn new(columns: Vec<Column>) -> Table {
+        Table {
+            columns,
+            rows: Vec::new(),
+        }
+    }
+
+    /// Appends a row.
+    pub fn push(&mut self, row: Vec<String>) {
+        self.rows.push(row);
+    }
+
+    fn cells<'a>(&'a self, row: &'a [String]) -> impl Iterator<Item = &'a str> + 'a {
+        (0..self.columns.len()).map(move |i| row.get(i).map(String::as_str).unwrap_or(""))
+    }
+
+    /// The table as CSV: a header line, then one line per row, `\n` line ends.
+    pub fn to_csv(&self) -> String {
+        let mut out = String::new();
+        let header: Vec<String> = self
+            .columns
+            .iter()
+            .map(|c| csv_field(strip_dollars(&c.header)))
+            .collect();
+        out.push_str(&header.join(","));
+        out.push('\n');
+        for row in &self.rows {
+            let fields: Vec<String> = self.cells(row).map(csv_field).collect();
+            out.push_str(&fields.join(","));
+            out.push('\n');
+        }
+        out
+    }
+
+    /// The table as a LaTeX `tabular` environment (no package needed).
+    pub fn to_latex(&self) -> String {
+        let spec: String = self
+            .columns
+            .iter()
+            .map(|c| match c.kind {
+                ColumnKind::Text => 'l',
+                ColumnKind::Math => 'r',
+            })
+            .collect();
+        let mut out = format!("\\begin{{tabular}}{{{spec}}}\n\\hline\n");
+        let header: Vec<String> = self
+            .columns
+            .iter()
+            .map(|c| {
+                if is_dollar_math(&c.header) {
+                    c.header.clone()
+                } else {
+                    latex_escape(&c.header)
+                }
+            })
+            .collect();
+        out.push_str(&header.join(" & "));
+        out.push_str(" \\\\\n\\hline\n");
+        for row in &self.rows {
+            let cells: Vec<String> = self
+                .cells(row)
+                .zip(&self.columns)
+                .map(|(cell, col)| match col.kind {
+                    ColumnKind::Text => latex_escape(cell),
+                    ColumnKind::Math if cell.is_empty() => String::new(),
+                    ColumnKind::Math => format!("${}$", latex_escape(cell)),
+                })
+                .collect();
+            out.push_str(&cells.join(" & "));
+            out.push_str(" \\\\\n");
+        }
+        out.push_str("\\hline\n\\end{tabular}\n");
+        out
+    }
+}
+
+/// One CSV field, quoted when it holds a comma, quote, line break or edge space.
+pub fn csv_field(s: &str) -> String {
+    let needs = s.contains([',', '"', '\n', '\r']) || s.starts_with(' ') || s.ends_with(' ');
+    if needs {
+        format!("\"{}\"", s.replace('"', "\"\""))
+    } else {
+        s.to_string()
+    }
+}
+
+fn is_dollar_math(s: &str) -> bool {
+    s.len() >= 2 && s.starts_with('$') && s.ends_with('$')
+}
+
+fn strip_dollars(s: &str) -> &str {
+    if is_dollar_math(s) {
+        &s[1..s.len() - 1]
+    } else {
+        s
+    }
+}
+
+/// Escapes the ten LaTeX specials so a string sets as it reads.
+pub fn latex_escape(s: &str) -> String {
+    let mut out = String::with_capacity(s.len());
+    for ch in s.chars() {
+        match ch {
+            '\\' => out.push_str("\\textbackslash{}"),
+            '{' => out.push_str("\\{"),
+            '}' => out.push_str("\\}"),
+            '#' => out.push_str("\\#"),
+            '$' => out.push_str("\\$"),
+            '%' => out.push_str("\\%"),
+            '&' => out.push_str("\\&"),
+            '_' => out.push_str("\\_"),
+            '^' => out.push_str("\\^{}"),
+            '~' => out.push_str("\\~{}"),
+            c => out.push(c),
+        }
+    }
+    out
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn csv_quotes_what_needs_quoting() {
+        assert_eq!(csv_field("1,2"), "\"1,2\"");
+        assert_eq!(csv_field("say \"hi\""), "\"say \"\"hi\"\"\"");
+        assert_eq!(csv_field("two\nlines"), "\"two\nlines\"");
+        assert_eq!(csv_field(" pad"), "\" pad\"");
+        assert_eq!(csv_field("-3/2"), "-3/2");
+    }
+
+    #[test]
+    fn latex_escapes_and_sets_math() {
+        let mut t = Table::new(vec![
+            Column::text("class"),
+            Column::math("$h$"),
+            Column::math("count"),
+        ]);
+        t.push(vec![
+            "fully_commutative".into(),
+            "(2,3,3)".into(),
+            "14".into(),
+        ]);
+        t.push(vec!["50% & more".into()]);
+        let tex = t.to_latex();
+        assert!(tex.starts_with("\\begin{tabular}{lrr}\n\\hline\nclass & $h$ & count \\\\\n"));
+        assert!(tex.contains("fully\\_commutative & $(2,3,3)$ & $14$ \\\\\n"));
+        assert!(tex.contains("50\\% \\& more &  &  \\\\\n"));
+        assert!(tex.ends_with("\\end{tabular}\n"));
+    }
+
+    #[test]
+    fn csv_drops_header_dollars_and_pads_rows() {
+        let mut t = Table::new(vec![Column::math("$c$"), Column::math("$A_c$")]);
+        t.push(vec!["(1,1,1)".into()]);
+        assert_eq!(t.to_csv(), "c,A_c\n\"(1,1,1)\",\n");
+    }
+}

@@ -1,0 +1,260 @@
+//! The TikZ writer: a standalone LaTeX document (`\documentclass[tikz]{standalone}`)
+//! that compiles with pdflatex and no other package. Colours are declared once
+//! with `\definecolor`; each path or circle of the scene is one `\draw`
+//! command, followed by a comment naming its tag (`% pipe 3`).
+//!
+//! Coordinates are the scene's own: the picture is drawn with `x=1pt, y=-1pt`,
+//! so one figure unit is one point and y points down as in the scene.
+
+use super::scene::{Anchor, Color, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
+use super::svg::num;
+use std::collections::BTreeSet;
+use std::fmt::Write;
+
+/// The scene as a standalone LaTeX document, with its background.
+pub fn to_tikz(scene: &Scene) -> String {
+    document(scene, true)
+}
+
+/// The scene as a standalone LaTeX document, with or without its background.
+pub fn document(scene: &Scene, with_background: bool) -> String {
+    let mut out = String::new();
+    out.push_str("\\documentclass[tikz]{standalone}\n");
+    let mut colors: BTreeSet<(u8, u8, u8)> = BTreeSet::new();
+    if with_background {
+        colors.insert(rgb(scene.background));
+    }
+    for item in &scene.items {
+        match &item.kind {
+            ItemKind::Path { stroke, fill, .. } | ItemKind::Circle { stroke, fill, .. } => {
+                colors.extend(stroke.map(|s| rgb(s.color)));
+                colors.extend(fill.map(rgb));
+            }
+            ItemKind::Text { color, .. } => {
+                colors.insert(rgb(*color));
+            }
+        }
+    }
+    for &(r, g, b) in &colors {
+        let _ = writeln!(
+            out,
+            "\\definecolor{{{}}}{{HTML}}{{{:02X}{:02X}{:02X}}}",
+            color_name(Color::rgb(r, g, b)),
+            r,
+            g,
+            b
+        );
+    }
+    out.push_str("\\begin{document}\n\\begin{tikzpicture}[x=1pt, y=-1pt]\n");
+    let (w, h) = (num(scene.width), num(scene.height));
+    if with_background {
+        let _ = writeln!(
+            out,
+            "\\fill[{}] (0,0) rectangle ({w},{h});",
+            color_name(scene.background)
+        );
+    }
+    let _ = writeln!(out, "\\useasboundingbox (0,0) rectangle ({w},{h});");
+    for item in &scene.items {
+        let comment = tag_comment(item.tag);
+        match &item.kind {
+            ItemKind::Path { cmds, stroke, fill } => {
+                if cmds.is_empty() {
+                    continue;
+                }
+                let _ = writeln!(
+                    out,
+                    "\\draw[{}] {};{comment}",
+                    style(*stroke, *fill),
+                    path(cmds)
+                );
+            }
+            ItemKind::Circle {
+                center,
+                radius,
+                stroke,
+                fill,
+            } => {
+                let _ = writeln!(
+                    out,
+                    "\\draw[{}] {} circle[radius={}];{comment}",
+                    style(*stroke, *fill),
+                    point(*center),
+                    num(*radius)
+                );
+            }
+            ItemKind::Text {
+                pos,
+                text,
+                size,
+                color,
+                anchor,
+            } => {
+                let anchor = match anchor {
+                    Anchor::Center => "center",
+                    Anchor::Left => "west",
+                    Anchor::Right => "east",
+                };
+                let s = num(*size);
+                let leading = num(size * 1.2);
+                let _ = writeln!(
+                    out,
+                    "\\node[anchor={anchor}, inner sep=0pt, text={}, font=\\fontsize{{{s}}}{{{leading}}}\\selectfont\\sffamily] at {} {{{}}};{comment}",
+                    color_name(*color),
+                    point(*pos),
+                    latex_text(text)
+                );
+            }
+        }
+    }
+    out.push_str("\\end{tikzpicture}\n\\end{document}\n");
+    out
+}
+
+fn rgb(c: Color) -> (u8, u8, u8) {
+    (c.r, c.g, c.b)
+}
+
+/// The xcolor name of an opaque colour: `er` and its hex digits.
+fn color_name(c: Color) -> String {
+    format!("er{:02X}{:02X}{:02X}", c.r, c.g, c.b)
+}
+
+fn style(stroke: Option<Stroke>, fill: Option<Color>) -> String {
+    let mut parts: Vec<String> = Vec::new();
+    match stroke {
+        Some(s) => {
+            parts.push(format!("draw={}", color_name(s.color)));
+            parts.push(format!("line width={}pt", num(s.width)));
+            parts.push("line cap=round".into());
+            parts.push("line join=round".into());
+            if s.color.a < 255 {
+                parts.push(format!(
+                    "draw opacity={}",
+                    num(f32::from(s.color.a) / 255.0)
+                ));
+            }
+        }
+        None => parts.push("draw=none".into()),
+    }
+    if let Some(f) = fill {
+        parts.push(format!("fill={}", color_name(f)));
+        if f.a < 255 {
+            parts.push(format!("fill opacity={}", num(f32::from(f.a) / 255.0)));
+        }
+    }
+    parts.join(", ")
+}
+
+fn point(p: Pt) -> String {
+    format!("({},{})", num(p.x), num(p.y))
+}
+
+fn path(cmds: &[PathCmd]) -> String {
+    let mut s = String::new();
+    for (i, cmd) in cmds.iter().enumerate() {
+        match cmd {
+            PathCmd::MoveTo(p) => {
+                if i > 0 {
+                    s.push(' ');
+                }
+                s.push_str(&point(*p));
+            }
+            PathCmd::LineTo(p) => {
+                let _ = write!(s, " -- {}", point(*p));
+            }
+            PathCmd::CubicTo(a, b, p) => {
+                let _ = write!(
+                    s,
+                    " .. controls {} and {} .. {}",
+                    point(*a),
+                    point(*b),
+                    point(*p)
+                );
+            }
+            PathCmd::Close => s.push_str(" -- cycle"),
+        }
+    }
+    s
+}
+
+fn tag_comment(tag: Tag) -> String {
+    match tag {
+        Tag::None => String::new(),
+        Tag::Pipe(k) => format!(" % pipe {k}"),
+        Tag::Cell(r, c) => format!(" % cell {r} {c}"),
+        Tag::Crossing(k) => format!(" % crossing {k}"),
+        Tag::Panel(k) => format!(" % panel {k}"),
+        Tag::Vertex(k) => format!(" % vertex {k}"),
+        Tag::Label => " % label".into(),
+    }
+}
+
+/// Plain scene text as LaTeX that pdflatex accepts with no extra package:
+/// specials escaped, the Greek and mathematical symbols the figures use in
+/// math mode, anything else unknown replaced by `?`.
+pub fn latex_text(text: &str) -> String {
+    let mut out = String::new();
+    for ch in text.chars() {
+        let piece: &str = match ch {
+            '\\' => "\\textbackslash{}",
+            '{' => "\\{",
+            '}' => "\\}",
+            '#' => "\\#",
+            '$' => "\\$",
+            '%' => "\\%",
+            '&' => "\\&",
+            '_' => "\\_",
+            '^' => "\\^{}",
+            '~' => "\\~{}",
+            '<' => "$<$",
+            '>' => "$>$",
+            '|' => "$|$",
+            'σ' => "$\\sigma$",
+            'λ' => "$\\lambda$",
+            'ℓ' => "$\\ell$",
+            '∂' => "$\\partial$",
+            'π' => "$\\pi$",
+            'α' => "$\\alpha$",
+            'β' => "$\\beta$",
+            'μ' => "$\\mu$",
+            'Σ' => "$\\Sigma$",
+            '·' => "$\\cdot$",
+            '×' => "$\\times$",
+            '≤' => "$\\leq$",
+            '≥' => "$\\geq$",
+            '−' => "$-$",
+            '→' => "$\\to$",
+            '…' => "\\dots{}",
+            '₀' => "$_0$",
+            '₁' => "$_1$",
+            '₂' => "$_2$",
+            '₃' => "$_3$",
+            '₄' => "$_4$",
+            '₅' => "$_5$",
+            '₆' => "$_6$",
+            '₇' => "$_7$",
+            '₈' => "$_8$",
+            '₉' => "$_9$",
+            c if c.is_ascii() && !c.is_control() => {
+                out.push(c);
+                continue;
+            }
+            c if c.is_control() => continue,
+            _ => "?",
+        };
+        out.push_str(piece);
+    }
+    out
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn specials_are_escaped() {
+        assert_eq!(latex_text("a_1 & 50%"), "a\\_1 \\& 50\\%");
+        assert_eq!(latex_text("σ₂"), "$\\sigma$$_2$");
+    }
+}

@@ -1,0 +1,146 @@
+//! Checks that a loaded session describes a possible exploration, and says
+//! which field is wrong and what is accepted when it does not.
+
+use super::model::Session;
+use crate::math::MAX_N;
+
+/// Why a session is impossible: the first problem found, as one sentence.
+pub fn check(session: &Session) -> Result<(), String> {
+    let n = session.n;
+    if !(1..=MAX_N).contains(&n) {
+        return Err(format!(
+            "n = {n} is out of range; elbowroom works with 1 <= n <= {MAX_N}"
+        ));
+    }
+    if session.current.len() != n {
+        return Err(format!(
+            "current {:?} has {} entries but n = {n}; it must list w(1), ..., w(n)",
+            session.current,
+            session.current.len()
+        ));
+    }
+    if !is_permutation(&session.current) {
+        return Err(format!(
+            "current {:?} is not a permutation of 1..{n}",
+            session.current
+        ));
+    }
+    for (k, w) in session.history.iter().enumerate() {
+        check_listed("history", k, w)?;
+    }
+    if !session.history.is_empty() && session.history_pos >= session.history.len() {
+        return Err(format!(
+            "history_pos = {} but the history has {} entries (positions start at 0)",
+            session.history_pos,
+            session.history.len()
+        ));
+    }
+    for (k, w) in session.pins.iter().enumerate() {
+        check_listed("pins", k, w)?;
+    }
+    check_hessenberg(&session.hessenberg.h, n)?;
+    let scale = session.figure.scale;
+    if !(scale.is_finite() && scale > 0.0 && scale <= 64.0) {
+        return Err(format!(
+            "figure.scale = {scale} is not accepted; use a number in (0, 64]"
+        ));
+    }
+    for (name, v) in [
+        ("solid.yaw", session.solid.yaw),
+        ("solid.pitch", session.solid.pitch),
+    ] {
+        if !v.is_finite() {
+            return Err(format!("{name} = {v} is not a finite angle"));
+        }
+    }
+    Ok(())
+}
+
+/// Whether `w` lists each of 1..=len exactly once.
+pub fn is_permutation(w: &[usize]) -> bool {
+    let mut seen = vec![false; w.len()];
+    for &v in w {
+        let Some(slot) = v.checked_sub(1).and_then(|i| seen.get_mut(i)) else {
+            return false;
+        };
+        if *slot {
+            return false;
+        }
+        *slot = true;
+    }
+    true
+}
+
+fn check_listed(field: &str, k: usize, w: &[usize]) -> Result<(), String> {
+    if w.is_empty() || w.len() > MAX_N {
+        return Err(format!(
+            "{field}[{k}] = {w:?} has {} entries; a permutation has 1 to {MAX_N}",
+            w.len()
+        ));
+    }
+    if !is_permutation(w) {
+        return Err(format!(
+            "{field}[{k}] = {w:?} is not a permutation of 1..{}",
+            w.len()
+        ));
+    }
+    Ok(())
+}
+
+/// A Hessenberg function: empty (the default h(i) = i + 1), or h(1..n) weakly
+/// increasing with i <= h(i) <= n.
+fn check_hessenberg(h: &[usize], n: usize) -> Result<(), String> {
+    if h.is_empty() {
+        return Ok(());
+    }
+    if h.len() != n {
+        return Err(format!(
+            "hessenberg.h = {h:?} has {} entries but n = {n}; give h(1), ..., h(n) or leave it empty",
+            h.len()
+        ));
+    }
+    for (i, &hi) in h.iter().enumerate() {
+        let row = i + 1;
+        if hi < row || hi > n {
+            return Err(format!(
+                "hessenberg.h = {h:?}: h({row}) = {hi}, but a Hessenberg function has {row} <= h({row}) <= {n}"
+            ));
+        }
+        if i > 0 && hi < h[i - 1] {
+            return Err(format!(
+                "hessenberg.h = {h:?} is not weakly increasing: h({}) = {} > h({row}) = {hi}",
+                row - 1,
+                h[i - 1]
+            ));
+        }
+    }
+    Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn the_default_session_is_valid() {
+        assert_eq!(check(&Session::default()), Ok(()));
+    }
+
+    #[test]
+    fn permutations_are_recognised() {
+        assert!(is_permutation(&[3, 1, 2]));
+        assert!(!is_permutation(&[3, 1, 3]));
+        assert!(!is_permutation(&[0, 1, 2]));
+        assert!(!is_permutation(&[1, 2, 4]));
+    }
+
+    #[test]
+    fn hessenberg_functions_are_checked() {
+        assert!(check_hessenberg(&[2, 3, 4, 4], 4).is_ok());
+        assert!(check_hessenberg(&[1, 2, 3, 4], 4).is_ok());
+        let e = check_hessenberg(&[3, 2, 4, 4], 4).unwrap_err();
+        assert!(e.contains("not weakly increasing"), "{e}");
+        let e = check_hessenberg(&[2, 3, 4, 3], 4).unwrap_err();
+        assert!(e.contains("h(4) = 3"), "{e}");
+    }
+}
