@@ -7,6 +7,7 @@ use elbowroom::math::hessenberg::HessenbergFn;
 use elbowroom::math::hessenberg_table::{hessenberg_table, perms_of_length};
 use elbowroom::math::mixed_eulerian::mixed_eulerian_numbers;
 use elbowroom::math::schubert::SchubertTable;
+use elbowroom::math::words;
 use elbowroom::math::{IntPoly, MathError, Perm, Progress};
 use num_bigint::BigInt;
 use num_rational::BigRational;
@@ -150,7 +151,7 @@ fn coefficients_are_averages_of_mixed_eulerian_numbers_over_reduced_words() {
     // form of the class of the permutohedral variety (Nadeau, Tewari, "Divided symmetrization
     // and quasisymmetric functions", from memory; it has the shape of Macdonald's identity
     // Σ_{a in R(w)} a_1 ... a_l = l! S_w(1, ..., 1)). The two sides share no code: the right side
-    // counts reduced words here and takes A_c from the mixed Eulerian walk.
+    // counts reduced words by content (math::words) and takes A_c from the mixed Eulerian walk.
     for n in 2..=7 {
         let h = HessenbergFn::default_for(n).unwrap();
         let a: BTreeMap<Vec<u32>, BigInt> = mixed_eulerian_numbers(n, &Progress::new(0))
@@ -160,8 +161,16 @@ fn coefficients_are_averages_of_mixed_eulerian_numbers_over_reduced_words() {
         let fact: u64 = (1..n as u64).product();
         let mut memo = HashMap::new();
         for (w, v) in table(&h) {
+            let by_content = words::counts_by_content(&w);
+            // the word counts agree with a small local enumeration (recursion on descents)
+            let local = counts_by_content(&w, &mut memo);
+            let converted: BTreeMap<Vec<usize>, BigInt> = by_content
+                .iter()
+                .map(|(c, k)| (c.clone(), BigInt::from(k.clone())))
+                .collect();
+            assert_eq!(converted, local, "reduced words of {w}");
             let mut total = BigInt::zero();
-            for (c, k) in counts_by_content(&w, &mut memo) {
+            for (c, k) in converted {
                 let c32: Vec<u32> = c.iter().map(|&x| x as u32).collect();
                 total += &a[&c32] * k;
             }
