@@ -24,16 +24,44 @@ fn open_session_file(path: &std::path::Path) -> ExitCode {
         }
     };
     let _ = elbowroom::session::recent::push(path);
+    open_explorer_on(session, path)
+}
+
+#[cfg(feature = "gui")]
+fn open_explorer_on(session: elbowroom::session::Session, path: &std::path::Path) -> ExitCode {
+    match elbowroom::gui::run_file(session, path.to_path_buf()) {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(e) => {
+            eprintln!("elbowroom: the explorer window could not open: {e}");
+            ExitCode::FAILURE
+        }
+    }
+}
+
+#[cfg(not(feature = "gui"))]
+fn open_explorer_on(session: elbowroom::session::Session, _path: &std::path::Path) -> ExitCode {
     println!(
-        "The explorer window is not built yet; it would open \"{}\" (n = {}, view {:?}).",
+        "This build has no explorer window (built without the `gui` feature); the file is a valid session: \"{}\" (n = {}, view {:?}).",
         session.title, session.n, session.view
     );
     ExitCode::SUCCESS
 }
 
+#[cfg(feature = "gui")]
+fn open_explorer() -> ExitCode {
+    match elbowroom::gui::run(None) {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(e) => {
+            eprintln!("elbowroom: the explorer window could not open: {e}");
+            ExitCode::FAILURE
+        }
+    }
+}
+
+#[cfg(not(feature = "gui"))]
 fn open_explorer() -> ExitCode {
     println!(
-        "The explorer window is not built yet. Try a headless command, for example:\n  elbowroom schubert 31524\n  elbowroom --help"
+        "This build has no explorer window (built without the `gui` feature). Try a headless command, for example:\n  elbowroom schubert 31524\n  elbowroom --help"
     );
     ExitCode::SUCCESS
 }

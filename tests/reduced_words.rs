@@ -3,9 +3,11 @@
 #![allow(clippy::unwrap_used)]
 
 use elbowroom::math::Perm;
+use elbowroom::math::Progress;
 use elbowroom::math::schubert::SchubertTable;
 use elbowroom::math::words::{
-    apply_word_move, content, count_reduced_words, counts_by_content, reduced_words, word_moves,
+    apply_word_move, content, count_reduced_words, count_reduced_words_by_rank,
+    count_reduced_words_layered, counts_by_content, reduced_words, word_moves,
 };
 use num_bigint::{BigInt, BigUint};
 use num_traits::{One, ToPrimitive, Zero};
@@ -61,6 +63,35 @@ fn longest_element_counts_match_a005118() {
             "n = {n}"
         );
     }
+}
+
+#[test]
+fn rank_and_layered_methods_agree() {
+    let p = Progress::default();
+    for n in 1..=7 {
+        for w in Perm::all(n).step_by(if n == 7 { 11 } else { 1 }) {
+            let by_rank = count_reduced_words_by_rank(&w, &p).unwrap().unwrap();
+            assert_eq!(
+                by_rank,
+                count_reduced_words_layered(&w, &p).unwrap(),
+                "w = {w}"
+            );
+        }
+    }
+    for n in 8..=9 {
+        let w = Perm::longest(n);
+        assert_eq!(
+            count_reduced_words_layered(&w, &p).unwrap().to_string(),
+            A005118[n - 1]
+        );
+        let by_rank = count_reduced_words_by_rank(&w, &p).unwrap().unwrap();
+        assert_eq!(by_rank.to_string(), A005118[n - 1]);
+    }
+    // beyond the rank limit the rank method declines
+    let big = Perm::parse("12,11,10,9,8,7,6,5,4,3,2,1").unwrap();
+    assert!(count_reduced_words_by_rank(&big, &p).unwrap().is_none());
+    let small_big = Perm::parse("2,1,3,4,5,6,7,8,9,10,11,12").unwrap();
+    assert_eq!(count_reduced_words(&small_big), BigUint::one());
 }
 
 #[test]

@@ -50,9 +50,14 @@ pub fn merge_documents(docs: &[(String, Value)]) -> Result<Value, CliError> {
     }
     match kind {
         cmd_hessenberg::KIND => merge_hessenberg(docs),
+        super::cmd_survey::KIND => {
+            let values: Vec<Value> = docs.iter().map(|(_, v)| v.clone()).collect();
+            super::merge_survey::merge_surveys(&values)
+        }
         other => Err(CliError::Input(format!(
-            "cannot merge files of kind '{other}'; accepted kinds: {}",
-            cmd_hessenberg::KIND
+            "cannot merge files of kind '{other}'; accepted kinds: {}, {}",
+            cmd_hessenberg::KIND,
+            super::cmd_survey::KIND
         ))),
     }
 }

@@ -16,6 +16,9 @@ use clap::Args;
 use serde_json::{Value, json};
 use std::sync::Arc;
 
+/// The `"kind"` of the survey's JSON output, for `elbowroom merge`.
+pub const KIND: &str = "quotient_survey";
+
 /// Arguments of `elbowroom survey`.
 #[derive(Args, Debug)]
 pub struct SurveyArgs {
@@ -84,9 +87,7 @@ pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
         .map(|(_, w)| w)
         .collect();
     let progress = Arc::new(Progress::new(perms.len() as u64));
-    let watcher = progress.clone();
-    // a second handler in the same process is refused; the first one then stays in charge
-    let _ = ctrlc::set_handler(move || watcher.cancel());
+    let _watch = super::interrupt::watch(progress.clone());
     let entries = match survey(&perms, &progress) {
         Ok(e) => e,
         Err(MathError::Canceled) => {
@@ -137,7 +138,7 @@ pub fn survey_json(n: usize, shard: &str, entries: &[SurveyEntry], summary: bool
         .map(|e| json!({"perm": e.perm.one_line(), "negative_coefficients": negatives_json(e, n)}))
         .collect();
     json!({
-        "kind": "quotient_survey",
+        "kind": KIND,
         "n": n,
         "shard": shard,
         "count": entries.len(),

@@ -31,7 +31,7 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
     let mut results: Vec<Value> = Vec::new();
     let mut counterexamples: Vec<Value> = Vec::new();
     for (i, doc) in docs.iter().enumerate() {
-        if doc.get("kind").and_then(Value::as_str) != Some("quotient_survey") {
+        if doc.get("kind").and_then(Value::as_str) != Some(super::cmd_survey::KIND) {
             return Err(bad(format!(
                 "piece {} is not a quotient survey (its \"kind\" is not \"quotient_survey\")",
                 i + 1
@@ -83,7 +83,7 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
     results.sort_by(by_perm);
     counterexamples.sort_by(by_perm);
     Ok(json!({
-        "kind": "quotient_survey",
+        "kind": super::cmd_survey::KIND,
         "n": n,
         "shard": "1/1",
         "merged_from": seen.len(),

@@ -11,3 +11,10 @@ pub mod table;
 pub mod tikz;
 
 pub use scene::{Anchor, Color, Item, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
+pub mod bumpless;
+pub mod dream;
+pub mod look;
+pub mod paths;
+pub mod permutohedron;
+pub mod volume;
+pub mod wiring;

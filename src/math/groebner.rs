@@ -8,7 +8,8 @@
 //! (Adv. Math. 2004, from memory) show that the standard monomials are a basis of
 //! Q[x]/J_n (Catalan(n) of them), so the reduced basis has exactly one element
 //! G_c = c + (a combination of standard monomials of degree |c|) for each corner c.
-//! Here G_c comes out with coefficients in {-1, 0, 1} for n <= 8; for instance
+//! Here G_c comes out with integer coefficients: all ±1 for n <= 6, between -1 and 2 at
+//! n = 7 and between -2 and 3 at n = 8 (measured by the tests); for instance
 //! G_{x_1} = x_1 + ... + x_n, G_{x_2^2} = h_2(x_2..x_n), and, when the exponent of the
 //! corner has no zero after its first nonzero entry, G_c = F_α(x_{j+1}..x_n) with
 //! c = x^{(0^j, α)} (observed, checked in the tests for n <= 6). Corners with inner zeros

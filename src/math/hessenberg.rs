@@ -176,6 +176,15 @@ impl HessenbergFn {
     /// regular Hessenberg variety in Anderson–Tymoczko's description).
     pub fn complement_product(&self) -> MathResult<IntPoly> {
         let n = self.n();
+        let k = self.complement_pairs().len();
+        // a product of k linear forms has at most min(2^k, C(k+n-1, n-1)) terms
+        let bound = if k < 64 { 1u128 << k } else { u128::MAX }.min(binomial(k + n - 1, n - 1));
+        if bound > COMPLEMENT_TERM_BOUND {
+            return Err(MathError::OutOfRange(format!(
+                "Q_h for h = {self} is a product of {k} factors in {n} variables, too large to expand \
+                 (accepted while min(2^k, C(k+n-1, n-1)) <= {COMPLEMENT_TERM_BOUND}); h(i) = i+1 in degree n-1 needs no expansion"
+            )));
+        }
         let mut q = IntPoly::one(n);
         for (i, j) in self.complement_pairs() {
             let factor = IntPoly::var(n, i - 1).sub(&IntPoly::var(n, j - 1));
@@ -194,6 +203,17 @@ impl HessenbergFn {
         }
         Ok(d)
     }
+}
+
+/// The largest size bound of Q_h that [`HessenbergFn::complement_product`] expands.
+pub const COMPLEMENT_TERM_BOUND: u128 = 50_000_000;
+
+fn binomial(a: usize, b: usize) -> u128 {
+    let mut r: u128 = 1;
+    for i in 0..b as u128 {
+        r = r.saturating_mul(a as u128 - i) / (i + 1);
+    }
+    r
 }
 
 impl fmt::Display for HessenbergFn {

@@ -71,8 +71,9 @@ impl SchubertTable {
         let mut v = w.to_vec();
         v.swap(r, s);
         let mut acc = PolyBuilder::new(n);
-        let sv = self.get_padded(&v, n);
-        let one = BigInt::one();
+        // monomials do not depend on the number of variables, so the memoized
+        // polynomials of smaller support are used as they are, without copies
+        let sv = self.get_trimmed(&v);
         for (m, c) in sv.terms() {
             let mm = Mono(m.0 + Mono::var(r).0);
             acc.add_term(mm, c);
@@ -81,8 +82,8 @@ impl SchubertTable {
             if v[q] < v[r] && !(q + 1..r).any(|k| v[q] < v[k] && v[k] < v[r]) {
                 let mut u = v.clone();
                 u.swap(q, r);
-                let su = self.get_padded(&u, n);
-                acc.add_scaled(&su, &one);
+                let su = self.get_trimmed(&u);
+                acc.add_poly(&su);
             }
         }
         let result = Arc::new(acc.build());
@@ -90,17 +91,13 @@ impl SchubertTable {
         result
     }
 
-    fn get_padded(&mut self, w: &[u8], n: usize) -> Arc<IntPoly> {
+    /// S_w for w with its trailing fixed points dropped (in fewer variables).
+    fn get_trimmed(&mut self, w: &[u8]) -> Arc<IntPoly> {
         let mut m = w.len();
         while m > 1 && w[m - 1] as usize == m {
             m -= 1;
         }
-        let p = self.get_core(&w[..m]);
-        if p.nvars() == n {
-            p
-        } else {
-            Arc::new(IntPoly::from_terms(n, p.terms().iter().cloned()))
-        }
+        self.get_core(&w[..m])
     }
 }
 

@@ -101,14 +101,17 @@ impl Iterator for ReducedWords {
     }
 }
 
-/// A multiply-rotate hasher for the packed keys of the layered counts (the
-/// keys are already well mixed bit patterns; SipHash would dominate the run time).
+/// A multiply-rotate hasher for the packed keys of the layered counts, with a
+/// final mix (SipHash would dominate the run time).
 #[derive(Default, Clone, Copy)]
 struct PackedHasher(u64);
 
 impl Hasher for PackedHasher {
     fn finish(&self) -> u64 {
-        self.0
+        // fold the high bits down: the table indexes buckets by the low bits,
+        // and a product's low bits see only the input's low bits
+        let h = self.0;
+        (h ^ (h >> 31)).wrapping_mul(0x94_d0_49_bb_13_31_11_eb) ^ (h >> 29)
     }
     fn write(&mut self, bytes: &[u8]) {
         for &b in bytes {
@@ -175,6 +178,7 @@ fn count_layers_u128(
         let mut next: PackedMap<u64, u128> = PackedMap::default();
         next.reserve(layer.len() * 2);
         for (&p, &c) in &layer {
+            check_layer(next.len())?;
             for i in 0..n - 1 {
                 if nibble(p, i) > nibble(p, i + 1) {
                     let slot = next.entry(swap_adjacent(p, i)).or_insert(0);
@@ -205,6 +209,7 @@ fn count_layers_big(
         progress.check()?;
         let mut next: PackedMap<u64, BigUint> = PackedMap::default();
         for (&p, c) in &layer {
+            check_layer(next.len())?;
             for i in 0..n - 1 {
                 if nibble(p, i) > nibble(p, i + 1) {
                     *next.entry(swap_adjacent(p, i)).or_default() += c;
@@ -238,9 +243,24 @@ pub fn count_reduced_words(w: &Perm) -> BigUint {
     count_reduced_words_with(w, &Progress::default()).unwrap_or_default()
 }
 
-/// [`count_reduced_words`] with progress (one unit per length layer) and
-/// cancellation; [`MathError::OutOfRange`] when a layer exceeds [`LAYER_LIMIT`].
+/// [`count_reduced_words`] with progress and cancellation;
+/// [`MathError::OutOfRange`] when the interval below w is too large.
+///
+/// Two methods: when w has lexicographic rank below [`RANK_LIMIT`] (all of S_n
+/// for n <= 10), a pull over all permutations lexicographically below w, in
+/// decreasing order, in one flat array ([`count_reduced_words_by_rank`]);
+/// otherwise the layered push ([`count_reduced_words_layered`]).
 pub fn count_reduced_words_with(w: &Perm, progress: &Progress) -> MathResult<BigUint> {
+    if let Some(count) = count_reduced_words_by_rank(w, progress)? {
+        return Ok(count);
+    }
+    count_reduced_words_layered(w, progress)
+}
+
+/// The layered method: maximal chains from w down to the identity in right weak
+/// order, one length at a time, two layers of a hash map keyed by packed
+/// permutations, u128 counts with a big-integer rerun on overflow.
+pub fn count_reduced_words_layered(w: &Perm, progress: &Progress) -> MathResult<BigUint> {
     let n = w.n();
     if n < 2 {
         return Ok(BigUint::from(1u8));
@@ -255,6 +275,79 @@ pub fn count_reduced_words_with(w: &Perm, progress: &Progress) -> MathResult<Big
             count_layers_big(start, n, length, progress)
         }
     }
+}
+
+/// The largest lexicographic rank (plus one) for which [`count_reduced_words_by_rank`] runs.
+pub const RANK_LIMIT: usize = 4_000_000;
+
+/// The rank method, or None when w's rank is at least [`RANK_LIMIT`] or a count
+/// overflows 128 bits.
+///
+/// Every cover x < x·s_i in right weak order (x(i) < x(i+1)) goes up in
+/// lexicographic order, so the number of paths from w down to x,
+/// N(x) = Σ_{i : x(i) < x(i+1)} N(x s_i) with N(w) = 1, can be filled in for
+/// all x lexicographically below w in decreasing order; then the number of
+/// reduced words of w is N(id). Permutations are walked through their Lehmer
+/// codes (the factorial-base digits of their rank): i is an ascent of x iff
+/// c_i <= c_{i+1}, and x s_i has c_i' = c_{i+1} + 1, c_{i+1}' = c_i, so its rank
+/// is found by a difference of two factorials, with no permutation built.
+pub fn count_reduced_words_by_rank(w: &Perm, progress: &Progress) -> MathResult<Option<BigUint>> {
+    let n = w.n();
+    if n < 2 {
+        return Ok(Some(BigUint::from(1u8)));
+    }
+    let mut code = w.code();
+    // weights[k] = (n - 1 - k)!
+    let mut weights = vec![1usize; n];
+    for k in (0..n - 1).rev() {
+        weights[k] = weights[k + 1] * (n - 1 - k);
+    }
+    let mut rank = 0usize;
+    for k in 0..n {
+        rank = match code[k]
+            .checked_mul(weights[k])
+            .and_then(|t| rank.checked_add(t))
+        {
+            Some(r) if r < RANK_LIMIT => r,
+            _ => return Ok(None),
+        };
+    }
+    let top = rank;
+    let mut paths = vec![0u128; top + 1];
+    paths[top] = 1;
+    progress.set_total(top as u64 + 1);
+    while rank > 0 {
+        // the previous code in factorial base: decrement the last nonzero digit,
+        // set the digits after it to their largest values
+        let Some(k) = (0..n).rev().find(|&k| code[k] > 0) else {
+            break;
+        };
+        code[k] -= 1;
+        for (j, c) in code.iter_mut().enumerate().skip(k + 1) {
+            *c = n - 1 - j;
+        }
+        rank -= 1;
+        if rank & 0xffff == 0 {
+            progress.check()?;
+            progress.advance(0x10000);
+        }
+        let mut sum = 0u128;
+        for i in 0..n - 1 {
+            if code[i] <= code[i + 1] {
+                // rank(x s_i) - rank(x), positive
+                let up = rank + (code[i + 1] + 1 - code[i]) * weights[i] + code[i] * weights[i + 1]
+                    - code[i + 1] * weights[i + 1];
+                if up <= top {
+                    let Some(s2) = sum.checked_add(paths[up]) else {
+                        return Ok(None);
+                    };
+                    sum = s2;
+                }
+            }
+        }
+        paths[rank] = sum;
+    }
+    Ok(Some(BigUint::from(paths[0])))
 }
 
 /// The number of reduced words of w with each content (c_i = number of letters
@@ -294,6 +387,7 @@ pub fn counts_by_content_with(
         progress.check()?;
         let mut next: PackedMap<(u64, u128), BigUint> = PackedMap::default();
         for (&(p, content), c) in &layer {
+            check_layer(next.len())?;
             for i in 0..n.saturating_sub(1) {
                 if nibble(p, i) > nibble(p, i + 1) {
                     let key = (swap_adjacent(p, i), content + (1u128 << (8 * i)));

@@ -1,0 +1,96 @@
+//! Speed of the quasisymmetric quotient: the Gröbner basis, reduction of a large
+//! polynomial, and the Schubert survey of S_7, each beside a naive baseline where one
+//! makes sense (plain multivariate division by the basis).
+#![allow(clippy::unwrap_used, missing_docs)]
+
+use criterion::{Criterion, criterion_group, criterion_main};
+use elbowroom::math::groebner::{QuasiGroebner, monomials_of_degree};
+use elbowroom::math::quotient::{normal_form, quotient};
+use elbowroom::math::survey::survey;
+use elbowroom::math::{Perm, Progress, RatPoly};
+use num_bigint::BigInt;
+use num_rational::BigRational;
+use std::hint::black_box;
+
+/// Plain multivariate division by the basis polynomials, leading term first.
+fn divide(f: &RatPoly, divisors: &[RatPoly]) -> RatPoly {
+    let n = f.nvars();
+    let mut rem = RatPoly::zero(n);
+    let mut p = f.clone();
+    while let Some((lead, c)) = p.terms().first().cloned() {
+        match divisors.iter().find(|g| g.terms()[0].0.divides(lead)) {
+            Some(g) => {
+                let (gl, gc) = &g.terms()[0];
+                p = p.sub(&g.mul_term(gl.quotient_of(lead), &(c / gc)).unwrap());
+            }
+            None => {
+                rem = rem.add(&RatPoly::monomial(n, lead, c.clone()));
+                p = p.sub(&RatPoly::monomial(n, lead, c));
+            }
+        }
+    }
+    rem
+}
+
+/// Every monomial of degree <= 7 in 8 variables (6435 of them, the most a polynomial of
+/// degree 7 in 8 variables can have) with small varying coefficients.
+fn big_poly(n: usize, max_deg: u32) -> RatPoly {
+    let mut terms = Vec::new();
+    for d in 0..=max_deg {
+        for (i, m) in monomials_of_degree(n, d).into_iter().enumerate() {
+            let c = ((i * 37 + d as usize * 11) % 19) as i64 - 9;
+            terms.push((m, BigRational::from_integer(BigInt::from(c))));
+        }
+    }
+    RatPoly::from_terms(n, terms)
+}
+
+fn bench_groebner(c: &mut Criterion) {
+    let mut g = c.benchmark_group("groebner");
+    g.sample_size(10);
+    g.bench_function("compute n=7", |b| {
+        b.iter(|| QuasiGroebner::compute(black_box(7), None).unwrap())
+    });
+    g.bench_function("compute n=8", |b| {
+        b.iter(|| QuasiGroebner::compute(black_box(8), None).unwrap())
+    });
+    g.finish();
+}
+
+fn bench_reduce(c: &mut Criterion) {
+    let q = quotient(8).unwrap();
+    let f = big_poly(8, 7);
+    let mut g = c.benchmark_group("reduce");
+    g.sample_size(10);
+    g.bench_function("normal form, n=8, 6435 terms of degree <= 7", |b| {
+        b.iter(|| normal_form(&q, black_box(&f)).unwrap())
+    });
+    // the naive baseline: division step by step, on a smaller input (n = 6, degree <= 5)
+    let q6 = quotient(6).unwrap();
+    let gb6: Vec<RatPoly> = q6.polys().iter().map(|p| p.to_rational()).collect();
+    let f6 = big_poly(6, 5);
+    g.bench_function("normal form, n=6, degree <= 5 (tables)", |b| {
+        b.iter(|| normal_form(&q6, black_box(&f6)).unwrap())
+    });
+    g.bench_function("plain division, n=6, degree <= 5 (baseline)", |b| {
+        b.iter(|| divide(black_box(&f6), &gb6))
+    });
+    g.finish();
+}
+
+fn bench_survey(c: &mut Criterion) {
+    quotient(7).unwrap();
+    let perms: Vec<Perm> = Perm::all(7).collect();
+    let mut g = c.benchmark_group("survey");
+    g.sample_size(10);
+    g.bench_function("all of S_7", |b| {
+        b.iter(|| {
+            let p = Progress::new(perms.len() as u64);
+            survey(black_box(&perms), &p).unwrap()
+        })
+    });
+    g.finish();
+}
+
+criterion_group!(benches, bench_groebner, bench_reduce, bench_survey);
+criterion_main!(benches);

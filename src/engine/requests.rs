@@ -1,0 +1,473 @@
+//! What the explorer can ask for, keyed by its inputs, and how each answer is
+//! computed (always by the same `math` functions the command line uses).
+
+use crate::math::bumpless::{BumplessDream, bumpless_dreams};
+use crate::math::divsym::{DividedSymmetrization, divided_symmetrize};
+use crate::math::hessenberg::HessenbergFn;
+use crate::math::hessenberg_table::{HessenbergTable, hessenberg_table};
+use crate::math::mixed_eulerian::mixed_eulerian_numbers;
+use crate::math::parse::parse_poly;
+use crate::math::perm_class::PermClass;
+use crate::math::permutohedron::Permutohedron;
+use crate::math::pipe_dream::{PipeDream, count_pipe_dreams, pipe_dreams};
+use crate::math::quotient::{NormalForm, hilbert_series, normal_form, quotient};
+use crate::math::schubert::SchubertTable;
+use crate::math::words::{count_reduced_words_with, reduced_words};
+use crate::math::{IntPoly, MathError, MathResult, Perm, Progress};
+use num_bigint::BigInt;
+use num_bigint::BigUint;
+use num_rational::BigRational;
+
+/// How the permutation browser filters and orders S_n.
+#[derive(Clone, Debug, PartialEq, Eq, Hash)]
+pub struct BrowseKey {
+    /// The size n.
+    pub n: usize,
+    /// Smallest length kept.
+    pub min_length: usize,
+    /// Largest length kept.
+    pub max_length: usize,
+    /// Keep only this class.
+    pub class: Option<PermClass>,
+    /// Order by length, then lexicographically (otherwise lexicographically).
+    pub by_length: bool,
+}
+
+/// The inputs of one computation; equal keys give equal results.
+#[derive(Clone, Debug, PartialEq, Eq, Hash)]
+pub enum JobKey {
+    /// The Schubert polynomial S_w.
+    Schubert(Perm),
+    /// The permutations of S_n passing a filter, in order.
+    Browse(BrowseKey),
+    /// The number of reduced pipe dreams S_w(1, ..., 1) of each permutation.
+    Counts(Vec<Perm>),
+    /// The reduced pipe dreams of w (at most [`DREAM_LIMIT`]), in enumeration order.
+    PipeDreams(Perm),
+    /// The bumpless pipe dreams of w.
+    Bumpless(Perm),
+    /// The number of reduced words of w.
+    WordCount(Perm),
+    /// Page k (of [`WORD_PAGE`] words) of the reduced words of w in lex order.
+    Words(Perm, usize),
+    /// The table a^h_w = DS_h(S_w) over w of length |h|, for h(1), ..., h(n).
+    Hessenberg(Vec<usize>),
+    /// The exact volume of P_λ.
+    Volume(Vec<BigRational>),
+    /// Vol P_λ at λ = (1 - t) a + t b for t = k / m, k = 0..=m.
+    VolumeSegment(Vec<BigRational>, Vec<BigRational>, usize),
+    /// The mixed Eulerian numbers A_c of n.
+    Eulerian(usize),
+    /// The vertices and edges of P_λ with drawing coordinates (n <= 5).
+    Polytope(Vec<BigRational>),
+    /// DS_h(f) for a typed polynomial f (as typed) and h(1), ..., h(n).
+    DivSym(String, Vec<usize>),
+    /// A normal form modulo J_n, with the Hilbert series of the quotient.
+    NormalForm(QuotientInput),
+}
+
+/// What the quotient view reduces.
+#[derive(Clone, Debug, PartialEq, Eq, Hash)]
+pub enum QuotientInput {
+    /// The reversed Schubert polynomial S_w(x_n, ..., x_1) in n = |w| variables.
+    ReversedSchubert(Perm),
+    /// A typed polynomial (as typed) in n variables.
+    Typed(String, usize),
+}
+
+/// A normal form with what the quotient view shows beside it.
+#[derive(Clone, Debug)]
+pub struct Reduced {
+    /// The number of variables.
+    pub n: usize,
+    /// The polynomial reduced, as text.
+    pub input: String,
+    /// Its normal form.
+    pub normal: NormalForm,
+    /// The graded dimensions of Q[x]/J_n.
+    pub hilbert: Vec<usize>,
+}
+
+/// The most pipe dreams the explorer lists for one permutation.
+pub const DREAM_LIMIT: usize = 200_000;
+/// Reduced words per page.
+pub const WORD_PAGE: usize = 200;
+
+impl JobKey {
+    /// Whether the job is batch work that uses rayon inside (it then runs in
+    /// the engine's pool, which leaves one core to the window).
+    pub fn is_batch(&self) -> bool {
+        matches!(self, JobKey::Hessenberg(_) | JobKey::Eulerian(_))
+    }
+
+    /// A short description for the status line.
+    pub fn label(&self) -> String {
+        match self {
+            JobKey::Schubert(w) => format!("Schubert polynomial of {w}"),
+            JobKey::Browse(b) => format!("listing S_{}", b.n),
+            JobKey::Counts(ws) => format!("counting pipe dreams of {} permutations", ws.len()),
+            JobKey::PipeDreams(w) => format!("pipe dreams of {w}"),
+            JobKey::Bumpless(w) => format!("bumpless pipe dreams of {w}"),
+            JobKey::WordCount(w) => format!("counting reduced words of {w}"),
+            JobKey::Words(w, p) => format!("reduced words of {w}, page {}", p + 1),
+            JobKey::Hessenberg(h) => format!("Hessenberg table of h = {h:?}"),
+            JobKey::Volume(_) => "volume of P_λ".to_string(),
+            JobKey::VolumeSegment(..) => "volumes along a segment".to_string(),
+            JobKey::Eulerian(n) => format!("mixed Eulerian numbers of {n}"),
+            JobKey::Polytope(_) => "vertices of P_λ".to_string(),
+            JobKey::DivSym(_, h) => format!("divided symmetrization for h = {h:?}"),
+            JobKey::NormalForm(_) => "normal form modulo J_n".to_string(),
+        }
+    }
+}
+
+/// A finished result.
+#[derive(Clone, Debug)]
+pub enum Output {
+    /// A polynomial with integer coefficients.
+    Poly(IntPoly),
+    /// A list of permutations.
+    Perms(Vec<Perm>),
+    /// A list of counts.
+    Counts(Vec<BigUint>),
+    /// Plain text.
+    Text(String),
+    /// Reduced pipe dreams.
+    Dreams(Vec<PipeDream>),
+    /// Bumpless pipe dreams.
+    Bumpless(Vec<BumplessDream>),
+    /// One exact count.
+    Count(BigUint),
+    /// Words (of a page).
+    Words(Vec<Vec<usize>>),
+    /// A Hessenberg class table.
+    Hessenberg(HessenbergTable),
+    /// One exact rational.
+    Rational(BigRational),
+    /// Exact samples (t, value).
+    Samples(Vec<(BigRational, BigRational)>),
+    /// Mixed Eulerian numbers (c, A_c).
+    Eulerian(Vec<(Vec<u32>, BigInt)>),
+    /// A polytope for drawing: vertex labels, coordinates (floats, for pictures) and edges.
+    Polytope(PolytopeDrawing),
+    /// A divided symmetrization.
+    DivSym(DividedSymmetrization),
+    /// A normal form in the quotient.
+    Reduced(Reduced),
+}
+
+/// The vertices and edges of a permutohedron, with coordinates for drawing.
+#[derive(Clone, Debug)]
+pub struct PolytopeDrawing {
+    /// Each vertex as text, e.g. `(3, 1, 2)`.
+    pub labels: Vec<String>,
+    /// Coordinates in the hyperplane Σ x_i = Σ λ_i (n - 1 of them per vertex).
+    pub coords: Vec<Vec<f64>>,
+    /// Pairs of adjacent vertices.
+    pub edges: Vec<(usize, usize)>,
+}
+
+impl Output {
+    /// The polynomial, if this is one.
+    pub fn poly(&self) -> Option<&IntPoly> {
+        match self {
+            Output::Poly(p) => Some(p),
+            _ => None,
+        }
+    }
+
+    /// The permutations, if this is a list of them.
+    pub fn perms(&self) -> Option<&[Perm]> {
+        match self {
+            Output::Perms(p) => Some(p),
+            _ => None,
+        }
+    }
+
+    /// The counts, if this is a list of them.
+    pub fn counts(&self) -> Option<&[BigUint]> {
+        match self {
+            Output::Counts(c) => Some(c),
+            _ => None,
+        }
+    }
+
+    /// The pipe dreams, if these are.
+    pub fn dreams(&self) -> Option<&[PipeDream]> {
+        match self {
+            Output::Dreams(d) => Some(d),
+            _ => None,
+        }
+    }
+
+    /// The bumpless pipe dreams, if these are.
+    pub fn bumpless(&self) -> Option<&[BumplessDream]> {
+        match self {
+            Output::Bumpless(d) => Some(d),
+            _ => None,
+        }
+    }
+
+    /// The count, if this is one.
+    pub fn count(&self) -> Option<&BigUint> {
+        match self {
+            Output::Count(c) => Some(c),
+            _ => None,
+        }
+    }
+
+    /// The words, if these are.
+    pub fn words(&self) -> Option<&[Vec<usize>]> {
+        match self {
+            Output::Words(w) => Some(w),
+            _ => None,
+        }
+    }
+
+    /// The Hessenberg table, if this is one.
+    pub fn hessenberg(&self) -> Option<&HessenbergTable> {
+        match self {
+            Output::Hessenberg(t) => Some(t),
+            _ => None,
+        }
+    }
+
+    /// The rational, if this is one.
+    pub fn rational(&self) -> Option<&BigRational> {
+        match self {
+            Output::Rational(r) => Some(r),
+            _ => None,
+        }
+    }
+
+    /// The text, if this is text.
+    pub fn text(&self) -> Option<&str> {
+        match self {
+            Output::Text(t) => Some(t),
+            _ => None,
+        }
+    }
+}
+
+/// Computes the answer for `key`, reporting to `progress` and stopping with
+/// `Canceled` when asked to.
+pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
+    match key {
+        JobKey::Schubert(w) => {
+            progress.set_total(1);
+            let p = SchubertTable::new().get(w);
+            progress.advance(1);
+            Ok(Output::Poly((*p).clone()))
+        }
+        JobKey::Browse(b) => browse(b, progress).map(Output::Perms),
+        JobKey::Counts(ws) => {
+            progress.set_total(ws.len() as u64);
+            let mut out = Vec::with_capacity(ws.len());
+            for w in ws {
+                progress.check()?;
+                out.push(count_pipe_dreams(w));
+                progress.advance(1);
+            }
+            Ok(Output::Counts(out))
+        }
+        JobKey::PipeDreams(w) => {
+            let total = count_pipe_dreams(w);
+            let total = u64::try_from(&total)
+                .unwrap_or(u64::MAX)
+                .min(DREAM_LIMIT as u64);
+            progress.set_total(total);
+            let mut out = Vec::new();
+            for d in pipe_dreams(w).take(DREAM_LIMIT) {
+                if out.len() % 256 == 0 {
+                    progress.check()?;
+                    progress.advance(256);
+                }
+                out.push(d);
+            }
+            Ok(Output::Dreams(out))
+        }
+        JobKey::Bumpless(w) => {
+            progress.set_total(1);
+            let out = bumpless_dreams(w);
+            progress.check()?;
+            progress.advance(1);
+            Ok(Output::Bumpless(out))
+        }
+        JobKey::Hessenberg(h) => {
+            let h = HessenbergFn::new(h)?;
+            hessenberg_table(&h, &|_| true, progress).map(Output::Hessenberg)
+        }
+        JobKey::Volume(lambda) => {
+            progress.set_total(1);
+            let v = Permutohedron::new(lambda)?.volume();
+            progress.advance(1);
+            Ok(Output::Rational(v))
+        }
+        JobKey::VolumeSegment(a, b, m) => {
+            if a.len() != b.len() || *m == 0 {
+                return Err(MathError::InvalidInput(
+                    "the two ends of the segment need the same number of entries".into(),
+                ));
+            }
+            progress.set_total(*m as u64 + 1);
+            let mut out = Vec::with_capacity(m + 1);
+            for k in 0..=*m {
+                progress.check()?;
+                let t = BigRational::new(BigInt::from(k), BigInt::from(*m));
+                let one_minus = BigRational::from_integer(BigInt::from(1)) - &t;
+                let lambda: Vec<BigRational> = a
+                    .iter()
+                    .zip(b)
+                    .map(|(x, y)| &one_minus * x + &t * y)
+                    .collect();
+                out.push((t, Permutohedron::new(&lambda)?.volume()));
+                progress.advance(1);
+            }
+            Ok(Output::Samples(out))
+        }
+        JobKey::Eulerian(n) => mixed_eulerian_numbers(*n, progress).map(Output::Eulerian),
+        JobKey::Polytope(lambda) => {
+            let p = Permutohedron::new(lambda)?;
+            if p.n() > 5 {
+                return Err(MathError::OutOfRange("P_λ is drawn for n <= 5".into()));
+            }
+            let vertices = p.vertices(120)?;
+            let edges = p.edges(&vertices);
+            let coords = Permutohedron::drawing_coordinates(&vertices);
+            let labels = vertices
+                .iter()
+                .map(|v| {
+                    let t: Vec<String> = v.iter().map(|x| x.to_string()).collect();
+                    format!("({})", t.join(", "))
+                })
+                .collect();
+            Ok(Output::Polytope(PolytopeDrawing {
+                labels,
+                coords,
+                edges,
+            }))
+        }
+        JobKey::DivSym(text, h) => {
+            progress.set_total(1);
+            let h = HessenbergFn::new(h)?;
+            let f = parse_poly(text, Some(h.n()))?;
+            let out = divided_symmetrize(&f, &h)?;
+            progress.advance(1);
+            Ok(Output::DivSym(out))
+        }
+        JobKey::NormalForm(input) => {
+            progress.set_total(2);
+            let (n, f) = match input {
+                QuotientInput::ReversedSchubert(w) => {
+                    let s = SchubertTable::new().get(w);
+                    (w.n(), s.reverse_vars().to_rational())
+                }
+                QuotientInput::Typed(text, n) => (*n, parse_poly(text, Some(*n))?),
+            };
+            let q = quotient(n)?;
+            progress.advance(1);
+            progress.check()?;
+            let normal = normal_form(&q, &f)?;
+            progress.advance(1);
+            Ok(Output::Reduced(Reduced {
+                n,
+                input: f.to_text(),
+                normal,
+                hilbert: hilbert_series(&q),
+            }))
+        }
+        JobKey::WordCount(w) => count_reduced_words_with(w, progress).map(Output::Count),
+        JobKey::Words(w, page) => {
+            let skip = page.saturating_mul(WORD_PAGE);
+            progress.set_total((skip + WORD_PAGE) as u64);
+            let mut out = Vec::with_capacity(WORD_PAGE);
+            for (k, word) in reduced_words(w).enumerate().take(skip + WORD_PAGE) {
+                if k % 1024 == 0 {
+                    progress.check()?;
+                    progress.advance(1024);
+                }
+                if k >= skip {
+                    out.push(word);
+                }
+            }
+            Ok(Output::Words(out))
+        }
+    }
+}
+
+fn browse(b: &BrowseKey, progress: &Progress) -> MathResult<Vec<Perm>> {
+    if b.n == 0 || b.n > 9 {
+        return Err(MathError::OutOfRange(format!(
+            "the browser lists S_n for 1 <= n <= 9, not n = {}",
+            b.n
+        )));
+    }
+    let total: u64 = (1..=b.n as u64).product();
+    progress.set_total(total);
+    let mut out = Vec::new();
+    for (k, w) in Perm::all(b.n).enumerate() {
+        if k % 1024 == 0 {
+            progress.check()?;
+            progress.advance(1024.min(total - k as u64));
+        }
+        let l = w.length();
+        if l < b.min_length || l > b.max_length {
+            continue;
+        }
+        if let Some(c) = b.class
+            && !c.contains(&w)
+        {
+            continue;
+        }
+        out.push(w);
+    }
+    if b.by_length {
+        out.sort_by_cached_key(|w| w.length());
+    }
+    Ok(out)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn browsing_s4_by_class() {
+        let p = Progress::new(0);
+        let key = |class| BrowseKey {
+            n: 4,
+            min_length: 0,
+            max_length: 6,
+            class,
+            by_length: true,
+        };
+        // all of S_4
+        let all = browse(&key(None), &p).unwrap();
+        assert_eq!(all.len(), 24);
+        assert!(all.windows(2).all(|w| w[0].length() <= w[1].length()));
+        // 132-avoiding permutations of S_4: Catalan(4) = 14 (OEIS A000108)
+        assert_eq!(
+            browse(&key(Some(PermClass::Dominant)), &p).unwrap().len(),
+            14
+        );
+        // 2143-avoiding permutations of S_4: 23 (OEIS A005802)
+        assert_eq!(
+            browse(&key(Some(PermClass::Vexillary)), &p).unwrap().len(),
+            23
+        );
+    }
+
+    #[test]
+    fn pipe_dream_counts_are_schubert_values_at_one() {
+        // S_{1432}(1,1,1) = 5 and S_{w0} = x1^2 x2 has one pipe dream (Macdonald's table)
+        let ws = vec![Perm::parse("1432").unwrap(), Perm::parse("321").unwrap()];
+        let out = compute(&JobKey::Counts(ws), &Progress::new(0)).unwrap();
+        let c: Vec<String> = out
+            .counts()
+            .unwrap()
+            .iter()
+            .map(|c| c.to_string())
+            .collect();
+        assert_eq!(c, ["5", "1"]);
+    }
+}

@@ -1,0 +1,244 @@
+//! The explorer window: the permutation picker on the left, the views in tabs
+//! in the middle, the status line at the bottom.
+
+use super::app_ctx::AppCtx;
+use super::files::{FileAction, FilePanel};
+use super::picker::Picker;
+use super::status::{self, FrameTimes};
+use super::theme;
+use super::views::{
+    self, dreams::DreamsView, hessenberg::HessenbergView, quotient::QuotientView, solid::SolidView,
+    words::WordsView, workbench::WorkbenchView,
+};
+use crate::engine::Engine;
+use crate::session::Session;
+use crate::session::model::View;
+use eframe::egui;
+use std::sync::Arc;
+use std::time::{Duration, Instant};
+
+/// The whole explorer: the session (inputs), the engine (results) and each
+/// view's UI state.
+pub struct Explorer {
+    /// The exploration shown.
+    pub session: Session,
+    /// The computation service.
+    pub engine: Engine,
+    /// The last error or notice.
+    pub message: Option<String>,
+    /// The left panel.
+    pub picker: Picker,
+    /// The pipe-dream view.
+    pub dreams: DreamsView,
+    /// The reduced-word view.
+    pub words: WordsView,
+    /// The Hessenberg view.
+    pub hessenberg: HessenbergView,
+    /// The quotient view.
+    pub quotient: QuotientView,
+    /// The permutohedron view.
+    pub solid: SolidView,
+    /// The polynomial workbench.
+    pub workbench: WorkbenchView,
+    /// The save / open / export window.
+    pub files: FilePanel,
+    times: FrameTimes,
+    log_frames: bool,
+}
+
+/// The exploration the window opens on when no session is given: S_5 around
+/// the vexillary permutation 15432 (14 reduced pipe dreams), a few pins.
+pub fn demo_session() -> Session {
+    let current = vec![1, 5, 4, 3, 2];
+    Session {
+        title: "pipe dreams in S_5".into(),
+        n: 5,
+        current: current.clone(),
+        history: vec![vec![1, 4, 3, 2, 5], current],
+        history_pos: 1,
+        pins: vec![
+            vec![1, 4, 3, 2, 5],
+            vec![2, 1, 4, 3, 5],
+            vec![1, 5, 4, 3, 2],
+            vec![3, 1, 5, 2, 4],
+            vec![5, 4, 3, 2, 1],
+        ],
+        ..Session::default()
+    }
+}
+
+impl Explorer {
+    /// An explorer over `session`, computing with `engine`.
+    pub fn new(session: Session, engine: Engine) -> Self {
+        Explorer {
+            session,
+            engine,
+            message: None,
+            picker: Picker::default(),
+            dreams: DreamsView::default(),
+            words: WordsView::default(),
+            hessenberg: HessenbergView::default(),
+            quotient: QuotientView::default(),
+            solid: SolidView::default(),
+            workbench: WorkbenchView::default(),
+            files: FilePanel::default(),
+            times: FrameTimes::default(),
+            log_frames: std::env::var_os("ELBOWROOM_FRAME_LOG").is_some(),
+        }
+    }
+
+    /// Draws the whole window into `ui`.
+    pub fn show(&mut self, ui: &mut egui::Ui) {
+        let started = Instant::now();
+        theme::apply(ui.ctx(), self.session.dark);
+        self.shortcuts(ui);
+        let mut file_action = None;
+        egui::Panel::bottom("status_line").show(ui, |ui| {
+            ui.horizontal(|ui| {
+                if ui.small_button("open").on_hover_text("Ctrl+O").clicked() {
+                    file_action = Some(FileAction::Open);
+                }
+                if ui.small_button("save").on_hover_text("Ctrl+S").clicked() {
+                    file_action = Some(FileAction::Save);
+                }
+                if ui
+                    .small_button("export figure")
+                    .on_hover_text("Ctrl+E")
+                    .clicked()
+                {
+                    file_action = Some(FileAction::Export);
+                }
+                let label = if self.session.dark {
+                    "light theme"
+                } else {
+                    "dark theme"
+                };
+                if ui.small_button(label).clicked() {
+                    self.session.dark = !self.session.dark;
+                }
+                ui.checkbox(&mut self.session.figure.labels, "figure labels");
+                ui.separator();
+                status::ui(ui, &self.engine, &mut self.message, &self.times);
+            });
+        });
+        if let Some(a) = file_action {
+            self.files.start(a, &self.session);
+        }
+        egui::Panel::left("picker")
+            .default_size(300.0)
+            .show(ui, |ui| {
+                let mut ctx = AppCtx {
+                    session: &mut self.session,
+                    engine: &self.engine,
+                    message: &mut self.message,
+                };
+                self.picker.ui(ui, &mut ctx);
+            });
+        egui::Panel::top("view_tabs").show(ui, |ui| {
+            ui.horizontal(|ui| {
+                for v in views::ORDER {
+                    ui.selectable_value(&mut self.session.view, v, views::title(v));
+                }
+            });
+        });
+        egui::CentralPanel::default().show(ui, |ui| {
+            let mut ctx = AppCtx {
+                session: &mut self.session,
+                engine: &self.engine,
+                message: &mut self.message,
+            };
+            if !views::ORDER.contains(&ctx.session.view) {
+                ctx.session.view = View::Dreams;
+            }
+            match ctx.session.view {
+                View::Words => self.words.ui(ui, &mut ctx),
+                View::Hessenberg => self.hessenberg.ui(ui, &mut ctx),
+                View::Quotient => self.quotient.ui(ui, &mut ctx),
+                View::Permutohedron => self.solid.ui(ui, &mut ctx),
+                View::Workbench => self.workbench.ui(ui, &mut ctx),
+                _ => self.dreams.ui(ui, &mut ctx),
+            }
+        });
+        let figures = match self.session.view {
+            View::Dreams => self.dreams.figures(),
+            View::Words => self.words.figures(),
+            View::Quotient => self.quotient.figures(),
+            View::Permutohedron => self.solid.figures(),
+            _ => Vec::new(),
+        };
+        self.files
+            .ui(ui.ctx(), &mut self.session, &figures, &mut self.message);
+        if !self.engine.running().is_empty() {
+            ui.ctx().request_repaint_after(Duration::from_millis(50));
+        }
+        let took = started.elapsed();
+        self.times.record(took);
+        if self.log_frames {
+            eprintln!(
+                "frame {:?} build {:.2} ms",
+                self.session.view,
+                took.as_secs_f32() * 1e3
+            );
+        }
+    }
+
+    fn shortcuts(&mut self, ui: &mut egui::Ui) {
+        let (save, open, export) = ui.input_mut(|i| {
+            let cmd = egui::Modifiers::COMMAND;
+            (
+                i.consume_key(cmd, egui::Key::S),
+                i.consume_key(cmd, egui::Key::O),
+                i.consume_key(cmd, egui::Key::E),
+            )
+        });
+        let action = if save {
+            Some(FileAction::Save)
+        } else if open {
+            Some(FileAction::Open)
+        } else if export {
+            Some(FileAction::Export)
+        } else {
+            None
+        };
+        if let Some(a) = action {
+            self.files.start(a, &self.session);
+        }
+    }
+}
+
+impl eframe::App for Explorer {
+    fn ui(&mut self, ui: &mut egui::Ui, _frame: &mut eframe::Frame) {
+        self.show(ui);
+    }
+}
+
+/// Opens the explorer window on `session` (or the demo exploration).
+pub fn run(session: Option<Session>) -> eframe::Result {
+    let session = session.unwrap_or_else(crate::session::demo::default_demo);
+    launch(session, None)
+}
+
+/// Opens the explorer on a session read from `path`; Ctrl+S saves back to it.
+pub fn run_file(session: Session, path: std::path::PathBuf) -> eframe::Result {
+    launch(session, Some(path))
+}
+
+fn launch(session: Session, path: Option<std::path::PathBuf>) -> eframe::Result {
+    let options = eframe::NativeOptions {
+        viewport: egui::ViewportBuilder::default()
+            .with_inner_size([1280.0, 800.0])
+            .with_title(format!("elbowroom — {}", session.title)),
+        ..Default::default()
+    };
+    eframe::run_native(
+        "elbowroom",
+        options,
+        Box::new(move |cc| {
+            let ctx = cc.egui_ctx.clone();
+            let engine = Engine::new(Arc::new(move || ctx.request_repaint()));
+            let mut explorer = Explorer::new(session, engine);
+            explorer.files.session_path = path;
+            Ok(Box::new(explorer))
+        }),
+    )
+}

@@ -1,0 +1,18 @@
+//! The explorer window (eframe, glow renderer): one file per view or panel.
+//!
+//! Views keep UI state only; the inputs of the exploration live in the
+//! [`crate::session::Session`] and every result comes from the [`crate::engine`],
+//! so a frame never waits for mathematics.
+
+pub mod app;
+pub mod app_ctx;
+pub mod browser;
+pub mod files;
+pub mod picker;
+pub mod scene_painter;
+pub mod status;
+pub mod theme;
+pub mod views;
+
+pub use app::{Explorer, run, run_file};
+pub use app_ctx::AppCtx;

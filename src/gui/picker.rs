@@ -1,0 +1,237 @@
+//! The left panel: choose n, type a permutation (one-line, `code: ...` or
+//! `word: ...`), step back and forward, pin favourites, move to w·s_i or s_i·w,
+//! and browse all of S_n.
+
+use super::app_ctx::{AppCtx, step_history};
+use super::browser::Browser;
+use crate::engine::{Fetch, JobKey, Slot};
+use crate::math::perm_class::classes_of;
+use crate::math::{MathError, MathResult, Perm};
+use eframe::egui;
+
+/// The picker's UI state.
+#[derive(Default)]
+pub struct Picker {
+    /// The text in the permutation field.
+    pub text: String,
+    /// Why the last typed entry was refused.
+    pub error: Option<String>,
+    shown_for: Vec<usize>,
+    count: Slot,
+    browser: Browser,
+}
+
+/// Reads a typed permutation: one-line (`31524`, `3 1 5 2 4`, `3,1,5,2,4`),
+/// `code: 2,0,2,0` (a Lehmer code) or `word: 1 3 2 3` (the product s_1 s_3 s_2 s_3).
+/// A result smaller than `n` is embedded in S_n.
+pub fn parse_entry(text: &str, n: usize) -> MathResult<Perm> {
+    let t = text.trim();
+    let numbers = |rest: &str| -> MathResult<Vec<usize>> {
+        rest.split([',', ' ', '\t'])
+            .filter(|s| !s.is_empty())
+            .map(|s| {
+                s.parse::<usize>().map_err(|_| {
+                    MathError::InvalidPermutation(format!("'{s}' is not a non-negative integer"))
+                })
+            })
+            .collect()
+    };
+    let w = if let Some(rest) = t.strip_prefix("code:") {
+        Perm::from_code(&numbers(rest)?, None)?
+    } else if let Some(rest) = t.strip_prefix("word:") {
+        let word = numbers(rest)?;
+        let needed = word.iter().copied().max().map_or(1, |m| m + 1);
+        Perm::from_word(&word, Some(needed.max(n)))?
+    } else {
+        Perm::parse(t)?
+    };
+    if w.n() < n { w.embed(n) } else { Ok(w) }
+}
+
+impl Picker {
+    /// Draws the panel.
+    pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+        let w = ctx.perm();
+        if self.shown_for != w.one_line() {
+            self.shown_for = w.one_line();
+            self.text = w.to_string();
+            self.error = None;
+        }
+        ui.heading("Permutation");
+        ui.horizontal(|ui| {
+            ui.label("n");
+            let mut n = ctx.session.n.clamp(1, 9);
+            let changed = ui
+                .add(egui::DragValue::new(&mut n).range(1..=9))
+                .on_hover_text("the size of S_n")
+                .changed();
+            if changed && n != w.n() {
+                let next = if w.support_size() <= n {
+                    w.restrict(n).or_else(|| w.embed(n).ok())
+                } else {
+                    None
+                };
+                ctx.go_to(next.unwrap_or_else(|| Perm::identity(n)));
+            }
+            if ui
+                .add_enabled(ctx.session.history_pos > 0, egui::Button::new("< back"))
+                .clicked()
+            {
+                step_history(ctx.session, -1);
+            }
+            let can_forward = ctx.session.history_pos + 1 < ctx.session.history.len();
+            if ui
+                .add_enabled(can_forward, egui::Button::new("forward >"))
+                .clicked()
+            {
+                step_history(ctx.session, 1);
+            }
+        });
+        let edit = ui.add(
+            egui::TextEdit::singleline(&mut self.text)
+                .id_salt("perm_entry")
+                .hint_text("31524, code: 2,0,2,0, word: 1 3 2 3")
+                .desired_width(f32::INFINITY),
+        );
+        let submitted = edit.lost_focus() && ui.input(|i| i.key_pressed(egui::Key::Enter));
+        ui.horizontal(|ui| {
+            if ui.button("go").clicked() || submitted {
+                match parse_entry(&self.text, ctx.session.n) {
+                    Ok(v) => {
+                        self.error = None;
+                        ctx.go_to(v);
+                    }
+                    Err(e) => self.error = Some(e.to_string()),
+                }
+            }
+            ui.weak("one-line, code: or word:");
+        });
+        if let Some(e) = &self.error {
+            ui.colored_label(super::theme::alert(), e);
+        }
+        ui.separator();
+        self.summary(ui, ctx, &w);
+        ui.separator();
+        self.neighbours(ui, ctx, &w);
+        ui.separator();
+        self.pins(ui, ctx, &w);
+        ui.separator();
+        self.browser.ui(ui, ctx, &w);
+    }
+
+    fn summary(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
+        ui.horizontal(|ui| {
+            ui.label(egui::RichText::new(format!("w = {w}")).strong().monospace());
+            ui.label(format!("ℓ(w) = {}", w.length()));
+        });
+        let code: Vec<String> = w.code().iter().map(|c| c.to_string()).collect();
+        ui.label(format!("code ({})", code.join(",")));
+        let classes: Vec<&str> = classes_of(w).into_iter().map(|c| c.label()).collect();
+        if !classes.is_empty() {
+            ui.weak(classes.join(", "));
+        }
+        match self
+            .count
+            .fetch(ctx.engine, JobKey::Counts(vec![w.clone()]))
+        {
+            Fetch::Ready(out) => {
+                if let Some(c) = out.counts().and_then(|c| c.first()) {
+                    ui.label(format!("pipe dreams S_w(1,...,1) = {c}"));
+                }
+            }
+            Fetch::Running(..) => {
+                ui.horizontal(|ui| {
+                    ui.spinner();
+                    ui.weak("counting pipe dreams");
+                });
+            }
+            Fetch::Failed(e) => {
+                ui.colored_label(super::theme::alert(), e.to_string());
+            }
+        }
+    }
+
+    fn neighbours(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
+        let n = w.n();
+        if n < 2 {
+            return;
+        }
+        for (left, title) in [
+            (false, "w·s_i (swap positions; + longer, - shorter)"),
+            (true, "s_i·w (swap values)"),
+        ] {
+            ui.weak(title);
+            ui.horizontal_wrapped(|ui| {
+                for i in 1..n {
+                    let next = if left { w.s_times(i) } else { w.times_s(i) };
+                    let Ok(next) = next else { continue };
+                    let arrow = if next.length() > w.length() { "+" } else { "-" };
+                    let label = if left {
+                        format!("s{i}·{arrow}")
+                    } else {
+                        format!("·s{i}{arrow}")
+                    };
+                    if ui
+                        .small_button(label)
+                        .on_hover_text(format!("go to {next} (ℓ = {})", next.length()))
+                        .clicked()
+                    {
+                        ctx.go_to(next);
+                    }
+                }
+            });
+        }
+    }
+
+    fn pins(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
+        let line = w.one_line();
+        let pinned = ctx.session.pins.contains(&line);
+        ui.horizontal(|ui| {
+            ui.label("Pinned");
+            let label = if pinned { "unpin w" } else { "pin w" };
+            if ui.small_button(label).clicked() {
+                if pinned {
+                    ctx.session.pins.retain(|p| p != &line);
+                } else {
+                    ctx.session.pins.push(line.clone());
+                }
+            }
+        });
+        let mut go = None;
+        ui.horizontal_wrapped(|ui| {
+            for p in &ctx.session.pins {
+                let Ok(v) = Perm::from_one_line(p) else {
+                    continue;
+                };
+                if ui
+                    .selectable_label(p == &line, egui::RichText::new(v.to_string()).monospace())
+                    .clicked()
+                {
+                    go = Some(v);
+                }
+            }
+        });
+        if let Some(v) = go {
+            ctx.go_to(v);
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn entries_in_three_notations() {
+        // the code (2,0,2,0) is that of 31524 (c_1 = #{j > 1 : w(j) < 3} = 2, ...)
+        assert_eq!(
+            parse_entry("code: 2,0,2,0", 5).unwrap().to_string(),
+            "31524"
+        );
+        // s1 s3 s2 s3 = s1 s2 s3 s2 ; one-line 2431
+        assert_eq!(parse_entry("word: 1 3 2 3", 4).unwrap().to_string(), "2431");
+        assert_eq!(parse_entry("213", 5).unwrap().to_string(), "21345");
+        assert!(parse_entry("3124 x", 4).is_err());
+        assert!(parse_entry("1224", 4).is_err());
+    }
+}

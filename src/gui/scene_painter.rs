@@ -1,0 +1,291 @@
+//! Draws a figure [`Scene`] with egui's painter: Béziers are flattened, figure
+//! units are mapped to the screen, and the pointer is hit-tested against the
+//! tagged items so a view can highlight a pipe end to end or react to a click
+//! on a cell.
+
+use super::theme::color;
+use crate::figure::{Anchor, ItemKind, PathCmd, Pt, Scene, Tag};
+use eframe::egui::{self, Align2, Color32, FontId, Pos2, Sense, Shape, Stroke, Vec2};
+
+/// How to draw a scene.
+pub struct PaintOptions {
+    /// Items with these tags are drawn emphasised.
+    pub highlight: Vec<Tag>,
+    /// The largest number of screen points per figure unit.
+    pub max_scale: f32,
+    /// The space to fit into (defaults to the space available).
+    pub size: Option<Vec2>,
+}
+
+impl Default for PaintOptions {
+    fn default() -> Self {
+        PaintOptions {
+            highlight: Vec::new(),
+            max_scale: 3.0,
+            size: None,
+        }
+    }
+}
+
+/// What the pointer did on the scene this frame.
+pub struct SceneResponse {
+    /// The widget's response (for drags and tooltips).
+    pub response: egui::Response,
+    /// Tags under the pointer, topmost first.
+    pub hovered: Vec<Tag>,
+    /// Tags under a click this frame, topmost first.
+    pub clicked: Vec<Tag>,
+    /// Screen points per figure unit.
+    pub scale: f32,
+}
+
+impl SceneResponse {
+    /// The first hovered tag matching `f`.
+    pub fn hovered_where(&self, f: impl Fn(&Tag) -> bool) -> Option<Tag> {
+        self.hovered.iter().copied().find(|t| f(t))
+    }
+
+    /// The first clicked tag matching `f`.
+    pub fn clicked_where(&self, f: impl Fn(&Tag) -> bool) -> Option<Tag> {
+        self.clicked.iter().copied().find(|t| f(t))
+    }
+}
+
+/// The screen geometry of one item.
+enum Geometry {
+    Lines(Vec<Vec<Pos2>>),
+    Circle(Pos2, f32),
+    Text,
+}
+
+/// Splits a path into polylines, flattening cubic Béziers.
+pub fn flatten(cmds: &[PathCmd], map: impl Fn(Pt) -> Pos2) -> Vec<Vec<Pos2>> {
+    let mut out: Vec<Vec<Pos2>> = Vec::new();
+    let mut cur: Vec<Pos2> = Vec::new();
+    for cmd in cmds {
+        match *cmd {
+            PathCmd::MoveTo(p) => {
+                if cur.len() > 1 {
+                    out.push(std::mem::take(&mut cur));
+                }
+                cur.clear();
+                cur.push(map(p));
+            }
+            PathCmd::LineTo(p) => cur.push(map(p)),
+            PathCmd::CubicTo(c1, c2, p) => {
+                let Some(&p0) = cur.last() else {
+                    cur.push(map(p));
+                    continue;
+                };
+                let (q1, q2, q3) = (map(c1), map(c2), map(p));
+                let rough = p0.distance(q1) + q1.distance(q2) + q2.distance(q3);
+                let steps = ((rough / 3.0).ceil() as usize).clamp(2, 32);
+                for k in 1..=steps {
+                    let t = k as f32 / steps as f32;
+                    let u = 1.0 - t;
+                    let b = |a: f32, b: f32, c: f32, d: f32| {
+                        u * u * u * a + 3.0 * u * u * t * b + 3.0 * u * t * t * c + t * t * t * d
+                    };
+                    cur.push(Pos2::new(
+                        b(p0.x, q1.x, q2.x, q3.x),
+                        b(p0.y, q1.y, q2.y, q3.y),
+                    ));
+                }
+            }
+            PathCmd::Close => {
+                if let Some(&first) = cur.first() {
+                    cur.push(first);
+                }
+            }
+        }
+    }
+    if cur.len() > 1 {
+        out.push(cur);
+    }
+    out
+}
+
+fn distance_to_segment(p: Pos2, a: Pos2, b: Pos2) -> f32 {
+    let ab = b - a;
+    let len2 = ab.length_sq();
+    if len2 <= f32::EPSILON {
+        return p.distance(a);
+    }
+    let t = ((p - a).dot(ab) / len2).clamp(0.0, 1.0);
+    p.distance(a + ab * t)
+}
+
+fn inside(p: Pos2, poly: &[Pos2]) -> bool {
+    let mut odd = false;
+    let n = poly.len();
+    if n < 3 {
+        return false;
+    }
+    let mut j = n - 1;
+    for i in 0..n {
+        let (a, b) = (poly[i], poly[j]);
+        if (a.y > p.y) != (b.y > p.y) && p.x < (b.x - a.x) * (p.y - a.y) / (b.y - a.y) + a.x {
+            odd = !odd;
+        }
+        j = i;
+    }
+    odd
+}
+
+fn anchor(a: Anchor) -> Align2 {
+    match a {
+        Anchor::Center => Align2::CENTER_CENTER,
+        Anchor::Left => Align2::LEFT_CENTER,
+        Anchor::Right => Align2::RIGHT_CENTER,
+    }
+}
+
+/// Draws `scene` fitted into the available space and hit-tests the pointer.
+pub fn show(ui: &mut egui::Ui, scene: &Scene, opts: &PaintOptions) -> SceneResponse {
+    let avail = opts.size.unwrap_or_else(|| ui.available_size());
+    let sw = scene.width.max(1.0);
+    let sh = scene.height.max(1.0);
+    let scale = (avail.x / sw)
+        .min(avail.y / sh)
+        .min(opts.max_scale)
+        .max(0.05);
+    let (rect, response) =
+        ui.allocate_exact_size(Vec2::new(sw * scale, sh * scale), Sense::click_and_drag());
+    let origin = rect.min;
+    let map = |p: Pt| Pos2::new(origin.x + p.x * scale, origin.y + p.y * scale);
+    let geometry: Vec<Geometry> = scene
+        .items
+        .iter()
+        .map(|item| match &item.kind {
+            ItemKind::Path { cmds, .. } => Geometry::Lines(flatten(cmds, map)),
+            ItemKind::Circle { center, radius, .. } => {
+                Geometry::Circle(map(*center), radius * scale)
+            }
+            ItemKind::Text { .. } => Geometry::Text,
+        })
+        .collect();
+
+    // hit-testing, topmost first
+    let mut hovered = Vec::new();
+    if let Some(p) = response.hover_pos() {
+        for (item, geo) in scene.items.iter().zip(&geometry).rev() {
+            if matches!(item.tag, Tag::None | Tag::Label) || hovered.contains(&item.tag) {
+                continue;
+            }
+            let hit = match (geo, &item.kind) {
+                (Geometry::Lines(lines), ItemKind::Path { stroke, fill, .. }) => {
+                    let tol = stroke.map_or(0.0, |s| s.width * scale / 2.0).max(4.0);
+                    (fill.is_some() && lines.iter().any(|l| inside(p, l)))
+                        || (stroke.is_some()
+                            && lines.iter().any(|l| {
+                                l.windows(2)
+                                    .any(|s| distance_to_segment(p, s[0], s[1]) <= tol)
+                            }))
+                }
+                (Geometry::Circle(c, r), _) => p.distance(*c) <= r + 3.0,
+                _ => false,
+            };
+            if hit {
+                hovered.push(item.tag);
+            }
+        }
+    }
+    let clicked = if response.clicked() {
+        hovered.clone()
+    } else {
+        Vec::new()
+    };
+
+    let painter = ui.painter_at(rect.expand(2.0));
+    painter.rect_filled(rect, 0.0, color(scene.background));
+    let halo = ui.visuals().text_color().gamma_multiply(0.35);
+    let mut emphasised = Vec::new();
+    for (k, (item, geo)) in scene.items.iter().zip(&geometry).enumerate() {
+        if opts.highlight.contains(&item.tag) && !matches!(item.tag, Tag::None) {
+            emphasised.push(k);
+            continue;
+        }
+        paint_item(&painter, item, geo, scale, 1.0, None, origin);
+    }
+    for k in emphasised {
+        paint_item(
+            &painter,
+            &scene.items[k],
+            &geometry[k],
+            scale,
+            1.6,
+            Some(halo),
+            origin,
+        );
+    }
+    SceneResponse {
+        response,
+        hovered,
+        clicked,
+        scale,
+    }
+}
+
+fn paint_item(
+    painter: &egui::Painter,
+    item: &crate::figure::Item,
+    geo: &Geometry,
+    scale: f32,
+    widen: f32,
+    halo: Option<Color32>,
+    origin: Pos2,
+) {
+    match (&item.kind, geo) {
+        (ItemKind::Path { stroke, fill, .. }, Geometry::Lines(lines)) => {
+            if let Some(f) = fill {
+                for l in lines {
+                    painter.add(Shape::convex_polygon(l.clone(), color(*f), Stroke::NONE));
+                }
+            }
+            if let Some(s) = stroke {
+                let width = (s.width * scale * widen).max(1.0);
+                for l in lines {
+                    if let Some(h) = halo {
+                        painter.add(Shape::line(l.clone(), Stroke::new(width + 4.0, h)));
+                    }
+                    painter.add(Shape::line(l.clone(), Stroke::new(width, color(s.color))));
+                }
+            }
+        }
+        (ItemKind::Circle { stroke, fill, .. }, Geometry::Circle(c, r)) => {
+            if let Some(h) = halo {
+                painter.circle_filled(*c, r * widen + 2.0, h);
+            }
+            if let Some(f) = fill {
+                painter.circle_filled(*c, r * widen, color(*f));
+            }
+            if let Some(s) = stroke {
+                painter.circle_stroke(
+                    *c,
+                    r * widen,
+                    Stroke::new((s.width * scale).max(1.0), color(s.color)),
+                );
+            }
+        }
+        (
+            ItemKind::Text {
+                pos,
+                text,
+                size,
+                color: c,
+                anchor: a,
+            },
+            _,
+        ) => {
+            let screen = Pos2::new(origin.x + pos.x * scale, origin.y + pos.y * scale);
+            painter.text(
+                screen,
+                anchor(*a),
+                text,
+                FontId::proportional((size * scale).max(6.0)),
+                color(*c),
+            );
+        }
+        _ => {}
+    }
+}

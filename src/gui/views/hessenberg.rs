@@ -1,0 +1,319 @@
+//! Hessenberg classes: pick h by clicking boxes of an n×n grid (only valid
+//! Hessenberg functions can be made), compute the table a^h_w = DS_h(S_w) on
+//! the engine with progress and cancel, and browse it sorted by any column;
+//! clicking a row makes w current everywhere.
+
+use super::computing;
+use crate::engine::{Fetch, JobKey, Slot};
+use crate::gui::AppCtx;
+use crate::math::Perm;
+use crate::math::hessenberg_table::TableEntry;
+use eframe::egui::{self, Rect, Sense, Stroke, Vec2};
+use num_traits::{Signed, Zero};
+
+/// Tables up to this n start as soon as h changes; larger ones wait for the button.
+const AUTO_N: usize = 7;
+
+/// The Hessenberg view's UI state.
+#[derive(Default)]
+pub struct HessenbergView {
+    slot: Slot,
+    /// The h whose table was asked for.
+    pub wanted: Option<Vec<usize>>,
+    order: Option<(Vec<usize>, String, bool, Vec<usize>)>,
+}
+
+/// Sets h(i) = j and adjusts the other values so that h stays a Hessenberg
+/// function: weakly increasing, h(k) >= k, h(n) = n (all 1-based).
+pub fn set_h(h: &mut [usize], i: usize, j: usize) {
+    let n = h.len();
+    if i == 0 || i > n || j < i || j > n {
+        return;
+    }
+    h[i - 1] = j;
+    for k in i + 1..=n {
+        h[k - 1] = h[k - 1].max(j);
+    }
+    for k in 1..i {
+        h[k - 1] = h[k - 1].min(j).max(k);
+    }
+    h[n - 1] = n;
+}
+
+/// The default h(i) = i + 1 (capped at n).
+pub fn default_h(n: usize) -> Vec<usize> {
+    (1..=n).map(|i| (i + 1).min(n)).collect()
+}
+
+impl HessenbergView {
+    /// Draws the view.
+    pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+        let place = &mut ctx.session.hessenberg;
+        if place.h.is_empty() {
+            place.h = default_h(ctx.session.n.clamp(2, 10));
+        }
+        let mut n = place.h.len();
+        ui.horizontal(|ui| {
+            ui.heading("Hessenberg classes");
+            ui.separator();
+            ui.label("n");
+            if ui.add(egui::DragValue::new(&mut n).range(2..=10)).changed() {
+                place.h = default_h(n);
+            }
+            let text: Vec<String> = place.h.iter().map(|v| v.to_string()).collect();
+            ui.label(format!("h = ({})", text.join(", ")));
+            let dim: usize = place.h.iter().enumerate().map(|(k, v)| v - (k + 1)).sum();
+            ui.label(format!("|h| = {dim}"));
+            if ui.button("h(i) = i + 1").clicked() {
+                place.h = default_h(n);
+            }
+            if ui.button("h(i) = n").clicked() {
+                place.h = vec![n; n];
+            }
+        });
+        ui.weak("Click a box (i, j) above the diagonal to set h(i) = j; click the last box of a row to shrink it. The class of the Hessenberg variety is Σ a^h_w σ_{w0 w}, a^h_w = DS_h(S_w) over ℓ(w) = |h|.");
+        ui.horizontal_top(|ui| {
+            self.grid(ui, &mut ctx.session.hessenberg.h);
+            ui.vertical(|ui| self.table(ui, ctx));
+        });
+    }
+
+    fn grid(&mut self, ui: &mut egui::Ui, h: &mut [usize]) {
+        let n = h.len();
+        let cell = (220.0 / n as f32).clamp(18.0, 34.0);
+        let (rect, response) =
+            ui.allocate_exact_size(Vec2::splat(cell * n as f32 + 2.0), Sense::click());
+        let painter = ui.painter_at(rect);
+        let visuals = ui.visuals();
+        let on = visuals.selection.bg_fill;
+        let off = visuals.extreme_bg_color;
+        let line = Stroke::new(1.0, visuals.widgets.noninteractive.bg_stroke.color);
+        let hover = response.hover_pos();
+        for i in 1..=n {
+            for j in 1..=n {
+                let min =
+                    rect.min + Vec2::new((j - 1) as f32 * cell + 1.0, (i - 1) as f32 * cell + 1.0);
+                let r = Rect::from_min_size(min, Vec2::splat(cell));
+                let inside = j <= h[i - 1];
+                let fill = if j < i {
+                    visuals.faint_bg_color
+                } else if inside {
+                    on
+                } else {
+                    off
+                };
+                painter.rect_filled(r.shrink(1.0), 2.0, fill);
+                painter.rect_stroke(r.shrink(1.0), 2.0, line, egui::StrokeKind::Inside);
+                if j == i {
+                    painter.circle_filled(r.center(), cell * 0.12, visuals.text_color());
+                }
+                if hover.is_some_and(|p| r.contains(p)) && j >= i {
+                    painter.rect_stroke(
+                        r.shrink(1.0),
+                        2.0,
+                        Stroke::new(2.0, visuals.strong_text_color()),
+                        egui::StrokeKind::Inside,
+                    );
+                }
+                if response.clicked()
+                    && let Some(p) = response.hover_pos()
+                    && r.contains(p)
+                    && j >= i
+                {
+                    if j == h[i - 1] && j > i {
+                        set_h(h, i, j - 1);
+                    } else {
+                        set_h(h, i, j);
+                    }
+                }
+            }
+        }
+    }
+
+    fn table(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+        let h = ctx.session.hessenberg.h.clone();
+        let n = h.len();
+        ui.horizontal(|ui| {
+            if ui.button("compute the table").clicked() {
+                self.wanted = Some(h.clone());
+                self.slot.retry();
+            }
+            if n <= AUTO_N {
+                ui.weak("(computed as h changes for n <= 7)");
+            }
+        });
+        if n <= AUTO_N {
+            self.wanted = Some(h.clone());
+        }
+        let Some(wanted) = self.wanted.clone() else {
+            ui.weak("press the button to compute");
+            return;
+        };
+        if wanted != h {
+            ui.weak(format!(
+                "showing h = {wanted:?}; press the button for the new h"
+            ));
+        }
+        let out = match self
+            .slot
+            .fetch(ctx.engine, JobKey::Hessenberg(wanted.clone()))
+        {
+            Fetch::Ready(out) => out.clone(),
+            Fetch::Running(f, secs) => {
+                computing(ui, &format!("computing a^h_w ({secs:.0} s)"), f, &self.slot);
+                return;
+            }
+            Fetch::Failed(e) => {
+                let e = e.clone();
+                if super::failed(ui, &e) {
+                    self.slot.retry();
+                }
+                return;
+            }
+        };
+        let Some(table) = out.hessenberg() else {
+            return;
+        };
+        let negatives = table
+            .entries
+            .iter()
+            .filter(|e| e.value.is_negative())
+            .count();
+        ui.label(format!(
+            "{} permutations of length {}; Σ a^h_w = {}; nonzero {}; largest {}; negative {}",
+            table.listed,
+            table.h.dimension(),
+            table.total(),
+            table.nonzero(),
+            table.max(),
+            negatives
+        ));
+        // sort order, cached per (h, column, direction)
+        let current = ctx.perm();
+        let place = &mut ctx.session.hessenberg;
+        let col = if place.sort_by.is_empty() {
+            "perm".to_string()
+        } else {
+            place.sort_by.clone()
+        };
+        let needs = self
+            .order
+            .as_ref()
+            .is_none_or(|(hh, c, d, _)| *hh != wanted || *c != col || *d != place.descending);
+        if needs {
+            let mut idx: Vec<usize> = (0..table.entries.len()).collect();
+            let e = &table.entries;
+            match col.as_str() {
+                "value" => idx.sort_by(|&a, &b| e[a].value.cmp(&e[b].value).then(a.cmp(&b))),
+                "length" => idx.sort_by_key(|&a| (e[a].perm.length(), a)),
+                _ => idx.sort_by(|&a, &b| e[a].perm.cmp(&e[b].perm)),
+            }
+            if place.descending {
+                idx.reverse();
+            }
+            self.order = Some((wanted.clone(), col.clone(), place.descending, idx));
+        }
+        let Some((_, _, _, idx)) = &self.order else {
+            return;
+        };
+        let mut chosen: Option<Perm> = None;
+        let widths = [120.0, 60.0, 140.0];
+        ui.horizontal(|ui| {
+            for (k, (key, name)) in [("perm", "w"), ("length", "ℓ(w)"), ("value", "a^h_w")]
+                .into_iter()
+                .enumerate()
+            {
+                let arrow = if col == key {
+                    if place.descending {
+                        " (desc)"
+                    } else {
+                        " (asc)"
+                    }
+                } else {
+                    ""
+                };
+                let b = ui.add_sized(
+                    [widths[k], ui.spacing().interact_size.y],
+                    egui::Button::new(format!("{name}{arrow}")),
+                );
+                if b.clicked() {
+                    if col == key {
+                        place.descending = !place.descending;
+                    } else {
+                        place.sort_by = key.to_string();
+                        place.descending = key == "value";
+                    }
+                }
+            }
+        });
+        let row_h = ui.spacing().interact_size.y;
+        egui::ScrollArea::vertical()
+            .id_salt("hessenberg_rows")
+            .auto_shrink([false, false])
+            .show_rows(ui, row_h, idx.len(), |ui, rows| {
+                for r in rows {
+                    let Some(entry): Option<&TableEntry> =
+                        idx.get(r).and_then(|&i| table.entries.get(i))
+                    else {
+                        continue;
+                    };
+                    ui.horizontal(|ui| {
+                        let sel = ui.add_sized(
+                            [widths[0], row_h],
+                            egui::Button::selectable(
+                                entry.perm == current,
+                                egui::RichText::new(entry.perm.to_string()).monospace(),
+                            ),
+                        );
+                        if sel.clicked() {
+                            chosen = Some(entry.perm.clone());
+                        }
+                        ui.add_sized(
+                            [widths[1], row_h],
+                            egui::Label::new(entry.perm.length().to_string()),
+                        );
+                        let text = egui::RichText::new(entry.value.to_string()).monospace();
+                        let text = if entry.value.is_negative() {
+                            text.color(crate::gui::theme::alert())
+                        } else if entry.value.is_zero() {
+                            text.weak()
+                        } else {
+                            text
+                        };
+                        ui.add_sized([widths[2], row_h], egui::Label::new(text));
+                    });
+                }
+            });
+        if let Some(w) = chosen {
+            ctx.go_to(w);
+        }
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::math::hessenberg::HessenbergFn;
+
+    #[test]
+    fn clicks_keep_h_a_hessenberg_function() {
+        let mut h = default_h(5);
+        set_h(&mut h, 2, 5);
+        assert_eq!(h, vec![2, 5, 5, 5, 5]);
+        set_h(&mut h, 1, 1);
+        assert_eq!(h, vec![1, 5, 5, 5, 5]);
+        set_h(&mut h, 4, 4);
+        assert_eq!(h, vec![1, 4, 4, 4, 5]);
+        // every click of every box of every function leaves a valid function
+        for start in HessenbergFn::all(4) {
+            for i in 1..=4 {
+                for j in i..=4 {
+                    let mut v = start.values().to_vec();
+                    set_h(&mut v, i, j);
+                    assert!(HessenbergFn::new(&v).is_ok(), "{v:?}");
+                    assert_eq!(v[i - 1], if i == 4 { 4 } else { j });
+                }
+            }
+        }
+    }
+}

@@ -1,0 +1,157 @@
+//! The quotient, reduce and survey commands, run as the real binary.
+#![allow(clippy::unwrap_used)]
+
+use elbowroom::cli::merge_survey::merge_surveys;
+use serde_json::{Value, json};
+use std::process::{Command, Output, Stdio};
+
+fn run(args: &[&str]) -> Output {
+    Command::new(env!("CARGO_BIN_EXE_elbowroom"))
+        .args(args)
+        .output()
+        .unwrap()
+}
+
+fn json_of(args: &[&str]) -> Value {
+    let out = run(args);
+    assert!(
+        out.status.success(),
+        "{args:?}: {}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let text = String::from_utf8(out.stdout).unwrap();
+    assert_eq!(text.trim().lines().count(), 1, "exactly one JSON object");
+    serde_json::from_str(&text).unwrap()
+}
+
+fn assert_input_error(args: &[&str]) {
+    let out = run(args);
+    assert_eq!(out.status.code(), Some(2), "{args:?}");
+    assert!(out.stdout.is_empty(), "{args:?}: no partial output");
+    let err = String::from_utf8(out.stderr).unwrap();
+    assert_eq!(err.trim().lines().count(), 1, "{args:?}: one line: {err}");
+}
+
+/// Aval–Bergeron–Bergeron (2004): Catalan(4) = 14 (OEIS A000108), graded 1, 3, 5, 5
+/// (OEIS A009766, row 3).
+#[test]
+fn quotient_json() {
+    let v = json_of(&["quotient", "--n", "4", "--json"]);
+    assert_eq!(v["basis"].as_array().unwrap().len(), 14);
+    assert_eq!(v["hilbert"], json!([1, 3, 5, 5]));
+    assert_eq!(v["dimension"], json!("14"));
+    // corners: 1 + 1 + 2 + 5 = Catalan(0..3) summed
+    assert_eq!(v["groebner_size"], json!(9));
+    assert_eq!(v["basis"][0], json!([0, 0, 0, 0]));
+    assert_eq!(v["paths"][1]["steps"].as_str().unwrap().len(), 8);
+    let text = String::from_utf8(run(&["quotient", "--n", "3"]).stdout).unwrap();
+    assert!(text.contains("x2^2 + x2 x3 + x3^2"), "{text}");
+}
+
+#[test]
+fn reduce_json() {
+    // x1 ≡ -x2 - x3 modulo M_(1) = x1 + x2 + x3
+    let v = json_of(&["reduce", "x1", "--n", "3", "--json"]);
+    assert_eq!(
+        v["normal_form"],
+        json!({"nvars": 3, "terms": [[[0, 1, 0], "-1"], [[0, 0, 1], "-1"]]})
+    );
+    assert_eq!(
+        v["coefficients"][0],
+        json!({"monomial": [0, 1, 0], "basis_index": 1, "value": "-1"})
+    );
+    // quasisymmetric atoms lie in the ideal; a constant survives
+    let v = json_of(&["reduce", "M(2,1) + 3 F(1,1) - 1/2", "--n", "3", "--json"]);
+    assert_eq!(
+        v["normal_form"],
+        json!({"nvars": 3, "terms": [[[0, 0, 0], "-1/2"]]})
+    );
+    assert_eq!(v["sum"], json!("-1/2"));
+}
+
+#[test]
+fn bad_input_is_one_line_and_status_2() {
+    assert_input_error(&["reduce", "x1 +", "--n", "3", "--json"]);
+    assert_input_error(&["reduce", "x5", "--n", "3"]);
+    assert_input_error(&["reduce", "M(0,1)", "--n", "3"]);
+    assert_input_error(&["quotient", "--n", "9", "--json"]);
+    assert_input_error(&["quotient", "--n", "0"]);
+    assert_input_error(&["survey", "--n", "9", "--json"]);
+    assert_input_error(&["survey", "--perm", "1123"]);
+    assert_input_error(&["survey", "--n", "3", "--shard", "4/3"]);
+    assert_input_error(&["survey"]);
+}
+
+#[test]
+fn survey_json_summary_and_csv() {
+    let v = json_of(&["survey", "--n", "4", "--json"]);
+    assert_eq!(v["kind"], json!("quotient_survey"));
+    assert_eq!(v["shard"], json!("1/1"));
+    let results = v["results"].as_array().unwrap();
+    assert_eq!(results.len(), 24);
+    // S_{1243} = x1 + x2 + x3, reversed x4 + x3 + x2: already standard
+    let w = results
+        .iter()
+        .find(|r| r["perm"] == json!([1, 2, 4, 3]))
+        .unwrap();
+    assert_eq!(w["terms"], json!(3));
+    assert_eq!(w["sum"], json!("3"));
+    assert!(w["normal_form"].is_object());
+    let s = json_of(&["survey", "--n", "4", "--json", "--summary"]);
+    assert!(s["results"][0].get("normal_form").is_none());
+    let csv = String::from_utf8(run(&["survey", "--n", "4", "--csv"]).stdout).unwrap();
+    assert_eq!(csv.lines().count(), 25);
+    let one = json_of(&["survey", "--perm", "2143", "--json"]);
+    assert_eq!(one["results"][0]["perm"], json!([2, 1, 4, 3]));
+}
+
+/// The pieces of a sharded survey merge back into the whole survey.
+#[test]
+fn sharded_survey_merges_to_the_whole() {
+    let whole = json_of(&["survey", "--n", "4", "--json"]);
+    let pieces: Vec<Value> = (1..=3)
+        .map(|k| json_of(&["survey", "--n", "4", "--json", "--shard", &format!("{k}/3")]))
+        .collect();
+    assert_eq!(pieces[0]["results"].as_array().unwrap().len(), 8);
+    let merged = merge_surveys(&pieces).unwrap();
+    assert_eq!(merged["results"], whole["results"]);
+    assert_eq!(merged["counterexamples"], whole["counterexamples"]);
+    // the same through `elbowroom merge`, from files
+    let dir = std::env::temp_dir().join(format!("elbowroom-survey-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let mut files = Vec::new();
+    for (k, p) in pieces.iter().enumerate() {
+        let f = dir.join(format!("piece{k}.json"));
+        std::fs::write(&f, p.to_string()).unwrap();
+        files.push(f.display().to_string());
+    }
+    let mut args = vec!["merge"];
+    args.extend(files.iter().map(String::as_str));
+    let via_cli = json_of(&args);
+    assert_eq!(via_cli["results"], whole["results"]);
+    assert_eq!(via_cli["kind"], json!("quotient_survey"));
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+/// Ctrl-C: exit status 130, a message on stderr, nothing on stdout.
+#[cfg(unix)]
+#[test]
+fn interrupt_cancels_cleanly() {
+    let child = Command::new(env!("CARGO_BIN_EXE_elbowroom"))
+        .args(["survey", "--n", "8", "--json"])
+        .stdout(Stdio::piped())
+        .stderr(Stdio::piped())
+        .spawn()
+        .unwrap();
+    std::thread::sleep(std::time::Duration::from_millis(700));
+    let status = Command::new("kill")
+        .args(["-INT", &child.id().to_string()])
+        .status()
+        .unwrap();
+    assert!(status.success());
+    let out = child.wait_with_output().unwrap();
+    assert_eq!(out.status.code(), Some(130));
+    assert!(out.stdout.is_empty());
+    let err = String::from_utf8(out.stderr).unwrap();
+    assert!(err.contains("canceled"), "{err}");
+}

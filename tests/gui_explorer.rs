@@ -1,0 +1,169 @@
+//! The explorer driven headlessly (egui_kittest, no display, no GPU): typing
+//! permutations, refusing bad ones, stepping and moving pipe dreams, and
+//! running and cancelling engine jobs.
+#![cfg(feature = "gui")]
+#![allow(clippy::unwrap_used)]
+
+use eframe::egui;
+use egui_kittest::Harness;
+use egui_kittest::kittest::Queryable;
+use elbowroom::engine::Engine;
+use elbowroom::figure::dream::{CELL, cell_origin};
+use elbowroom::gui::Explorer;
+use elbowroom::gui::app::demo_session;
+use elbowroom::math::Perm;
+use elbowroom::math::pipe_dream::count_pipe_dreams;
+use elbowroom::session::model::View;
+use std::time::{Duration, Instant};
+
+fn harness() -> Harness<'static, Explorer> {
+    Harness::builder()
+        .with_size(egui::vec2(1280.0, 800.0))
+        .with_accessibility_check(false)
+        .allow_missing_glyphs()
+        .build_ui_state(
+            |ui, app: &mut Explorer| app.show(ui),
+            Explorer::new(demo_session(), Engine::quiet()),
+        )
+}
+
+/// Steps frames until `done` holds (the engine works on other threads).
+fn settle(h: &mut Harness<'static, Explorer>, done: impl Fn(&Harness<'static, Explorer>) -> bool) {
+    let start = Instant::now();
+    while start.elapsed() < Duration::from_secs(60) {
+        h.step();
+        if done(h) {
+            return;
+        }
+        std::thread::sleep(Duration::from_millis(5));
+    }
+    panic!("the explorer did not reach the expected state in time");
+}
+
+fn has(h: &Harness<'static, Explorer>, text: &str) -> bool {
+    h.query_all_by_label_contains(text).next().is_some()
+}
+
+fn type_and_go(h: &mut Harness<'static, Explorer>, text: &str) {
+    h.state_mut().picker.text = text.to_string();
+    h.step();
+    h.get_by_label("go").click();
+    h.step();
+    h.step();
+}
+
+#[test]
+fn a_typed_permutation_reaches_every_view() {
+    let mut h = harness();
+    settle(&mut h, |h| h.state().dreams.shown.is_some());
+    type_and_go(&mut h, "code: 1,0,1");
+    // the code (1,0,1) is that of 2143, embedded in S_5
+    assert_eq!(h.state().session.current, vec![2, 1, 4, 3, 5]);
+    settle(&mut h, |h| has(h, "Reduced pipe dreams of w = 21435"));
+    // S_2143 = x1^2 + x1 x2 + x1 x3: three dreams (Macdonald's table for S_4)
+    settle(&mut h, |h| has(h, "1 of 3"));
+    h.get_by_label("Reduced words & wiring").click();
+    settle(&mut h, |h| has(h, "Reduced words of w = 21435"));
+    // s1 s3 = s3 s1: two reduced words
+    settle(&mut h, |h| has(h, "2 reduced words"));
+    type_and_go(&mut h, "word: 2 1 2");
+    settle(&mut h, |h| has(h, "Reduced words of w = 32145"));
+    assert!(has(&h, "w = 32145"));
+}
+
+#[test]
+fn an_invalid_permutation_is_refused_and_nothing_changes() {
+    let mut h = harness();
+    let before = h.state().session.current.clone();
+    type_and_go(&mut h, "1224");
+    assert!(h.state().picker.error.is_some());
+    assert!(has(&h, "invalid permutation"));
+    assert_eq!(h.state().session.current, before);
+    type_and_go(&mut h, "word: 0 1");
+    assert!(h.state().picker.error.is_some());
+    assert_eq!(h.state().session.current, before);
+}
+
+#[test]
+fn the_arrow_keys_step_to_the_last_dream() {
+    let mut h = harness();
+    let w = Perm::from_one_line(&h.state().session.current).unwrap();
+    let total: usize = count_pipe_dreams(&w).try_into().unwrap();
+    settle(&mut h, |h| has(h, &format!("1 of {total}")));
+    for _ in 1..total + 3 {
+        h.key_press(egui::Key::ArrowRight);
+        h.step();
+    }
+    assert!(has(&h, &format!("{total} of {total}")));
+    assert_eq!(h.state().session.dreams.index, total - 1);
+}
+
+#[test]
+fn clicking_a_cell_applies_a_ladder_move() {
+    let mut h = harness();
+    settle(&mut h, |h| h.state().dreams.shown.is_some());
+    let dream = h.state().dreams.shown.unwrap();
+    let w = dream.permutation();
+    let (i, j) = dream
+        .crosses()
+        .into_iter()
+        .find(|&(i, j)| dream.ladder_move_at(i, j).is_some())
+        .unwrap();
+    let expected = dream.ladder_move_at(i, j).unwrap();
+    let (rect, scale) = h.state().dreams.canvas.unwrap();
+    let o = cell_origin(i, j);
+    // a corner of the cell, away from the pipes through its middle
+    let pos = rect.min + egui::vec2((o.x + CELL * 0.12) * scale, (o.y + CELL * 0.12) * scale);
+    h.hover_at(pos);
+    h.step();
+    for pressed in [true, false] {
+        h.event(egui::Event::PointerButton {
+            pos,
+            button: egui::PointerButton::Primary,
+            pressed,
+            modifiers: egui::Modifiers::NONE,
+        });
+        h.step();
+    }
+    h.step();
+    let shown = h.state().dreams.shown.unwrap();
+    assert_ne!(shown, dream);
+    assert_eq!(shown, expected);
+    assert_eq!(shown.permutation(), w);
+}
+
+#[test]
+fn a_hessenberg_table_fills_in() {
+    let mut h = harness();
+    h.get_by_label("Hessenberg classes").click();
+    h.step();
+    assert_eq!(h.state().session.view, View::Hessenberg);
+    // h = (2,3,4,5,5), |h| = 4: the 20 permutations of S_5 of length 4 (Mahonian numbers, OEIS A008302)
+    settle(&mut h, |h| has(h, "20 permutations of length 4"));
+    // the permutohedral variety: Σ_w a^h_w σ_{w0 w} with a_w = DS_5(S_w); the total is read from the table
+    assert!(has(&h, "Σ a^h_w ="));
+}
+
+#[test]
+fn cancelling_a_job_leaves_the_window_usable() {
+    let mut h = harness();
+    h.get_by_label("Hessenberg classes").click();
+    h.step();
+    h.state_mut().session.hessenberg.h = vec![2, 3, 4, 5, 6, 7, 8, 9, 10, 10];
+    h.step();
+    h.get_by_label("compute the table").click();
+    settle(&mut h, |h| !h.state().engine.running().is_empty());
+    h.get_all_by_label("cancel").next().unwrap().click();
+    settle(&mut h, |h| has(h, "canceled"));
+    assert!(
+        h.state()
+            .engine
+            .running()
+            .iter()
+            .all(|r| r.progress.is_canceled())
+    );
+    // the window still answers: back to the pipe dreams of a new permutation
+    h.get_by_label("Pipe dreams").click();
+    type_and_go(&mut h, "1432");
+    settle(&mut h, |h| has(h, "1 of 5"));
+}
