@@ -270,7 +270,9 @@ fn tikz_compiles_with_pdflatex() {
         .output()
         .is_ok_and(|o| o.status.success() && !o.stdout.is_empty());
     if !has_standalone {
-        eprintln!("skipped: pdflatex is installed but standalone.cls is not (Debian: texlive-latex-extra)");
+        eprintln!(
+            "skipped: pdflatex is installed but standalone.cls is not (Debian: texlive-latex-extra)"
+        );
         return;
     }
     let dir = scratch("pdflatex");
