@@ -141,3 +141,183 @@ fn a_session_file_argument_is_validated_before_anything_opens() {
     let out = elbowroom(&["perm", "312", "--json"]);
     assert!(out.status.success());
 }
+
+fn decode_png(path: &Path) -> resvg::tiny_skia::Pixmap {
+    resvg::tiny_skia::Pixmap::decode_png(&std::fs::read(path).unwrap()).unwrap()
+}
+
+#[test]
+fn figure_dream_png_shows_every_pipe_in_its_colour() {
+    use elbowroom::figure::palette::label_color;
+    let dir = scratch("dream-png");
+    let out = dir.join("d.png");
+    let run = elbowroom(&[
+        "figure",
+        "dream",
+        "31524",
+        "--index",
+        "2",
+        "--scale",
+        "2",
+        "--out",
+        &out.display().to_string(),
+        "--json",
+    ]);
+    let v = stdout_json(&run);
+    assert_eq!(v["count"], 1);
+    let width = v["files"][0]["width"].as_f64().unwrap();
+    let height = v["files"][0]["height"].as_f64().unwrap();
+    let p = decode_png(&out);
+    assert_eq!(p.width(), (width * 2.0).ceil() as u32);
+    assert_eq!(p.height(), (height * 2.0).ceil() as u32);
+    let n = 5;
+    let present = (1..=n)
+        .filter(|&k| {
+            let c = label_color(k, n);
+            p.pixels()
+                .iter()
+                .any(|px| px.red() == c.r && px.green() == c.g && px.blue() == c.b)
+        })
+        .count();
+    assert_eq!(present, n, "each of the {n} pipes shows its label colour");
+}
+
+#[test]
+fn figure_dream_svg_and_tikz_have_one_item_per_pipe() {
+    let dir = scratch("dream-vector");
+    let svg = dir.join("d.svg");
+    let tex = dir.join("d.tex");
+    for f in [&svg, &tex] {
+        let out = elbowroom(&["figure", "dream", "1432", "--out", &f.display().to_string()]);
+        assert!(
+            out.status.success(),
+            "{}",
+            String::from_utf8_lossy(&out.stderr)
+        );
+    }
+    let text = std::fs::read_to_string(&svg).unwrap();
+    let doc = roxmltree::Document::parse(&text).unwrap();
+    for k in 1..=4 {
+        let class = format!("pipe pipe-{k}");
+        let paths = doc
+            .descendants()
+            .filter(|e| e.has_tag_name("path") && e.attribute("class") == Some(class.as_str()))
+            .count();
+        assert_eq!(paths, 1, "pipe {k}");
+    }
+    let text = std::fs::read_to_string(&tex).unwrap();
+    for k in 1..=4 {
+        let draws = text
+            .lines()
+            .filter(|l| l.starts_with("\\draw") && l.ends_with(&format!("% pipe {k}")))
+            .count();
+        assert_eq!(draws, 1, "pipe {k}");
+    }
+}
+
+#[test]
+fn figure_all_writes_one_file_per_pipe_dream() {
+    // S_1432 = x1^2 x2 + x1^2 x3 + x1 x2^2 + x1 x2 x3 + x2^2 x3 (Macdonald's table, from
+    // memory): five monomials with coefficient 1, so five reduced pipe dreams
+    let dir = scratch("dream-all");
+    let v = stdout_json(&elbowroom(&[
+        "figure",
+        "dream",
+        "1432",
+        "--all",
+        "--format",
+        "svg",
+        "--out",
+        &dir.display().to_string(),
+        "--json",
+    ]));
+    assert_eq!(v["count"], 5);
+    let mut names: Vec<String> = std::fs::read_dir(&dir)
+        .unwrap()
+        .map(|e| e.unwrap().file_name().to_string_lossy().into_owned())
+        .collect();
+    names.sort();
+    assert_eq!(
+        names,
+        (0..5)
+            .map(|k| format!("dream-1432-{k:03}.svg"))
+            .collect::<Vec<_>>()
+    );
+}
+
+#[test]
+fn figure_kinds_without_a_permutation() {
+    let dir = scratch("other-kinds");
+    let cases: [&[&str]; 5] = [
+        &["figure", "permutohedron", "--lambda", "3,2,1,0"],
+        &[
+            "figure",
+            "volume",
+            "--from",
+            "1,1,0,0",
+            "--to",
+            "3,2,1,0",
+            "--samples",
+            "6",
+        ],
+        &["figure", "paths", "1432"],
+        &["figure", "paths", "--poly", "x1^2 + x2", "--n", "3"],
+        &["figure", "wiring", "--word", "121"],
+    ];
+    for (i, args) in cases.iter().enumerate() {
+        let out = dir.join(format!("f{i}.svg"));
+        let mut all: Vec<&str> = args.to_vec();
+        let o = out.display().to_string();
+        all.extend(["--out", &o]);
+        let run = elbowroom(&all);
+        assert!(
+            run.status.success(),
+            "{args:?}: {}",
+            String::from_utf8_lossy(&run.stderr)
+        );
+        let text = std::fs::read_to_string(&out).unwrap();
+        assert!(roxmltree::Document::parse(&text).is_ok(), "{args:?}");
+    }
+}
+
+#[test]
+fn figure_refuses_bad_requests() {
+    let dir = scratch("figure-bad").display().to_string();
+    let f = format!("{dir}/f.svg");
+    assert_refused(
+        &elbowroom(&["figure", "dream", "1432", "--index", "5", "--out", &f]),
+        &["--index 5 is out of range", "(5)"],
+    );
+    assert_refused(
+        &elbowroom(&["figure", "dream", "1432", "--out", &format!("{dir}/f.pdf")]),
+        &["end --out with .png, .svg or .tex"],
+    );
+    assert_refused(
+        &elbowroom(&["figure", "dream", "1442", "--out", &f]),
+        &["1442"],
+    );
+    assert_refused(
+        &elbowroom(&["figure", "wiring", "--word", "11", "--out", &f]),
+        &["not reduced"],
+    );
+    assert_refused(
+        &elbowroom(&["figure", "permutohedron", "--out", &f]),
+        &["needs --lambda"],
+    );
+    assert_refused(
+        &elbowroom(&[
+            "figure",
+            "permutohedron",
+            "--lambda",
+            "6,5,4,3,2,1",
+            "--out",
+            &f,
+        ]),
+        &["n <= 5"],
+    );
+    assert_refused(
+        &elbowroom(&["figure", "dream", "1432", "--scale", "0", "--out", &f]),
+        &["scale"],
+    );
+    assert!(!Path::new(&f).exists(), "nothing written on refusal");
+}

@@ -265,6 +265,16 @@ fn tikz_compiles_with_pdflatex() {
         );
         return;
     };
+    let has_standalone = std::process::Command::new("kpsewhich")
+        .arg("standalone.cls")
+        .output()
+        .is_ok_and(|o| o.status.success() && !o.stdout.is_empty());
+    if !has_standalone {
+        eprintln!(
+            "skipped: pdflatex is installed but standalone.cls is not (Debian: texlive-latex-extra)"
+        );
+        return;
+    }
     let dir = scratch("pdflatex");
     let tex = dir.join("pipes.tex");
     std::fs::write(&tex, export::to_tikz(&pipes_scene(4))).unwrap();

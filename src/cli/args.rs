@@ -40,6 +40,8 @@ pub enum Command {
     Survey(super::cmd_survey::SurveyArgs),
     /// Checks and summarises a session file (`session check FILE`).
     Session(super::cmd_session::SessionArgs),
+    /// Draws a figure and writes it as PNG, SVG or TikZ (`figure dream 1432 --out f.png`).
+    Figure(super::cmd_figure::FigureArgs),
 }
 
 /// Arguments of `elbowroom perm`.

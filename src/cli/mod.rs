@@ -9,6 +9,7 @@ pub mod args;
 pub mod cmd_divsym;
 pub mod cmd_dreams;
 pub mod cmd_eulerian;
+pub mod cmd_figure;
 pub mod cmd_hessenberg;
 pub mod cmd_merge;
 pub mod cmd_perm;
@@ -77,6 +78,7 @@ pub fn execute(command: &Command) -> Result<String, CliError> {
         Command::Reduce(a) => cmd_reduce::run(a),
         Command::Survey(a) => cmd_survey::run(a),
         Command::Session(a) => cmd_session::run(a),
+        Command::Figure(a) => cmd_figure::run(a),
     }
 }
 
