@@ -7,7 +7,8 @@ use elbowroom::math::Progress;
 use elbowroom::math::schubert::SchubertTable;
 use elbowroom::math::words::{
     apply_word_move, content, count_reduced_words, count_reduced_words_by_rank,
-    count_reduced_words_layered, counts_by_content, reduced_words, word_moves,
+    count_reduced_words_layered, count_reduced_words_vexillary, counts_by_content, reduced_words,
+    word_moves,
 };
 use num_bigint::{BigInt, BigUint};
 use num_traits::{One, ToPrimitive, Zero};
@@ -92,6 +93,35 @@ fn rank_and_layered_methods_agree() {
     assert!(count_reduced_words_by_rank(&big, &p).unwrap().is_none());
     let small_big = Perm::parse("2,1,3,4,5,6,7,8,9,10,11,12").unwrap();
     assert_eq!(count_reduced_words(&small_big), BigUint::one());
+}
+
+/// Stanley 1984 / Edelman–Greene 1987: for vexillary w the reduced words are
+/// counted by the standard Young tableaux of the sorted code (hook length formula).
+#[test]
+fn hook_formula_for_vexillary_permutations_agrees_with_the_count() {
+    let p = Progress::default();
+    let mut vexillary = 0;
+    for n in 1..=7 {
+        for w in Perm::all(n) {
+            if let Some(by_hooks) = count_reduced_words_vexillary(&w) {
+                vexillary += 1;
+                let by_rank = count_reduced_words_by_rank(&w, &p).unwrap().unwrap();
+                assert_eq!(by_hooks, by_rank, "w = {w}");
+            }
+        }
+    }
+    assert!(vexillary > 2000);
+    // and w0 of every size, against A005118 and beyond the reach of the layers
+    for n in 1..=10 {
+        assert_eq!(
+            count_reduced_words(&Perm::longest(n)).to_string(),
+            A005118[n - 1]
+        );
+    }
+    assert_eq!(
+        count_reduced_words(&Perm::longest(16)),
+        stanley_staircase(16)
+    );
 }
 
 #[test]

@@ -9,6 +9,7 @@
 
 use super::error::{MathError, MathResult};
 use super::perm::Perm;
+use super::perm_class::contains_pattern;
 use super::progress::Progress;
 use num_bigint::BigUint;
 use num_traits::Zero;
@@ -251,10 +252,50 @@ pub fn count_reduced_words(w: &Perm) -> BigUint {
 /// decreasing order, in one flat array ([`count_reduced_words_by_rank`]);
 /// otherwise the layered push ([`count_reduced_words_layered`]).
 pub fn count_reduced_words_with(w: &Perm, progress: &Progress) -> MathResult<BigUint> {
+    if let Some(count) = count_reduced_words_vexillary(w) {
+        return Ok(count);
+    }
     if let Some(count) = count_reduced_words_by_rank(w, progress)? {
         return Ok(count);
     }
     count_reduced_words_layered(w, progress)
+}
+
+/// For vexillary w (2143-avoiding) the Stanley symmetric function is a single
+/// Schur function s_λ with λ the Lehmer code sorted decreasingly (or its
+/// conjugate), so the number of reduced words is the number f^λ of standard
+/// Young tableaux, by the hook length formula (Stanley, European J. Combin.
+/// 1984; Edelman–Greene 1987). None for other w. For w0 this is
+/// N! / Π_{k=1}^{n-1} (2k-1)^{n-k}.
+///
+/// ```
+/// use elbowroom::math::{Perm, words::count_reduced_words_vexillary};
+/// use num_bigint::BigUint;
+/// // w0 in S_5: 10! / (1^4 3^3 5^2 7) = 768 (OEIS A005118)
+/// assert_eq!(count_reduced_words_vexillary(&Perm::longest(5)), Some(BigUint::from(768u32)));
+/// assert_eq!(count_reduced_words_vexillary(&Perm::parse("2143").unwrap()), None);
+/// ```
+pub fn count_reduced_words_vexillary(w: &Perm) -> Option<BigUint> {
+    if contains_pattern(w, &[2, 1, 4, 3]) {
+        return None;
+    }
+    let mut shape = w.code();
+    shape.sort_unstable_by(|a, b| b.cmp(a));
+    shape.retain(|&p| p > 0);
+    let size: usize = shape.iter().sum();
+    let mut num = BigUint::from(1u8);
+    for k in 2..=size {
+        num *= BigUint::from(k);
+    }
+    let mut hooks = BigUint::from(1u8);
+    for (i, &row) in shape.iter().enumerate() {
+        for j in 0..row {
+            let arm = row - j - 1;
+            let leg = shape[i + 1..].iter().filter(|&&r| r > j).count();
+            hooks *= BigUint::from(arm + leg + 1);
+        }
+    }
+    Some(num / hooks)
 }
 
 /// The layered method: maximal chains from w down to the identity in right weak
