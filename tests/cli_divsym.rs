@@ -2,35 +2,10 @@
 #![allow(clippy::unwrap_used)]
 
 use serde_json::Value;
-use std::process::{Command, Output, Stdio};
+use std::process::{Command, Stdio};
 
-fn run(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_elbowroom"))
-        .args(args)
-        .output()
-        .unwrap()
-}
-
-fn json(args: &[&str]) -> Value {
-    let out = run(args);
-    assert!(
-        out.status.success(),
-        "{args:?}: {}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    let text = String::from_utf8(out.stdout).unwrap();
-    assert_eq!(text.trim().lines().count(), 1, "exactly one JSON object");
-    serde_json::from_str(&text).unwrap()
-}
-
-fn rejects(args: &[&str], needle: &str) {
-    let out = run(args);
-    assert_eq!(out.status.code(), Some(2), "{args:?}");
-    assert!(out.stdout.is_empty(), "no partial output on stdout");
-    let err = String::from_utf8_lossy(&out.stderr);
-    assert_eq!(err.trim().lines().count(), 1, "one line: {err}");
-    assert!(err.contains(needle), "{args:?}: {err}");
-}
+mod common;
+use common::{json, rejects, run};
 
 #[test]
 fn divsym_gives_numbers_and_symmetric_polynomials() {
@@ -168,5 +143,27 @@ fn ctrl_c_stops_a_long_table_cleanly() {
     assert!(
         err.contains("canceled after") && err.contains("permutations"),
         "{err}"
+    );
+}
+
+#[test]
+fn eulerian_tables_as_csv_and_latex() {
+    // n = 4: the 10 compositions of 3 into 3 parts; A_{(1,1,1)} = (n-1)! = 6 and the
+    // sum of all A_c is (n-1)!·Catalan(n-1) = 6·5 = 30 (Postnikov, IMRN 2009, §16, from memory)
+    let csv = String::from_utf8(run(&["eulerian", "--n", "4", "--csv"]).stdout).unwrap();
+    assert_eq!(csv.lines().count(), 11, "{csv}");
+    assert!(csv.starts_with("c,value\n"), "{csv}");
+    assert!(csv.contains("\n\"(1,1,1)\",6\n"), "{csv}");
+    let tex = String::from_utf8(run(&["eulerian", "--n", "4", "--latex"]).stdout).unwrap();
+    assert!(tex.contains("sum of all A_c = 30"), "{tex}");
+    assert!(tex.contains("$(1,1,1)$ & $6$ \\\\"), "{tex}");
+    assert_eq!(
+        tex.matches("\\\\\n").count(),
+        11,
+        "a header and 10 rows: {tex}"
+    );
+    rejects(
+        &["eulerian", "--n", "4", "--csv", "--latex"],
+        "cannot be used with",
     );
 }

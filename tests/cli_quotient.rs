@@ -3,33 +3,13 @@
 
 use elbowroom::cli::merge_survey::merge_surveys;
 use serde_json::{Value, json};
-use std::process::{Command, Output, Stdio};
+use std::process::{Command, Stdio};
 
-fn run(args: &[&str]) -> Output {
-    Command::new(env!("CARGO_BIN_EXE_elbowroom"))
-        .args(args)
-        .output()
-        .unwrap()
-}
-
-fn json_of(args: &[&str]) -> Value {
-    let out = run(args);
-    assert!(
-        out.status.success(),
-        "{args:?}: {}",
-        String::from_utf8_lossy(&out.stderr)
-    );
-    let text = String::from_utf8(out.stdout).unwrap();
-    assert_eq!(text.trim().lines().count(), 1, "exactly one JSON object");
-    serde_json::from_str(&text).unwrap()
-}
+mod common;
+use common::{json as json_of, rejects, run};
 
 fn assert_input_error(args: &[&str]) {
-    let out = run(args);
-    assert_eq!(out.status.code(), Some(2), "{args:?}");
-    assert!(out.stdout.is_empty(), "{args:?}: no partial output");
-    let err = String::from_utf8(out.stderr).unwrap();
-    assert_eq!(err.trim().lines().count(), 1, "{args:?}: one line: {err}");
+    rejects(args, "");
 }
 
 /// Aval–Bergeron–Bergeron (2004): Catalan(4) = 14 (OEIS A000108), graded 1, 3, 5, 5
@@ -101,6 +81,11 @@ fn survey_json_summary_and_csv() {
     assert!(s["results"][0].get("normal_form").is_none());
     let csv = String::from_utf8(run(&["survey", "--n", "4", "--csv"]).stdout).unwrap();
     assert_eq!(csv.lines().count(), 25);
+    let tex =
+        String::from_utf8(run(&["survey", "--n", "4", "--latex", "--summary"]).stdout).unwrap();
+    assert!(tex.contains("\\begin{tabular}") && tex.ends_with("\\end{tabular}\n"));
+    // a header and the 24 permutations of S_4
+    assert_eq!(tex.matches("\\\\\n").count(), 25, "{tex}");
     let one = json_of(&["survey", "--perm", "2143", "--json"]);
     assert_eq!(one["results"][0]["perm"], json!([2, 1, 4, 3]));
 }

@@ -66,9 +66,50 @@ fn a_typed_permutation_reaches_every_view() {
     settle(&mut h, |h| has(h, "Reduced words of w = 21435"));
     // s1 s3 = s3 s1: two reduced words
     settle(&mut h, |h| has(h, "2 reduced words"));
+    // the quotient view reduces the reversed Schubert polynomial of the same w:
+    // S_2143(x5, ..., x1) = x5^2 + x5 x4 + x5 x3, leading term first in lex order
+    h.get_by_label("Quotient by J_n").click();
+    settle(&mut h, |h| has(h, "f = x3 x5 + x4 x5 + x5^2"));
     type_and_go(&mut h, "word: 2 1 2");
+    // S_321 = x1^2 x2 (Macdonald's table for S_3), reversed: x4 x5^2 in S_5
+    settle(&mut h, |h| has(h, "f = x4 x5^2"));
+    h.get_by_label("Reduced words & wiring").click();
     settle(&mut h, |h| has(h, "Reduced words of w = 32145"));
     assert!(has(&h, "w = 32145"));
+}
+
+#[test]
+fn the_hessenberg_table_exports_as_csv_and_latex() {
+    let mut h = harness();
+    h.get_by_label("Hessenberg classes").click();
+    h.step();
+    h.state_mut().session.hessenberg.h = vec![2, 3, 4, 4];
+    settle(&mut h, |h| has(h, "6 permutations of length 3"));
+    let dir = std::env::temp_dir().join(format!("elbowroom-gui-table-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    for (file, expect) in [
+        ("a.csv", "perm,length,value\n"),
+        ("a.tex", "\\begin{tabular}"),
+    ] {
+        let path = dir.join(file);
+        h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::E);
+        h.step();
+        assert!(has(&h, "the table of a^h_w"));
+        h.state_mut().files.path = path.display().to_string();
+        h.step();
+        h.get_by_label("export").click();
+        settle(&mut h, |_| path.exists());
+        let text = std::fs::read_to_string(&path).unwrap();
+        assert!(text.contains(expect), "{text}");
+        // h = (2,3,4,4): the six permutations of length 3 in S_4 (Mahonian numbers,
+        // OEIS A008302), one row each
+        let rows = text
+            .lines()
+            .filter(|l| l.contains("1,4,3,2") || l.contains("$1432$"))
+            .count();
+        assert_eq!(rows, 1, "{text}");
+    }
+    std::fs::remove_dir_all(&dir).ok();
 }
 
 #[test]
@@ -166,4 +207,28 @@ fn cancelling_a_job_leaves_the_window_usable() {
     h.get_by_label("Pipe dreams").click();
     type_and_go(&mut h, "1432");
     settle(&mut h, |h| has(h, "1 of 5"));
+}
+
+#[test]
+fn ctrl_s_saves_back_to_the_sessions_file() {
+    let mut h = harness();
+    let dir = std::env::temp_dir().join(format!("elbowroom-gui-save-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join("study.ron");
+    // no file yet: Ctrl+S asks where, in the file window
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::S);
+    h.step();
+    assert!(has(&h, "Save the session"));
+    h.state_mut().files.path = path.display().to_string();
+    h.step();
+    h.get_by_label("save").click();
+    settle(&mut h, |_| path.exists());
+    // now the session has a file: change it, and Ctrl+S writes straight back
+    type_and_go(&mut h, "2413");
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::S);
+    h.step();
+    let saved = elbowroom::session::store::load(&path).unwrap();
+    // the demo explores S_5, so 2413 is taken there
+    assert_eq!(saved.current, vec![2, 4, 1, 3, 5]);
+    std::fs::remove_dir_all(&dir).ok();
 }

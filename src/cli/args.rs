@@ -162,8 +162,14 @@ pub struct EulerianArgs {
     #[arg(long)]
     pub n: usize,
     /// Print one JSON object instead of text.
-    #[arg(long)]
+    #[arg(long, conflicts_with_all = ["csv", "latex"])]
     pub json: bool,
+    /// Print CSV: c, value.
+    #[arg(long, conflicts_with = "latex")]
+    pub csv: bool,
+    /// Print a LaTeX tabular.
+    #[arg(long)]
+    pub latex: bool,
 }
 
 /// Arguments of `elbowroom merge`.

@@ -6,6 +6,7 @@ use super::error::CliError;
 use super::json;
 use crate::math::Perm;
 use crate::math::bumpless::bumpless_dreams;
+use crate::math::mono::exponents_text;
 use crate::math::pipe_dream::{count_pipe_dreams, pipe_dreams};
 use num_bigint::BigUint;
 use serde_json::{Value, json};
@@ -48,7 +49,7 @@ pub fn run(args: &DreamsArgs) -> Result<String, CliError> {
         out.push_str(&format!(
             "\n\n#{}  {}  word {}\n{d}",
             k + 1,
-            monomial_text(&d.monomial()),
+            exponents_text(&d.monomial()),
             if word.is_empty() {
                 "(empty)".to_string()
             } else {
@@ -98,7 +99,7 @@ fn bumpless(
         out.push_str(&format!(
             "\n\n#{}  {}\n{d}",
             k + 1,
-            monomial_text(&d.monomial())
+            exponents_text(&d.monomial())
         ));
     }
     Ok(out)
@@ -117,25 +118,4 @@ fn heading(count: &BigUint, w: &Perm, what: &str, listed: usize) -> String {
         out.push(':');
     }
     out
-}
-
-/// x1^2 x3 for the exponent vector [2, 0, 1]; 1 for the zero vector.
-fn monomial_text(exps: &[u32]) -> String {
-    let parts: Vec<String> = exps
-        .iter()
-        .enumerate()
-        .filter(|&(_, &e)| e > 0)
-        .map(|(i, &e)| {
-            if e == 1 {
-                format!("x{}", i + 1)
-            } else {
-                format!("x{}^{e}", i + 1)
-            }
-        })
-        .collect();
-    if parts.is_empty() {
-        "1".to_string()
-    } else {
-        parts.join(" ")
-    }
 }

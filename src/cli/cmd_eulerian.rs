@@ -1,15 +1,15 @@
 //! `elbowroom eulerian --n N`: the mixed Eulerian numbers A_c, c a weak composition
-//! of n-1 into n-1 parts, listed in decreasing lexicographic order of c.
+//! of n-1 into n-1 parts, listed in decreasing lexicographic order of c, as
+//! text, JSON, CSV or a LaTeX tabular.
 
 use super::args::EulerianArgs;
 use super::error::CliError;
 use super::interrupt;
 use super::json;
+use crate::figure::result_tables::eulerian_table;
 use crate::math::mixed_eulerian::mixed_eulerian_numbers;
-use crate::math::{MathError, Progress};
 use num_bigint::BigInt;
 use serde_json::{Value, json};
-use std::sync::Arc;
 
 /// Runs the command.
 pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
@@ -20,20 +20,16 @@ pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
             crate::math::MAX_N
         )));
     }
-    let progress = Arc::new(Progress::new(0));
-    let _watch = interrupt::watch(progress.clone());
-    let numbers = match mixed_eulerian_numbers(args.n, &progress) {
-        Ok(v) => v,
-        Err(MathError::Canceled) => {
-            return Err(CliError::Canceled(format!(
-                "canceled after {} of {} compositions",
-                progress.done(),
-                progress.total()
-            )));
-        }
-        Err(e) => return Err(e.into()),
-    };
+    let numbers = interrupt::run_interruptible("the computation", "compositions", 0, |progress| {
+        mixed_eulerian_numbers(args.n, progress)
+    })?;
     let sum: BigInt = numbers.iter().map(|(_, v)| v).sum();
+    if args.csv {
+        return Ok(eulerian_table(args.n, &numbers).to_csv());
+    }
+    if args.latex {
+        return Ok(eulerian_table(args.n, &numbers).to_latex());
+    }
     if args.json {
         let list: Vec<Value> = numbers
             .iter()

@@ -30,6 +30,7 @@ use crate::figure::wiring::wiring_scene;
 use crate::math::bumpless::bumpless_dreams;
 use crate::math::groebner::MAX_QUOTIENT_N;
 use crate::math::lattice_path::LatticePath;
+use crate::math::mono::exponents_text;
 use crate::math::parse::parse_poly;
 use crate::math::permutohedron::{Permutohedron, rational_to_f64};
 use crate::math::pipe_dream::{count_pipe_dreams, pipe_dreams};
@@ -521,7 +522,7 @@ fn paths_scene(
             LatticePath::of_monomial(&e).map_err(|e: MathError| CliError::Failed(e.to_string()))?;
         panels.push(PathPanel {
             path,
-            monomial: monomial_text(&e),
+            monomial: exponents_text(&e),
             coefficient: c.to_string(),
             negative: c.is_negative(),
         });
@@ -531,25 +532,4 @@ fn paths_scene(
         return Err(CliError::Input("--columns must be at least 1".into()));
     }
     Ok(path_grid_scene(&panels, n, columns, look))
-}
-
-/// `x2 x3^2` for the exponents [0, 1, 2]; `1` for the constant monomial.
-fn monomial_text(e: &[u32]) -> String {
-    let parts: Vec<String> = e
-        .iter()
-        .enumerate()
-        .filter(|(_, a)| **a > 0)
-        .map(|(i, a)| {
-            if *a == 1 {
-                format!("x{}", i + 1)
-            } else {
-                format!("x{}^{a}", i + 1)
-            }
-        })
-        .collect();
-    if parts.is_empty() {
-        "1".into()
-    } else {
-        parts.join(" ")
-    }
 }

@@ -10,10 +10,9 @@ use super::error::CliError;
 use super::interrupt;
 use super::json;
 use super::shard::Shard;
+use crate::figure::result_tables;
 use crate::math::hessenberg_table::{HessenbergTable, hessenberg_table};
-use crate::math::{MathError, Progress};
 use serde_json::{Value, json};
-use std::sync::Arc;
 
 /// The value of "kind" in this command's JSON.
 pub const KIND: &str = "hessenberg_table";
@@ -25,27 +24,17 @@ pub fn run(args: &HessenbergArgs) -> Result<String, CliError> {
         Some(s) => Shard::parse(s)?,
         None => Shard::WHOLE,
     };
-    let progress = Arc::new(Progress::new(0));
-    let _watch = interrupt::watch(progress.clone());
-    let table = match hessenberg_table(&h, &|i| shard.selects(i), &progress) {
-        Ok(t) => t,
-        Err(MathError::Canceled) => {
-            return Err(CliError::Canceled(format!(
-                "canceled after {} of {} permutations",
-                progress.done(),
-                progress.total()
-            )));
-        }
-        Err(e) => return Err(e.into()),
-    };
+    let table = interrupt::run_interruptible("the table", "permutations", 0, |progress| {
+        hessenberg_table(&h, &|i| shard.selects(i), progress)
+    })?;
     if args.json {
         return Ok(json::render(&table_json(&table, shard)));
     }
     if args.csv {
-        return Ok(csv(&table));
+        return Ok(result_tables::hessenberg_table(&table).to_csv());
     }
     if args.latex {
-        return Ok(latex(&table));
+        return Ok(result_tables::hessenberg_table(&table).to_latex());
     }
     Ok(text(&table, shard))
 }
@@ -89,34 +78,6 @@ fn perm_text(w: &crate::math::Perm) -> String {
         let parts: Vec<String> = w.one_line().iter().map(|v| v.to_string()).collect();
         parts.join(",")
     }
-}
-
-fn csv(table: &HessenbergTable) -> String {
-    let mut out = String::from("perm,length,value\n");
-    let len = table.h.dimension();
-    for e in &table.entries {
-        let parts: Vec<String> = e.perm.one_line().iter().map(|v| v.to_string()).collect();
-        out.push_str(&format!("\"{}\",{len},{}\n", parts.join(","), e.value));
-    }
-    out
-}
-
-fn latex(table: &HessenbergTable) -> String {
-    let len = table.h.dimension();
-    let mut out = format!(
-        "% a^h_w = DS_h(S_w) for h = {}, n = {}\n\\begin{{tabular}}{{lrr}}\n$w$ & $\\ell(w)$ & $a^h_w$ \\\\\n\\hline\n",
-        table.h,
-        table.h.n()
-    );
-    for e in &table.entries {
-        out.push_str(&format!(
-            "${}$ & {len} & {} \\\\\n",
-            perm_text(&e.perm),
-            e.value
-        ));
-    }
-    out.push_str("\\end{tabular}\n");
-    out
 }
 
 fn text(table: &HessenbergTable, shard: Shard) -> String {

@@ -83,7 +83,7 @@ pub fn run(args: &QuotientArgs) -> Result<String, CliError> {
     let draw = args.draw || n <= 4;
     out.push_str("\nbasis (monomial, path word; E = east, N = north)\n");
     for (m, p) in q.basis().iter().zip(&paths) {
-        let mono = super::cmd_reduce::monomial_text(n, *m);
+        let mono = m.text(n);
         out.push_str(&format!("  {mono:<16} {}\n", p.word()));
         if draw {
             for line in p.ascii().lines() {

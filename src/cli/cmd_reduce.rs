@@ -6,9 +6,7 @@ use super::json;
 use crate::math::groebner::MAX_QUOTIENT_N;
 use crate::math::parse::parse_poly;
 use crate::math::quotient::{normal_form, quotient};
-use crate::math::{IntPoly, Mono};
 use clap::Args;
-use num_bigint::BigInt;
 use serde_json::json;
 
 /// Arguments of `elbowroom reduce`.
@@ -55,16 +53,7 @@ pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
         nf.coefficient_sum()
     ));
     for (_, m, c) in &nf.coefficients {
-        out.push_str(&format!(
-            "{:>11}  {}\n",
-            c.to_string(),
-            monomial_text(n, *m)
-        ));
+        out.push_str(&format!("{:>11}  {}\n", c.to_string(), m.text(n)));
     }
     Ok(out)
-}
-
-/// A monomial in plain text, e.g. `x2 x3^2` (`1` for the constant monomial).
-pub fn monomial_text(n: usize, m: Mono) -> String {
-    IntPoly::monomial(n, m, BigInt::from(1)).to_text()
 }

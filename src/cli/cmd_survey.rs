@@ -5,16 +5,15 @@
 //! Ctrl-C stops the run: stderr says how far it got, the exit status is 130 and nothing
 //! is printed on stdout.
 
-use super::cmd_reduce::monomial_text;
 use super::error::CliError;
 use super::json;
 use super::shard::Shard;
+use crate::figure::result_tables::survey_table;
+use crate::math::Perm;
 use crate::math::groebner::MAX_QUOTIENT_N;
 use crate::math::survey::{SurveyEntry, survey};
-use crate::math::{MathError, Perm, Progress};
 use clap::Args;
 use serde_json::{Value, json};
-use std::sync::Arc;
 
 /// The `"kind"` of the survey's JSON output, for `elbowroom merge`.
 pub const KIND: &str = "quotient_survey";
@@ -29,11 +28,14 @@ pub struct SurveyArgs {
     #[arg(long)]
     pub perm: Option<String>,
     /// Print one JSON object instead of text.
-    #[arg(long, conflicts_with = "csv")]
+    #[arg(long, conflicts_with_all = ["csv", "latex"])]
     pub json: bool,
     /// Print CSV, one row per permutation.
-    #[arg(long)]
+    #[arg(long, conflicts_with = "latex")]
     pub csv: bool,
+    /// Print a LaTeX tabular, one row per permutation.
+    #[arg(long)]
+    pub latex: bool,
     /// Leave out the per-permutation normal forms.
     #[arg(long)]
     pub summary: bool,
@@ -86,19 +88,12 @@ pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
         .filter(|(i, _)| shard.selects(*i))
         .map(|(_, w)| w)
         .collect();
-    let progress = Arc::new(Progress::new(perms.len() as u64));
-    let _watch = super::interrupt::watch(progress.clone());
-    let entries = match survey(&perms, &progress) {
-        Ok(e) => e,
-        Err(MathError::Canceled) => {
-            return Err(CliError::Canceled(format!(
-                "survey canceled after {} of {} permutations; no output written",
-                progress.done(),
-                progress.total()
-            )));
-        }
-        Err(e) => return Err(e.into()),
-    };
+    let entries = super::interrupt::run_interruptible(
+        "the survey",
+        "permutations",
+        perms.len() as u64,
+        |progress| survey(&perms, progress),
+    )?;
     let shard_text = format!("{}/{}", shard.index, shard.count);
     if args.json {
         return Ok(json::render(&survey_json(
@@ -109,7 +104,10 @@ pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
         )));
     }
     if args.csv {
-        return Ok(survey_csv(n, &entries, args.summary));
+        return Ok(survey_table(n, &entries, args.summary).to_csv());
+    }
+    if args.latex {
+        return Ok(survey_table(n, &entries, args.summary).to_latex());
     }
     Ok(survey_text(n, &shard_text, &entries, args.summary))
 }
@@ -148,40 +146,6 @@ pub fn survey_json(n: usize, shard: &str, entries: &[SurveyEntry], summary: bool
     })
 }
 
-fn csv_quote(s: &str) -> String {
-    format!("\"{}\"", s.replace('"', "\"\""))
-}
-
-fn survey_csv(n: usize, entries: &[SurveyEntry], summary: bool) -> String {
-    let mut out = String::from("perm,length,nonnegative,terms,sum,negative_coefficients");
-    if !summary {
-        out.push_str(",normal_form");
-    }
-    out.push('\n');
-    for e in entries {
-        let negs: Vec<String> = e
-            .negatives()
-            .iter()
-            .map(|(m, c)| format!("{c}*{}", monomial_text(n, *m)))
-            .collect();
-        out.push_str(&format!(
-            "{},{},{},{},{},{}",
-            csv_quote(&e.perm.to_string()),
-            e.perm.length(),
-            e.nonnegative(),
-            e.terms(),
-            csv_quote(&e.sum().to_string()),
-            csv_quote(&negs.join(" ")),
-        ));
-        if !summary {
-            out.push(',');
-            out.push_str(&csv_quote(&e.normal_form.poly.to_text()));
-        }
-        out.push('\n');
-    }
-    out
-}
-
 fn survey_text(n: usize, shard: &str, entries: &[SurveyEntry], summary: bool) -> String {
     let bad = entries.iter().filter(|e| !e.nonnegative()).count();
     let mut out = format!(
@@ -218,7 +182,7 @@ fn survey_text(n: usize, shard: &str, entries: &[SurveyEntry], summary: bool) ->
             let negs: Vec<String> = e
                 .negatives()
                 .iter()
-                .map(|(m, c)| format!("{c}·{}", monomial_text(n, *m)))
+                .map(|(m, c)| format!("{c}·{}", m.text(n)))
                 .collect();
             out.push_str(&format!("  {}: {}\n", e.perm, negs.join(", ")));
         }

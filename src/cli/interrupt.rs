@@ -4,7 +4,8 @@
 //! The handler is installed once per process; each long run registers its
 //! [`Progress`] for as long as the returned guard lives.
 
-use crate::math::Progress;
+use super::error::CliError;
+use crate::math::{MathError, MathResult, Progress};
 use std::sync::{Arc, Mutex, OnceLock};
 
 static WATCHED: OnceLock<Mutex<Option<Arc<Progress>>>> = OnceLock::new();
@@ -41,4 +42,26 @@ pub fn watch(progress: Arc<Progress>) -> Watch {
         *g = Some(progress);
     }
     Watch
+}
+
+/// Runs a long computation with Ctrl-C routed to its [`Progress`] (created with
+/// `total` items). A cancel becomes [`CliError::Canceled`] saying how far it got:
+/// "`what` canceled after X of Y `unit`; no output written".
+pub fn run_interruptible<T>(
+    what: &str,
+    unit: &str,
+    total: u64,
+    compute: impl FnOnce(&Progress) -> MathResult<T>,
+) -> Result<T, CliError> {
+    let progress = Arc::new(Progress::new(total));
+    let _watch = watch(progress.clone());
+    match compute(&progress) {
+        Ok(v) => Ok(v),
+        Err(MathError::Canceled) => Err(CliError::Canceled(format!(
+            "{what} canceled after {} of {} {unit}; no output written",
+            progress.done(),
+            progress.total()
+        ))),
+        Err(e) => Err(e.into()),
+    }
 }

@@ -1,9 +1,10 @@
-//! Writing a figure to a file: the format follows the extension (`.png`,
+//! Writing a figure (or a table) to a file: the format follows the extension (`.png`,
 //! `.svg`, `.tex`/`.tikz`), and the file is written atomically (a temporary
 //! file in the same directory, then a rename), so a failed export never leaves
 //! half a figure behind.
 
 use super::scene::Scene;
+use super::table::Table;
 use std::io::Write;
 use std::path::{Path, PathBuf};
 
@@ -81,6 +82,9 @@ pub enum ExportError {
     /// The file name has no extension this writer knows.
     #[error("cannot tell the figure format of {}: use .png, .svg or .tex", .0.display())]
     UnknownFormat(PathBuf),
+    /// A table's file name has neither `.csv` nor `.tex`.
+    #[error("cannot tell the table format of {}: use .csv or .tex (a LaTeX tabular)", .0.display())]
+    UnknownTableFormat(PathBuf),
     /// Options out of range (a scale of zero, an image too large).
     #[error("{0}")]
     Options(String),
@@ -112,6 +116,20 @@ pub fn write(scene: &Scene, path: &Path, opts: &ExportOptions) -> Result<(), Exp
     let format = Format::from_path(path)?;
     let bytes = render(scene, format, opts)?;
     write_atomically(path, &bytes)
+}
+
+/// Writes a table to `path`: CSV for `.csv`, a LaTeX tabular for `.tex`.
+pub fn write_table(table: &Table, path: &Path) -> Result<(), ExportError> {
+    let ext = path
+        .extension()
+        .and_then(|e| e.to_str())
+        .map(|e| e.to_ascii_lowercase());
+    let text = match ext.as_deref() {
+        Some("csv") => table.to_csv(),
+        Some("tex") => table.to_latex(),
+        _ => return Err(ExportError::UnknownTableFormat(path.to_path_buf())),
+    };
+    write_atomically(path, text.as_bytes())
 }
 
 /// Writes bytes through a temporary file in the same directory and a rename.

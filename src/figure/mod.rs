@@ -5,6 +5,7 @@
 pub mod export;
 pub mod palette;
 pub mod png;
+pub mod result_tables;
 pub mod scene;
 pub mod svg;
 pub mod table;

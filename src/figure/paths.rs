@@ -109,15 +109,7 @@ pub fn path_grid_scene(panels: &[PathPanel], n: usize, columns: usize, look: &Lo
         );
         // the path, north steps coloured by their variable
         let vertices = panel.path.vertices();
-        let mut cmds = Vec::new();
-        for (s, &(a, b)) in vertices.iter().enumerate() {
-            let p = at(a, b);
-            cmds.push(if s == 0 {
-                PathCmd::MoveTo(p)
-            } else {
-                PathCmd::LineTo(p)
-            });
-        }
+        let cmds = PathCmd::polyline(vertices.iter().map(|&(a, b)| at(a, b)));
         scene.push(
             ItemKind::Path {
                 cmds,

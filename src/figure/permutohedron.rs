@@ -76,15 +76,7 @@ pub fn polytope_scene(
             let tb = (projected[b].1 - cy).atan2(projected[b].0 - cx);
             ta.total_cmp(&tb)
         });
-        let mut cmds: Vec<PathCmd> = Vec::new();
-        for (i, &v) in order.iter().enumerate() {
-            let p = to_pt(projected[v]);
-            cmds.push(if i == 0 {
-                PathCmd::MoveTo(p)
-            } else {
-                PathCmd::LineTo(p)
-            });
-        }
+        let mut cmds = PathCmd::polyline(order.iter().map(|&v| to_pt(projected[v])));
         cmds.push(PathCmd::Close);
         let fill = label_color(3, 6);
         scene.push(

@@ -56,6 +56,23 @@ pub enum PathCmd {
     Close,
 }
 
+impl PathCmd {
+    /// The open polyline through the points: a move to the first, lines to the rest.
+    pub fn polyline(points: impl IntoIterator<Item = Pt>) -> Vec<PathCmd> {
+        points
+            .into_iter()
+            .enumerate()
+            .map(|(i, p)| {
+                if i == 0 {
+                    PathCmd::MoveTo(p)
+                } else {
+                    PathCmd::LineTo(p)
+                }
+            })
+            .collect()
+    }
+}
+
 /// How a path or circle is outlined.
 #[derive(Clone, Copy, Debug, PartialEq)]
 pub struct Stroke {

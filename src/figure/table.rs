@@ -29,6 +29,8 @@ pub enum ColumnKind {
 pub struct Column {
     /// The header (a `$...$` header goes to LaTeX as it is).
     pub header: String,
+    /// The CSV header, when it differs from the header without its dollars.
+    pub key: Option<String>,
     /// How the cells are set.
     pub kind: ColumnKind,
 }
@@ -38,6 +40,7 @@ impl Column {
     pub fn text(header: &str) -> Column {
         Column {
             header: header.into(),
+            key: None,
             kind: ColumnKind::Text,
         }
     }
@@ -46,8 +49,49 @@ impl Column {
     pub fn math(header: &str) -> Column {
         Column {
             header: header.into(),
+            key: None,
             kind: ColumnKind::Math,
         }
+    }
+
+    /// The same column with a CSV header of its own (`perm` for `$w$`).
+    pub fn keyed(mut self, key: &str) -> Column {
+        self.key = Some(key.into());
+        self
+    }
+}
+
+/// One cell: its plain text (CSV, and LaTeX after escaping), and optionally a
+/// LaTeX form set as it is (already math-mode content for a math column), for
+/// values whose best LaTeX differs from their text (`1432` for the CSV's
+/// `1,4,3,2`, `x_{1}^{2}` for `x1^2`).
+#[derive(Clone, Debug, Default, PartialEq, Eq)]
+pub struct Cell {
+    /// The plain text.
+    pub text: String,
+    /// The LaTeX form, if it is not the escaped text.
+    pub latex: Option<String>,
+}
+
+impl Cell {
+    /// A cell with a LaTeX form of its own.
+    pub fn with_latex(text: impl Into<String>, latex: impl Into<String>) -> Cell {
+        Cell {
+            text: text.into(),
+            latex: Some(latex.into()),
+        }
+    }
+}
+
+impl From<String> for Cell {
+    fn from(text: String) -> Cell {
+        Cell { text, latex: None }
+    }
+}
+
+impl From<&str> for Cell {
+    fn from(text: &str) -> Cell {
+        Cell::from(text.to_string())
     }
 }
 
@@ -58,7 +102,10 @@ pub struct Table {
     /// The columns.
     pub columns: Vec<Column>,
     /// The rows, each a list of cells.
-    pub rows: Vec<Vec<String>>,
+    pub rows: Vec<Vec<Cell>>,
+    /// Lines written above a LaTeX table as `%` comments (what the table is);
+    /// CSV has no comments, so they are left out there.
+    pub comments: Vec<String>,
 }
 
 impl Table {
@@ -67,16 +114,27 @@ impl Table {
         Table {
             columns,
             rows: Vec::new(),
+            comments: Vec::new(),
         }
     }
 
-    /// Appends a row.
+    /// Appends a row of plain cells.
     pub fn push(&mut self, row: Vec<String>) {
+        self.rows.push(row.into_iter().map(Cell::from).collect());
+    }
+
+    /// Appends a row of cells, some with LaTeX forms of their own.
+    pub fn push_cells(&mut self, row: Vec<Cell>) {
         self.rows.push(row);
     }
 
-    fn cells<'a>(&'a self, row: &'a [String]) -> impl Iterator<Item = &'a str> + 'a {
-        (0..self.columns.len()).map(move |i| row.get(i).map(String::as_str).unwrap_or(""))
+    /// Adds a comment line (LaTeX only).
+    pub fn comment(&mut self, line: impl Into<String>) {
+        self.comments.push(line.into());
+    }
+
+    fn cells<'a>(&'a self, row: &'a [Cell]) -> impl Iterator<Item = Option<&'a Cell>> + 'a {
+        (0..self.columns.len()).map(move |i| row.get(i))
     }
 
     /// The table as CSV: a header line, then one line per row, `\n` line ends.
@@ -85,12 +143,15 @@ impl Table {
         let header: Vec<String> = self
             .columns
             .iter()
-            .map(|c| csv_field(strip_dollars(&c.header)))
+            .map(|c| csv_field(c.key.as_deref().unwrap_or(strip_dollars(&c.header))))
             .collect();
         out.push_str(&header.join(","));
         out.push('\n');
         for row in &self.rows {
-            let fields: Vec<String> = self.cells(row).map(csv_field).collect();
+            let fields: Vec<String> = self
+                .cells(row)
+                .map(|c| csv_field(c.map(|c| c.text.as_str()).unwrap_or("")))
+                .collect();
             out.push_str(&fields.join(","));
             out.push('\n');
         }
@@ -107,7 +168,13 @@ impl Table {
                 ColumnKind::Math => 'r',
             })
             .collect();
-        let mut out = format!("\\begin{{tabular}}{{{spec}}}\n\\hline\n");
+        let mut out = String::new();
+        for line in &self.comments {
+            for part in line.lines() {
+                out.push_str(&format!("% {part}\n"));
+            }
+        }
+        out.push_str(&format!("\\begin{{tabular}}{{{spec}}}\n\\hline\n"));
         let header: Vec<String> = self
             .columns
             .iter()
@@ -125,10 +192,19 @@ impl Table {
             let cells: Vec<String> = self
                 .cells(row)
                 .zip(&self.columns)
-                .map(|(cell, col)| match col.kind {
-                    ColumnKind::Text => latex_escape(cell),
-                    ColumnKind::Math if cell.is_empty() => String::new(),
-                    ColumnKind::Math => format!("${}$", latex_escape(cell)),
+                .map(|(cell, col)| {
+                    let Some(cell) = cell else {
+                        return String::new();
+                    };
+                    let body = cell
+                        .latex
+                        .clone()
+                        .unwrap_or_else(|| latex_escape(&cell.text));
+                    match col.kind {
+                        ColumnKind::Text => body,
+                        ColumnKind::Math if body.is_empty() => body,
+                        ColumnKind::Math => format!("${body}$"),
+                    }
                 })
                 .collect();
             out.push_str(&cells.join(" & "));

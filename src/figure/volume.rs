@@ -80,15 +80,7 @@ pub fn volume_plot_scene(samples: &[(f64, f64)], look: &Look) -> Scene {
         Anchor::Left,
     );
     let color = label_color(5, 8);
-    let mut cmds = Vec::new();
-    for (k, &(t, v)) in samples.iter().enumerate() {
-        let p = Pt::new(px(t), py(v));
-        cmds.push(if k == 0 {
-            PathCmd::MoveTo(p)
-        } else {
-            PathCmd::LineTo(p)
-        });
-    }
+    let cmds = PathCmd::polyline(samples.iter().map(|&(t, v)| Pt::new(px(t), py(v))));
     scene.push(
         ItemKind::Path {
             cmds,

@@ -3,7 +3,7 @@
 
 use super::app_ctx::AppCtx;
 use super::autosave::Autosave;
-use super::files::{FileAction, FilePanel};
+use super::files::{Exportable, Exports, FileAction, FilePanel};
 use super::picker::Picker;
 use super::status::{self, FrameTimes};
 use super::theme;
@@ -102,12 +102,18 @@ impl Explorer {
                 if ui.small_button("open").on_hover_text("Ctrl+O").clicked() {
                     file_action = Some(FileAction::Open);
                 }
-                if ui.small_button("save").on_hover_text("Ctrl+S").clicked() {
+                if ui
+                    .small_button("save as…")
+                    .on_hover_text("choose where to save (Ctrl+Shift+S); Ctrl+S saves back to the session's file")
+                    .clicked()
+                {
                     file_action = Some(FileAction::Save);
                 }
                 if ui
-                    .small_button("export figure")
-                    .on_hover_text("Ctrl+E")
+                    .small_button("export…")
+                    .on_hover_text(
+                        "Ctrl+E: the view's figures (PNG, SVG, TikZ) and tables (CSV, LaTeX)",
+                    )
                     .clicked()
                 {
                     file_action = Some(FileAction::Export);
@@ -170,6 +176,20 @@ impl Explorer {
             View::Permutohedron => self.solid.figures(),
             _ => Vec::new(),
         };
+        let tables = match self.session.view {
+            View::Hessenberg => self.hessenberg.tables(),
+            View::Permutohedron => self.solid.tables(),
+            _ => Vec::new(),
+        };
+        let figures: Exports = figures
+            .into_iter()
+            .map(|(name, s)| (name, Exportable::Figure(s)))
+            .chain(
+                tables
+                    .into_iter()
+                    .map(|(name, t)| (name, Exportable::Table(t))),
+            )
+            .collect();
         self.files
             .ui(ui.ctx(), &mut self.session, &figures, &mut self.message);
         self.autosave.offer_ui(ui.ctx(), &mut self.session);
@@ -191,15 +211,25 @@ impl Explorer {
     }
 
     fn shortcuts(&mut self, ui: &mut egui::Ui) {
-        let (save, open, export) = ui.input_mut(|i| {
+        let (save_as, save, open, export) = ui.input_mut(|i| {
             let cmd = egui::Modifiers::COMMAND;
             (
+                i.consume_key(cmd | egui::Modifiers::SHIFT, egui::Key::S),
                 i.consume_key(cmd, egui::Key::S),
                 i.consume_key(cmd, egui::Key::O),
                 i.consume_key(cmd, egui::Key::E),
             )
         });
-        let action = if save {
+        // Ctrl+S saves straight back to the session's file when it has one
+        // (opened or saved before); otherwise, and with Ctrl+Shift+S, it asks where
+        if save
+            && self
+                .files
+                .save_to_known_file(&self.session, &mut self.message)
+        {
+            return;
+        }
+        let action = if save || save_as {
             Some(FileAction::Save)
         } else if open {
             Some(FileAction::Open)

@@ -1,11 +1,12 @@
 //! Saving and opening sessions and exporting figures (Ctrl+S, Ctrl+O, Ctrl+E):
 //! a small window with a typed path (and the desktop's file dialog where one
 //! runs; the typed path always works), the demo
-//! sessions and the recent ones to pick from, and the figures the current view
-//! can export.
+//! sessions and the recent ones to pick from, and the figures and tables the
+//! current view can export.
 
 use crate::figure::Scene;
 use crate::figure::export::{self, ExportOptions};
+use crate::figure::table::Table;
 use crate::session::{Session, demo, recent, store};
 use eframe::egui;
 use std::path::{Path, PathBuf};
@@ -22,6 +23,36 @@ pub enum FileAction {
     Export,
 }
 
+/// Something a view can export: a figure (PNG, SVG, TikZ) or a table (CSV, LaTeX).
+#[derive(Clone)]
+pub enum Exportable {
+    /// A figure scene, drawn as on screen.
+    Figure(Arc<Scene>),
+    /// A table of results.
+    Table(Arc<Table>),
+}
+
+impl Exportable {
+    fn extensions(&self) -> &'static [&'static str] {
+        match self {
+            Exportable::Figure(_) => &["png", "svg", "tex"],
+            Exportable::Table(_) => &["csv", "tex"],
+        }
+    }
+
+    fn hint(&self) -> &'static str {
+        match self {
+            Exportable::Figure(_) => "The extension chooses the format: .png, .svg or .tex (TikZ).",
+            Exportable::Table(_) => {
+                "The extension chooses the format: .csv or .tex (a LaTeX tabular)."
+            }
+        }
+    }
+}
+
+/// A view's exportable items, each with a name for the list.
+pub type Exports = Vec<(String, Exportable)>;
+
 /// The file window's state.
 #[derive(Default)]
 pub struct FilePanel {
@@ -31,8 +62,10 @@ pub struct FilePanel {
     pub path: String,
     /// The file the session was last saved to or opened from.
     pub session_path: Option<PathBuf>,
-    /// Which of the view's figures to export.
+    /// Which of the view's figures or tables to export.
     pub figure: usize,
+    /// Whether the typed path's extension was fitted to the first item yet.
+    fitted: bool,
 }
 
 impl FilePanel {
@@ -54,22 +87,40 @@ impl FilePanel {
             }
         };
         self.figure = 0;
+        self.fitted = false;
         self.action = Some(action);
     }
 
-    /// Draws the window (if open); `figures` are the current view's exportable figures.
+    /// Saves to the file the session came from or was last saved to, if there
+    /// is one; returns whether there was (the outcome is in `message`).
+    pub fn save_to_known_file(&mut self, session: &Session, message: &mut Option<String>) -> bool {
+        let Some(path) = self.session_path.clone() else {
+            return false;
+        };
+        *message = Some(match store::save(&path, session) {
+            Ok(()) => {
+                let _ = recent::push(&path);
+                format!("saved {}", path.display())
+            }
+            Err(e) => e.to_string(),
+        });
+        true
+    }
+
+    /// Draws the window (if open); `figures` are the current view's exportable
+    /// figures and tables.
     pub fn ui(
         &mut self,
         ctx: &egui::Context,
         session: &mut Session,
-        figures: &[(String, Arc<Scene>)],
+        figures: &[(String, Exportable)],
         message: &mut Option<String>,
     ) {
         let Some(action) = self.action else { return };
         let title = match action {
             FileAction::Save => "Save the session",
             FileAction::Open => "Open a session",
-            FileAction::Export => "Export a figure",
+            FileAction::Export => "Export a figure or a table",
         };
         let mut open = true;
         let mut done = false;
@@ -80,18 +131,29 @@ impl FilePanel {
             .show(ctx, |ui| {
                 if action == FileAction::Export {
                     if figures.is_empty() {
-                        ui.label("This view has no figure to export yet.");
+                        ui.label("This view has nothing to export yet.");
                         return;
                     }
                     for (k, (name, _)) in figures.iter().enumerate() {
-                        ui.radio_value(&mut self.figure, k, name);
+                        if ui.radio_value(&mut self.figure, k, name).changed() {
+                            self.path = with_fitting_extension(&self.path, &figures[k].1);
+                        }
                     }
-                    ui.horizontal(|ui| {
-                        ui.label("PNG scale");
-                        ui.add(egui::DragValue::new(&mut session.figure.scale).range(1.0..=12.0));
-                        ui.checkbox(&mut session.figure.transparent, "transparent background");
-                    });
-                    ui.weak("The extension chooses the format: .png, .svg or .tex (TikZ).");
+                    let chosen = &figures[self.figure.min(figures.len() - 1)].1;
+                    if !self.fitted {
+                        self.path = with_fitting_extension(&self.path, chosen);
+                        self.fitted = true;
+                    }
+                    if matches!(chosen, Exportable::Figure(_)) {
+                        ui.horizontal(|ui| {
+                            ui.label("PNG scale");
+                            ui.add(
+                                egui::DragValue::new(&mut session.figure.scale).range(1.0..=12.0),
+                            );
+                            ui.checkbox(&mut session.figure.transparent, "transparent background");
+                        });
+                    }
+                    ui.weak(chosen.hint());
                 }
                 let edit = ui.add(
                     egui::TextEdit::singleline(&mut self.path)
@@ -112,7 +174,11 @@ impl FilePanel {
                         .on_hover_text("the system's file dialog, where a dialog service runs")
                         .clicked()
                     {
-                        match native_dialog(action, &self.path) {
+                        let exts = figures
+                            .get(self.figure)
+                            .map(|(_, e)| e.extensions())
+                            .unwrap_or(&["png", "svg", "tex"]);
+                        match native_dialog(action, &self.path, exts) {
                             Some(p) => {
                                 self.path = p.display().to_string();
                                 go = true;
@@ -165,7 +231,7 @@ impl FilePanel {
         &mut self,
         action: FileAction,
         session: &mut Session,
-        figures: &[(String, Arc<Scene>)],
+        figures: &[(String, Exportable)],
         message: &mut Option<String>,
     ) -> bool {
         let path = PathBuf::from(self.path.trim());
@@ -196,14 +262,18 @@ impl FilePanel {
                 }
             },
             FileAction::Export => {
-                let Some((_, scene)) = figures.get(self.figure).or_else(|| figures.first()) else {
+                let Some((_, item)) = figures.get(self.figure).or_else(|| figures.first()) else {
                     return false;
                 };
                 let opts = ExportOptions {
                     scale: session.figure.scale,
                     transparent: session.figure.transparent,
                 };
-                match export::write(scene, &path, &opts) {
+                let written = match item {
+                    Exportable::Figure(scene) => export::write(scene, &path, &opts),
+                    Exportable::Table(table) => export::write_table(table, &path),
+                };
+                match written {
                     Ok(()) => {
                         if let Some(dir) = path.parent() {
                             session.figure.last_dir = dir.display().to_string();
@@ -224,7 +294,7 @@ impl FilePanel {
 /// Asks the desktop's file dialog (through the XDG portal) for a path; `None`
 /// when the user cancels or no dialog service is running, so the typed path stays
 /// the way in.
-fn native_dialog(action: FileAction, current: &str) -> Option<PathBuf> {
+fn native_dialog(action: FileAction, current: &str, exports: &[&str]) -> Option<PathBuf> {
     let current = Path::new(current);
     let mut dialog = rfd::FileDialog::new();
     if let Some(dir) = current.parent().filter(|d| d.is_dir()) {
@@ -236,8 +306,30 @@ fn native_dialog(action: FileAction, current: &str) -> Option<PathBuf> {
     match action {
         FileAction::Open => dialog.add_filter("elbowroom session", &["ron"]).pick_file(),
         FileAction::Save => dialog.add_filter("elbowroom session", &["ron"]).save_file(),
-        FileAction::Export => dialog
-            .add_filter("figure", &["png", "svg", "tex"])
-            .save_file(),
+        FileAction::Export => dialog.add_filter("figure or table", exports).save_file(),
+    }
+}
+
+/// The typed path with its extension changed to one the item can be written
+/// as, when it has none of those (`figure.svg` becomes `table.csv` for a table).
+fn with_fitting_extension(path: &str, item: &Exportable) -> String {
+    let p = Path::new(path);
+    let ext = p
+        .extension()
+        .and_then(|e| e.to_str())
+        .map(|e| e.to_ascii_lowercase());
+    let fits = ext
+        .as_deref()
+        .is_some_and(|e| item.extensions().contains(&e));
+    if fits {
+        return path.to_string();
+    }
+    let stem = match item {
+        Exportable::Figure(_) => "figure.svg",
+        Exportable::Table(_) => "table.csv",
+    };
+    match p.parent().filter(|d| !d.as_os_str().is_empty()) {
+        Some(dir) => dir.join(stem).display().to_string(),
+        None => stem.to_string(),
     }
 }

@@ -117,6 +117,28 @@ pub fn perms_of_length(n: usize, len: usize) -> Vec<Perm> {
     out
 }
 
+/// The listing of the w of length |h| (its length) and the entries `select`
+/// keeps, with their listing positions; refuses n above [`TABLE_MAX_N`].
+fn chosen_permutations(
+    h: &HessenbergFn,
+    select: &(dyn Fn(usize) -> bool + Sync),
+) -> MathResult<(usize, Vec<(usize, Perm)>)> {
+    let n = h.n();
+    if n > TABLE_MAX_N {
+        return Err(MathError::OutOfRange(format!(
+            "n = {n}; Hessenberg tables are computed for n <= {TABLE_MAX_N}"
+        )));
+    }
+    let listing = perms_of_length(n, h.dimension());
+    let listed = listing.len();
+    let chosen = listing
+        .into_iter()
+        .enumerate()
+        .filter(|(i, _)| select(*i))
+        .collect();
+    Ok((listed, chosen))
+}
+
 /// Computes a^h_w = DS_h(S_w) for the w of length |h| whose listing index passes `select`,
 /// on rayon's pool, counting progress and stopping with `Canceled` when asked.
 ///
@@ -134,19 +156,7 @@ pub fn hessenberg_table(
     select: &(dyn Fn(usize) -> bool + Sync),
     progress: &Progress,
 ) -> MathResult<HessenbergTable> {
-    let n = h.n();
-    if n > TABLE_MAX_N {
-        return Err(MathError::OutOfRange(format!(
-            "n = {n}; Hessenberg tables are computed for n <= {TABLE_MAX_N}"
-        )));
-    }
-    let listing = perms_of_length(n, h.dimension());
-    let listed = listing.len();
-    let chosen: Vec<(usize, Perm)> = listing
-        .into_iter()
-        .enumerate()
-        .filter(|(i, _)| select(*i))
-        .collect();
+    let (listed, chosen) = chosen_permutations(h, select)?;
     progress.set_total(chosen.len() as u64);
     let functional = HessenbergFunctional::new(h)?;
     let threads = rayon::current_num_threads().max(1);
@@ -238,19 +248,7 @@ pub fn hessenberg_table_by_polynomials(
     select: &(dyn Fn(usize) -> bool + Sync),
     progress: &Progress,
 ) -> MathResult<HessenbergTable> {
-    let n = h.n();
-    if n > TABLE_MAX_N {
-        return Err(MathError::OutOfRange(format!(
-            "n = {n}; Hessenberg tables are computed for n <= {TABLE_MAX_N}"
-        )));
-    }
-    let listing = perms_of_length(n, h.dimension());
-    let listed = listing.len();
-    let chosen: Vec<(usize, Perm)> = listing
-        .into_iter()
-        .enumerate()
-        .filter(|(i, _)| select(*i))
-        .collect();
+    let (listed, chosen) = chosen_permutations(h, select)?;
     progress.set_total(chosen.len() as u64);
     let functional = HessenbergFunctional::new(h)?;
     let batch = (chosen.len() / (rayon::current_num_threads().max(1) * 16)).clamp(1, 512);

@@ -65,6 +65,11 @@ impl Mono {
         (0..nvars).map(|i| self.exp(i)).collect()
     }
 
+    /// The monomial as text in the first `nvars` variables (see [`exponents_text`]).
+    pub fn text(self, nvars: usize) -> String {
+        exponents_text(&self.exps(nvars))
+    }
+
     /// The total degree.
     pub fn degree(self) -> u32 {
         (0..MAX_VARS).map(|i| self.exp(i)).sum()
@@ -123,6 +128,33 @@ impl fmt::Debug for Mono {
             .find(|&i| self.exp(i) > 0)
             .map_or(0, |i| i + 1);
         write!(f, "x^{:?}", self.exps(last))
+    }
+}
+
+/// `x1^2 x3` for the exponents [2, 0, 1]; `1` for the zero vector.
+///
+/// ```
+/// use elbowroom::math::mono::exponents_text;
+/// assert_eq!(exponents_text(&[2, 0, 1]), "x1^2 x3");
+/// assert_eq!(exponents_text(&[0, 0]), "1");
+/// ```
+pub fn exponents_text(exps: &[u32]) -> String {
+    let parts: Vec<String> = exps
+        .iter()
+        .enumerate()
+        .filter(|&(_, &e)| e > 0)
+        .map(|(i, &e)| {
+            if e == 1 {
+                format!("x{}", i + 1)
+            } else {
+                format!("x{}^{e}", i + 1)
+            }
+        })
+        .collect();
+    if parts.is_empty() {
+        "1".to_string()
+    } else {
+        parts.join(" ")
     }
 }
 

@@ -12,6 +12,7 @@ use crate::figure::look::Look;
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
+use crate::math::mono::exponents_text;
 use crate::math::pipe_dream::PipeDream;
 use crate::math::{MathError, Perm};
 use eframe::egui;
@@ -38,27 +39,6 @@ pub struct DreamsView {
 enum SceneKey {
     Dream(PipeDream, Look),
     Bumpless(Perm, usize, Look),
-}
-
-/// Formats a monomial x^a as text.
-pub fn monomial_text(exps: &[u32]) -> String {
-    let parts: Vec<String> = exps
-        .iter()
-        .enumerate()
-        .filter(|(_, e)| **e > 0)
-        .map(|(i, &e)| {
-            if e == 1 {
-                format!("x{}", i + 1)
-            } else {
-                format!("x{}^{e}", i + 1)
-            }
-        })
-        .collect();
-    if parts.is_empty() {
-        "1".into()
-    } else {
-        parts.join(" ")
-    }
 }
 
 impl DreamsView {
@@ -234,7 +214,7 @@ impl DreamsView {
             }
             ui.vertical(|ui| {
                 ui.label(egui::RichText::new("weight").weak());
-                ui.label(egui::RichText::new(monomial_text(&dream.monomial())).monospace().strong());
+                ui.label(egui::RichText::new(exponents_text(&dream.monomial())).monospace().strong());
                 ui.add_space(6.0);
                 ui.label(egui::RichText::new("reading word").weak());
                 let word: Vec<String> = dream.reading_word().iter().map(|a| a.to_string()).collect();
@@ -308,7 +288,7 @@ impl DreamsView {
             ui.vertical(|ui| {
                 ui.label(egui::RichText::new("weight (blank tiles)").weak());
                 ui.label(
-                    egui::RichText::new(monomial_text(&d.monomial()))
+                    egui::RichText::new(exponents_text(&d.monomial()))
                         .monospace()
                         .strong(),
                 );

@@ -5,11 +5,14 @@
 
 use super::computing;
 use crate::engine::{Fetch, JobKey, Slot};
+use crate::figure::result_tables;
+use crate::figure::table::Table;
 use crate::gui::AppCtx;
 use crate::math::Perm;
 use crate::math::hessenberg_table::TableEntry;
 use eframe::egui::{self, Rect, Sense, Stroke, Vec2};
 use num_traits::{Signed, Zero};
+use std::sync::Arc;
 
 /// Tables up to this n start as soon as h changes; larger ones wait for the button.
 const AUTO_N: usize = 7;
@@ -21,6 +24,8 @@ pub struct HessenbergView {
     /// The h whose table was asked for.
     pub wanted: Option<Vec<usize>>,
     order: Option<(Vec<usize>, String, bool, Vec<usize>)>,
+    /// The table shown, ready for export (CSV, LaTeX), with the h it is for.
+    export: Option<(Vec<usize>, Arc<Table>)>,
 }
 
 /// Sets h(i) = j and adjusts the other values so that h stays a Hessenberg
@@ -46,6 +51,14 @@ pub fn default_h(n: usize) -> Vec<usize> {
 }
 
 impl HessenbergView {
+    /// The tables this view can export: the coefficients a^h_w on screen.
+    pub fn tables(&self) -> Vec<(String, Arc<Table>)> {
+        self.export
+            .iter()
+            .map(|(_, t)| ("the table of a^h_w".to_string(), t.clone()))
+            .collect()
+    }
+
     /// Draws the view.
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let place = &mut ctx.session.hessenberg;
@@ -174,6 +187,10 @@ impl HessenbergView {
         let Some(table) = out.hessenberg() else {
             return;
         };
+        if self.export.as_ref().is_none_or(|(k, _)| *k != wanted) {
+            let built = Arc::new(result_tables::hessenberg_table(table));
+            self.export = Some((wanted.clone(), built));
+        }
         let negatives = table
             .entries
             .iter()
@@ -188,6 +205,7 @@ impl HessenbergView {
             table.max(),
             negatives
         ));
+        ui.weak("Ctrl+E exports this table as CSV or as a LaTeX tabular.");
         // sort order, cached per (h, column, direction)
         let current = ctx.perm();
         let place = &mut ctx.session.hessenberg;

@@ -14,7 +14,6 @@ use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
 use crate::math::groebner::MAX_QUOTIENT_N;
 use crate::math::lattice_path::LatticePath;
-use crate::math::{Mono, RatPoly};
 use eframe::egui;
 use num_traits::Signed;
 use std::sync::Arc;
@@ -24,10 +23,6 @@ use std::sync::Arc;
 pub struct QuotientView {
     slot: Slot,
     scene: Option<(JobKey, Look, Arc<crate::figure::Scene>)>,
-}
-
-fn monomial_text(m: Mono, n: usize) -> String {
-    RatPoly::monomial(n, m, num_rational::BigRational::from_integer(1.into())).to_text()
 }
 
 impl QuotientView {
@@ -140,7 +135,7 @@ impl QuotientView {
                         let path = LatticePath::of_monomial(&m.exps(r.n)).ok()?;
                         Some(PathPanel {
                             path,
-                            monomial: monomial_text(*m, r.n),
+                            monomial: m.text(r.n),
                             coefficient: c.to_string(),
                             negative: c.is_negative(),
                         })
@@ -171,7 +166,7 @@ impl QuotientView {
                     && let Some((_, m, c)) = r.normal.coefficients.get(k)
                 {
                     resp.response
-                        .on_hover_text(format!("{c} · {}", monomial_text(*m, r.n)));
+                        .on_hover_text(format!("{c} · {}", m.text(r.n)));
                 }
             });
     }

@@ -9,6 +9,7 @@ use crate::engine::{Fetch, JobKey, Slot};
 use crate::figure::Scene;
 use crate::figure::look::Look;
 use crate::figure::permutohedron::polytope_scene;
+use crate::figure::table::Table;
 use crate::figure::volume::volume_plot_scene;
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
@@ -31,6 +32,8 @@ pub struct SolidView {
     polytope: Slot,
     polytope_scene: Option<Arc<Scene>>,
     plot_scene: Option<Arc<Scene>>,
+    /// The mixed Eulerian numbers shown, ready for export, with their n.
+    eulerian_table: Option<(usize, Arc<Table>)>,
 }
 
 /// Reads an exact rational: `3`, `-2`, `3/2`, or a decimal such as `1.25`.
@@ -101,6 +104,14 @@ impl SolidView {
             v.push(("the volume along the segment".to_string(), s.clone()));
         }
         v
+    }
+
+    /// The tables this view can export: the mixed Eulerian numbers of n.
+    pub fn tables(&self) -> Vec<(String, Arc<Table>)> {
+        self.eulerian_table
+            .iter()
+            .map(|(n, t)| (format!("the mixed Eulerian numbers of n = {n}"), t.clone()))
+            .collect()
     }
 
     /// Draws the view.
@@ -273,12 +284,17 @@ impl SolidView {
     }
 
     fn eulerian(&mut self, ui: &mut egui::Ui, engine: &crate::engine::Engine, n: usize) {
-        ui.label(format!("Mixed Eulerian numbers A_c of n = {n}"));
+        ui.label(format!("Mixed Eulerian numbers A_c of n = {n}"))
+            .on_hover_text("Ctrl+E exports them as CSV or as a LaTeX tabular");
         match self.eulerian.fetch(engine, JobKey::Eulerian(n)) {
             Fetch::Ready(out) => {
                 let Output::Eulerian(rows) = out.as_ref() else {
                     return;
                 };
+                if self.eulerian_table.as_ref().is_none_or(|(k, _)| *k != n) {
+                    let built = Arc::new(crate::figure::result_tables::eulerian_table(n, rows));
+                    self.eulerian_table = Some((n, built));
+                }
                 egui::ScrollArea::vertical()
                     .id_salt("eulerian")
                     .max_height(ui.available_height() - 4.0)
