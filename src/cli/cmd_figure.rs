@@ -180,6 +180,10 @@ pub fn run(args: &FigureArgs) -> Result<String, CliError> {
             "cannot tell the figure format of {}: end --out with .png, .svg or .tex",
             args.out.display()
         )));
+    } else if let Some(dir) = args.out.parent().filter(|d| !d.as_os_str().is_empty()) {
+        // as with --all, a missing folder is made (talk/figures/dream.png)
+        std::fs::create_dir_all(dir)
+            .map_err(|e| CliError::Failed(format!("cannot create {}: {e}", dir.display())))?;
     }
     for (index, name, scene) in &figures {
         let path = if args.all {

@@ -64,13 +64,14 @@ fn check(args: &SessionCheckArgs) -> Result<String, CliError> {
             .join(sep)
     };
     let mut out = format!(
-        "{}: a valid session (format version {version})\n  title:   {}\n  n:       {}\n  current: {}\n  view:    {view}\n  pins:    {}\n  history: {} permutations\n",
+        "{}: a valid session (format version {version})\n  title:   {}\n  n:       {}\n  current: {}\n  view:    {view}\n  pins:    {}\n  history: {} permutation{}\n",
         args.file.display(),
         s.title,
         s.n,
         one_line(&s.current),
         s.pins.len(),
-        s.history.len()
+        s.history.len(),
+        if s.history.len() == 1 { "" } else { "s" }
     );
     if !s.hessenberg.h.is_empty() {
         out.push_str(&format!(

@@ -149,9 +149,13 @@ pub fn survey_json(n: usize, shard: &str, entries: &[SurveyEntry], summary: bool
 fn survey_text(n: usize, shard: &str, entries: &[SurveyEntry], summary: bool) -> String {
     let bad = entries.iter().filter(|e| !e.nonnegative()).count();
     let mut out = format!(
-        "normal forms of S_w(x{n}, ..., x1) modulo J_{n} (piece {shard}): {} permutations, {} with a negative coefficient\n\n",
+        "normal forms of S_w(x{n}, ..., x1) modulo J_{n} (piece {shard}): {} {}, {bad} with a negative coefficient\n\n",
         entries.len(),
-        bad
+        if entries.len() == 1 {
+            "permutation"
+        } else {
+            "permutations"
+        },
     );
     out.push_str(&format!(
         "{:<10} {:>3} {:>6} {:>8} {:>6}{}\n",

@@ -1,7 +1,8 @@
 //! The figure of a permutohedron P_λ from its drawing coordinates: for n = 3 the
 //! hexagon (or triangle) in the plane Σ x_i = Σ λ_i, filled; for n = 4 an
 //! orthographic projection of the solid turned by a yaw and a pitch, edges
-//! shaded by depth. Vertices are tagged `Vertex(k)` and labelled.
+//! shaded by depth (for n = 5 the same, of the first three of its four
+//! drawing coordinates). Vertices are tagged `Vertex(k)` and labelled.
 
 use super::look::Look;
 use super::palette::label_color;

@@ -101,7 +101,7 @@ pub fn survey_table(n: usize, entries: &[SurveyEntry], summary: bool) -> Table {
             .map(|(m, c)| format!("{c}\\,{}", IntPoly::monomial(n, *m, 1.into()).to_latex()))
             .collect();
         let mut row = vec![
-            Cell::with_latex(e.perm.to_string(), e.perm.to_string()),
+            perm_cell(&e.perm),
             e.perm.length().to_string().into(),
             e.nonnegative().to_string().into(),
             e.terms().to_string().into(),

@@ -47,6 +47,7 @@ pub struct Explorer {
     pub autosave: Autosave,
     times: FrameTimes,
     log_frames: bool,
+    continuous_frames: bool,
 }
 
 /// The exploration the window opens on when no session is given: S_5 around
@@ -88,6 +89,8 @@ impl Explorer {
             autosave: Autosave::default(),
             times: FrameTimes::default(),
             log_frames: std::env::var_os("ELBOWROOM_FRAME_LOG").is_some(),
+            continuous_frames: std::env::var("ELBOWROOM_FRAME_LOG")
+                .is_ok_and(|v| v == "continuous"),
         }
     }
 
@@ -202,10 +205,16 @@ impl Explorer {
         let took = started.elapsed();
         self.times.record(took);
         if self.log_frames {
+            // with ELBOWROOM_FRAME_LOG=continuous, frames follow each other without
+            // pause, so the interval is the whole frame time (build, paint, swap)
+            if self.continuous_frames {
+                ui.ctx().request_repaint();
+            }
             eprintln!(
-                "frame {:?} build {:.2} ms",
+                "frame {:?} build {:.2} ms interval {:.2} ms",
                 self.session.view,
-                took.as_secs_f32() * 1e3
+                took.as_secs_f32() * 1e3,
+                ui.input(|i| i.unstable_dt) * 1e3
             );
         }
     }
@@ -270,6 +279,14 @@ fn launch(session: Session, path: Option<std::path::PathBuf>) -> eframe::Result 
         viewport: egui::ViewportBuilder::default()
             .with_inner_size([1280.0, 800.0])
             .with_title(format!("elbowroom — {}", session.title)),
+        // the window repaints only on input or while a job runs, so waiting for
+        // the display's refresh buys nothing; without it a software renderer
+        // (no GPU) shows each frame as soon as it is drawn
+        glow_options: eframe::egui_glow::GlowConfiguration {
+            vsync: std::env::var_os("ELBOWROOM_VSYNC").is_some(),
+            ..Default::default()
+        },
+        dithering: std::env::var_os("ELBOWROOM_DITHER").is_some(),
         ..Default::default()
     };
     eframe::run_native(

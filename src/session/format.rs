@@ -17,7 +17,8 @@
 //! it to the current [`Session`]. Fields unknown to this build are ignored and
 //! missing fields take their defaults (`#[serde(default)]` on `Session`), so
 //! adding a field never needs a new version; renaming or reinterpreting one
-//! does, together with a `FileVn` struct and a migration arm in [`decode`].
+//! does, together with a `FileVn` struct and a migration arm in
+//! [`decode_with_version`].
 //!
 //! An explicit header was chosen over an internally tagged enum
 //! (`#[serde(tag = "version")]`): serde reads such enums through a buffered

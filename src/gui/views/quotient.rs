@@ -89,12 +89,19 @@ impl QuotientView {
         let Output::Reduced(r) = out.as_ref() else {
             return;
         };
-        ui.label(egui::RichText::new(format!("f = {}", r.input)).monospace());
-        ui.label(
-            egui::RichText::new(format!("NF(f) = {}", r.normal.poly.to_text()))
-                .monospace()
-                .strong(),
-        );
+        // long polynomials (S_w has hundreds of terms at n = 8) scroll in a few
+        // lines instead of pushing the diagrams off the screen
+        egui::ScrollArea::vertical()
+            .id_salt("quotient_polynomials")
+            .max_height(96.0)
+            .show(ui, |ui| {
+                ui.label(egui::RichText::new(format!("f = {}", r.input)).monospace());
+                ui.label(
+                    egui::RichText::new(format!("NF(f) = {}", r.normal.poly.to_text()))
+                        .monospace()
+                        .strong(),
+                );
+            });
         let hs: Vec<String> = r
             .hilbert
             .iter()
