@@ -281,6 +281,20 @@ fn pick<T>(
     }
 }
 
+/// Draws the picked items of an enumeration of w's dreams or words, each named
+/// `KIND-W-KKK` by its place K in the enumeration.
+fn named<T>(
+    kind: &str,
+    w: &Perm,
+    picked: Vec<(usize, T)>,
+    draw: impl Fn(&T) -> Scene,
+) -> Vec<Figure> {
+    picked
+        .into_iter()
+        .map(|(k, item)| (k, format!("{kind}-{}-{k:03}", compact(w)), draw(&item)))
+        .collect()
+}
+
 fn scenes(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
     let kind = args.kind.name();
     match args.kind {
@@ -292,16 +306,7 @@ fn scenes(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
                 pipe_dreams(&w),
                 &format!("pipe dreams of {} ({total})", compact(&w)),
             )?;
-            Ok(picked
-                .into_iter()
-                .map(|(k, d)| {
-                    (
-                        k,
-                        format!("{kind}-{}-{k:03}", compact(&w)),
-                        dream_scene(&d, look, &[]),
-                    )
-                })
-                .collect())
+            Ok(named(kind, &w, picked, |d| dream_scene(d, look, &[])))
         }
         FigureKind::Bumpless => {
             let w = perm_arg(args)?;
@@ -312,16 +317,7 @@ fn scenes(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
                 all.into_iter(),
                 &format!("bumpless pipe dreams of {} ({total})", compact(&w)),
             )?;
-            Ok(picked
-                .into_iter()
-                .map(|(k, d)| {
-                    (
-                        k,
-                        format!("{kind}-{}-{k:03}", compact(&w)),
-                        bumpless_scene(&d, look),
-                    )
-                })
-                .collect())
+            Ok(named(kind, &w, picked, |d| bumpless_scene(d, look)))
         }
         FigureKind::Wiring => {
             if let Some(word) = &args.word {
@@ -343,16 +339,9 @@ fn scenes(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
                 reduced_words(&w),
                 &format!("reduced words of {}", compact(&w)),
             )?;
-            Ok(picked
-                .into_iter()
-                .map(|(k, word)| {
-                    (
-                        k,
-                        format!("{kind}-{}-{k:03}", compact(&w)),
-                        wiring_scene(&word, w.n(), look, None),
-                    )
-                })
-                .collect())
+            Ok(named(kind, &w, picked, |word| {
+                wiring_scene(word, w.n(), look, None)
+            }))
         }
         FigureKind::Paths => {
             let (f, n, name) = match &args.poly {

@@ -67,14 +67,15 @@ impl WorkbenchView {
             );
             let htext: Vec<String> = hview.iter().map(|v| v.to_string()).collect();
             ui.add_enabled_ui(!hview.is_empty(), |ui| {
-                ui.radio_value(
-                    &mut ctx.session.workbench.use_h,
-                    true,
+                let label = if hview.is_empty() {
+                    "DS_h with the h chosen in the Hessenberg view (none chosen yet)".to_string()
+                } else {
                     format!(
                         "DS_h with h = ({}) from the Hessenberg view",
                         htext.join(",")
-                    ),
-                );
+                    )
+                };
+                ui.radio_value(&mut ctx.session.workbench.use_h, true, label);
             });
         });
         let h: Vec<usize> = if ctx.session.workbench.use_h && !hview.is_empty() {
