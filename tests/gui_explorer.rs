@@ -232,3 +232,31 @@ fn ctrl_s_saves_back_to_the_sessions_file() {
     assert_eq!(saved.current, vec![2, 4, 1, 3, 5]);
     std::fs::remove_dir_all(&dir).ok();
 }
+
+#[test]
+fn a_positivity_survey_runs_and_a_row_shows_its_normal_form() {
+    let mut h = harness();
+    // the demo explores S_5
+    h.get_by_label("Quotient by J_n").click();
+    h.step();
+    h.get_by_label("positivity survey of all of S_5").click();
+    // all 5! = 120 permutations are reduced (and, as the headless survey finds for
+    // every n <= 8, none has a negative coefficient)
+    settle(&mut h, |h| {
+        has(
+            h,
+            "120 permutations: every normal form has nonnegative coefficients",
+        )
+    });
+    // a click on the row of 12435 makes it current and shows its normal form:
+    // S_12435 = S_{s3} = x1 + x2 + x3 (Macdonald's table), reversed in five
+    // variables: x3 + x4 + x5 (the picker's list may show the same label, so the
+    // survey's row, drawn after the left panel, is the last one)
+    h.get_all_by_label("12435").last().unwrap().click();
+    settle(&mut h, |h| has(h, "f = x3 + x4 + x5"));
+    assert_eq!(h.state().session.current, vec![1, 2, 4, 3, 5]);
+    assert!(
+        !h.state().session.quotient.survey,
+        "the survey's row was clicked"
+    );
+}

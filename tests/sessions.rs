@@ -80,7 +80,7 @@ fn session() -> impl Strategy<Value = Session> {
                 any::<bool>(),
             ),
             (any::<usize>(), any::<bool>(), any::<usize>()),
-            (any::<bool>(), any::<String>()),
+            (any::<bool>(), any::<String>(), any::<bool>()),
             (
                 proptest::collection::vec("-?[0-9]{1,3}(/[1-9])?", 0..6),
                 proptest::collection::vec(any::<String>(), 0..4),
@@ -128,6 +128,7 @@ fn session() -> impl Strategy<Value = Session> {
                 quotient: QuotientPlace {
                     use_typed: q.0,
                     typed: q.1,
+                    survey: q.2,
                 },
                 solid: SolidPlace {
                     lambda: s.0,

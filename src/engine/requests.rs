@@ -3,6 +3,7 @@
 
 use crate::math::bumpless::{BumplessDream, bumpless_dreams};
 use crate::math::divsym::{DividedSymmetrization, divided_symmetrize};
+use crate::math::groebner::MAX_QUOTIENT_N;
 use crate::math::hessenberg::HessenbergFn;
 use crate::math::hessenberg_table::{HessenbergTable, hessenberg_table};
 use crate::math::mixed_eulerian::mixed_eulerian_numbers;
@@ -12,6 +13,7 @@ use crate::math::permutohedron::Permutohedron;
 use crate::math::pipe_dream::{PipeDream, count_pipe_dreams, pipe_dreams};
 use crate::math::quotient::{NormalForm, hilbert_series, normal_form, quotient};
 use crate::math::schubert::SchubertTable;
+use crate::math::survey::{SurveyEntry, survey};
 use crate::math::words::{count_reduced_words_with, reduced_words};
 use crate::math::{IntPoly, MathError, MathResult, Perm, Progress};
 use num_bigint::BigInt;
@@ -64,6 +66,8 @@ pub enum JobKey {
     DivSym(String, Vec<usize>),
     /// A normal form modulo J_n, with the Hilbert series of the quotient.
     NormalForm(QuotientInput),
+    /// The positivity survey: the normal form of S_w(x_n, ..., x_1) for every w in S_n.
+    Survey(usize),
 }
 
 /// What the quotient view reduces.
@@ -97,7 +101,10 @@ impl JobKey {
     /// Whether the job is batch work that uses rayon inside (it then runs in
     /// the engine's pool, which leaves one core to the window).
     pub fn is_batch(&self) -> bool {
-        matches!(self, JobKey::Hessenberg(_) | JobKey::Eulerian(_))
+        matches!(
+            self,
+            JobKey::Hessenberg(_) | JobKey::Eulerian(_) | JobKey::Survey(_)
+        )
     }
 
     /// A short description for the status line.
@@ -117,6 +124,7 @@ impl JobKey {
             JobKey::Polytope(_) => "vertices of P_λ".to_string(),
             JobKey::DivSym(_, h) => format!("divided symmetrization for h = {h:?}"),
             JobKey::NormalForm(_) => "normal form modulo J_n".to_string(),
+            JobKey::Survey(n) => format!("positivity survey of S_{n}"),
         }
     }
 }
@@ -154,6 +162,8 @@ pub enum Output {
     DivSym(DividedSymmetrization),
     /// A normal form in the quotient.
     Reduced(Reduced),
+    /// A positivity survey, one entry per permutation in lexicographic order.
+    Survey(Vec<SurveyEntry>),
 }
 
 /// The vertices and edges of a permutohedron, with coordinates for drawing.
@@ -354,6 +364,16 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
             let out = divided_symmetrize(&f, &h)?;
             progress.advance(1);
             Ok(Output::DivSym(out))
+        }
+        JobKey::Survey(n) => {
+            if *n == 0 || *n > MAX_QUOTIENT_N {
+                return Err(MathError::OutOfRange(format!(
+                    "surveys run for n from 1 to {MAX_QUOTIENT_N}"
+                )));
+            }
+            let perms: Vec<Perm> = Perm::all(*n).collect();
+            progress.set_total(perms.len() as u64);
+            survey(&perms, progress).map(Output::Survey)
         }
         JobKey::NormalForm(input) => {
             progress.set_total(2);

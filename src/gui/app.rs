@@ -175,13 +175,14 @@ impl Explorer {
         let figures = match self.session.view {
             View::Dreams => self.dreams.figures(),
             View::Words => self.words.figures(),
-            View::Quotient => self.quotient.figures(),
+            View::Quotient if !self.session.quotient.survey => self.quotient.figures(),
             View::Permutohedron => self.solid.figures(),
             _ => Vec::new(),
         };
         let tables = match self.session.view {
             View::Hessenberg => self.hessenberg.tables(),
             View::Permutohedron => self.solid.tables(),
+            View::Quotient => self.quotient.tables(self.session.quotient.survey),
             _ => Vec::new(),
         };
         let figures: Exports = figures

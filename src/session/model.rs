@@ -128,6 +128,8 @@ pub struct QuotientPlace {
     pub use_typed: bool,
     /// The typed polynomial, as typed.
     pub typed: String,
+    /// Show the positivity survey over all of S_n instead of one normal form.
+    pub survey: bool,
 }
 
 /// The permutohedron view's inputs, as typed (exact rationals like `3/2`).

@@ -4,6 +4,7 @@ pub mod dreams;
 pub mod hessenberg;
 pub mod quotient;
 pub mod solid;
+pub mod survey;
 pub mod words;
 pub mod workbench;
 

@@ -1,15 +1,18 @@
 //! The quasisymmetric quotient: the normal form of the current permutation's
 //! reversed Schubert polynomial (or of a typed polynomial) modulo J_n, drawn as
 //! a grid of lattice-path diagrams of the standard monomials with their
-//! coefficients (negatives marked), and the Hilbert series of Q[x]/J_n.
+//! coefficients (negatives marked), and the Hilbert series of Q[x]/J_n; or the
+//! positivity survey over all of S_n (`survey.rs`).
 
 use super::computing;
+use super::survey::SurveyPanel;
 use super::workbench::show_parse_error;
 use crate::engine::requests::{Output, QuotientInput};
 use crate::engine::{Fetch, JobKey, Slot};
 use crate::figure::Tag;
 use crate::figure::look::Look;
 use crate::figure::paths::{PathPanel, path_grid_scene};
+use crate::figure::table::Table;
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
 use crate::math::groebner::MAX_QUOTIENT_N;
@@ -23,9 +26,20 @@ use std::sync::Arc;
 pub struct QuotientView {
     slot: Slot,
     scene: Option<(JobKey, Look, Arc<crate::figure::Scene>)>,
+    /// The survey over all of S_n.
+    pub survey: SurveyPanel,
 }
 
 impl QuotientView {
+    /// The tables this view can export: the survey, when it is shown.
+    pub fn tables(&self, showing_survey: bool) -> Vec<(String, Arc<Table>)> {
+        if showing_survey {
+            self.survey.tables()
+        } else {
+            Vec::new()
+        }
+    }
+
     /// The figures this view can export: the grid of lattice paths.
     pub fn figures(&self) -> Vec<(String, Arc<crate::figure::Scene>)> {
         self.scene
@@ -40,14 +54,41 @@ impl QuotientView {
         ui.heading("Normal form in Q[x1..xn]/J_n (lex order x1 > x2 > ... > xn)");
         let place = &mut ctx.session.quotient;
         ui.horizontal(|ui| {
-            ui.radio_value(
-                &mut place.use_typed,
-                false,
-                format!("reversed Schubert polynomial of w = {w}"),
-            );
-            ui.radio_value(&mut place.use_typed, true, "a typed polynomial");
+            if ui
+                .radio(
+                    !place.survey && !place.use_typed,
+                    format!("reversed Schubert polynomial of w = {w}"),
+                )
+                .clicked()
+            {
+                place.survey = false;
+                place.use_typed = false;
+            }
+            if ui
+                .radio(!place.survey && place.use_typed, "a typed polynomial")
+                .clicked()
+            {
+                place.survey = false;
+                place.use_typed = true;
+            }
+            if ui
+                .radio(
+                    place.survey,
+                    format!("positivity survey of all of S_{}", w.n()),
+                )
+                .clicked()
+            {
+                place.survey = true;
+            }
         });
         let n = w.n();
+        if place.survey {
+            if self.survey.ui(ui, ctx, n) {
+                ctx.session.quotient.survey = false;
+                ctx.session.quotient.use_typed = false;
+            }
+            return;
+        }
         if n > MAX_QUOTIENT_N {
             ui.colored_label(
                 crate::gui::theme::alert(),

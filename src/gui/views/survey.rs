@@ -1,0 +1,227 @@
+//! The positivity survey inside the quotient view: the normal form modulo J_n
+//! of S_w(x_n, ..., x_1) for every w in S_n, computed on the engine with
+//! progress and cancel; a summary, the counterexamples (any negative
+//! coefficient) first and marked, every row clickable to show that w's normal
+//! form, and the table ready for export as CSV or LaTeX.
+
+use super::computing;
+use crate::engine::requests::Output;
+use crate::engine::{Fetch, JobKey, Slot};
+use crate::figure::result_tables::survey_table;
+use crate::figure::table::Table;
+use crate::gui::AppCtx;
+use crate::math::groebner::MAX_QUOTIENT_N;
+use crate::math::survey::SurveyEntry;
+use eframe::egui;
+use std::sync::Arc;
+
+/// Surveys up to this n start as soon as the panel shows; S_8 waits for the button.
+const AUTO_N: usize = 7;
+
+/// The survey panel's UI state.
+#[derive(Default)]
+pub struct SurveyPanel {
+    slot: Slot,
+    /// The n whose survey was asked for.
+    pub wanted: Option<usize>,
+    /// Show only the counterexamples.
+    pub only_counterexamples: bool,
+    /// The survey shown, ready for export, with its n.
+    export: Option<(usize, Arc<Table>)>,
+    /// Row order: counterexamples first, then lexicographic (indices into the entries).
+    order: Option<(usize, bool, Vec<usize>)>,
+}
+
+impl SurveyPanel {
+    /// The tables this panel can export: the survey shown (without normal forms).
+    pub fn tables(&self) -> Vec<(String, Arc<Table>)> {
+        self.export
+            .iter()
+            .map(|(n, t)| (format!("the positivity survey of S_{n}"), t.clone()))
+            .collect()
+    }
+
+    /// Draws the panel for S_n; a click on a row makes that w current and
+    /// returns true (the view then shows its normal form).
+    pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, n: usize) -> bool {
+        if n > MAX_QUOTIENT_N {
+            ui.colored_label(
+                crate::gui::theme::alert(),
+                format!("surveys run for n <= {MAX_QUOTIENT_N}"),
+            );
+            return false;
+        }
+        ui.horizontal(|ui| {
+            if ui.button(format!("survey all of S_{n}")).clicked() {
+                self.wanted = Some(n);
+                self.slot.retry();
+            }
+            if n <= AUTO_N {
+                ui.weak(format!("(runs by itself for n <= {AUTO_N})"));
+            }
+        });
+        if n <= AUTO_N {
+            self.wanted = Some(n);
+        }
+        let Some(wanted) = self.wanted else {
+            ui.weak("press the button to survey");
+            return false;
+        };
+        if wanted != n {
+            ui.weak(format!("showing S_{wanted}; press the button for S_{n}"));
+        }
+        let out = match self.slot.fetch(ctx.engine, JobKey::Survey(wanted)) {
+            Fetch::Ready(out) => out.clone(),
+            Fetch::Running(f, secs) => {
+                computing(
+                    ui,
+                    &format!("reducing S_w(x{wanted}, ..., x1) over S_{wanted} ({secs:.0} s)"),
+                    f,
+                    &self.slot,
+                );
+                return false;
+            }
+            Fetch::Failed(e) => {
+                let e = e.clone();
+                if super::failed(ui, &e) {
+                    self.slot.retry();
+                }
+                return false;
+            }
+        };
+        let Output::Survey(entries) = out.as_ref() else {
+            return false;
+        };
+        if self.export.as_ref().is_none_or(|(k, _)| *k != wanted) {
+            self.export = Some((wanted, Arc::new(survey_table(wanted, entries, true))));
+        }
+        let bad = entries.iter().filter(|e| !e.nonnegative()).count();
+        let summary = if bad == 0 {
+            format!(
+                "{} permutations: every normal form has nonnegative coefficients",
+                entries.len()
+            )
+        } else {
+            format!(
+                "{} permutations: {bad} counterexample{} (a negative coefficient), listed first",
+                entries.len(),
+                if bad == 1 { "" } else { "s" }
+            )
+        };
+        ui.label(egui::RichText::new(summary).strong());
+        ui.horizontal(|ui| {
+            ui.checkbox(&mut self.only_counterexamples, "only counterexamples");
+            ui.weak(
+                "Click a row to see its normal form; Ctrl+E exports the table as CSV or LaTeX.",
+            );
+        });
+        let order = self.order_for(wanted, entries);
+        self.rows(ui, ctx, entries, &order, wanted)
+    }
+
+    fn order_for(&mut self, n: usize, entries: &[SurveyEntry]) -> Vec<usize> {
+        let only = self.only_counterexamples;
+        if let Some((k, o, order)) = &self.order
+            && *k == n
+            && *o == only
+        {
+            return order.clone();
+        }
+        let bad = (0..entries.len()).filter(|&i| !entries[i].nonnegative());
+        let order: Vec<usize> = if only {
+            bad.collect()
+        } else {
+            bad.chain((0..entries.len()).filter(|&i| entries[i].nonnegative()))
+                .collect()
+        };
+        self.order = Some((n, only, order.clone()));
+        order
+    }
+
+    fn rows(
+        &self,
+        ui: &mut egui::Ui,
+        ctx: &mut AppCtx,
+        entries: &[SurveyEntry],
+        order: &[usize],
+        n: usize,
+    ) -> bool {
+        let mut picked = None;
+        let current = ctx.perm();
+        ui.horizontal(|ui| {
+            for (head, width) in [
+                ("w", 90.0),
+                ("ℓ(w)", 40.0),
+                ("terms", 50.0),
+                ("sum", 60.0),
+                ("≥ 0", 40.0),
+            ] {
+                ui.add_sized(
+                    [width, 18.0],
+                    egui::Label::new(egui::RichText::new(head).strong()),
+                );
+            }
+            ui.label(egui::RichText::new("negative coefficients").strong());
+        });
+        egui::ScrollArea::vertical()
+            .id_salt("survey_rows")
+            .max_height(ui.available_height() - 4.0)
+            .show_rows(
+                ui,
+                ui.spacing().interact_size.y,
+                order.len(),
+                |ui, range| {
+                    for &i in &order[range] {
+                        let e = &entries[i];
+                        let alert = !e.nonnegative();
+                        let text = |s: String| {
+                            let t = egui::RichText::new(s).monospace();
+                            if alert {
+                                t.color(crate::gui::theme::alert())
+                            } else {
+                                t
+                            }
+                        };
+                        ui.horizontal(|ui| {
+                            let selected = e.perm == current;
+                            if ui
+                                .add_sized(
+                                    [90.0, 18.0],
+                                    egui::Button::selectable(selected, text(e.perm.to_string())),
+                                )
+                                .clicked()
+                            {
+                                picked = Some(e.perm.clone());
+                            }
+                            ui.add_sized(
+                                [40.0, 18.0],
+                                egui::Label::new(text(e.perm.length().to_string())),
+                            );
+                            ui.add_sized(
+                                [50.0, 18.0],
+                                egui::Label::new(text(e.terms().to_string())),
+                            );
+                            ui.add_sized([60.0, 18.0], egui::Label::new(text(e.sum().to_string())));
+                            let sign = if alert { "no" } else { "yes" };
+                            ui.add_sized([40.0, 18.0], egui::Label::new(text(sign.to_string())));
+                            if alert {
+                                let negs: Vec<String> = e
+                                    .negatives()
+                                    .iter()
+                                    .map(|(m, c)| format!("{c}·{}", m.text(n)))
+                                    .collect();
+                                ui.label(text(negs.join("  ")));
+                            }
+                        });
+                    }
+                },
+            );
+        match picked {
+            Some(w) => {
+                ctx.go_to(w);
+                true
+            }
+            None => false,
+        }
+    }
+}
