@@ -259,6 +259,10 @@ impl eframe::App for Explorer {
         self.show(ui);
     }
 
+    fn clear_color(&self, _visuals: &egui::Visuals) -> [f32; 4] {
+        theme::panel_color(self.session.dark).to_normalized_gamma_f32()
+    }
+
     fn on_exit(&mut self, _gl: Option<&eframe::glow::Context>) {
         self.autosave.finish();
     }
