@@ -286,6 +286,12 @@ fn other_files_are_not_taken_for_sessions() {
     assert!(msg.contains("is not an elbowroom session"), "{msg}");
     let (msg, _) = message_of("(format: \"something-else\", version: 1)");
     assert!(msg.contains("\"something-else\""), "{msg}");
+    // a file that is not RON at all: the message says what a session looks like
+    let (msg, _) = message_of("garbage(");
+    assert!(
+        msg.contains(":1:1:") && msg.contains("an elbowroom session `(format:"),
+        "{msg}"
+    );
 }
 
 #[test]

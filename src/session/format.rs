@@ -144,7 +144,11 @@ fn explain(code: &ron::Error) -> String {
             "the file ends too early (is it truncated?)".into()
         }
         other => {
-            let text = other.to_string();
+            // the header's type name means nothing to a reader: say what it is
+            let text = other.to_string().replace(
+                "struct `Header`",
+                "an elbowroom session `(format: \"elbowroom-session\", version: 1, session: (...))`",
+            );
             format!("{} here", text.trim_end_matches('.'))
         }
     }
