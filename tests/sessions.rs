@@ -89,7 +89,8 @@ fn session() -> impl Strategy<Value = Session> {
                 angle(),
             ),
             (
-                prop_oneof![Just(Vec::new()), hessenberg(n)],
+                // the Hessenberg view has its own n, independent of the session's
+                prop_oneof![Just(Vec::new()), (1usize..=12).prop_flat_map(hessenberg)],
                 any::<String>(),
                 any::<bool>(),
             ),
@@ -464,4 +465,18 @@ fn recent_sessions_are_most_recent_first_without_repeats() {
         2,
         "missing files are dropped"
     );
+}
+
+#[test]
+fn the_hessenberg_view_may_use_another_n_than_the_permutation() {
+    // the demo explores S_4 while the Hessenberg view looks at n = 8
+    let text = demo_text().replacen("h: []", "h: [2, 3, 4, 5, 6, 7, 8, 8]", 1);
+    let dir = scratch("other-n");
+    let path = dir.join("s.ron");
+    std::fs::write(&path, &text).unwrap();
+    let s = store::load(&path).unwrap();
+    assert_eq!(s.n, 4);
+    assert_eq!(s.hessenberg.h.len(), 8);
+    store::save(&path, &s).unwrap();
+    assert_eq!(store::load(&path).unwrap(), s);
 }

@@ -179,7 +179,10 @@ impl Explorer {
             View::Permutohedron => self.solid.figures(),
             _ => Vec::new(),
         };
+        // tables are built for export only while the export window is open
+        let exporting = self.files.action == Some(FileAction::Export);
         let tables = match self.session.view {
+            _ if !exporting => Vec::new(),
             View::Hessenberg => self.hessenberg.tables(),
             View::Permutohedron => self.solid.tables(),
             View::Quotient => self.quotient.tables(self.session.quotient.survey),

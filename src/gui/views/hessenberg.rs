@@ -4,6 +4,7 @@
 //! clicking a row makes w current everywhere.
 
 use super::computing;
+use crate::engine::requests::Output;
 use crate::engine::{Fetch, JobKey, Slot};
 use crate::figure::result_tables;
 use crate::figure::table::Table;
@@ -24,7 +25,11 @@ pub struct HessenbergView {
     /// The h whose table was asked for.
     pub wanted: Option<Vec<usize>>,
     order: Option<(Vec<usize>, String, bool, Vec<usize>)>,
-    /// The table shown, ready for export (CSV, LaTeX), with the h it is for.
+    /// The result shown, with the h it is for.
+    shown: Option<(Vec<usize>, Arc<Output>)>,
+    /// The summary line of the result shown (totals over every row, so kept).
+    summary: Option<(Vec<usize>, String)>,
+    /// The export table of the result shown, built when an export asks for it.
     export: Option<(Vec<usize>, Arc<Table>)>,
 }
 
@@ -51,8 +56,18 @@ pub fn default_h(n: usize) -> Vec<usize> {
 }
 
 impl HessenbergView {
-    /// The tables this view can export: the coefficients a^h_w on screen.
-    pub fn tables(&self) -> Vec<(String, Arc<Table>)> {
+    /// The tables this view can export: the coefficients a^h_w on screen
+    /// (built on the first call for a new table, so only when exporting).
+    pub fn tables(&mut self) -> Vec<(String, Arc<Table>)> {
+        let Some((h, out)) = &self.shown else {
+            return Vec::new();
+        };
+        if self.export.as_ref().is_none_or(|(k, _)| k != h)
+            && let Some(table) = out.hessenberg()
+        {
+            let built = Arc::new(result_tables::hessenberg_table(table));
+            self.export = Some((h.clone(), built));
+        }
         self.export
             .iter()
             .map(|(_, t)| ("the table of a^h_w".to_string(), t.clone()))
@@ -63,14 +78,14 @@ impl HessenbergView {
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let place = &mut ctx.session.hessenberg;
         if place.h.is_empty() {
-            place.h = default_h(ctx.session.n.clamp(2, 10));
+            place.h = default_h(ctx.session.n.clamp(2, 12));
         }
         let mut n = place.h.len();
         ui.horizontal(|ui| {
             ui.heading("Hessenberg classes");
             ui.separator();
             ui.label("n");
-            if ui.add(egui::DragValue::new(&mut n).range(2..=10)).changed() {
+            if ui.add(egui::DragValue::new(&mut n).range(2..=12)).changed() {
                 place.h = default_h(n);
             }
             let text: Vec<String> = place.h.iter().map(|v| v.to_string()).collect();
@@ -187,24 +202,29 @@ impl HessenbergView {
         let Some(table) = out.hessenberg() else {
             return;
         };
-        if self.export.as_ref().is_none_or(|(k, _)| *k != wanted) {
-            let built = Arc::new(result_tables::hessenberg_table(table));
-            self.export = Some((wanted.clone(), built));
+        if self.shown.as_ref().is_none_or(|(k, _)| *k != wanted) {
+            self.shown = Some((wanted.clone(), out.clone()));
         }
-        let negatives = table
-            .entries
-            .iter()
-            .filter(|e| e.value.is_negative())
-            .count();
-        ui.label(format!(
-            "{} permutations of length {}; Σ a^h_w = {}; nonzero {}; largest {}; negative {}",
-            table.listed,
-            table.h.dimension(),
-            table.total(),
-            table.nonzero(),
-            table.max(),
-            negatives
-        ));
+        if self.summary.as_ref().is_none_or(|(k, _)| *k != wanted) {
+            let negatives = table
+                .entries
+                .iter()
+                .filter(|e| e.value.is_negative())
+                .count();
+            let text = format!(
+                "{} permutations of length {}; Σ a^h_w = {}; nonzero {}; largest {}; negative {}",
+                table.listed,
+                table.h.dimension(),
+                table.total(),
+                table.nonzero(),
+                table.max(),
+                negatives
+            );
+            self.summary = Some((wanted.clone(), text));
+        }
+        if let Some((_, text)) = &self.summary {
+            ui.label(text.as_str());
+        }
         ui.weak("Ctrl+E exports this table as CSV or as a LaTeX tabular.");
         // sort order, cached per (h, column, direction)
         let current = ctx.perm();

@@ -32,7 +32,7 @@ pub struct QuotientView {
 
 impl QuotientView {
     /// The tables this view can export: the survey, when it is shown.
-    pub fn tables(&self, showing_survey: bool) -> Vec<(String, Arc<Table>)> {
+    pub fn tables(&mut self, showing_survey: bool) -> Vec<(String, Arc<Table>)> {
         if showing_survey {
             self.survey.tables()
         } else {

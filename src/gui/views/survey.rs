@@ -26,15 +26,28 @@ pub struct SurveyPanel {
     pub wanted: Option<usize>,
     /// Show only the counterexamples.
     pub only_counterexamples: bool,
-    /// The survey shown, ready for export, with its n.
+    /// The survey shown, with its n.
+    shown: Option<(usize, Arc<Output>)>,
+    /// The summary line of the survey shown (a pass over every entry, so kept).
+    summary: Option<(usize, String)>,
+    /// The export table of the survey shown, built when an export asks for it.
     export: Option<(usize, Arc<Table>)>,
     /// Row order: counterexamples first, then lexicographic (indices into the entries).
     order: Option<(usize, bool, Vec<usize>)>,
 }
 
 impl SurveyPanel {
-    /// The tables this panel can export: the survey shown (without normal forms).
-    pub fn tables(&self) -> Vec<(String, Arc<Table>)> {
+    /// The tables this panel can export: the survey shown (without normal
+    /// forms; built on the first call for a new survey, so only when exporting).
+    pub fn tables(&mut self) -> Vec<(String, Arc<Table>)> {
+        let Some((n, out)) = &self.shown else {
+            return Vec::new();
+        };
+        if self.export.as_ref().is_none_or(|(k, _)| k != n)
+            && let Output::Survey(entries) = out.as_ref()
+        {
+            self.export = Some((*n, Arc::new(survey_table(*n, entries, true))));
+        }
         self.export
             .iter()
             .map(|(n, t)| (format!("the positivity survey of S_{n}"), t.clone()))
@@ -92,23 +105,28 @@ impl SurveyPanel {
         let Output::Survey(entries) = out.as_ref() else {
             return false;
         };
-        if self.export.as_ref().is_none_or(|(k, _)| *k != wanted) {
-            self.export = Some((wanted, Arc::new(survey_table(wanted, entries, true))));
+        if self.shown.as_ref().is_none_or(|(k, _)| *k != wanted) {
+            self.shown = Some((wanted, out.clone()));
         }
-        let bad = entries.iter().filter(|e| !e.nonnegative()).count();
-        let summary = if bad == 0 {
-            format!(
-                "{} permutations: every normal form has nonnegative coefficients",
-                entries.len()
-            )
-        } else {
-            format!(
-                "{} permutations: {bad} counterexample{} (a negative coefficient), listed first",
-                entries.len(),
-                if bad == 1 { "" } else { "s" }
-            )
-        };
-        ui.label(egui::RichText::new(summary).strong());
+        if self.summary.as_ref().is_none_or(|(k, _)| *k != wanted) {
+            let bad = entries.iter().filter(|e| !e.nonnegative()).count();
+            let text = if bad == 0 {
+                format!(
+                    "{} permutations: every normal form has nonnegative coefficients",
+                    entries.len()
+                )
+            } else {
+                format!(
+                    "{} permutations: {bad} counterexample{} (a negative coefficient), listed first",
+                    entries.len(),
+                    if bad == 1 { "" } else { "s" }
+                )
+            };
+            self.summary = Some((wanted, text));
+        }
+        if let Some((_, text)) = &self.summary {
+            ui.label(egui::RichText::new(text.as_str()).strong());
+        }
         ui.horizontal(|ui| {
             ui.checkbox(&mut self.only_counterexamples, "only counterexamples");
             ui.weak(
