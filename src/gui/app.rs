@@ -50,8 +50,9 @@ pub struct Explorer {
     continuous_frames: bool,
 }
 
-/// The exploration the window opens on when no session is given: S_5 around
-/// the vexillary permutation 15432 (14 reduced pipe dreams), a few pins.
+/// A small exploration of S_5 around the vexillary permutation 15432 (14
+/// reduced pipe dreams), with a few pins: the fixture of the headless GUI
+/// tests. (The window itself opens on `session::demo::default_demo`.)
 pub fn demo_session() -> Session {
     let current = vec![1, 5, 4, 3, 2];
     Session {
