@@ -2,10 +2,9 @@
 #![allow(clippy::unwrap_used)]
 
 use serde_json::Value;
-use std::process::{Command, Stdio};
 
 mod common;
-use common::{json, rejects, run};
+use common::{interrupted, json, rejects, run};
 
 #[test]
 fn divsym_gives_numbers_and_symmetric_polynomials() {
@@ -124,19 +123,7 @@ fn volume_and_eulerian() {
 
 #[test]
 fn ctrl_c_stops_a_long_table_cleanly() {
-    let child = Command::new(env!("CARGO_BIN_EXE_elbowroom"))
-        .args(["hessenberg", "--n", "12", "--json"])
-        .stdout(Stdio::piped())
-        .stderr(Stdio::piped())
-        .spawn()
-        .unwrap();
-    std::thread::sleep(std::time::Duration::from_millis(1500));
-    let status = Command::new("kill")
-        .args(["-INT", &child.id().to_string()])
-        .status()
-        .unwrap();
-    assert!(status.success());
-    let out = child.wait_with_output().unwrap();
+    let out = interrupted(&["hessenberg", "--n", "12", "--json"], 1500);
     assert_eq!(out.status.code(), Some(130));
     assert!(out.stdout.is_empty(), "no partial JSON");
     let err = String::from_utf8_lossy(&out.stderr);

@@ -3,10 +3,9 @@
 
 use elbowroom::cli::merge_survey::merge_surveys;
 use serde_json::{Value, json};
-use std::process::{Command, Stdio};
 
 mod common;
-use common::{json as json_of, rejects, run};
+use common::{interrupted, json as json_of, rejects, run};
 
 fn assert_input_error(args: &[&str]) {
     rejects(args, "");
@@ -122,19 +121,7 @@ fn sharded_survey_merges_to_the_whole() {
 #[cfg(unix)]
 #[test]
 fn interrupt_cancels_cleanly() {
-    let child = Command::new(env!("CARGO_BIN_EXE_elbowroom"))
-        .args(["survey", "--n", "8", "--json"])
-        .stdout(Stdio::piped())
-        .stderr(Stdio::piped())
-        .spawn()
-        .unwrap();
-    std::thread::sleep(std::time::Duration::from_millis(700));
-    let status = Command::new("kill")
-        .args(["-INT", &child.id().to_string()])
-        .status()
-        .unwrap();
-    assert!(status.success());
-    let out = child.wait_with_output().unwrap();
+    let out = interrupted(&["survey", "--n", "8", "--json"], 700);
     assert_eq!(out.status.code(), Some(130));
     assert!(out.stdout.is_empty());
     let err = String::from_utf8(out.stderr).unwrap();

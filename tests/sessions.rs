@@ -174,7 +174,7 @@ proptest! {
 #[test]
 fn a_save_goes_through_the_file_system_and_keeps_a_backup() {
     let dir = scratch("save");
-    let path = dir.join("talk.ron");
+    let path = dir.join("study.ron");
     let first = Session {
         title: "first".into(),
         ..Session::default()
@@ -224,7 +224,7 @@ fn demo_text() -> String {
 }
 
 fn message_of(text: &str) -> (String, SessionError) {
-    let e = store::load_str(text, Path::new("talk.ron")).unwrap_err();
+    let e = store::load_str(text, Path::new("study.ron")).unwrap_err();
     (e.to_string(), e)
 }
 
@@ -242,7 +242,7 @@ fn a_truncated_file_names_its_line_and_column() {
     assert!(line >= 2 && line <= cut_lines, "line {line} of {cut_lines}");
     assert!(column >= 1);
     assert!(
-        msg.starts_with(&format!("talk.ron:{line}:{column}: ")),
+        msg.starts_with(&format!("study.ron:{line}:{column}: ")),
         "{msg}"
     );
 }
@@ -256,7 +256,7 @@ fn a_field_of_the_wrong_type_is_named_with_its_position() {
         .unwrap()
         + 1;
     let (msg, _) = message_of(&text);
-    assert!(msg.starts_with(&format!("talk.ron:{line}:")), "{msg}");
+    assert!(msg.starts_with(&format!("study.ron:{line}:")), "{msg}");
     assert!(msg.contains("Expected integer"), "{msg}");
     assert!(msg.contains("field `n`"), "{msg}");
 }
@@ -350,7 +350,7 @@ fn a_missing_file_is_a_read_error() {
 #[test]
 fn a_save_interrupted_before_the_rename_leaves_the_old_file() {
     let dir = scratch("interrupted");
-    let path = dir.join("talk.ron");
+    let path = dir.join("study.ron");
     let old = demo::default_demo();
     store::save(&path, &old).unwrap();
     let before = fs::read(&path).unwrap();
@@ -377,7 +377,7 @@ fn a_save_interrupted_before_the_rename_leaves_the_old_file() {
 fn an_unwritable_directory_gives_a_clear_error_and_keeps_the_old_file() {
     use std::os::unix::fs::PermissionsExt;
     let dir = scratch("readonly");
-    let path = dir.join("talk.ron");
+    let path = dir.join("study.ron");
     let old = Session::default();
     store::save(&path, &old).unwrap();
     fs::set_permissions(&dir, fs::Permissions::from_mode(0o555)).unwrap();

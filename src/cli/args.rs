@@ -130,15 +130,9 @@ pub struct HessenbergArgs {
     /// Compute only piece K of N (K/N): the permutations at listing positions i with i mod N = K-1.
     #[arg(long)]
     pub shard: Option<String>,
-    /// Print one JSON object instead of text.
-    #[arg(long, conflicts_with_all = ["csv", "latex"])]
-    pub json: bool,
-    /// Print CSV: a header and one row per permutation.
-    #[arg(long, conflicts_with = "latex")]
-    pub csv: bool,
-    /// Print a LaTeX tabular (w, ℓ(w), a^h_w).
-    #[arg(long)]
-    pub latex: bool,
+    /// How to print the table.
+    #[command(flatten)]
+    pub output: TableOutput,
 }
 
 /// Arguments of `elbowroom volume`.
@@ -161,15 +155,37 @@ pub struct EulerianArgs {
     /// The number of variables n (compositions of n-1 into n-1 parts).
     #[arg(long)]
     pub n: usize,
+    /// How to print the table.
+    #[command(flatten)]
+    pub output: TableOutput,
+}
+
+/// How a command that makes a table prints it: readable text by default, or
+/// one JSON object, CSV, or a LaTeX tabular.
+#[derive(Args, Debug, Default)]
+pub struct TableOutput {
     /// Print one JSON object instead of text.
     #[arg(long, conflicts_with_all = ["csv", "latex"])]
     pub json: bool,
-    /// Print CSV: c, value.
+    /// Print CSV: a header line, then one row per line.
     #[arg(long, conflicts_with = "latex")]
     pub csv: bool,
     /// Print a LaTeX tabular.
     #[arg(long)]
     pub latex: bool,
+}
+
+impl TableOutput {
+    /// The table as CSV or LaTeX when one of those was asked for (built only then).
+    pub fn table(&self, build: impl FnOnce() -> crate::figure::table::Table) -> Option<String> {
+        if self.csv {
+            Some(build().to_csv())
+        } else if self.latex {
+            Some(build().to_latex())
+        } else {
+            None
+        }
+    }
 }
 
 /// Arguments of `elbowroom merge`.

@@ -24,13 +24,10 @@ pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
         mixed_eulerian_numbers(args.n, progress)
     })?;
     let sum: BigInt = numbers.iter().map(|(_, v)| v).sum();
-    if args.csv {
-        return Ok(eulerian_table(args.n, &numbers).to_csv());
+    if let Some(out) = args.output.table(|| eulerian_table(args.n, &numbers)) {
+        return Ok(out);
     }
-    if args.latex {
-        return Ok(eulerian_table(args.n, &numbers).to_latex());
-    }
-    if args.json {
+    if args.output.json {
         let list: Vec<Value> = numbers
             .iter()
             .map(|(c, v)| json!({"c": c, "value": json::exact(v)}))

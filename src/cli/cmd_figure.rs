@@ -181,7 +181,7 @@ pub fn run(args: &FigureArgs) -> Result<String, CliError> {
             args.out.display()
         )));
     } else if let Some(dir) = args.out.parent().filter(|d| !d.as_os_str().is_empty()) {
-        // as with --all, a missing folder is made (talk/figures/dream.png)
+        // as with --all, a missing folder is made (slides/figures/dream.png)
         std::fs::create_dir_all(dir)
             .map_err(|e| CliError::Failed(format!("cannot create {}: {e}", dir.display())))?;
     }

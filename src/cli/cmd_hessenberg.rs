@@ -27,14 +27,14 @@ pub fn run(args: &HessenbergArgs) -> Result<String, CliError> {
     let table = interrupt::run_interruptible("the table", "permutations", 0, |progress| {
         hessenberg_table(&h, &|i| shard.selects(i), progress)
     })?;
-    if args.json {
+    if args.output.json {
         return Ok(json::render(&table_json(&table, shard)));
     }
-    if args.csv {
-        return Ok(result_tables::hessenberg_table(&table).to_csv());
-    }
-    if args.latex {
-        return Ok(result_tables::hessenberg_table(&table).to_latex());
+    if let Some(out) = args
+        .output
+        .table(|| result_tables::hessenberg_table(&table))
+    {
+        return Ok(out);
     }
     Ok(text(&table, shard))
 }
@@ -71,15 +71,6 @@ pub fn table_json(table: &HessenbergTable, shard: Shard) -> Value {
     v
 }
 
-fn perm_text(w: &crate::math::Perm) -> String {
-    if w.n() <= 9 {
-        w.to_string()
-    } else {
-        let parts: Vec<String> = w.one_line().iter().map(|v| v.to_string()).collect();
-        parts.join(",")
-    }
-}
-
 fn text(table: &HessenbergTable, shard: Shard) -> String {
     let len = table.h.dimension();
     let mut out = format!(
@@ -101,7 +92,7 @@ fn text(table: &HessenbergTable, shard: Shard) -> String {
     let width = table
         .entries
         .iter()
-        .map(|e| perm_text(&e.perm).len())
+        .map(|e| e.perm.to_string().len())
         .max()
         .unwrap_or(1)
         .max(1);
@@ -109,7 +100,7 @@ fn text(table: &HessenbergTable, shard: Shard) -> String {
     for e in &table.entries {
         out.push_str(&format!(
             "{:<width$}  {:>6}  {}\n",
-            perm_text(&e.perm),
+            e.perm.to_string(),
             len,
             e.value
         ));

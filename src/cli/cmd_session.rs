@@ -56,19 +56,16 @@ fn check(args: &SessionCheckArgs) -> Result<String, CliError> {
             "notes_lines": s.notes.lines().count(),
         })));
     }
-    let one_line = |w: &[usize]| {
-        let sep = if w.len() >= 10 { "," } else { "" };
-        w.iter()
-            .map(|v| v.to_string())
-            .collect::<Vec<_>>()
-            .join(sep)
-    };
+    // one-line notation as everywhere else (the file was validated, so this is a permutation)
+    let current = crate::math::Perm::from_one_line(&s.current)
+        .map(|w| w.to_string())
+        .unwrap_or_else(|_| format!("{:?}", s.current));
     let mut out = format!(
         "{}: a valid session (format version {version})\n  title:   {}\n  n:       {}\n  current: {}\n  view:    {view}\n  pins:    {}\n  history: {} permutation{}\n",
         args.file.display(),
         s.title,
         s.n,
-        one_line(&s.current),
+        current,
         s.pins.len(),
         s.history.len(),
         if s.history.len() == 1 { "" } else { "s" }

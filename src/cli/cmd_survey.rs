@@ -5,6 +5,7 @@
 //! Ctrl-C stops the run: stderr says how far it got, the exit status is 130 and nothing
 //! is printed on stdout.
 
+use super::args::TableOutput;
 use super::error::CliError;
 use super::json;
 use super::shard::Shard;
@@ -27,15 +28,9 @@ pub struct SurveyArgs {
     /// Survey one permutation, e.g. 2143.
     #[arg(long)]
     pub perm: Option<String>,
-    /// Print one JSON object instead of text.
-    #[arg(long, conflicts_with_all = ["csv", "latex"])]
-    pub json: bool,
-    /// Print CSV, one row per permutation.
-    #[arg(long, conflicts_with = "latex")]
-    pub csv: bool,
-    /// Print a LaTeX tabular, one row per permutation.
-    #[arg(long)]
-    pub latex: bool,
+    /// How to print the results.
+    #[command(flatten)]
+    pub output: TableOutput,
     /// Leave out the per-permutation normal forms.
     #[arg(long)]
     pub summary: bool,
@@ -95,7 +90,7 @@ pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
         |progress| survey(&perms, progress),
     )?;
     let shard_text = format!("{}/{}", shard.index, shard.count);
-    if args.json {
+    if args.output.json {
         return Ok(json::render(&survey_json(
             n,
             &shard_text,
@@ -103,11 +98,11 @@ pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
             args.summary,
         )));
     }
-    if args.csv {
-        return Ok(survey_table(n, &entries, args.summary).to_csv());
-    }
-    if args.latex {
-        return Ok(survey_table(n, &entries, args.summary).to_latex());
+    if let Some(out) = args
+        .output
+        .table(|| survey_table(n, &entries, args.summary))
+    {
+        return Ok(out);
     }
     Ok(survey_text(n, &shard_text, &entries, args.summary))
 }

@@ -56,8 +56,8 @@ mod tests {
     #[test]
     fn session_files_are_recognised() {
         assert_eq!(
-            session_file_argument(&line(&["talk.ron"])),
-            Some(PathBuf::from("talk.ron"))
+            session_file_argument(&line(&["study.ron"])),
+            Some(PathBuf::from("study.ron"))
         );
         let existing = env!("CARGO_MANIFEST_DIR").to_string() + "/Cargo.toml";
         assert_eq!(

@@ -113,26 +113,20 @@ pub fn bumpless_scene(d: &BumplessDream, look: &Look) -> Scene {
     if look.labels {
         for i in 1..=n {
             let o = origin(i, n);
-            scene.push(
-                ItemKind::Text {
-                    pos: Pt::new(o.x + CELL * 1.45, o.y + CELL / 2.0),
-                    text: i.to_string(),
-                    size: CELL * 0.42,
-                    color: look.ink(),
-                    anchor: Anchor::Left,
-                },
-                Tag::Label,
+            scene.label(
+                Pt::new(o.x + CELL * 1.45, o.y + CELL / 2.0),
+                i.to_string(),
+                CELL * 0.42,
+                look.ink(),
+                Anchor::Left,
             );
             let o = origin(n, i);
-            scene.push(
-                ItemKind::Text {
-                    pos: Pt::new(o.x + CELL / 2.0, o.y + CELL * 1.55),
-                    text: i.to_string(),
-                    size: CELL * 0.42,
-                    color: look.ink(),
-                    anchor: Anchor::Center,
-                },
-                Tag::Label,
+            scene.label(
+                Pt::new(o.x + CELL / 2.0, o.y + CELL * 1.55),
+                i.to_string(),
+                CELL * 0.42,
+                look.ink(),
+                Anchor::Center,
             );
         }
     }

@@ -148,16 +148,7 @@ pub fn dream_scene(dream: &PipeDream, look: &Look, hints: &[(usize, usize)]) -> 
     }
     if look.labels {
         let text = |scene: &mut Scene, pos: Pt, t: String, anchor| {
-            scene.push(
-                ItemKind::Text {
-                    pos,
-                    text: t,
-                    size: CELL * 0.42,
-                    color: look.ink(),
-                    anchor,
-                },
-                Tag::Label,
-            );
+            scene.label(pos, t, CELL * 0.42, look.ink(), anchor);
         };
         for i in 1..=n {
             let o = cell_origin(i, 1);

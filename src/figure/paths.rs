@@ -143,25 +143,19 @@ pub fn path_grid_scene(panels: &[PathPanel], n: usize, columns: usize, look: &Lo
         } else {
             look.ink()
         };
-        scene.push(
-            ItemKind::Text {
-                pos: Pt::new(x0 + PANEL / 2.0, y0 + PANEL + 6.0),
-                text: panel.coefficient.clone(),
-                size: 11.0,
-                color: text_color,
-                anchor: Anchor::Center,
-            },
-            Tag::Label,
+        scene.label(
+            Pt::new(x0 + PANEL / 2.0, y0 + PANEL + 6.0),
+            panel.coefficient.clone(),
+            11.0,
+            text_color,
+            Anchor::Center,
         );
-        scene.push(
-            ItemKind::Text {
-                pos: Pt::new(x0 + PANEL / 2.0, y0 + PANEL + 20.0),
-                text: panel.monomial.clone(),
-                size: 9.0,
-                color: look.ink(),
-                anchor: Anchor::Center,
-            },
-            Tag::Label,
+        scene.label(
+            Pt::new(x0 + PANEL / 2.0, y0 + PANEL + 20.0),
+            panel.monomial.clone(),
+            9.0,
+            look.ink(),
+            Anchor::Center,
         );
     }
     scene

@@ -142,16 +142,8 @@ pub fn polytope_scene(
             } else {
                 Anchor::Center
             };
-            scene.push(
-                ItemKind::Text {
-                    pos,
-                    text: labels.get(v).cloned().unwrap_or_default(),
-                    size: 9.0,
-                    color: look.ink(),
-                    anchor,
-                },
-                Tag::Label,
-            );
+            let text = labels.get(v).cloned().unwrap_or_default();
+            scene.label(pos, text, 9.0, look.ink(), anchor);
         }
     }
     scene

@@ -183,6 +183,20 @@ impl Scene {
         }
     }
 
+    /// Appends a text label (tagged [`Tag::Label`]).
+    pub fn label(&mut self, pos: Pt, text: String, size: f32, color: Color, anchor: Anchor) {
+        self.push(
+            ItemKind::Text {
+                pos,
+                text,
+                size,
+                color,
+                anchor,
+            },
+            Tag::Label,
+        );
+    }
+
     /// Appends an item.
     pub fn push(&mut self, kind: ItemKind, tag: Tag) {
         self.items.push(Item { kind, tag });

@@ -40,16 +40,7 @@ pub fn volume_plot_scene(samples: &[(f64, f64)], look: &Look) -> Scene {
         Tag::None,
     );
     let text = |scene: &mut Scene, pos: Pt, t: String, anchor| {
-        scene.push(
-            ItemKind::Text {
-                pos,
-                text: t,
-                size: 10.0,
-                color: look.ink(),
-                anchor,
-            },
-            Tag::Label,
-        );
+        scene.label(pos, t, 10.0, look.ink(), anchor);
     };
     for k in 0..=4 {
         let t = k as f64 / 4.0;

@@ -89,39 +89,30 @@ pub fn wiring_scene(word: &[usize], n: usize, look: &Look, selected: Option<usiz
             Tag::Crossing(k),
         );
         if look.labels {
-            scene.push(
-                ItemKind::Text {
-                    pos: Pt::new(centre.x, height - MARGIN * 0.35),
-                    text: a.to_string(),
-                    size: 11.0,
-                    color: if chosen { look.ink() } else { look.grid() },
-                    anchor: Anchor::Center,
-                },
-                Tag::Label,
+            scene.label(
+                Pt::new(centre.x, height - MARGIN * 0.35),
+                a.to_string(),
+                11.0,
+                if chosen { look.ink() } else { look.grid() },
+                Anchor::Center,
             );
         }
     }
     if look.labels {
         for (h, &wire) in wire_at.iter().enumerate().skip(1) {
-            scene.push(
-                ItemKind::Text {
-                    pos: Pt::new(MARGIN - 8.0, y(h)),
-                    text: h.to_string(),
-                    size: 11.0,
-                    color: look.ink(),
-                    anchor: Anchor::Right,
-                },
-                Tag::Label,
+            scene.label(
+                Pt::new(MARGIN - 8.0, y(h)),
+                h.to_string(),
+                11.0,
+                look.ink(),
+                Anchor::Right,
             );
-            scene.push(
-                ItemKind::Text {
-                    pos: Pt::new(end + 8.0, y(h)),
-                    text: wire.to_string(),
-                    size: 11.0,
-                    color: look.ink(),
-                    anchor: Anchor::Left,
-                },
-                Tag::Label,
+            scene.label(
+                Pt::new(end + 8.0, y(h)),
+                wire.to_string(),
+                11.0,
+                look.ink(),
+                Anchor::Left,
             );
         }
     }

@@ -46,8 +46,27 @@ pub struct Explorer {
     /// The recovery-file timer and the offer of a recovered session.
     pub autosave: Autosave,
     times: FrameTimes,
-    log_frames: bool,
-    continuous_frames: bool,
+    frame_log: FrameLog,
+}
+
+/// What `ELBOWROOM_FRAME_LOG` asks for: nothing (unset), a line per frame on
+/// stderr (any value), or that plus frames drawn back to back (`continuous`),
+/// so that the interval between frames is the whole frame time.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+enum FrameLog {
+    Off,
+    Lines,
+    Continuous,
+}
+
+impl FrameLog {
+    fn from_env() -> FrameLog {
+        match std::env::var_os("ELBOWROOM_FRAME_LOG") {
+            None => FrameLog::Off,
+            Some(v) if v == "continuous" => FrameLog::Continuous,
+            Some(_) => FrameLog::Lines,
+        }
+    }
 }
 
 /// A small exploration of S_5 around the vexillary permutation 15432 (14
@@ -89,9 +108,7 @@ impl Explorer {
             files: FilePanel::default(),
             autosave: Autosave::default(),
             times: FrameTimes::default(),
-            log_frames: std::env::var_os("ELBOWROOM_FRAME_LOG").is_some(),
-            continuous_frames: std::env::var("ELBOWROOM_FRAME_LOG")
-                .is_ok_and(|v| v == "continuous"),
+            frame_log: FrameLog::from_env(),
         }
     }
 
@@ -173,33 +190,14 @@ impl Explorer {
                 _ => self.dreams.ui(ui, &mut ctx),
             }
         });
-        let figures = match self.session.view {
-            View::Dreams => self.dreams.figures(),
-            View::Words => self.words.figures(),
-            View::Quotient if !self.session.quotient.survey => self.quotient.figures(),
-            View::Permutohedron => self.solid.figures(),
-            _ => Vec::new(),
+        // figures and tables are gathered (tables built) only while the export window is open
+        let exports = if self.files.action == Some(FileAction::Export) {
+            self.exports()
+        } else {
+            Vec::new()
         };
-        // tables are built for export only while the export window is open
-        let exporting = self.files.action == Some(FileAction::Export);
-        let tables = match self.session.view {
-            _ if !exporting => Vec::new(),
-            View::Hessenberg => self.hessenberg.tables(),
-            View::Permutohedron => self.solid.tables(),
-            View::Quotient => self.quotient.tables(self.session.quotient.survey),
-            _ => Vec::new(),
-        };
-        let figures: Exports = figures
-            .into_iter()
-            .map(|(name, s)| (name, Exportable::Figure(s)))
-            .chain(
-                tables
-                    .into_iter()
-                    .map(|(name, t)| (name, Exportable::Table(t))),
-            )
-            .collect();
         self.files
-            .ui(ui.ctx(), &mut self.session, &figures, &mut self.message);
+            .ui(ui.ctx(), &mut self.session, &exports, &mut self.message);
         self.autosave.offer_ui(ui.ctx(), &mut self.session);
         if let Some(m) = self.autosave.tick(&self.session, ui.ctx()) {
             self.message = Some(m);
@@ -209,10 +207,8 @@ impl Explorer {
         }
         let took = started.elapsed();
         self.times.record(took);
-        if self.log_frames {
-            // with ELBOWROOM_FRAME_LOG=continuous, frames follow each other without
-            // pause, so the interval is the whole frame time (build, paint, swap)
-            if self.continuous_frames {
+        if self.frame_log != FrameLog::Off {
+            if self.frame_log == FrameLog::Continuous {
                 ui.ctx().request_repaint();
             }
             eprintln!(
@@ -222,6 +218,33 @@ impl Explorer {
                 ui.input(|i| i.unstable_dt) * 1e3
             );
         }
+    }
+
+    /// The current view's figures and tables, for the export window.
+    fn exports(&mut self) -> Exports {
+        let survey = self.session.quotient.survey;
+        let figures = match self.session.view {
+            View::Dreams => self.dreams.figures(),
+            View::Words => self.words.figures(),
+            View::Quotient if !survey => self.quotient.figures(),
+            View::Permutohedron => self.solid.figures(),
+            _ => Vec::new(),
+        };
+        let tables = match self.session.view {
+            View::Hessenberg => self.hessenberg.tables(),
+            View::Permutohedron => self.solid.tables(),
+            View::Quotient if survey => self.quotient.survey.tables(),
+            _ => Vec::new(),
+        };
+        figures
+            .into_iter()
+            .map(|(name, s)| (name, Exportable::Figure(s)))
+            .chain(
+                tables
+                    .into_iter()
+                    .map(|(name, t)| (name, Exportable::Table(t))),
+            )
+            .collect()
     }
 
     fn shortcuts(&mut self, ui: &mut egui::Ui) {

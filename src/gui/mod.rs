@@ -12,6 +12,7 @@ pub mod files;
 pub mod picker;
 pub mod scene_painter;
 pub mod status;
+pub mod table_source;
 pub mod theme;
 pub mod views;
 

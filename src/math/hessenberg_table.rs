@@ -159,24 +159,50 @@ pub fn hessenberg_table(
     let (listed, chosen) = chosen_permutations(h, select)?;
     progress.set_total(chosen.len() as u64);
     let functional = HessenbergFunctional::new(h)?;
+    // one contiguous batch per thread, so neighbouring permutations share a memo
     let threads = rayon::current_num_threads().max(1);
     let batch = chosen.len().div_ceil(threads).max(1);
+    let entries = in_batches(
+        &chosen,
+        batch,
+        progress,
+        || TransitionValues {
+            functional: &functional,
+            memo: HashMap::new(),
+        },
+        |memo, w| {
+            let mut word: Vec<u8> = w.one_line().iter().map(|&v| v as u8).collect();
+            Ok(BigInt::from(memo.value(Mono::ONE, &mut word)?))
+        },
+    )?;
+    Ok(HessenbergTable {
+        h: h.clone(),
+        entries,
+        listed,
+    })
+}
+
+/// Computes `value(state, w)` for every chosen (index, w) on rayon's pool, in
+/// batches of `batch` neighbouring permutations that each start a fresh
+/// `state` (a memo), counting progress and stopping with `Canceled` when asked.
+fn in_batches<S>(
+    chosen: &[(usize, Perm)],
+    batch: usize,
+    progress: &Progress,
+    fresh: impl Fn() -> S + Sync,
+    value: impl Fn(&mut S, &Perm) -> MathResult<BigInt> + Sync,
+) -> MathResult<Vec<TableEntry>> {
     let batches: Vec<MathResult<Vec<TableEntry>>> = chosen
         .par_chunks(batch)
         .map(|chunk| {
-            let mut memo = TransitionValues {
-                functional: &functional,
-                memo: HashMap::new(),
-            };
+            let mut state = fresh();
             let mut out = Vec::with_capacity(chunk.len());
             for (index, w) in chunk {
                 progress.check()?;
-                let mut word: Vec<u8> = w.one_line().iter().map(|&v| v as u8).collect();
-                let value = memo.value(Mono::ONE, &mut word)?;
                 out.push(TableEntry {
                     index: *index,
                     perm: w.clone(),
-                    value: BigInt::from(value),
+                    value: value(&mut state, w)?,
                 });
                 progress.advance(1);
             }
@@ -190,11 +216,7 @@ pub fn hessenberg_table(
     if progress.is_canceled() {
         return Err(MathError::Canceled);
     }
-    Ok(HessenbergTable {
-        h: h.clone(),
-        entries,
-        listed,
-    })
+    Ok(entries)
 }
 
 /// T(m, w) = DS_h(m · S_w), memoized, computed by transition (see the module notes).
@@ -252,32 +274,9 @@ pub fn hessenberg_table_by_polynomials(
     progress.set_total(chosen.len() as u64);
     let functional = HessenbergFunctional::new(h)?;
     let batch = (chosen.len() / (rayon::current_num_threads().max(1) * 16)).clamp(1, 512);
-    let batches: Vec<MathResult<Vec<TableEntry>>> = chosen
-        .par_chunks(batch)
-        .map(|chunk| {
-            let mut memo = SchubertTable::new();
-            let mut out = Vec::with_capacity(chunk.len());
-            for (index, w) in chunk {
-                progress.check()?;
-                let s = memo.get(w);
-                let value = functional.apply(&s);
-                out.push(TableEntry {
-                    index: *index,
-                    perm: w.clone(),
-                    value,
-                });
-                progress.advance(1);
-            }
-            Ok(out)
-        })
-        .collect();
-    let mut entries = Vec::with_capacity(chosen.len());
-    for b in batches {
-        entries.extend(b?);
-    }
-    if progress.is_canceled() {
-        return Err(MathError::Canceled);
-    }
+    let entries = in_batches(&chosen, batch, progress, SchubertTable::new, |memo, w| {
+        Ok(functional.apply(&memo.get(w)))
+    })?;
     Ok(HessenbergTable {
         h: h.clone(),
         entries,

@@ -3,7 +3,7 @@
 #![allow(dead_code, clippy::unwrap_used)]
 
 use serde_json::Value;
-use std::process::{Command, Output};
+use std::process::{Command, Output, Stdio};
 
 /// Runs `elbowroom ARGS...` and returns what it did.
 pub fn run(args: &[&str]) -> Output {
@@ -38,4 +38,22 @@ pub fn rejects(args: &[&str], needle: &str) {
     let err = String::from_utf8_lossy(&out.stderr);
     assert_eq!(err.trim().lines().count(), 1, "{args:?}: one line: {err}");
     assert!(err.contains(needle), "{args:?}: {err}");
+}
+
+/// Starts `elbowroom ARGS...`, sends it SIGINT (as Ctrl-C does) after
+/// `after_ms` milliseconds, and returns what it did.
+pub fn interrupted(args: &[&str], after_ms: u64) -> Output {
+    let child = Command::new(env!("CARGO_BIN_EXE_elbowroom"))
+        .args(args)
+        .stdout(Stdio::piped())
+        .stderr(Stdio::piped())
+        .spawn()
+        .unwrap();
+    std::thread::sleep(std::time::Duration::from_millis(after_ms));
+    let status = Command::new("kill")
+        .args(["-INT", &child.id().to_string()])
+        .status()
+        .unwrap();
+    assert!(status.success(), "kill -INT failed");
+    child.wait_with_output().unwrap()
 }

@@ -4,11 +4,11 @@
 //! clicking a row makes w current everywhere.
 
 use super::computing;
-use crate::engine::requests::Output;
 use crate::engine::{Fetch, JobKey, Slot};
 use crate::figure::result_tables;
 use crate::figure::table::Table;
 use crate::gui::AppCtx;
+use crate::gui::table_source::TableSource;
 use crate::math::Perm;
 use crate::math::hessenberg_table::TableEntry;
 use eframe::egui::{self, Rect, Sense, Stroke, Vec2};
@@ -25,12 +25,10 @@ pub struct HessenbergView {
     /// The h whose table was asked for.
     pub wanted: Option<Vec<usize>>,
     order: Option<(Vec<usize>, String, bool, Vec<usize>)>,
-    /// The result shown, with the h it is for.
-    shown: Option<(Vec<usize>, Arc<Output>)>,
     /// The summary line of the result shown (totals over every row, so kept).
     summary: Option<(Vec<usize>, String)>,
-    /// The export table of the result shown, built when an export asks for it.
-    export: Option<(Vec<usize>, Arc<Table>)>,
+    /// The table shown (keyed by h), for export.
+    export: TableSource<Vec<usize>>,
 }
 
 /// Sets h(i) = j and adjusts the other values so that h stays a Hessenberg
@@ -56,21 +54,12 @@ pub fn default_h(n: usize) -> Vec<usize> {
 }
 
 impl HessenbergView {
-    /// The tables this view can export: the coefficients a^h_w on screen
-    /// (built on the first call for a new table, so only when exporting).
+    /// The tables this view can export: the coefficients a^h_w on screen.
     pub fn tables(&mut self) -> Vec<(String, Arc<Table>)> {
-        let Some((h, out)) = &self.shown else {
-            return Vec::new();
-        };
-        if self.export.as_ref().is_none_or(|(k, _)| k != h)
-            && let Some(table) = out.hessenberg()
-        {
-            let built = Arc::new(result_tables::hessenberg_table(table));
-            self.export = Some((h.clone(), built));
-        }
         self.export
-            .iter()
-            .map(|(_, t)| ("the table of a^h_w".to_string(), t.clone()))
+            .table(|_, out| out.hessenberg().map(result_tables::hessenberg_table))
+            .map(|(_, t)| ("the table of a^h_w".to_string(), t))
+            .into_iter()
             .collect()
     }
 
@@ -202,9 +191,7 @@ impl HessenbergView {
         let Some(table) = out.hessenberg() else {
             return;
         };
-        if self.shown.as_ref().is_none_or(|(k, _)| *k != wanted) {
-            self.shown = Some((wanted.clone(), out.clone()));
-        }
+        self.export.show(&wanted, &out);
         if self.summary.as_ref().is_none_or(|(k, _)| *k != wanted) {
             let negatives = table
                 .entries

@@ -12,7 +12,6 @@ use crate::engine::{Fetch, JobKey, Slot};
 use crate::figure::Tag;
 use crate::figure::look::Look;
 use crate::figure::paths::{PathPanel, path_grid_scene};
-use crate::figure::table::Table;
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
 use crate::math::groebner::MAX_QUOTIENT_N;
@@ -31,15 +30,6 @@ pub struct QuotientView {
 }
 
 impl QuotientView {
-    /// The tables this view can export: the survey, when it is shown.
-    pub fn tables(&mut self, showing_survey: bool) -> Vec<(String, Arc<Table>)> {
-        if showing_survey {
-            self.survey.tables()
-        } else {
-            Vec::new()
-        }
-    }
-
     /// The figures this view can export: the grid of lattice paths.
     pub fn figures(&self) -> Vec<(String, Arc<crate::figure::Scene>)> {
         self.scene

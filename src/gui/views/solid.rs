@@ -13,6 +13,7 @@ use crate::figure::table::Table;
 use crate::figure::volume::volume_plot_scene;
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
+use crate::gui::table_source::TableSource;
 use crate::math::permutohedron::rational_to_f64;
 use eframe::egui;
 use egui_plot::{Line, Plot, Points};
@@ -32,8 +33,8 @@ pub struct SolidView {
     polytope: Slot,
     polytope_scene: Option<Arc<Scene>>,
     plot_scene: Option<Arc<Scene>>,
-    /// The mixed Eulerian numbers shown, ready for export, with their n.
-    eulerian_table: Option<(usize, Arc<Table>)>,
+    /// The mixed Eulerian numbers shown (keyed by n), for export.
+    eulerian_table: TableSource<usize>,
 }
 
 /// Reads an exact rational: `3`, `-2`, `3/2`, or a decimal such as `1.25`.
@@ -107,10 +108,16 @@ impl SolidView {
     }
 
     /// The tables this view can export: the mixed Eulerian numbers of n.
-    pub fn tables(&self) -> Vec<(String, Arc<Table>)> {
+    pub fn tables(&mut self) -> Vec<(String, Arc<Table>)> {
         self.eulerian_table
-            .iter()
-            .map(|(n, t)| (format!("the mixed Eulerian numbers of n = {n}"), t.clone()))
+            .table(|n, out| match out {
+                Output::Eulerian(rows) => {
+                    Some(crate::figure::result_tables::eulerian_table(*n, rows))
+                }
+                _ => None,
+            })
+            .map(|(n, t)| (format!("the mixed Eulerian numbers of n = {n}"), t))
+            .into_iter()
             .collect()
     }
 
@@ -291,10 +298,7 @@ impl SolidView {
                 let Output::Eulerian(rows) = out.as_ref() else {
                     return;
                 };
-                if self.eulerian_table.as_ref().is_none_or(|(k, _)| *k != n) {
-                    let built = Arc::new(crate::figure::result_tables::eulerian_table(n, rows));
-                    self.eulerian_table = Some((n, built));
-                }
+                self.eulerian_table.show(&n, out);
                 egui::ScrollArea::vertical()
                     .id_salt("eulerian")
                     .max_height(ui.available_height() - 4.0)

@@ -10,6 +10,7 @@ use crate::engine::{Fetch, JobKey, Slot};
 use crate::figure::result_tables::survey_table;
 use crate::figure::table::Table;
 use crate::gui::AppCtx;
+use crate::gui::table_source::TableSource;
 use crate::math::groebner::MAX_QUOTIENT_N;
 use crate::math::survey::SurveyEntry;
 use eframe::egui;
@@ -26,31 +27,24 @@ pub struct SurveyPanel {
     pub wanted: Option<usize>,
     /// Show only the counterexamples.
     pub only_counterexamples: bool,
-    /// The survey shown, with its n.
-    shown: Option<(usize, Arc<Output>)>,
     /// The summary line of the survey shown (a pass over every entry, so kept).
     summary: Option<(usize, String)>,
-    /// The export table of the survey shown, built when an export asks for it.
-    export: Option<(usize, Arc<Table>)>,
+    /// The survey shown (keyed by n), for export.
+    export: TableSource<usize>,
     /// Row order: counterexamples first, then lexicographic (indices into the entries).
     order: Option<(usize, bool, Vec<usize>)>,
 }
 
 impl SurveyPanel {
-    /// The tables this panel can export: the survey shown (without normal
-    /// forms; built on the first call for a new survey, so only when exporting).
+    /// The tables this panel can export: the survey shown (without normal forms).
     pub fn tables(&mut self) -> Vec<(String, Arc<Table>)> {
-        let Some((n, out)) = &self.shown else {
-            return Vec::new();
-        };
-        if self.export.as_ref().is_none_or(|(k, _)| k != n)
-            && let Output::Survey(entries) = out.as_ref()
-        {
-            self.export = Some((*n, Arc::new(survey_table(*n, entries, true))));
-        }
         self.export
-            .iter()
-            .map(|(n, t)| (format!("the positivity survey of S_{n}"), t.clone()))
+            .table(|n, out| match out {
+                Output::Survey(entries) => Some(survey_table(*n, entries, true)),
+                _ => None,
+            })
+            .map(|(n, t)| (format!("the positivity survey of S_{n}"), t))
+            .into_iter()
             .collect()
     }
 
@@ -105,9 +99,7 @@ impl SurveyPanel {
         let Output::Survey(entries) = out.as_ref() else {
             return false;
         };
-        if self.shown.as_ref().is_none_or(|(k, _)| *k != wanted) {
-            self.shown = Some((wanted, out.clone()));
-        }
+        self.export.show(&wanted, &out);
         if self.summary.as_ref().is_none_or(|(k, _)| *k != wanted) {
             let bad = entries.iter().filter(|e| !e.nonnegative()).count();
             let text = if bad == 0 {
