@@ -8,11 +8,11 @@
 use criterion::{Criterion, criterion_group, criterion_main};
 use elbowroom::math::Perm;
 use elbowroom::math::Progress;
-use elbowroom::math::pipe_dream::{PipeDream, pipe_dreams};
-use elbowroom::math::schubert::{SchubertTable, schubert_by_divided_differences};
-use elbowroom::math::words::{
+use elbowroom::math::perms::words::{
     count_reduced_words, count_reduced_words_by_rank, count_reduced_words_layered, reduced_words,
 };
+use elbowroom::math::pipes::dream::{PipeDream, pipe_dreams};
+use elbowroom::math::schubert::polynomial::{SchubertTable, schubert_by_divided_differences};
 use std::collections::HashSet;
 use std::hint::black_box;
 use std::time::Duration;

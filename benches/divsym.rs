@@ -3,11 +3,11 @@
 #![allow(missing_docs, clippy::unwrap_used)]
 
 use criterion::{Criterion, criterion_group, criterion_main};
-use elbowroom::math::divsym::{divided_symmetrize, divided_symmetrize_at};
-use elbowroom::math::hessenberg::HessenbergFn;
-use elbowroom::math::hessenberg_table::{hessenberg_table, hessenberg_table_by_polynomials};
-use elbowroom::math::mixed_eulerian::mixed_eulerian_numbers;
-use elbowroom::math::permutohedron::Permutohedron;
+use elbowroom::math::hessenberg::divsym::{divided_symmetrize, divided_symmetrize_at};
+use elbowroom::math::hessenberg::function::HessenbergFn;
+use elbowroom::math::hessenberg::table::{hessenberg_table, hessenberg_table_by_polynomials};
+use elbowroom::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
+use elbowroom::math::permutohedra::permutohedron::Permutohedron;
 use elbowroom::math::{Mono, PolyBuilder, Progress, RatPoly};
 use num_bigint::BigInt;
 use num_rational::BigRational;
@@ -137,7 +137,7 @@ fn benches(c: &mut Criterion) {
         b.iter(|| black_box(hessenberg_table(&h5, &all, &Progress::new(0)).unwrap()))
     });
     let t5 = hessenberg_table(&h5, &all, &Progress::new(0)).unwrap();
-    let mut memo = elbowroom::math::schubert::SchubertTable::new();
+    let mut memo = elbowroom::math::schubert::polynomial::SchubertTable::new();
     let polys: Vec<RatPoly> = t5
         .entries
         .iter()

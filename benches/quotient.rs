@@ -4,9 +4,9 @@
 #![allow(clippy::unwrap_used, missing_docs)]
 
 use criterion::{Criterion, criterion_group, criterion_main};
-use elbowroom::math::groebner::{QuasiGroebner, monomials_of_degree};
-use elbowroom::math::quotient::{normal_form, quotient};
-use elbowroom::math::survey::survey;
+use elbowroom::math::quotient::groebner::{QuasiGroebner, monomials_of_degree};
+use elbowroom::math::quotient::normal_form::{normal_form, quotient};
+use elbowroom::math::quotient::survey::survey;
 use elbowroom::math::{Perm, Progress, RatPoly};
 use num_bigint::BigInt;
 use num_rational::BigRational;

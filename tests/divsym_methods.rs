@@ -2,12 +2,12 @@
 //! Σ_σ σ(f)(p) / σ(D_h)(p), evaluated exactly at generic rational points.
 #![allow(clippy::unwrap_used)]
 
-use elbowroom::math::divsym::{
+use elbowroom::math::hessenberg::divsym::{
     HessenbergFunctional, PostnikovFunctional, descent_set_counts, divided_symmetrize,
     divided_symmetrize_at,
 };
-use elbowroom::math::hessenberg::HessenbergFn;
-use elbowroom::math::permutohedron::weak_compositions;
+use elbowroom::math::hessenberg::function::HessenbergFn;
+use elbowroom::math::permutohedra::permutohedron::weak_compositions;
 use elbowroom::math::{Mono, RatPoly};
 use num_bigint::BigInt;
 use num_rational::BigRational;

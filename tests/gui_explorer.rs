@@ -12,7 +12,7 @@ use elbowroom::figure::dream::{CELL, cell_origin};
 use elbowroom::gui::Explorer;
 use elbowroom::gui::app::demo_session;
 use elbowroom::math::Perm;
-use elbowroom::math::pipe_dream::count_pipe_dreams;
+use elbowroom::math::pipes::dream::count_pipe_dreams;
 use elbowroom::session::model::View;
 use std::time::{Duration, Instant};
 

@@ -2,12 +2,12 @@
 //! the Schubert expansion of Anderson–Tymoczko's class, and reduced words.
 #![allow(clippy::unwrap_used)]
 
-use elbowroom::math::divsym::divided_symmetrize_number_by_definition;
-use elbowroom::math::hessenberg::HessenbergFn;
-use elbowroom::math::hessenberg_table::{hessenberg_table, perms_of_length};
-use elbowroom::math::mixed_eulerian::mixed_eulerian_numbers;
-use elbowroom::math::schubert::SchubertTable;
-use elbowroom::math::words;
+use elbowroom::math::hessenberg::divsym::divided_symmetrize_number_by_definition;
+use elbowroom::math::hessenberg::function::HessenbergFn;
+use elbowroom::math::hessenberg::table::{hessenberg_table, perms_of_length};
+use elbowroom::math::perms::words;
+use elbowroom::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
+use elbowroom::math::schubert::polynomial::SchubertTable;
 use elbowroom::math::{IntPoly, MathError, Perm, Progress};
 use num_bigint::BigInt;
 use num_rational::BigRational;
@@ -151,7 +151,7 @@ fn coefficients_are_averages_of_mixed_eulerian_numbers_over_reduced_words() {
     // form of the class of the permutohedral variety (Nadeau, Tewari, "Divided symmetrization
     // and quasisymmetric functions", from memory; it has the shape of Macdonald's identity
     // Σ_{a in R(w)} a_1 ... a_l = l! S_w(1, ..., 1)). The two sides share no code: the right side
-    // counts reduced words by content (math::words) and takes A_c from the mixed Eulerian walk.
+    // counts reduced words by content (math::perms::words) and takes A_c from the mixed Eulerian walk.
     for n in 2..=7 {
         let h = HessenbergFn::default_for(n).unwrap();
         let a: BTreeMap<Vec<u32>, BigInt> = mixed_eulerian_numbers(n, &Progress::new(0))
@@ -204,7 +204,7 @@ fn shards_partition_the_table_and_cancel_stops_the_work() {
 
 #[test]
 fn transition_values_agree_with_schubert_polynomials() {
-    use elbowroom::math::hessenberg_table::hessenberg_table_by_polynomials;
+    use elbowroom::math::hessenberg::table::hessenberg_table_by_polynomials;
     let mut cases: Vec<HessenbergFn> = (1..=5).flat_map(HessenbergFn::all).collect();
     cases.extend((6..=8).map(|n| HessenbergFn::default_for(n).unwrap()));
     cases.push(HessenbergFn::new(&[3, 3, 4, 6, 6, 6]).unwrap());

@@ -2,7 +2,7 @@
 //! reader agrees with arithmetic done directly on polynomials.
 #![allow(clippy::unwrap_used)]
 
-use elbowroom::math::parse::parse_poly;
+use elbowroom::math::poly::parse::parse_poly;
 use elbowroom::math::{MathError, Mono, RatPoly};
 use num_bigint::BigInt;
 use num_rational::BigRational;

@@ -8,7 +8,7 @@
 //! `ELBOWROOM_REQUIRE_SCIPY=1` is set, as `.ci/run` does: there a missing
 //! SciPy is a failure, so CI cannot skip the check silently.
 
-use elbowroom::math::permutohedron::{Permutohedron, rational_to_f64};
+use elbowroom::math::permutohedra::permutohedron::{Permutohedron, rational_to_f64};
 use num_rational::BigRational;
 use std::io::Write;
 use std::process::{Command, Stdio};

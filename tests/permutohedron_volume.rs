@@ -2,10 +2,12 @@
 //! independent methods inside the crate, and a general convex-hull library.
 #![allow(clippy::unwrap_used)]
 
-use elbowroom::math::divsym::divided_symmetrize_at;
-use elbowroom::math::hessenberg::HessenbergFn;
-use elbowroom::math::mixed_eulerian::{mixed_eulerian_number, mixed_eulerian_numbers};
-use elbowroom::math::permutohedron::{
+use elbowroom::math::hessenberg::divsym::divided_symmetrize_at;
+use elbowroom::math::hessenberg::function::HessenbergFn;
+use elbowroom::math::permutohedra::mixed_eulerian::{
+    mixed_eulerian_number, mixed_eulerian_numbers,
+};
+use elbowroom::math::permutohedra::permutohedron::{
     Permutohedron, factorial, rational_to_f64, volume_polynomial,
 };
 use elbowroom::math::{Progress, RatPoly};

@@ -4,12 +4,12 @@
 //! (Lam–Lee–Shimozono 2021).
 #![allow(clippy::unwrap_used)]
 
-use elbowroom::math::bumpless::{bumpless_dreams, count_bumpless};
-use elbowroom::math::pipe_dream::{
+use elbowroom::math::pipes::bumpless::{bumpless_dreams, count_bumpless};
+use elbowroom::math::pipes::dream::{
     PipeDream, count_pipe_dreams, count_pipe_dreams_by_polynomial, pipe_dreams,
 };
-use elbowroom::math::pipe_moves::MoveKind;
-use elbowroom::math::schubert::SchubertTable;
+use elbowroom::math::pipes::moves::MoveKind;
+use elbowroom::math::schubert::polynomial::SchubertTable;
 use elbowroom::math::{IntPoly, Mono, Perm};
 use num_bigint::{BigInt, BigUint};
 use proptest::prelude::*;
@@ -128,7 +128,7 @@ fn catalan_counts_for_one_followed_by_a_decreasing_run() {
 /// (common practice; Macdonald 1991, (4.7) from memory).
 #[test]
 fn dominant_permutations_have_one_dream() {
-    use elbowroom::math::perm_class::{PermClass, classes_of};
+    use elbowroom::math::perms::class::{PermClass, classes_of};
     for w in Perm::all(6) {
         if classes_of(&w).contains(&PermClass::Dominant) {
             assert_eq!(pipe_dreams(&w).count(), 1, "w = {w}");
@@ -206,7 +206,7 @@ fn bumpless_counts_match_pipe_dream_counts_in_s6() {
 
 #[test]
 fn bumpless_tiles_round_trip() {
-    use elbowroom::math::bumpless::BumplessDream;
+    use elbowroom::math::pipes::bumpless::BumplessDream;
     for w in Perm::all(4) {
         for d in bumpless_dreams(&w) {
             let again = BumplessDream::from_tiles(4, d.tiles().to_vec()).unwrap();

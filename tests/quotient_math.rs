@@ -3,11 +3,13 @@
 //! against the definition of divided symmetrization.
 #![allow(clippy::unwrap_used)]
 
-use elbowroom::math::divsym::PostnikovFunctional;
-use elbowroom::math::groebner::{QuasiGroebner, is_standard, monomials_of_degree};
-use elbowroom::math::lattice_path::{LatticePath, Step};
-use elbowroom::math::quasisym::{compositions, fundamental_qsym, monomial_qsym, refinements};
-use elbowroom::math::quotient::{divsym_via_quotient, hilbert_series, normal_form, quotient};
+use elbowroom::math::hessenberg::divsym::PostnikovFunctional;
+use elbowroom::math::poly::quasisym::{compositions, fundamental_qsym, monomial_qsym, refinements};
+use elbowroom::math::quotient::groebner::{QuasiGroebner, is_standard, monomials_of_degree};
+use elbowroom::math::quotient::lattice_path::{LatticePath, Step};
+use elbowroom::math::quotient::normal_form::{
+    divsym_via_quotient, hilbert_series, normal_form, quotient,
+};
 use elbowroom::math::{IntPoly, Mono, Perm, RatPoly};
 use num_bigint::BigInt;
 use num_rational::BigRational;
@@ -459,7 +461,7 @@ fn divided_symmetrization_through_the_quotient_n7() {
     }
 }
 
-/// Against the crate's other method, Postnikov's descent formula (`math::divsym`,
+/// Against the crate's other method, Postnikov's descent formula (`math::hessenberg::divsym`,
 /// Postnikov 2009): DS_n(x^a) for every monomial of degree n - 1, n <= 8.
 #[test]
 fn divided_symmetrization_agrees_with_the_descent_formula() {
@@ -494,7 +496,7 @@ fn basis_coefficients_are_units_and_leads_are_corners() {
         let mut by_last = vec![0usize; n];
         for e in q.elements() {
             let x = e.corner.exps(n);
-            assert!(elbowroom::math::groebner::is_corner(&x), "{x:?}");
+            assert!(elbowroom::math::quotient::groebner::is_corner(&x), "{x:?}");
             by_last[x.iter().rposition(|&a| a > 0).unwrap()] += 1;
             for (m, c) in &e.tail {
                 assert!(n >= 7 || *c == 1 || *c == -1, "n = {n}: coefficient {c}");

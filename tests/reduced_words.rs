@@ -4,12 +4,12 @@
 
 use elbowroom::math::Perm;
 use elbowroom::math::Progress;
-use elbowroom::math::schubert::SchubertTable;
-use elbowroom::math::words::{
+use elbowroom::math::perms::words::{
     apply_word_move, content, count_reduced_words, count_reduced_words_by_rank,
     count_reduced_words_layered, count_reduced_words_vexillary, counts_by_content, reduced_words,
     word_moves,
 };
+use elbowroom::math::schubert::polynomial::SchubertTable;
 use num_bigint::{BigInt, BigUint};
 use num_traits::{One, ToPrimitive, Zero};
 use proptest::prelude::*;
@@ -220,7 +220,7 @@ fn moves_stay_in_and_connect_the_reduced_words() {
 
 #[test]
 fn moves_that_do_not_apply_are_refused() {
-    use elbowroom::math::words::WordMove;
+    use elbowroom::math::perms::words::WordMove;
     assert!(apply_word_move(&[1, 2], WordMove::Commute { at: 0 }).is_err());
     assert!(apply_word_move(&[1, 2, 3], WordMove::Braid { at: 0 }).is_err());
     assert!(apply_word_move(&[1, 3], WordMove::Commute { at: 1 }).is_err());

@@ -2,8 +2,8 @@
 //! dreams), stability under S_n ⊂ S_{n+1}, and Macdonald's tables (1991).
 #![allow(clippy::unwrap_used)]
 
-use elbowroom::math::pipe_dream::pipe_dreams;
-use elbowroom::math::schubert::{SchubertTable, schubert_by_divided_differences};
+use elbowroom::math::pipes::dream::pipe_dreams;
+use elbowroom::math::schubert::polynomial::{SchubertTable, schubert_by_divided_differences};
 use elbowroom::math::{IntPoly, Mono, Perm, PolyBuilder};
 use num_bigint::BigInt;
 

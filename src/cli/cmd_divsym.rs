@@ -3,9 +3,9 @@
 use super::args::DivsymArgs;
 use super::error::CliError;
 use super::json;
-use crate::math::divsym::divided_symmetrize;
-use crate::math::hessenberg::HessenbergFn;
-use crate::math::parse::parse_poly;
+use crate::math::hessenberg::divsym::divided_symmetrize;
+use crate::math::hessenberg::function::HessenbergFn;
+use crate::math::poly::parse::parse_poly;
 use serde_json::{Value, json};
 
 /// Reads `--n` and `--h` into a Hessenberg function (default h(i) = i + 1).

@@ -5,9 +5,9 @@ use super::args::DreamsArgs;
 use super::error::CliError;
 use super::json;
 use crate::math::Perm;
-use crate::math::bumpless::bumpless_dreams;
-use crate::math::mono::exponents_text;
-use crate::math::pipe_dream::{count_pipe_dreams, pipe_dreams};
+use crate::math::pipes::bumpless::bumpless_dreams;
+use crate::math::pipes::dream::{count_pipe_dreams, pipe_dreams};
+use crate::math::poly::mono::exponents_text;
 use num_bigint::BigUint;
 use serde_json::{Value, json};
 

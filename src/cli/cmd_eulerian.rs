@@ -7,7 +7,7 @@ use super::error::CliError;
 use super::interrupt;
 use super::json;
 use crate::figure::result_tables::eulerian_table;
-use crate::math::mixed_eulerian::mixed_eulerian_numbers;
+use crate::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
 use num_bigint::BigInt;
 use serde_json::{Value, json};
 

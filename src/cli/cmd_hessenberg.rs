@@ -11,7 +11,7 @@ use super::interrupt;
 use super::json;
 use super::shard::Shard;
 use crate::figure::result_tables;
-use crate::math::hessenberg_table::{HessenbergTable, hessenberg_table};
+use crate::math::hessenberg::table::{HessenbergTable, hessenberg_table};
 use serde_json::{Value, json};
 
 /// The value of "kind" in this command's JSON.

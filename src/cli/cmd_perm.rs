@@ -3,9 +3,9 @@
 use super::args::PermArgs;
 use super::error::CliError;
 use super::json;
-use crate::math::pipe_dream::count_pipe_dreams;
-use crate::math::words::count_reduced_words_with;
-use crate::math::{Perm, Progress, perm_class::classes_of};
+use crate::math::perms::words::count_reduced_words_with;
+use crate::math::pipes::dream::count_pipe_dreams;
+use crate::math::{Perm, Progress, perms::class::classes_of};
 use serde_json::json;
 
 /// Runs the command.

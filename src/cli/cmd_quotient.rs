@@ -3,9 +3,9 @@
 
 use super::error::CliError;
 use super::json;
-use crate::math::groebner::MAX_QUOTIENT_N;
-use crate::math::lattice_path::{LatticePath, Step};
-use crate::math::quotient::{hilbert_series, quotient};
+use crate::math::quotient::groebner::MAX_QUOTIENT_N;
+use crate::math::quotient::lattice_path::{LatticePath, Step};
+use crate::math::quotient::normal_form::{hilbert_series, quotient};
 use clap::Args;
 use serde_json::{Value, json};
 

@@ -3,9 +3,9 @@
 
 use super::error::CliError;
 use super::json;
-use crate::math::groebner::MAX_QUOTIENT_N;
-use crate::math::parse::parse_poly;
-use crate::math::quotient::{normal_form, quotient};
+use crate::math::poly::parse::parse_poly;
+use crate::math::quotient::groebner::MAX_QUOTIENT_N;
+use crate::math::quotient::normal_form::{normal_form, quotient};
 use clap::Args;
 use serde_json::json;
 

@@ -3,7 +3,7 @@
 use super::args::SchubertArgs;
 use super::error::CliError;
 use super::json;
-use crate::math::{Perm, schubert::schubert};
+use crate::math::{Perm, schubert::polynomial::schubert};
 use serde_json::json;
 
 /// Runs the command.

@@ -11,8 +11,8 @@ use super::json;
 use super::shard::Shard;
 use crate::figure::result_tables::survey_table;
 use crate::math::Perm;
-use crate::math::groebner::MAX_QUOTIENT_N;
-use crate::math::survey::{SurveyEntry, survey};
+use crate::math::quotient::groebner::MAX_QUOTIENT_N;
+use crate::math::quotient::survey::{SurveyEntry, survey};
 use clap::Args;
 use serde_json::{Value, json};
 

@@ -3,7 +3,9 @@
 use super::args::VolumeArgs;
 use super::error::CliError;
 use super::json;
-use crate::math::permutohedron::{POLYNOMIAL_MAX_N, Permutohedron, volume_polynomial};
+use crate::math::permutohedra::permutohedron::{
+    POLYNOMIAL_MAX_N, Permutohedron, volume_polynomial,
+};
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use serde_json::{Value, json};

@@ -3,7 +3,7 @@
 use super::args::WordsArgs;
 use super::error::CliError;
 use super::json;
-use crate::math::words::{count_reduced_words_with, reduced_words};
+use crate::math::perms::words::{count_reduced_words_with, reduced_words};
 use crate::math::{Perm, Progress};
 use serde_json::json;
 

@@ -1,20 +1,20 @@
 //! What the explorer can ask for, keyed by its inputs, and how each answer is
 //! computed (always by the same `math` functions the command line uses).
 
-use crate::math::bumpless::{BumplessDream, bumpless_dreams};
-use crate::math::divsym::{DividedSymmetrization, divided_symmetrize};
-use crate::math::groebner::MAX_QUOTIENT_N;
-use crate::math::hessenberg::HessenbergFn;
-use crate::math::hessenberg_table::{HessenbergTable, hessenberg_table};
-use crate::math::mixed_eulerian::mixed_eulerian_numbers;
-use crate::math::parse::parse_poly;
-use crate::math::perm_class::PermClass;
-use crate::math::permutohedron::Permutohedron;
-use crate::math::pipe_dream::{PipeDream, count_pipe_dreams, pipe_dreams};
-use crate::math::quotient::{NormalForm, hilbert_series, normal_form, quotient};
-use crate::math::schubert::SchubertTable;
-use crate::math::survey::{SurveyEntry, survey};
-use crate::math::words::{count_reduced_words_with, reduced_words};
+use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize};
+use crate::math::hessenberg::function::HessenbergFn;
+use crate::math::hessenberg::table::{HessenbergTable, hessenberg_table};
+use crate::math::perms::class::PermClass;
+use crate::math::perms::words::{count_reduced_words_with, reduced_words};
+use crate::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
+use crate::math::permutohedra::permutohedron::Permutohedron;
+use crate::math::pipes::bumpless::{BumplessDream, bumpless_dreams};
+use crate::math::pipes::dream::{PipeDream, count_pipe_dreams, pipe_dreams};
+use crate::math::poly::parse::parse_poly;
+use crate::math::quotient::groebner::MAX_QUOTIENT_N;
+use crate::math::quotient::normal_form::{NormalForm, hilbert_series, normal_form, quotient};
+use crate::math::quotient::survey::{SurveyEntry, survey};
+use crate::math::schubert::polynomial::SchubertTable;
 use crate::math::{IntPoly, MathError, MathResult, Perm, Progress};
 use num_bigint::BigInt;
 use num_bigint::BigUint;

@@ -7,8 +7,8 @@ use super::dream::{passage_cmd, side_mid};
 use super::look::Look;
 use super::palette::label_color;
 use super::scene::{Anchor, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
-use crate::math::bumpless::{BumplessDream, Tile};
-use crate::math::pipe_trace::Side;
+use crate::math::pipes::bumpless::{BumplessDream, Tile};
+use crate::math::pipes::trace::Side;
 
 const CELL: f32 = 28.0;
 const MARGIN: f32 = 24.0;
@@ -137,7 +137,7 @@ pub fn bumpless_scene(d: &BumplessDream, look: &Look) -> Scene {
 mod tests {
     use super::*;
     use crate::math::Perm;
-    use crate::math::bumpless::bumpless_dreams;
+    use crate::math::pipes::bumpless::bumpless_dreams;
 
     #[test]
     fn every_pipe_is_traced_for_every_dream_of_1432() {

@@ -6,8 +6,8 @@
 use super::look::Look;
 use super::palette::label_color;
 use super::scene::{Anchor, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
-use crate::math::pipe_dream::PipeDream;
-use crate::math::pipe_trace::Side;
+use crate::math::pipes::dream::PipeDream;
+use crate::math::pipes::trace::Side;
 
 /// Side of a cell in figure units.
 pub const CELL: f32 = 28.0;

@@ -7,7 +7,7 @@
 use super::look::Look;
 use super::palette::label_color;
 use super::scene::{Anchor, Color, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
-use crate::math::lattice_path::{LatticePath, Step};
+use crate::math::quotient::lattice_path::{LatticePath, Step};
 
 /// One panel: the path, the monomial as text, the coefficient as text, and its sign.
 pub struct PathPanel {

@@ -5,7 +5,7 @@
 use super::app_ctx::AppCtx;
 use crate::engine::{BrowseKey, Fetch, JobKey, Slot};
 use crate::math::Perm;
-use crate::math::perm_class::PermClass;
+use crate::math::perms::class::PermClass;
 use eframe::egui;
 use std::collections::HashMap;
 

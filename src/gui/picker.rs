@@ -5,7 +5,7 @@
 use super::app_ctx::{AppCtx, step_history};
 use super::browser::Browser;
 use crate::engine::{Fetch, JobKey, Slot};
-use crate::math::perm_class::classes_of;
+use crate::math::perms::class::classes_of;
 use crate::math::{MathError, MathResult, Perm};
 use eframe::egui;
 

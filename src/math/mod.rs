@@ -2,34 +2,38 @@
 //!
 //! Nothing in here knows about the GUI, files or threads; every quantity
 //! returned is exact (big integers or big rationals where values can grow).
+//!
+//! Grouped by subject, each group a module; arrows run only downward in this
+//! list (a module uses the ones above it, never one below):
+//!
+//! 1. [`error`], [`progress`]: the shared error type and progress/cancel.
+//! 2. [`perms`]: permutations, their classes, reduced words, listings.
+//! 3. [`poly`]: monomials, polynomials, compositions, quasisymmetric and
+//!    symmetric polynomials, and the parser of typed polynomials.
+//! 4. [`schubert`]: Schubert polynomials and the transition step.
+//! 5. [`pipes`]: reduced pipe dreams (moves, traces) and bumpless pipe dreams.
+//! 6. [`hessenberg`]: Hessenberg functions, divided symmetrization, tables.
+//! 7. [`quotient`]: the quasisymmetric quotient Q[x]/J_n, lattice paths, surveys.
+//! 8. [`permutohedra`]: permutohedron volumes and mixed Eulerian numbers.
 
-pub mod bumpless;
-pub mod divsym;
 pub mod error;
-pub mod groebner;
-pub mod hessenberg;
-pub mod hessenberg_table;
-pub mod lattice_path;
-pub mod mixed_eulerian;
-pub mod mono;
-pub mod parse;
-pub mod perm;
-pub mod perm_class;
-pub mod permutohedron;
-pub mod pipe_dream;
-pub mod pipe_moves;
-pub mod pipe_trace;
-pub mod poly;
 pub mod progress;
-pub mod quasisym;
-pub mod quotient;
+
+pub mod perms;
+pub mod poly;
+
 pub mod schubert;
-pub mod survey;
-pub mod symmetric;
-pub mod words;
+
+pub mod pipes;
+
+pub mod hessenberg;
+
+pub mod quotient;
+
+pub mod permutohedra;
 
 pub use error::{MathError, MathResult};
-pub use mono::{MAX_VARS, Mono};
-pub use perm::{MAX_N, Perm};
-pub use poly::{Coeff, IntPoly, Poly, PolyBuilder, RatPoly};
+pub use perms::perm::{MAX_N, Perm};
+pub use poly::mono::{MAX_VARS, Mono};
+pub use poly::polynomial::{Coeff, IntPoly, Poly, PolyBuilder, RatPoly};
 pub use progress::Progress;

@@ -5,7 +5,7 @@
 //! `done`/`total` and may call `cancel`. The mathematics never spawns threads
 //! itself except through rayon inside batch jobs.
 
-use super::error::{MathError, MathResult};
+use crate::math::error::{MathError, MathResult};
 use std::sync::atomic::{AtomicBool, AtomicU64, Ordering};
 
 /// Counters and a cancel flag for one computation.

@@ -12,8 +12,8 @@ use crate::figure::look::Look;
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
-use crate::math::mono::exponents_text;
-use crate::math::pipe_dream::PipeDream;
+use crate::math::pipes::dream::PipeDream;
+use crate::math::poly::mono::exponents_text;
 use crate::math::{MathError, Perm};
 use eframe::egui;
 use std::sync::Arc;
@@ -151,8 +151,8 @@ impl DreamsView {
                         .filter(|m| {
                             matches!(
                                 m.kind,
-                                crate::math::pipe_moves::MoveKind::Ladder
-                                    | crate::math::pipe_moves::MoveKind::Chute
+                                crate::math::pipes::moves::MoveKind::Ladder
+                                    | crate::math::pipes::moves::MoveKind::Chute
                             )
                         })
                         .map(|m| m.from)
@@ -301,7 +301,7 @@ impl DreamsView {
                 ui.label(egui::RichText::new("blank tiles").weak());
                 ui.label(blanks.join(" "));
                 ui.add_space(6.0);
-                if *d == crate::math::bumpless::BumplessDream::rothe(w) {
+                if *d == crate::math::pipes::bumpless::BumplessDream::rothe(w) {
                     ui.label(
                         "This is the Rothe dream: its blank tiles form the Rothe diagram of w.",
                     );

@@ -10,7 +10,7 @@ use crate::figure::table::Table;
 use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
 use crate::math::Perm;
-use crate::math::hessenberg_table::TableEntry;
+use crate::math::hessenberg::table::TableEntry;
 use eframe::egui::{self, Rect, Sense, Stroke, Vec2};
 use num_traits::{Signed, Zero};
 use std::sync::Arc;
@@ -318,7 +318,7 @@ impl HessenbergView {
 #[cfg(test)]
 mod tests {
     use super::*;
-    use crate::math::hessenberg::HessenbergFn;
+    use crate::math::hessenberg::function::HessenbergFn;
 
     #[test]
     fn clicks_keep_h_a_hessenberg_function() {

@@ -14,8 +14,8 @@ use crate::figure::look::Look;
 use crate::figure::paths::{PathPanel, path_grid_scene};
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
-use crate::math::groebner::MAX_QUOTIENT_N;
-use crate::math::lattice_path::LatticePath;
+use crate::math::quotient::groebner::MAX_QUOTIENT_N;
+use crate::math::quotient::lattice_path::LatticePath;
 use eframe::egui;
 use num_traits::Signed;
 use std::sync::Arc;
@@ -96,7 +96,7 @@ impl QuotientView {
                     .font(egui::TextStyle::Monospace)
                     .desired_width(f32::INFINITY),
             );
-            if let Err(e) = crate::math::parse::parse_poly(&place.typed, Some(n)) {
+            if let Err(e) = crate::math::poly::parse::parse_poly(&place.typed, Some(n)) {
                 show_parse_error(ui, &e);
                 return;
             }

@@ -14,7 +14,7 @@ use crate::figure::volume::volume_plot_scene;
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
 use crate::gui::table_source::TableSource;
-use crate::math::permutohedron::rational_to_f64;
+use crate::math::permutohedra::permutohedron::rational_to_f64;
 use eframe::egui;
 use egui_plot::{Line, Plot, Points};
 use num_rational::BigRational;

@@ -11,8 +11,8 @@ use crate::figure::result_tables::survey_table;
 use crate::figure::table::Table;
 use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
-use crate::math::groebner::MAX_QUOTIENT_N;
-use crate::math::survey::SurveyEntry;
+use crate::math::quotient::groebner::MAX_QUOTIENT_N;
+use crate::math::quotient::survey::SurveyEntry;
 use eframe::egui;
 use std::sync::Arc;
 

@@ -10,7 +10,7 @@ use crate::figure::look::Look;
 use crate::figure::wiring::wiring_scene;
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
-use crate::math::words::{WordMove, apply_word_move, content, word_moves};
+use crate::math::perms::words::{WordMove, apply_word_move, content, word_moves};
 use eframe::egui;
 
 /// The word view's UI state.

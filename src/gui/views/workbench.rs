@@ -8,7 +8,7 @@ use crate::engine::requests::Output;
 use crate::engine::{Fetch, JobKey, Slot};
 use crate::gui::AppCtx;
 use crate::math::MathError;
-use crate::math::parse::parse_poly;
+use crate::math::poly::parse::parse_poly;
 use eframe::egui;
 
 /// The workbench's UI state.
@@ -145,7 +145,7 @@ impl WorkbenchView {
         }
         ui.separator();
         let m = h.len();
-        if m > crate::math::groebner::MAX_QUOTIENT_N {
+        if m > crate::math::quotient::groebner::MAX_QUOTIENT_N {
             return;
         }
         let key = JobKey::NormalForm(crate::engine::requests::QuotientInput::Typed(

@@ -7,10 +7,10 @@
 //! word of s_{a_1} w. Its last letter is a right descent (a position i with
 //! w(i) > w(i+1)), and the rest is a reduced word of w s_{a_l}.
 
-use super::error::{MathError, MathResult};
-use super::perm::Perm;
-use super::perm_class::contains_pattern;
-use super::progress::Progress;
+use crate::math::error::{MathError, MathResult};
+use crate::math::perms::class::contains_pattern;
+use crate::math::perms::perm::Perm;
+use crate::math::progress::Progress;
 use num_bigint::BigUint;
 use num_traits::Zero;
 use std::collections::{BTreeMap, HashMap};
@@ -34,7 +34,7 @@ pub struct ReducedWords {
 /// The reduced words of w in lexicographic order, lazily.
 ///
 /// ```
-/// use elbowroom::math::{Perm, words::reduced_words};
+/// use elbowroom::math::{Perm, perms::words::reduced_words};
 /// // w = 321 = s_1 s_2 s_1 = s_2 s_1 s_2
 /// let w = Perm::parse("321").unwrap();
 /// let all: Vec<Vec<usize>> = reduced_words(&w).collect();
@@ -232,7 +232,7 @@ fn count_layers_big(
 /// count (N)! / Π_{k=1}^{n-1} (2k-1)^{n-k}, N = n(n-1)/2 (OEIS A005118).
 ///
 /// ```
-/// use elbowroom::math::{Perm, words::count_reduced_words};
+/// use elbowroom::math::{Perm, perms::words::count_reduced_words};
 /// use num_bigint::BigUint;
 /// // w0 in S_4: 6! / (1^3 3^2 5^1) = 16 (Stanley 1984)
 /// assert_eq!(count_reduced_words(&Perm::longest(4)), BigUint::from(16u32));
@@ -269,7 +269,7 @@ pub fn count_reduced_words_with(w: &Perm, progress: &Progress) -> MathResult<Big
 /// N! / Π_{k=1}^{n-1} (2k-1)^{n-k}.
 ///
 /// ```
-/// use elbowroom::math::{Perm, words::count_reduced_words_vexillary};
+/// use elbowroom::math::{Perm, perms::words::count_reduced_words_vexillary};
 /// use num_bigint::BigUint;
 /// // w0 in S_5: 10! / (1^4 3^3 5^2 7) = 768 (OEIS A005118)
 /// assert_eq!(count_reduced_words_vexillary(&Perm::longest(5)), Some(BigUint::from(768u32)));
@@ -396,7 +396,7 @@ pub fn count_reduced_words_by_rank(w: &Perm, progress: &Progress) -> MathResult<
 /// (empty when too large; see [`counts_by_content_with`]).
 ///
 /// ```
-/// use elbowroom::math::{Perm, words::counts_by_content};
+/// use elbowroom::math::{Perm, perms::words::counts_by_content};
 /// use num_bigint::BigUint;
 /// // 321 has the words 121 and 212
 /// let by = counts_by_content(&Perm::parse("321").unwrap());
@@ -480,7 +480,7 @@ pub enum WordMove {
 /// (commutations before braids at the same position).
 ///
 /// ```
-/// use elbowroom::math::words::{word_moves, WordMove};
+/// use elbowroom::math::perms::words::{word_moves, WordMove};
 /// // 1 3 2 3: 1,3 commute; 3 2 3 is a braid
 /// assert_eq!(
 ///     word_moves(&[1, 3, 2, 3]),
@@ -507,7 +507,7 @@ fn is_braid(a: usize, b: usize, c: usize) -> bool {
 /// Applies a move to a word; an error if the move does not apply there.
 ///
 /// ```
-/// use elbowroom::math::words::{apply_word_move, WordMove};
+/// use elbowroom::math::perms::words::{apply_word_move, WordMove};
 /// // s_1 s_2 s_1 = s_2 s_1 s_2
 /// assert_eq!(apply_word_move(&[1, 2, 1], WordMove::Braid { at: 0 }).unwrap(), vec![2, 1, 2]);
 /// ```

@@ -9,12 +9,12 @@
 //! Runs on rayon's pool, one [`SchubertTable`] per worker; `progress` counts the
 //! permutations done and a cancel request ends the run with [`MathError::Canceled`].
 
-use super::error::{MathError, MathResult};
-use super::mono::Mono;
-use super::perm::Perm;
-use super::progress::Progress;
-use super::quotient::{NormalForm, normal_form, quotient};
-use super::schubert::SchubertTable;
+use crate::math::error::{MathError, MathResult};
+use crate::math::perms::perm::Perm;
+use crate::math::poly::mono::Mono;
+use crate::math::progress::Progress;
+use crate::math::quotient::normal_form::{NormalForm, normal_form, quotient};
+use crate::math::schubert::polynomial::SchubertTable;
 use num_rational::BigRational;
 use num_traits::Zero;
 use rayon::prelude::*;
@@ -58,7 +58,7 @@ impl SurveyEntry {
 /// The survey record of one permutation (computes J_n's data on first use).
 ///
 /// ```
-/// use elbowroom::math::{Perm, survey::survey_one};
+/// use elbowroom::math::{Perm, quotient::survey::survey_one};
 /// // S_{132} = x1 + x2, reversed: x3 + x2 ≡ x2 + x3 (both standard) modulo J_3
 /// let e = survey_one(&Perm::parse("132").unwrap()).unwrap();
 /// assert_eq!(e.normal_form.poly.to_text(), "x2 + x3");
@@ -73,7 +73,7 @@ fn entry(w: &Perm, table: &mut SchubertTable) -> MathResult<SurveyEntry> {
     let n = w.n();
     let q = quotient(n)?;
     let normal_form = if w.length() >= n {
-        normal_form(&q, &super::poly::IntPoly::zero(n))?
+        normal_form(&q, &crate::math::poly::polynomial::IntPoly::zero(n))?
     } else {
         let s = table.get(w);
         normal_form(&q, &s.reverse_vars())?
@@ -87,7 +87,7 @@ fn entry(w: &Perm, table: &mut SchubertTable) -> MathResult<SurveyEntry> {
 /// Surveys the given permutations (all of the same size n <= 8), in parallel, in order.
 ///
 /// ```
-/// use elbowroom::math::{Perm, Progress, survey::survey};
+/// use elbowroom::math::{Perm, Progress, quotient::survey::survey};
 /// let perms: Vec<Perm> = Perm::all(3).collect();
 /// let progress = Progress::new(perms.len() as u64);
 /// let entries = survey(&perms, &progress).unwrap();

@@ -10,7 +10,7 @@
 //! preserve the permutation and the number of crosses; a ladder move shifts one
 //! unit of weight from x_i to x_{i-m}, a chute move from x_i to x_{i+1}.
 
-use super::pipe_dream::PipeDream;
+use crate::math::pipes::dream::PipeDream;
 
 /// The kind of a move between pipe dreams.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
@@ -40,7 +40,7 @@ impl PipeDream {
     /// The ladder move of the cross at (row, col), 1-based, if it applies.
     ///
     /// ```
-    /// use elbowroom::math::{Perm, pipe_dream::PipeDream};
+    /// use elbowroom::math::{Perm, pipes::dream::PipeDream};
     /// // bottom dream of 1432: crosses (2,1), (2,2), (3,1); the cross (3,1) climbs to (1,2)
     /// let d = PipeDream::bottom(&Perm::parse("1432").unwrap());
     /// let e = d.ladder_move_at(3, 1).unwrap();
@@ -66,7 +66,7 @@ impl PipeDream {
     /// transpose of a ladder move).
     ///
     /// ```
-    /// use elbowroom::math::{Perm, pipe_dream::PipeDream};
+    /// use elbowroom::math::{Perm, pipes::dream::PipeDream};
     /// // top dream of 1432: crosses (1,2), (1,3), (2,2); the cross (1,3) chutes to (2,1)
     /// let d = PipeDream::top(&Perm::parse("1432").unwrap());
     /// let e = d.chute_move_at(1, 3).unwrap();

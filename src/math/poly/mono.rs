@@ -134,7 +134,7 @@ impl fmt::Debug for Mono {
 /// `x1^2 x3` for the exponents [2, 0, 1]; `1` for the zero vector.
 ///
 /// ```
-/// use elbowroom::math::mono::exponents_text;
+/// use elbowroom::math::poly::mono::exponents_text;
 /// assert_eq!(exponents_text(&[2, 0, 1]), "x1^2 x3");
 /// assert_eq!(exponents_text(&[0, 0]), "1");
 /// ```

@@ -10,11 +10,11 @@
 //! i = 1..n whose state is the partial sum a_1 + ... + a_i and the relative rank of the
 //! i-th letter of a permutation with descent set S_a: O(n^4) rational operations.
 
-use super::divsym::PostnikovFunctional;
-use super::error::{MathError, MathResult};
-use super::mono::Mono;
-use super::perm::MAX_N;
-use super::poly::{PolyBuilder, RatPoly};
+use crate::math::error::{MathError, MathResult};
+use crate::math::hessenberg::divsym::PostnikovFunctional;
+use crate::math::perms::perm::MAX_N;
+use crate::math::poly::mono::Mono;
+use crate::math::poly::polynomial::{PolyBuilder, RatPoly};
 use num_bigint::{BigInt, BigUint};
 use num_rational::BigRational;
 use num_traits::{One, Zero};
@@ -55,7 +55,7 @@ impl Permutohedron {
     /// The exact (n-1)-dimensional volume of the projection to the first n-1 coordinates.
     ///
     /// ```
-    /// use elbowroom::math::permutohedron::Permutohedron;
+    /// use elbowroom::math::permutohedra::permutohedron::Permutohedron;
     /// use num_rational::BigRational;
     /// // the regular permutohedron λ = (n-1, ..., 0) has volume n^{n-2} (Postnikov; OEIS A000272)
     /// let l: Vec<BigRational> = (0..5).rev().map(|v: i64| BigRational::from_integer(v.into())).collect();
@@ -218,7 +218,7 @@ pub fn rational_to_f64(v: &BigRational) -> f64 {
 /// λ_1 >= ... >= λ_n: Σ_a (-1)^{|S_a|} β_n(S_a) λ^a / a!.
 ///
 /// ```
-/// use elbowroom::math::permutohedron::volume_polynomial;
+/// use elbowroom::math::permutohedra::permutohedron::volume_polynomial;
 /// // n = 2: the segment from (λ1, λ2) to (λ2, λ1) projects to [λ2, λ1]
 /// assert_eq!(volume_polynomial(2).unwrap().to_text(), "x1 - x2");
 /// ```
@@ -251,7 +251,7 @@ pub fn volume_polynomial(n: usize) -> MathResult<RatPoly> {
 /// All weak compositions of `total` into `parts` parts, in decreasing lexicographic order.
 ///
 /// ```
-/// use elbowroom::math::permutohedron::weak_compositions;
+/// use elbowroom::math::permutohedra::permutohedron::weak_compositions;
 /// assert_eq!(weak_compositions(2, 2), vec![vec![2, 0], vec![1, 1], vec![0, 2]]);
 /// ```
 pub fn weak_compositions(total: u32, parts: usize) -> Vec<Vec<u32>> {

@@ -3,8 +3,8 @@
 //! Terms are kept sorted by monomial in decreasing lex order (x_1 > x_2 > ...),
 //! with no zero coefficients, so equality of polynomials is equality of term lists.
 
-use super::error::{MathError, MathResult};
-use super::mono::{MAX_VARS, Mono};
+use crate::math::error::{MathError, MathResult};
+use crate::math::poly::mono::{MAX_VARS, Mono};
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::{One, Signed, Zero};

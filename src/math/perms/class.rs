@@ -1,6 +1,6 @@
 //! Named classes of permutations, by pattern avoidance and by reduced words.
 
-use super::perm::Perm;
+use crate::math::perms::perm::Perm;
 
 /// A class of permutations a researcher filters by.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]

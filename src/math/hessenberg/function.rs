@@ -6,9 +6,9 @@
 //! so that D_h · Q_h = Δ = Π_{i<j} (x_i - x_j). The number of factors of D_h,
 //! Σ_i (h(i) - i), is the dimension of the regular Hessenberg variety of h.
 
-use super::error::{MathError, MathResult};
-use super::perm::MAX_N;
-use super::poly::{IntPoly, RatPoly};
+use crate::math::error::{MathError, MathResult};
+use crate::math::perms::perm::MAX_N;
+use crate::math::poly::polynomial::{IntPoly, RatPoly};
 use num_rational::BigRational;
 use num_traits::One;
 use std::fmt;

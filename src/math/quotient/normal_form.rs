@@ -10,10 +10,10 @@
 //! the tables, so the mathematics stays pure. [`QuasiGroebner::compute`] builds a fresh
 //! copy for callers who want no sharing (benchmarks).
 
-use super::error::{MathError, MathResult};
-use super::groebner::{MAX_QUOTIENT_N, QuasiGroebner};
-use super::mono::Mono;
-use super::poly::{Coeff, Poly, RatPoly};
+use crate::math::error::{MathError, MathResult};
+use crate::math::poly::mono::Mono;
+use crate::math::poly::polynomial::{Coeff, Poly, RatPoly};
+use crate::math::quotient::groebner::{MAX_QUOTIENT_N, QuasiGroebner};
 use num_bigint::BigInt;
 use num_integer::Integer;
 use num_rational::BigRational;
@@ -26,7 +26,7 @@ static CACHE: [Slot; MAX_QUOTIENT_N + 1] = [const { OnceLock::new() }; MAX_QUOTI
 /// The Gröbner data of J_n, computed on first use and shared afterwards.
 ///
 /// ```
-/// use elbowroom::math::quotient::quotient;
+/// use elbowroom::math::quotient::normal_form::quotient;
 /// // dim Q[x1..x4]/J_4 = Catalan(4) = 14 (Aval–Bergeron–Bergeron 2004)
 /// assert_eq!(quotient(4).unwrap().basis().len(), 14);
 /// ```
@@ -69,7 +69,7 @@ impl NormalForm {
 /// The normal form of f modulo J_n (f in at most n variables, any coefficients).
 ///
 /// ```
-/// use elbowroom::math::{parse::parse_poly, quotient::{quotient, normal_form}};
+/// use elbowroom::math::{poly::parse::parse_poly, quotient::normal_form::{quotient, normal_form}};
 /// let q = quotient(3).unwrap();
 /// // x1 ≡ -(x2 + x3), since x1 + x2 + x3 = M_(1) lies in J_3
 /// let f = parse_poly("x1", Some(3)).unwrap();
@@ -111,7 +111,7 @@ pub fn normal_form<C: Coeff>(q: &QuasiGroebner, f: &Poly<C>) -> MathResult<Norma
 /// The graded dimensions of Q[x]/J_n: entry k counts the standard monomials of degree k.
 ///
 /// ```
-/// use elbowroom::math::quotient::{quotient, hilbert_series};
+/// use elbowroom::math::quotient::normal_form::{quotient, hilbert_series};
 /// // n = 4: 1 + 3t + 5t^2 + 5t^3 (the Catalan triangle row, OEIS A009766)
 /// assert_eq!(hilbert_series(&quotient(4).unwrap()), vec![1, 3, 5, 5]);
 /// ```
@@ -136,7 +136,7 @@ pub fn hilbert_series(q: &QuasiGroebner) -> Vec<usize> {
 /// the tests check it against the definition of DS_n.
 ///
 /// ```
-/// use elbowroom::math::{parse::parse_poly, quotient::divsym_via_quotient};
+/// use elbowroom::math::{poly::parse::parse_poly, quotient::normal_form::divsym_via_quotient};
 /// // DS_2(x1) = x1/(x1 - x2) + x2/(x2 - x1) = 1
 /// let f = parse_poly("x1", Some(2)).unwrap();
 /// assert_eq!(divsym_via_quotient(&f, 2).unwrap().to_string(), "1");

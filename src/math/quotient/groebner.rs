@@ -39,10 +39,10 @@
 //! Arithmetic is in `i128` with every operation checked: an overflow (never seen for
 //! n <= 8) or a non-integral coefficient is reported as an error, never rounded.
 
-use super::error::{MathError, MathResult};
-use super::mono::Mono;
-use super::progress::Progress;
-use super::quasisym::{compositions, monomial_qsym};
+use crate::math::error::{MathError, MathResult};
+use crate::math::poly::mono::Mono;
+use crate::math::poly::quasisym::{compositions, monomial_qsym};
+use crate::math::progress::Progress;
 use num_bigint::BigInt;
 use num_traits::ToPrimitive;
 use std::collections::HashMap;
@@ -53,7 +53,7 @@ pub const MAX_QUOTIENT_N: usize = 8;
 /// Whether x^e is standard: e_1 + ... + e_i <= i - 1 for every i.
 ///
 /// ```
-/// use elbowroom::math::groebner::is_standard;
+/// use elbowroom::math::quotient::groebner::is_standard;
 /// assert!(is_standard(&[0, 1, 1, 0]));  // partial sums 0, 1, 2, 2 <= 0, 1, 2, 3
 /// assert!(!is_standard(&[0, 2, 0, 0])); // 0 + 2 > 1
 /// ```
@@ -158,7 +158,7 @@ impl QuasiGroebner {
     /// for cancellation between steps.
     ///
     /// ```
-    /// use elbowroom::math::groebner::QuasiGroebner;
+    /// use elbowroom::math::quotient::groebner::QuasiGroebner;
     /// let g = QuasiGroebner::compute(3, None).unwrap();
     /// // leading corners x1, x2^2, x2 x3^2, x3^3; G_{x1} = x1 + x2 + x3, G_{x2^2} = h_2(x2, x3)
     /// let texts: Vec<String> = g.polys().iter().map(|p| p.to_text()).collect();
@@ -453,11 +453,11 @@ impl QuasiGroebner {
     }
 
     /// The basis elements as integer polynomials in n variables.
-    pub fn polys(&self) -> Vec<super::poly::IntPoly> {
+    pub fn polys(&self) -> Vec<crate::math::poly::polynomial::IntPoly> {
         self.elements
             .iter()
             .map(|e| {
-                super::poly::IntPoly::from_terms(
+                crate::math::poly::polynomial::IntPoly::from_terms(
                     self.n,
                     std::iter::once((e.corner, BigInt::from(1)))
                         .chain(e.tail.iter().map(|&(m, a)| (m, BigInt::from(a)))),
@@ -499,7 +499,7 @@ impl QuasiGroebner {
     /// The normal form of Σ c_m m with integer coefficients, as (basis position, coefficient)
     /// pairs with nonzero coefficients. Monomials in variables beyond x_n are an error.
     pub fn normal_form_int(&self, terms: &[(Mono, BigInt)]) -> MathResult<Vec<(usize, BigInt)>> {
-        let beyond = self.n..super::mono::MAX_VARS;
+        let beyond = self.n..crate::math::poly::mono::MAX_VARS;
         if let Some((m, _)) = terms
             .iter()
             .find(|(m, _)| beyond.clone().any(|i| m.exp(i) > 0))

@@ -8,9 +8,9 @@
 //! nonzero constants. A malformed input gives [`MathError::Syntax`], which
 //! quotes the input and marks the column; reading never panics.
 
-use super::error::{MathError, MathResult};
-use super::mono::{MAX_EXP, MAX_VARS};
-use super::poly::RatPoly;
+use crate::math::error::{MathError, MathResult};
+use crate::math::poly::mono::{MAX_EXP, MAX_VARS};
+use crate::math::poly::polynomial::RatPoly;
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::{One, Zero};
@@ -19,7 +19,7 @@ use num_traits::{One, Zero};
 /// larger index is an error; with `None`, n is the largest index used (at least 1).
 ///
 /// ```
-/// use elbowroom::math::parse::parse_poly;
+/// use elbowroom::math::poly::parse::parse_poly;
 /// let f = parse_poly("(3x1 + 2x_2 + x3)^2 - 3/2", Some(3)).unwrap();
 /// assert_eq!(f.to_text(), "9 x1^2 + 12 x1 x2 + 6 x1 x3 + 4 x2^2 + 4 x2 x3 + x3^2 - 3/2");
 /// assert!(parse_poly("2x1 + * x3", Some(3)).is_err());
@@ -492,7 +492,7 @@ impl Parser<'_> {
 /// The value of a named atom `NAME(a, b, ...)` in `nvars` variables.
 /// Quasisymmetric atoms `M(α)` and `F(α)` are resolved here.
 fn named_atom(name: &str, args: &[usize], nvars: Option<usize>) -> MathResult<RatPoly> {
-    super::quasisym::named_atom(name, args, nvars)
+    crate::math::poly::quasisym::named_atom(name, args, nvars)
 }
 
 fn constant_value(p: &RatPoly) -> Option<BigRational> {

@@ -7,9 +7,9 @@
 //! ε · s_{b - δ}, where b is a sorted decreasingly and ε is the sign of the sort.
 //! Since ∂_{w0} f = A(f)/Δ with Δ = A(x^δ), this computes ∂_{w0} term by term.
 
-use super::error::{MathError, MathResult};
-use super::mono::Mono;
-use super::poly::{Coeff, Poly, PolyBuilder};
+use crate::math::error::{MathError, MathResult};
+use crate::math::poly::mono::Mono;
+use crate::math::poly::polynomial::{Coeff, Poly, PolyBuilder};
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::{One, Zero};
@@ -22,7 +22,7 @@ pub type Partition = Vec<u32>;
 /// with μ padded to n entries.
 ///
 /// ```
-/// use elbowroom::math::symmetric::bialternant;
+/// use elbowroom::math::poly::symmetric::bialternant;
 /// // ∂_{w0} x^δ = 1 = s_∅, and x2^2 x1 = x^{(1,2,0)} gives -s_∅ in three variables
 /// assert_eq!(bialternant(&[2, 1, 0]), Some((1, vec![0, 0, 0])));
 /// assert_eq!(bialternant(&[1, 2, 0]), Some((-1, vec![0, 0, 0])));
@@ -99,7 +99,7 @@ impl Kostka {
     /// K_{μλ}: the largest letter ℓ fills a horizontal strip μ/ν of size λ_ℓ.
     ///
     /// ```
-    /// use elbowroom::math::symmetric::Kostka;
+    /// use elbowroom::math::poly::symmetric::Kostka;
     /// let mut k = Kostka::new();
     /// // s_{21} = m_{21} + 2 m_{111}
     /// assert_eq!(k.number(&[2, 1], &[2, 1]).to_string(), "1");

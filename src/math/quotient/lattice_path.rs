@@ -12,8 +12,8 @@
 //! conversely every such path with a first step east comes from exactly one standard
 //! monomial, which gives Catalan(n) paths.
 
-use super::error::{MathError, MathResult};
-use super::groebner::is_standard;
+use crate::math::error::{MathError, MathResult};
+use crate::math::quotient::groebner::is_standard;
 
 /// One unit step of a path.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
@@ -42,7 +42,7 @@ impl LatticePath {
     /// The path of the standard monomial x^e (an error if e is not standard).
     ///
     /// ```
-    /// use elbowroom::math::lattice_path::{LatticePath, Step};
+    /// use elbowroom::math::quotient::lattice_path::{LatticePath, Step};
     /// // x2 x3 in 3 variables: E N E N E N (the first N stands for x2, the second for x3)
     /// let p = LatticePath::of_monomial(&[0, 1, 1]).unwrap();
     /// assert_eq!(p.word(), "ENENEN");
@@ -104,7 +104,7 @@ impl LatticePath {
     /// cell below the diagonal that the path does not run along.
     ///
     /// ```
-    /// use elbowroom::math::lattice_path::LatticePath;
+    /// use elbowroom::math::quotient::lattice_path::LatticePath;
     /// let p = LatticePath::of_monomial(&[0, 1, 0]).unwrap();
     /// // E N E E N N: the path (0,0) (1,0) (1,1) (2,1) (3,1) (3,2) (3,3)
     /// assert_eq!(p.ascii(), "     .|\n   _ _|\n _|. .");

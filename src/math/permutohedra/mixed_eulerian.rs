@@ -13,13 +13,13 @@
 //! precomputed functionals L_k(x^a) = DS_n(x^a y_{n-1}^k), and DS_n itself is Postnikov's
 //! descent formula.
 
-use super::divsym::PostnikovFunctional;
-use super::error::{MathError, MathResult};
-use super::mono::Mono;
-use super::perm::MAX_N;
-use super::permutohedron::weak_compositions;
-use super::poly::IntPoly;
-use super::progress::Progress;
+use crate::math::error::{MathError, MathResult};
+use crate::math::hessenberg::divsym::PostnikovFunctional;
+use crate::math::perms::perm::MAX_N;
+use crate::math::permutohedra::permutohedron::weak_compositions;
+use crate::math::poly::mono::Mono;
+use crate::math::poly::polynomial::IntPoly;
+use crate::math::progress::Progress;
 use num_bigint::BigInt;
 use rayon::prelude::*;
 use std::collections::HashMap;
@@ -90,7 +90,7 @@ impl MonomialIndex {
 /// of c), for 2 <= n <= 16, with progress counted in compositions and cancellation.
 ///
 /// ```
-/// use elbowroom::math::{Progress, mixed_eulerian::mixed_eulerian_numbers};
+/// use elbowroom::math::{Progress, permutohedra::mixed_eulerian::mixed_eulerian_numbers};
 /// // n = 3: A_{(2,0)} = 1, A_{(1,1)} = 2, A_{(0,2)} = 1 (Postnikov, §16)
 /// let a = mixed_eulerian_numbers(3, &Progress::new(0)).unwrap();
 /// let v: Vec<String> = a.iter().map(|(c, v)| format!("{c:?}={v}")).collect();

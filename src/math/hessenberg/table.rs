@@ -14,13 +14,13 @@
 //! Listing order: permutations of length |h| in lexicographic order of their one-line
 //! notation (equivalently, of their Lehmer codes).
 
-use super::divsym::HessenbergFunctional;
-use super::error::{MathError, MathResult};
-use super::hessenberg::HessenbergFn;
-use super::mono::Mono;
-use super::perm::Perm;
-use super::progress::Progress;
-use super::schubert::SchubertTable;
+use crate::math::error::{MathError, MathResult};
+use crate::math::hessenberg::divsym::HessenbergFunctional;
+use crate::math::hessenberg::function::HessenbergFn;
+use crate::math::perms::perm::Perm;
+use crate::math::poly::mono::Mono;
+use crate::math::progress::Progress;
+use crate::math::schubert::polynomial::SchubertTable;
 use num_bigint::BigInt;
 use num_traits::{Signed, Zero};
 use rayon::prelude::*;
@@ -84,7 +84,7 @@ impl HessenbergTable {
 /// All w in S_n with ℓ(w) = len, in lexicographic order of one-line notation.
 ///
 /// ```
-/// use elbowroom::math::hessenberg_table::perms_of_length;
+/// use elbowroom::math::hessenberg::table::perms_of_length;
 /// let w: Vec<String> = perms_of_length(3, 1).iter().map(|w| w.to_string()).collect();
 /// assert_eq!(w, vec!["132", "213"]);
 /// ```
@@ -143,7 +143,7 @@ fn chosen_permutations(
 /// on rayon's pool, counting progress and stopping with `Canceled` when asked.
 ///
 /// ```
-/// use elbowroom::math::{Progress, hessenberg::HessenbergFn, hessenberg_table::hessenberg_table};
+/// use elbowroom::math::{Progress, hessenberg::function::HessenbergFn, hessenberg::table::hessenberg_table};
 /// // n = 3, h = (2,3,3), |h| = 2: a_{231} = DS_3(S_{231}) = DS_3(x1 x2) = 1 and
 /// // a_{312} = DS_3(x1^2) = 1 (the permutohedral variety has class σ_{213} + σ_{132})
 /// let h = HessenbergFn::new(&[2, 3, 3]).unwrap();

@@ -15,8 +15,8 @@
 //! a < c, b < d, with no other elbow in the rectangle [a, c] × [b, d]; the pipe
 //! through (a, b) is rerouted to turn at (c, b), (c, d) and (a, d) instead.
 
-use super::error::{MathError, MathResult};
-use super::perm::{MAX_N, Perm};
+use crate::math::error::{MathError, MathResult};
+use crate::math::perms::perm::{MAX_N, Perm};
 use std::collections::HashSet;
 use std::fmt;
 
@@ -66,7 +66,7 @@ impl BumplessDream {
     /// The Rothe bumpless pipe dream of w (its blanks are the Rothe diagram of w).
     ///
     /// ```
-    /// use elbowroom::math::{Perm, bumpless::BumplessDream};
+    /// use elbowroom::math::{Perm, pipes::bumpless::BumplessDream};
     /// let w = Perm::parse("2143").unwrap();
     /// let d = BumplessDream::rothe(&w);
     /// assert_eq!(d.blanks(), vec![(1, 1), (3, 3)]);
@@ -236,7 +236,7 @@ impl BumplessDream {
     /// The droop of the `┌` at (a, b) into the blank at (c, d), 1-based, if allowed.
     ///
     /// ```
-    /// use elbowroom::math::{Perm, bumpless::BumplessDream};
+    /// use elbowroom::math::{Perm, pipes::bumpless::BumplessDream};
     /// // 132: the Rothe dream has its blank at (2, 2); the elbow at (1, 1) droops into it
     /// let d = BumplessDream::rothe(&Perm::parse("132").unwrap());
     /// let e = d.droop(1, 1, 2, 2).unwrap();
@@ -364,7 +364,7 @@ impl fmt::Display for BumplessDream {
 /// sorted by blank set for a stable order.
 ///
 /// ```
-/// use elbowroom::math::{Perm, bumpless::bumpless_dreams};
+/// use elbowroom::math::{Perm, pipes::bumpless::bumpless_dreams};
 /// // S_{1432} has five terms, so 1432 has five bumpless pipe dreams
 /// assert_eq!(bumpless_dreams(&Perm::parse("1432").unwrap()).len(), 5);
 /// ```

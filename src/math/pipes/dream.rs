@@ -8,11 +8,11 @@
 //! w = s_{a_1} ... s_{a_l} when that word is reduced. Its weight is Π x_i over
 //! the crosses in row i, and S_w is the sum of the weights of the reduced pipe
 //! dreams of w (Billey–Jockusch–Stanley 1993; Fomin–Kirillov). Moves between
-//! dreams live in [`super::pipe_moves`], pipe tracing in [`super::pipe_trace`].
+//! dreams live in [`crate::math::pipes::moves`], pipe tracing in [`crate::math::pipes::trace`].
 
-use super::error::{MathError, MathResult};
-use super::perm::{MAX_N, Perm};
-use super::schubert::SchubertTable;
+use crate::math::error::{MathError, MathResult};
+use crate::math::perms::perm::{MAX_N, Perm};
+use crate::math::schubert::polynomial::SchubertTable;
 use num_bigint::BigUint;
 use std::collections::HashMap;
 use std::fmt;
@@ -58,7 +58,7 @@ impl PipeDream {
     /// The bottom (Lehmer) dream of w: crosses in columns 1..c_i of row i, c the Lehmer code.
     ///
     /// ```
-    /// use elbowroom::math::{Perm, pipe_dream::PipeDream};
+    /// use elbowroom::math::{Perm, pipes::dream::PipeDream};
     /// let w = Perm::parse("31524").unwrap(); // code 2 0 2 0 0
     /// assert_eq!(PipeDream::bottom(&w).crosses(), vec![(1, 1), (1, 2), (3, 1), (3, 2)]);
     /// ```
@@ -78,7 +78,7 @@ impl PipeDream {
     /// dream of w gives one of w^{-1}).
     ///
     /// ```
-    /// use elbowroom::math::{Perm, pipe_dream::PipeDream};
+    /// use elbowroom::math::{Perm, pipes::dream::PipeDream};
     /// let w = Perm::parse("1432").unwrap(); // w^{-1} = 1432, code 0 2 1 0
     /// assert_eq!(PipeDream::top(&w).crosses(), vec![(1, 2), (1, 3), (2, 2)]);
     /// ```
@@ -149,7 +149,7 @@ impl PipeDream {
     /// The reading word: rows top to bottom, each row right to left, a cross in (i, j) read as i + j - 1.
     ///
     /// ```
-    /// use elbowroom::math::{Perm, pipe_dream::PipeDream};
+    /// use elbowroom::math::{Perm, pipes::dream::PipeDream};
     /// let d = PipeDream::from_crosses(4, &[(1, 1), (1, 3), (2, 1)]).unwrap();
     /// assert_eq!(d.reading_word(), vec![3, 1, 2]);
     /// ```
@@ -251,7 +251,7 @@ pub struct PipeDreams {
 /// walk of the ladder-move tree).
 ///
 /// ```
-/// use elbowroom::math::{Perm, pipe_dream::pipe_dreams};
+/// use elbowroom::math::{Perm, pipes::dream::pipe_dreams};
 /// // S_{1432} = x1^2 x2 + x1^2 x3 + x1 x2^2 + x1 x2 x3 + x2^2 x3: five dreams
 /// let w = Perm::parse("1432").unwrap();
 /// let dreams: Vec<_> = pipe_dreams(&w).collect();
@@ -406,7 +406,7 @@ impl PipeDream {
 /// instead of polynomials (tests check it against the coefficient sum of S_w).
 ///
 /// ```
-/// use elbowroom::math::{Perm, pipe_dream::count_pipe_dreams};
+/// use elbowroom::math::{Perm, pipes::dream::count_pipe_dreams};
 /// use num_bigint::BigUint;
 /// // S_{1432} = x1^2 x2 + x1^2 x3 + x1 x2^2 + x1 x2 x3 + x2^2 x3
 /// assert_eq!(count_pipe_dreams(&Perm::parse("1432").unwrap()), BigUint::from(5u8));

@@ -6,9 +6,9 @@
 //! ℓ(v t_{qr}) = ℓ(w). The reference method applies divided differences to
 //! S_{w0} = x_1^{n-1} x_2^{n-2} ... x_{n-1}.
 
-use super::mono::Mono;
-use super::perm::Perm;
-use super::poly::{IntPoly, PolyBuilder};
+use crate::math::perms::perm::Perm;
+use crate::math::poly::mono::Mono;
+use crate::math::poly::polynomial::{IntPoly, PolyBuilder};
 use num_bigint::BigInt;
 use num_traits::One;
 use std::collections::HashMap;
@@ -39,7 +39,7 @@ impl SchubertTable {
     /// S_w in n variables x_1..x_n (n = the size of w), by transition.
     ///
     /// ```
-    /// use elbowroom::math::{Perm, schubert::SchubertTable};
+    /// use elbowroom::math::{Perm, schubert::polynomial::SchubertTable};
     /// let mut table = SchubertTable::new();
     /// // S_{1432} = x1^2 x2 + x1^2 x3 + x1 x2^2 + x1 x2 x3 + x2^2 x3 (Macdonald's table for S_4)
     /// let s = table.get(&Perm::parse("1432").unwrap());

@@ -8,9 +8,9 @@
 //! The two are computed independently here; Gessel's identity F_α = Σ_{β refines α} M_β
 //! is checked in the tests.
 
-use super::error::{MathError, MathResult};
-use super::mono::{MAX_EXP, MAX_VARS, Mono};
-use super::poly::{IntPoly, PolyBuilder, RatPoly};
+use crate::math::error::{MathError, MathResult};
+use crate::math::poly::mono::{MAX_EXP, MAX_VARS, Mono};
+use crate::math::poly::polynomial::{IntPoly, PolyBuilder, RatPoly};
 use num_bigint::BigInt;
 use num_traits::One;
 
@@ -46,7 +46,7 @@ fn join(alpha: &[u32]) -> String {
 /// The monomial quasisymmetric polynomial M_α in x_1..x_n.
 ///
 /// ```
-/// use elbowroom::math::quasisym::monomial_qsym;
+/// use elbowroom::math::poly::quasisym::monomial_qsym;
 /// // M_(2,1)(x1,x2,x3) = Σ_{i<j} x_i^2 x_j
 /// let m = monomial_qsym(&[2, 1], 3).unwrap();
 /// assert_eq!(m.to_text(), "x1^2 x2 + x1^2 x3 + x2^2 x3");
@@ -81,7 +81,7 @@ pub fn monomial_qsym(alpha: &[u32], nvars: usize) -> MathResult<IntPoly> {
 /// weakly increasing index words with forced strict ascents at the partial sums of α.
 ///
 /// ```
-/// use elbowroom::math::quasisym::fundamental_qsym;
+/// use elbowroom::math::poly::quasisym::fundamental_qsym;
 /// // F_(1,2)(x1,x2) = Σ x_i x_j x_k over i < j <= k = x1 x2^2 (only i=1, j=k=2)
 /// assert_eq!(fundamental_qsym(&[1, 2], 2).unwrap().to_text(), "x1 x2^2");
 /// // F_(2) is the complete homogeneous h_2
@@ -138,7 +138,7 @@ fn fill_words(
 /// All compositions of d (positive parts summing to d), in lex order of part lists.
 ///
 /// ```
-/// use elbowroom::math::quasisym::compositions;
+/// use elbowroom::math::poly::quasisym::compositions;
 /// assert_eq!(compositions(3), vec![vec![1, 1, 1], vec![1, 2], vec![2, 1], vec![3]]);
 /// assert_eq!(compositions(6).len(), 32); // 2^(d-1)
 /// ```

@@ -6,7 +6,7 @@
 //! w·s_i swaps the entries in positions i and i+1 while s_i·w swaps the values
 //! i and i+1. A word a_1...a_l stands for s_{a_1} s_{a_2} ... s_{a_l}.
 
-use super::error::{MathError, MathResult};
+use crate::math::error::{MathError, MathResult};
 use std::fmt;
 
 /// The largest n supported (so that polynomials in x_1..x_n fit a packed monomial).

@@ -10,8 +10,8 @@
 //! product s_{a_1} ... s_{a_l} of its reading word (checked in tests for all
 //! reduced pipe dreams of S_n, n <= 6).
 
-use super::perm::Perm;
-use super::pipe_dream::PipeDream;
+use crate::math::perms::perm::Perm;
+use crate::math::pipes::dream::PipeDream;
 
 /// A side of a tile.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]
@@ -100,7 +100,7 @@ impl PipeDream {
     /// Follows every pipe through the staircase.
     ///
     /// ```
-    /// use elbowroom::math::{Perm, pipe_dream::PipeDream};
+    /// use elbowroom::math::{Perm, pipes::dream::PipeDream};
     /// // the bottom dream of 312 has crosses (1,1), (1,2): pipe 1 runs along row 1 to column 3
     /// let t = PipeDream::bottom(&Perm::parse("312").unwrap()).trace();
     /// assert_eq!(t.pipes[0].exit_col, 3);

@@ -6,7 +6,7 @@
 //! since ∂_{w0} g = Σ_σ sign(σ) σ(g) / Δ (the two sides agree for n = 2, ∂_1 g =
 //! (g - s_1 g)/(x_1 - x_2), and the tests check the sign against the definition).
 //! Term by term, ∂_{w0}(x^a) is ±s_{sort(a) - δ} or 0 (the bialternant rule,
-//! [`super::symmetric::bialternant`]); so DS_h(f) is 0 below degree |h| = Σ(h(i) - i),
+//! [`crate::math::poly::symmetric::bialternant`]); so DS_h(f) is 0 below degree |h| = Σ(h(i) - i),
 //! a number in degree |h| and a symmetric polynomial above.
 //!
 //! Fast path for DS_n (h(i) = i + 1) in degree n - 1 (Postnikov, *Permutohedra,
@@ -15,12 +15,12 @@
 //! S_a = {i in [n-1] : a_1 + ... + a_i < i}; then DS_n(x^a) = (-1)^{|S_a|} β_n(S_a),
 //! where β_n(S) is the number of permutations in S_n with descent set S.
 
-use super::error::{MathError, MathResult};
-use super::hessenberg::HessenbergFn;
-use super::mono::Mono;
-use super::perm::Perm;
-use super::poly::{IntPoly, RatPoly};
-use super::symmetric::{Partition, bialternant, monomial_expansion, schur_to_monomial};
+use crate::math::error::{MathError, MathResult};
+use crate::math::hessenberg::function::HessenbergFn;
+use crate::math::perms::perm::Perm;
+use crate::math::poly::mono::Mono;
+use crate::math::poly::polynomial::{IntPoly, RatPoly};
+use crate::math::poly::symmetric::{Partition, bialternant, monomial_expansion, schur_to_monomial};
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::Zero;
@@ -33,7 +33,7 @@ pub const PAIR_LIMIT: u128 = 2_000_000_000;
 /// indexed by the bit mask of S (bit i - 1 set when i is in S).
 ///
 /// ```
-/// use elbowroom::math::divsym::descent_set_counts;
+/// use elbowroom::math::hessenberg::divsym::descent_set_counts;
 /// // S_3: descent set {} -> 123, {1} -> 213 312, {2} -> 132 231, {1,2} -> 321
 /// assert_eq!(descent_set_counts(3), vec![1, 2, 2, 1]);
 /// ```
@@ -99,7 +99,7 @@ impl PostnikovFunctional {
     /// DS_n(x^a) = (-1)^{|S_a|} β_n(S_a) for a monomial of degree n - 1 (0 for other degrees).
     ///
     /// ```
-    /// use elbowroom::math::{Mono, divsym::PostnikovFunctional};
+    /// use elbowroom::math::{Mono, hessenberg::divsym::PostnikovFunctional};
     /// let ds = PostnikovFunctional::new(3);
     /// // DS_3(x2^2) = -2 and DS_3(x1 x2) = 1
     /// assert_eq!(ds.value(Mono::from_exps(&[0, 2, 0]).unwrap()), -2);
@@ -225,7 +225,7 @@ pub struct DividedSymmetrization {
 /// DS_h(f) for any polynomial f in at most n variables, exactly.
 ///
 /// ```
-/// use elbowroom::math::{Mono, RatPoly, divsym::divided_symmetrize, hessenberg::HessenbergFn};
+/// use elbowroom::math::{Mono, RatPoly, hessenberg::divsym::divided_symmetrize, hessenberg::function::HessenbergFn};
 /// use num_rational::BigRational;
 /// use num_traits::One;
 /// let h = HessenbergFn::default_for(3).unwrap();
@@ -311,7 +311,7 @@ fn check_pairs(a: usize, b: usize) -> MathResult<()> {
 /// distinct coordinates, where p_σ = (p_{σ(1)}, ..., p_{σ(n)}), summed over all n! permutations.
 ///
 /// ```
-/// use elbowroom::math::{Mono, RatPoly, divsym::divided_symmetrize_at, hessenberg::HessenbergFn};
+/// use elbowroom::math::{Mono, RatPoly, hessenberg::divsym::divided_symmetrize_at, hessenberg::function::HessenbergFn};
 /// use num_rational::BigRational;
 /// use num_traits::One;
 /// let h = HessenbergFn::default_for(3).unwrap();

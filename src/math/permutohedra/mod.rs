@@ -1,0 +1,6 @@
+//! Permutohedra P_λ: exact volumes by divided symmetrization, vertices and
+//! drawings, and mixed Eulerian numbers.
+
+pub mod permutohedron;
+
+pub mod mixed_eulerian;

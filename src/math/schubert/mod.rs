@@ -1,0 +1,3 @@
+//! Schubert polynomials: by transition (memoized) and by divided differences.
+
+pub mod polynomial;
