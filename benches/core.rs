@@ -80,7 +80,7 @@ fn words(c: &mut Criterion) {
         b.iter(|| black_box(count_reduced_words_by_rank(&w10, &p).unwrap()))
     });
     g.bench_function("count_w0_s10_hooks", |b| {
-        b.iter(|| black_box(count_reduced_words(&w10)))
+        b.iter(|| black_box(count_reduced_words(&w10).unwrap()))
     });
     g.bench_function("count_w0_s10_layers", |b| {
         b.iter(|| black_box(count_reduced_words_layered(&w10, &p).unwrap()))

@@ -5,7 +5,7 @@
 use criterion::{Criterion, criterion_group, criterion_main};
 use elbowroom::math::hessenberg::divsym::{divided_symmetrize, divided_symmetrize_at};
 use elbowroom::math::hessenberg::function::HessenbergFn;
-use elbowroom::math::hessenberg::table::{hessenberg_table, hessenberg_table_by_polynomials};
+use elbowroom::math::hessenberg::table::{coefficient_table, coefficient_table_by_polynomials};
 use elbowroom::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
 use elbowroom::math::permutohedra::permutohedron::Permutohedron;
 use elbowroom::math::{Mono, PolyBuilder, Progress, RatPoly};
@@ -102,7 +102,7 @@ fn benches(c: &mut Criterion) {
     sorted5.sort_by(|a, b| b.cmp(a));
     let mut lin = RatPoly::zero(5);
     for (i, l) in sorted5.iter().enumerate() {
-        lin = lin.add(&RatPoly::var(5, i).scale(l));
+        lin = lin.add(&RatPoly::var_index(5, i).scale(l));
     }
     let power = lin.pow(4).unwrap();
     let h5 = HessenbergFn::default_for(5).unwrap();
@@ -124,19 +124,21 @@ fn benches(c: &mut Criterion) {
     let all = |_: usize| true;
     let h9 = HessenbergFn::default_for(9).unwrap();
     g.bench_function("table_n9", |b| {
-        b.iter(|| black_box(hessenberg_table(&h9, &all, &Progress::new(0)).unwrap()))
+        b.iter(|| black_box(coefficient_table(&h9, &all, &Progress::new(0)).unwrap()))
     });
     let h10 = HessenbergFn::default_for(10).unwrap();
     g.bench_function("table_n10", |b| {
-        b.iter(|| black_box(hessenberg_table(&h10, &all, &Progress::new(0)).unwrap()))
+        b.iter(|| black_box(coefficient_table(&h10, &all, &Progress::new(0)).unwrap()))
     });
     g.bench_function("table_n9_by_polynomials", |b| {
-        b.iter(|| black_box(hessenberg_table_by_polynomials(&h9, &all, &Progress::new(0)).unwrap()))
+        b.iter(|| {
+            black_box(coefficient_table_by_polynomials(&h9, &all, &Progress::new(0)).unwrap())
+        })
     });
     g.bench_function("table_n5_fast", |b| {
-        b.iter(|| black_box(hessenberg_table(&h5, &all, &Progress::new(0)).unwrap()))
+        b.iter(|| black_box(coefficient_table(&h5, &all, &Progress::new(0)).unwrap()))
     });
-    let t5 = hessenberg_table(&h5, &all, &Progress::new(0)).unwrap();
+    let t5 = coefficient_table(&h5, &all, &Progress::new(0)).unwrap();
     let mut memo = elbowroom::math::schubert::polynomial::SchubertTable::new();
     let polys: Vec<RatPoly> = t5
         .entries

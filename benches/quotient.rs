@@ -5,7 +5,7 @@
 
 use criterion::{Criterion, criterion_group, criterion_main};
 use elbowroom::math::quotient::groebner::{QuasiGroebner, monomials_of_degree};
-use elbowroom::math::quotient::normal_form::{normal_form, quotient};
+use elbowroom::math::quotient::normal_form::{groebner_basis, normal_form};
 use elbowroom::math::quotient::survey::survey;
 use elbowroom::math::{Perm, Progress, RatPoly};
 use num_bigint::BigInt;
@@ -21,7 +21,7 @@ fn divide(f: &RatPoly, divisors: &[RatPoly]) -> RatPoly {
         match divisors.iter().find(|g| g.terms()[0].0.divides(lead)) {
             Some(g) => {
                 let (gl, gc) = &g.terms()[0];
-                p = p.sub(&g.mul_term(gl.quotient_of(lead), &(c / gc)).unwrap());
+                p = p.sub(&g.mul_term(lead.divided_by(*gl), &(c / gc)).unwrap());
             }
             None => {
                 rem = rem.add(&RatPoly::monomial(n, lead, c.clone()));
@@ -58,7 +58,7 @@ fn bench_groebner(c: &mut Criterion) {
 }
 
 fn bench_reduce(c: &mut Criterion) {
-    let q = quotient(8).unwrap();
+    let q = groebner_basis(8).unwrap();
     let f = big_poly(8, 7);
     let mut g = c.benchmark_group("reduce");
     g.sample_size(10);
@@ -66,7 +66,7 @@ fn bench_reduce(c: &mut Criterion) {
         b.iter(|| normal_form(&q, black_box(&f)).unwrap())
     });
     // the naive baseline: division step by step, on a smaller input (n = 6, degree <= 5)
-    let q6 = quotient(6).unwrap();
+    let q6 = groebner_basis(6).unwrap();
     let gb6: Vec<RatPoly> = q6.polys().iter().map(|p| p.to_rational()).collect();
     let f6 = big_poly(6, 5);
     g.bench_function("normal form, n=6, degree <= 5 (tables)", |b| {
@@ -79,7 +79,7 @@ fn bench_reduce(c: &mut Criterion) {
 }
 
 fn bench_survey(c: &mut Criterion) {
-    quotient(7).unwrap();
+    groebner_basis(7).unwrap();
     let perms: Vec<Perm> = Perm::all(7).collect();
     let mut g = c.benchmark_group("survey");
     g.sample_size(10);

@@ -4,7 +4,7 @@
 
 use elbowroom::math::hessenberg::divsym::divided_symmetrize_number_by_definition;
 use elbowroom::math::hessenberg::function::HessenbergFn;
-use elbowroom::math::hessenberg::table::{hessenberg_table, perms_of_length};
+use elbowroom::math::hessenberg::table::{coefficient_table, perms_of_length};
 use elbowroom::math::perms::words;
 use elbowroom::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
 use elbowroom::math::schubert::polynomial::SchubertTable;
@@ -15,7 +15,7 @@ use num_traits::{Signed, Zero};
 use std::collections::{BTreeMap, HashMap};
 
 fn table(h: &HessenbergFn) -> Vec<(Perm, BigInt)> {
-    hessenberg_table(h, &|_| true, &Progress::new(0))
+    coefficient_table(h, &|_| true, &Progress::new(0))
         .unwrap()
         .entries
         .into_iter()
@@ -189,7 +189,7 @@ fn shards_partition_the_table_and_cancel_stops_the_work() {
     let whole = table(&h);
     let mut pieces: Vec<(Perm, BigInt)> = Vec::new();
     for k in 0..3 {
-        let t = hessenberg_table(&h, &|i| i % 3 == k, &Progress::new(0)).unwrap();
+        let t = coefficient_table(&h, &|i| i % 3 == k, &Progress::new(0)).unwrap();
         pieces.extend(t.entries.into_iter().map(|e| (e.perm, e.value)));
     }
     pieces.sort();
@@ -197,20 +197,20 @@ fn shards_partition_the_table_and_cancel_stops_the_work() {
     let p = Progress::new(0);
     p.cancel();
     assert_eq!(
-        hessenberg_table(&h, &|_| true, &p).unwrap_err(),
+        coefficient_table(&h, &|_| true, &p).unwrap_err(),
         MathError::Canceled
     );
 }
 
 #[test]
 fn transition_values_agree_with_schubert_polynomials() {
-    use elbowroom::math::hessenberg::table::hessenberg_table_by_polynomials;
+    use elbowroom::math::hessenberg::table::coefficient_table_by_polynomials;
     let mut cases: Vec<HessenbergFn> = (1..=5).flat_map(HessenbergFn::all).collect();
     cases.extend((6..=8).map(|n| HessenbergFn::default_for(n).unwrap()));
     cases.push(HessenbergFn::new(&[3, 3, 4, 6, 6, 6]).unwrap());
     for h in cases {
-        let fast = hessenberg_table(&h, &|_| true, &Progress::new(0)).unwrap();
-        let slow = hessenberg_table_by_polynomials(&h, &|_| true, &Progress::new(0)).unwrap();
+        let fast = coefficient_table(&h, &|_| true, &Progress::new(0)).unwrap();
+        let slow = coefficient_table_by_polynomials(&h, &|_| true, &Progress::new(0)).unwrap();
         assert_eq!(fast, slow, "h = {h}");
     }
 }

@@ -61,7 +61,7 @@ fn volume_by_definition(lambda: &[BigRational]) -> BigRational {
     sorted.sort_by(|a, b| b.cmp(a));
     let mut lin = RatPoly::zero(n);
     for (i, l) in sorted.iter().enumerate() {
-        lin = lin.add(&RatPoly::var(n, i).scale(l));
+        lin = lin.add(&RatPoly::var_index(n, i).scale(l));
     }
     let f = lin.pow((n - 1) as u32).unwrap();
     let h = HessenbergFn::default_for(n).unwrap();

@@ -8,7 +8,7 @@ use elbowroom::math::poly::quasisym::{compositions, fundamental_qsym, monomial_q
 use elbowroom::math::quotient::groebner::{QuasiGroebner, is_standard, monomials_of_degree};
 use elbowroom::math::quotient::lattice_path::{LatticePath, Step};
 use elbowroom::math::quotient::normal_form::{
-    divsym_via_quotient, hilbert_series, normal_form, quotient,
+    divsym_via_quotient, groebner_basis, hilbert_series, normal_form,
 };
 use elbowroom::math::{IntPoly, Mono, Perm, RatPoly};
 use num_bigint::BigInt;
@@ -33,7 +33,7 @@ fn binomial(n: u64, k: u64) -> u64 {
 fn dimension_is_catalan_a000108() {
     let catalan = [1usize, 1, 2, 5, 14, 42, 132, 429, 1430];
     for (n, &c) in catalan.iter().enumerate().skip(1) {
-        assert_eq!(quotient(n).unwrap().basis().len(), c, "n = {n}");
+        assert_eq!(groebner_basis(n).unwrap().basis().len(), c, "n = {n}");
     }
 }
 
@@ -43,14 +43,20 @@ fn dimension_is_catalan_a000108() {
 /// row 3 = 1, 3, 5, 5 and row 4 = 1, 4, 9, 14, 14, row 7 = 1, 7, 27, 75, 165, 297, 429, 429.
 #[test]
 fn hilbert_series_is_the_catalan_triangle_a009766() {
-    assert_eq!(hilbert_series(&quotient(4).unwrap()), vec![1, 3, 5, 5]);
-    assert_eq!(hilbert_series(&quotient(5).unwrap()), vec![1, 4, 9, 14, 14]);
     assert_eq!(
-        hilbert_series(&quotient(8).unwrap()),
+        hilbert_series(&groebner_basis(4).unwrap()),
+        vec![1, 3, 5, 5]
+    );
+    assert_eq!(
+        hilbert_series(&groebner_basis(5).unwrap()),
+        vec![1, 4, 9, 14, 14]
+    );
+    assert_eq!(
+        hilbert_series(&groebner_basis(8).unwrap()),
         vec![1, 7, 27, 75, 165, 297, 429, 429]
     );
     for n in 1..=8u64 {
-        let h = hilbert_series(&quotient(n as usize).unwrap());
+        let h = hilbert_series(&groebner_basis(n as usize).unwrap());
         assert_eq!(h.len() as u64, n, "the top degree is n - 1");
         for k in 0..n {
             // (n-k)/(n+k)·C(n+k,k), and the A009766 form with m = n - 1
@@ -70,7 +76,7 @@ fn hilbert_series_is_the_catalan_triangle_a009766() {
 #[test]
 fn basis_is_the_set_of_paths_below_the_diagonal() {
     for n in 1..=8usize {
-        let q = quotient(n).unwrap();
+        let q = groebner_basis(n).unwrap();
         let mut from_paths: Vec<Vec<u32>> = Vec::new();
         // all words with n E and n N staying weakly below y = x
         fn walk(n: usize, x: usize, y: usize, e: &mut Vec<u32>, out: &mut Vec<Vec<u32>>) {
@@ -174,7 +180,7 @@ proptest! {
         n in 1usize..=8, alpha in composition_strategy(),
         shifts in proptest::collection::vec((proptest::collection::vec(0u32..3, 8), -5i64..5), 1..4)
     ) {
-        let q = quotient(n).unwrap();
+        let q = groebner_basis(n).unwrap();
         let g = monomial_qsym(&alpha, n).unwrap();
         let mut f = IntPoly::zero(n);
         for (e, c) in shifts {
@@ -193,7 +199,7 @@ proptest! {
         b in proptest::collection::vec((proptest::collection::vec(0u32..4, 7), -6i64..6, 1i64..4), 0..12),
         s in -3i64..4,
     ) {
-        let q = quotient(n).unwrap();
+        let q = groebner_basis(n).unwrap();
         let mk = |t: &[(Vec<u32>, i64, i64)]| RatPoly::from_terms(n, t.iter().map(|(e, p, d)| {
             (Mono::from_exps(&e[..n]).unwrap(), BigRational::new(BigInt::from(*p), BigInt::from(*d)))
         }));
@@ -269,7 +275,7 @@ fn naive_ideal_echelon(n: usize, d: u32) -> BTreeMap<Mono, BTreeMap<Mono, BigRat
 #[test]
 fn groebner_basis_agrees_with_plain_linear_algebra() {
     for n in 1..=5usize {
-        let q = quotient(n).unwrap();
+        let q = groebner_basis(n).unwrap();
         let gb = q.polys();
         for d in 1..=n as u32 {
             let piv = naive_ideal_echelon(n, d);
@@ -313,7 +319,7 @@ fn divide(f: &RatPoly, divisors: &[RatPoly]) -> RatPoly {
         match divisors.iter().find(|g| g.terms()[0].0.divides(lead)) {
             Some(g) => {
                 let (gl, gc) = &g.terms()[0];
-                let t = gl.quotient_of(lead);
+                let t = lead.divided_by(*gl);
                 p = p.sub(&g.mul_term(t, &(c / gc)).unwrap());
             }
             None => {
@@ -331,7 +337,7 @@ fn divide(f: &RatPoly, divisors: &[RatPoly]) -> RatPoly {
 #[test]
 fn buchberger_criterion_holds() {
     for n in 1..=6usize {
-        let gb: Vec<RatPoly> = quotient(n)
+        let gb: Vec<RatPoly> = groebner_basis(n)
             .unwrap()
             .polys()
             .iter()
@@ -347,9 +353,9 @@ fn buchberger_criterion_holds() {
                     continue; // coprime leading terms: the S-pair reduces to 0 (product criterion)
                 }
                 let s = gb[i]
-                    .mul_term(a.quotient_of(lcm), &rat(1))
+                    .mul_term(lcm.divided_by(a), &rat(1))
                     .unwrap()
-                    .sub(&gb[j].mul_term(b.quotient_of(lcm), &rat(1)).unwrap());
+                    .sub(&gb[j].mul_term(lcm.divided_by(b), &rat(1)).unwrap());
                 assert!(divide(&s, &gb).is_zero(), "n = {n}: S({a:?}, {b:?})");
             }
         }
@@ -368,7 +374,7 @@ fn buchberger_criterion_holds() {
 #[test]
 fn corners_without_inner_zeros_give_fundamentals() {
     for n in 1..=6usize {
-        let q = quotient(n).unwrap();
+        let q = groebner_basis(n).unwrap();
         let mut seen = 0;
         for g in q.polys() {
             let e = g.terms()[0].0.exps(n);
@@ -482,7 +488,7 @@ fn divided_symmetrization_agrees_with_the_descent_formula() {
 #[test]
 fn fresh_and_cached_bases_agree() {
     let fresh = QuasiGroebner::compute(6, None).unwrap();
-    assert_eq!(fresh.polys(), quotient(6).unwrap().polys());
+    assert_eq!(fresh.polys(), groebner_basis(6).unwrap().polys());
 }
 
 /// As stated in `groebner`'s documentation: for n <= 6 every coefficient of the reduced
@@ -492,7 +498,7 @@ fn fresh_and_cached_bases_agree() {
 fn basis_coefficients_are_units_and_leads_are_corners() {
     let catalan = [1usize, 1, 2, 5, 14, 42, 132, 429];
     for n in 1..=8usize {
-        let q = quotient(n).unwrap();
+        let q = groebner_basis(n).unwrap();
         let mut by_last = vec![0usize; n];
         for e in q.elements() {
             let x = e.corner.exps(n);

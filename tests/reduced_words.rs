@@ -59,7 +59,7 @@ fn oeis_a005118_agrees_with_the_hook_formula() {
 fn longest_element_counts_match_a005118() {
     for n in 1..=9 {
         assert_eq!(
-            count_reduced_words(&Perm::longest(n)).to_string(),
+            count_reduced_words(&Perm::longest(n)).unwrap().to_string(),
             A005118[n - 1],
             "n = {n}"
         );
@@ -92,7 +92,7 @@ fn rank_and_layered_methods_agree() {
     let big = Perm::parse("12,11,10,9,8,7,6,5,4,3,2,1").unwrap();
     assert!(count_reduced_words_by_rank(&big, &p).unwrap().is_none());
     let small_big = Perm::parse("2,1,3,4,5,6,7,8,9,10,11,12").unwrap();
-    assert_eq!(count_reduced_words(&small_big), BigUint::one());
+    assert_eq!(count_reduced_words(&small_big).unwrap(), BigUint::one());
 }
 
 /// Stanley 1984 / Edelman–Greene 1987: for vexillary w the reduced words are
@@ -114,12 +114,12 @@ fn hook_formula_for_vexillary_permutations_agrees_with_the_count() {
     // and w0 of every size, against A005118 and beyond the reach of the layers
     for n in 1..=10 {
         assert_eq!(
-            count_reduced_words(&Perm::longest(n)).to_string(),
+            count_reduced_words(&Perm::longest(n)).unwrap().to_string(),
             A005118[n - 1]
         );
     }
     assert_eq!(
-        count_reduced_words(&Perm::longest(16)),
+        count_reduced_words(&Perm::longest(16)).unwrap(),
         stanley_staircase(16)
     );
 }
@@ -145,7 +145,7 @@ fn listing_counting_and_naive_recursion_agree_up_to_s6() {
     for n in 1..=6 {
         for w in Perm::all(n) {
             let words: Vec<Vec<usize>> = reduced_words(&w).collect();
-            let count = count_reduced_words(&w);
+            let count = count_reduced_words(&w).unwrap();
             assert_eq!(BigUint::from(words.len()), count, "w = {w}");
             if n <= 5 {
                 assert_eq!(naive_count(&w), count.to_u64().unwrap(), "w = {w}");
@@ -174,7 +174,7 @@ fn contents_tally_the_listed_words() {
     // the total over contents is the count
     let w = Perm::longest(6);
     let total: BigUint = counts_by_content(&w).values().sum();
-    assert_eq!(total, count_reduced_words(&w));
+    assert_eq!(total, count_reduced_words(&w).unwrap());
 }
 
 /// Macdonald, Notes on Schubert Polynomials (1991), (6.11) (number from memory):
@@ -272,6 +272,6 @@ proptest! {
     fn inverse_reverses_words(w in perm_strategy()) {
         // a word of w read backwards is a word of w^{-1}: equal counts
         prop_assume!(w.length() <= 18);
-        prop_assert_eq!(count_reduced_words(&w), count_reduced_words(&w.inverse()));
+        prop_assert_eq!(count_reduced_words(&w).unwrap(), count_reduced_words(&w.inverse()).unwrap());
     }
 }

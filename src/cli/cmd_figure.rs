@@ -35,7 +35,7 @@ use crate::math::poly::mono::exponents_text;
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::lattice_path::LatticePath;
-use crate::math::quotient::normal_form::{normal_form, quotient};
+use crate::math::quotient::normal_form::{groebner_basis, normal_form};
 use crate::math::schubert::polynomial::schubert;
 use crate::math::{MathError, Perm, Progress, RatPoly};
 use clap::{Args, ValueEnum};
@@ -506,7 +506,7 @@ fn paths_scene(
             "n = {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
         )));
     }
-    let q = quotient(n)?;
+    let q = groebner_basis(n)?;
     let nf = normal_form(&q, f)?;
     let mut panels = Vec::with_capacity(nf.coefficients.len());
     for (_, m, c) in &nf.coefficients {

@@ -11,7 +11,7 @@ use super::interrupt;
 use super::json;
 use super::shard::Shard;
 use crate::figure::result_tables;
-use crate::math::hessenberg::table::{HessenbergTable, hessenberg_table};
+use crate::math::hessenberg::table::{HessenbergTable, coefficient_table};
 use serde_json::{Value, json};
 
 /// The value of "kind" in this command's JSON.
@@ -25,7 +25,7 @@ pub fn run(args: &HessenbergArgs) -> Result<String, CliError> {
         None => Shard::WHOLE,
     };
     let table = interrupt::run_interruptible("the table", "permutations", 0, |progress| {
-        hessenberg_table(&h, &|i| shard.selects(i), progress)
+        coefficient_table(&h, &|i| shard.selects(i), progress)
     })?;
     if args.output.json {
         return Ok(json::render(&table_json(&table, shard)));

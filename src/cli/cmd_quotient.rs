@@ -5,7 +5,7 @@ use super::error::CliError;
 use super::json;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::lattice_path::{LatticePath, Step};
-use crate::math::quotient::normal_form::{hilbert_series, quotient};
+use crate::math::quotient::normal_form::{groebner_basis, hilbert_series};
 use clap::Args;
 use serde_json::{Value, json};
 
@@ -44,7 +44,7 @@ pub fn run(args: &QuotientArgs) -> Result<String, CliError> {
             "--n {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
         )));
     }
-    let q = quotient(n)?;
+    let q = groebner_basis(n)?;
     let hilbert = hilbert_series(&q);
     let basis: Vec<Vec<u32>> = q.basis().iter().map(|m| m.exps(n)).collect();
     let mut paths = Vec::with_capacity(basis.len());

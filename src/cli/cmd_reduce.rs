@@ -5,7 +5,7 @@ use super::error::CliError;
 use super::json;
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::{normal_form, quotient};
+use crate::math::quotient::normal_form::{groebner_basis, normal_form};
 use clap::Args;
 use serde_json::json;
 
@@ -31,7 +31,7 @@ pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
         )));
     }
     let f = parse_poly(&args.poly, Some(n))?;
-    let q = quotient(n)?;
+    let q = groebner_basis(n)?;
     let nf = normal_form(&q, &f)?;
     if args.json {
         let coefficients: Vec<_> = nf

@@ -3,7 +3,7 @@
 
 use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize};
 use crate::math::hessenberg::function::HessenbergFn;
-use crate::math::hessenberg::table::{HessenbergTable, hessenberg_table};
+use crate::math::hessenberg::table::{HessenbergTable, coefficient_table};
 use crate::math::perms::class::PermClass;
 use crate::math::perms::words::{count_reduced_words_with, reduced_words};
 use crate::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
@@ -12,7 +12,7 @@ use crate::math::pipes::bumpless::{BumplessDream, bumpless_dreams};
 use crate::math::pipes::dream::{PipeDream, count_pipe_dreams, pipe_dreams};
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::{NormalForm, hilbert_series, normal_form, quotient};
+use crate::math::quotient::normal_form::{NormalForm, groebner_basis, hilbert_series, normal_form};
 use crate::math::quotient::survey::{SurveyEntry, survey};
 use crate::math::schubert::polynomial::SchubertTable;
 use crate::math::{IntPoly, MathError, MathResult, Perm, Progress};
@@ -305,7 +305,7 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
         }
         JobKey::Hessenberg(h) => {
             let h = HessenbergFn::new(h)?;
-            hessenberg_table(&h, &|_| true, progress).map(Output::Hessenberg)
+            coefficient_table(&h, &|_| true, progress).map(Output::Hessenberg)
         }
         JobKey::Volume(lambda) => {
             progress.set_total(1);
@@ -384,7 +384,7 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
                 }
                 QuotientInput::Typed(text, n) => (*n, parse_poly(text, Some(*n))?),
             };
-            let q = quotient(n)?;
+            let q = groebner_basis(n)?;
             progress.advance(1);
             progress.check()?;
             let normal = normal_form(&q, &f)?;

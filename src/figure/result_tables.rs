@@ -21,7 +21,7 @@ pub fn perm_cell(w: &Perm) -> Cell {
 /// ```
 /// use elbowroom::figure::result_tables::hessenberg_table;
 /// use elbowroom::math::hessenberg::function::HessenbergFn;
-/// use elbowroom::math::{Progress, hessenberg::table::hessenberg_table as compute};
+/// use elbowroom::math::{Progress, hessenberg::table::coefficient_table as compute};
 /// // h = (2,3,3): a^h_231 = DS_3(x1 x2) = 1 and a^h_312 = DS_3(x1^2) = 1
 /// let t = compute(&HessenbergFn::new(&[2, 3, 3]).unwrap(), &|_| true, &Progress::new(0)).unwrap();
 /// let csv = hessenberg_table(&t).to_csv();

@@ -10,6 +10,7 @@ use crate::figure::table::Table;
 use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
 use crate::math::Perm;
+use crate::math::hessenberg::function::{default_values, set_value};
 use crate::math::hessenberg::table::TableEntry;
 use eframe::egui::{self, Rect, Sense, Stroke, Vec2};
 use num_traits::{Signed, Zero};
@@ -31,28 +32,6 @@ pub struct HessenbergView {
     export: TableSource<Vec<usize>>,
 }
 
-/// Sets h(i) = j and adjusts the other values so that h stays a Hessenberg
-/// function: weakly increasing, h(k) >= k, h(n) = n (all 1-based).
-pub fn set_h(h: &mut [usize], i: usize, j: usize) {
-    let n = h.len();
-    if i == 0 || i > n || j < i || j > n {
-        return;
-    }
-    h[i - 1] = j;
-    for k in i + 1..=n {
-        h[k - 1] = h[k - 1].max(j);
-    }
-    for k in 1..i {
-        h[k - 1] = h[k - 1].min(j).max(k);
-    }
-    h[n - 1] = n;
-}
-
-/// The default h(i) = i + 1 (capped at n).
-pub fn default_h(n: usize) -> Vec<usize> {
-    (1..=n).map(|i| (i + 1).min(n)).collect()
-}
-
 impl HessenbergView {
     /// The tables this view can export: the coefficients a^h_w on screen.
     pub fn tables(&mut self) -> Vec<(String, Arc<Table>)> {
@@ -67,7 +46,7 @@ impl HessenbergView {
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let place = &mut ctx.session.hessenberg;
         if place.h.is_empty() {
-            place.h = default_h(ctx.session.n.clamp(2, 12));
+            place.h = default_values(ctx.session.n.clamp(2, 12));
         }
         let mut n = place.h.len();
         ui.horizontal(|ui| {
@@ -75,14 +54,14 @@ impl HessenbergView {
             ui.separator();
             ui.label("n");
             if ui.add(egui::DragValue::new(&mut n).range(2..=12)).changed() {
-                place.h = default_h(n);
+                place.h = default_values(n);
             }
             let text: Vec<String> = place.h.iter().map(|v| v.to_string()).collect();
             ui.label(format!("h = ({})", text.join(", ")));
             let dim: usize = place.h.iter().enumerate().map(|(k, v)| v - (k + 1)).sum();
             ui.label(format!("|h| = {dim}"));
             if ui.button("h(i) = i + 1").clicked() {
-                place.h = default_h(n);
+                place.h = default_values(n);
             }
             if ui.button("h(i) = n").clicked() {
                 place.h = vec![n; n];
@@ -138,9 +117,9 @@ impl HessenbergView {
                     && j >= i
                 {
                     if j == h[i - 1] && j > i {
-                        set_h(h, i, j - 1);
+                        set_value(h, i, j - 1);
                     } else {
-                        set_h(h, i, j);
+                        set_value(h, i, j);
                     }
                 }
             }
@@ -311,34 +290,6 @@ impl HessenbergView {
             });
         if let Some(w) = chosen {
             ctx.go_to(w);
-        }
-    }
-}
-
-#[cfg(test)]
-mod tests {
-    use super::*;
-    use crate::math::hessenberg::function::HessenbergFn;
-
-    #[test]
-    fn clicks_keep_h_a_hessenberg_function() {
-        let mut h = default_h(5);
-        set_h(&mut h, 2, 5);
-        assert_eq!(h, vec![2, 5, 5, 5, 5]);
-        set_h(&mut h, 1, 1);
-        assert_eq!(h, vec![1, 5, 5, 5, 5]);
-        set_h(&mut h, 4, 4);
-        assert_eq!(h, vec![1, 4, 4, 4, 5]);
-        // every click of every box of every function leaves a valid function
-        for start in HessenbergFn::all(4) {
-            for i in 1..=4 {
-                for j in i..=4 {
-                    let mut v = start.values().to_vec();
-                    set_h(&mut v, i, j);
-                    assert!(HessenbergFn::new(&v).is_ok(), "{v:?}");
-                    assert_eq!(v[i - 1], if i == 4 { 4 } else { j });
-                }
-            }
         }
     }
 }

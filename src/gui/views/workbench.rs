@@ -81,7 +81,7 @@ impl WorkbenchView {
         let h: Vec<usize> = if ctx.session.workbench.use_h && !hview.is_empty() {
             hview.clone()
         } else {
-            (1..=n).map(|i| (i + 1).min(n)).collect()
+            crate::math::hessenberg::function::default_values(n)
         };
         let text = ctx.session.workbench.poly.clone();
         let stale = self

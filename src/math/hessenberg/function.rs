@@ -79,8 +79,7 @@ impl HessenbergFn {
 
     /// The default h(i) = i + 1 for i < n, h(n) = n, whose DS_h is Postnikov's DS_n.
     pub fn default_for(n: usize) -> MathResult<HessenbergFn> {
-        let values: Vec<usize> = (1..=n).map(|i| (i + 1).min(n)).collect();
-        HessenbergFn::new(&values)
+        HessenbergFn::new(&default_values(n))
     }
 
     /// Every Hessenberg function of size n, in lexicographic order (Catalan(n) of them).
@@ -187,7 +186,7 @@ impl HessenbergFn {
         }
         let mut q = IntPoly::one(n);
         for (i, j) in self.complement_pairs() {
-            let factor = IntPoly::var(n, i - 1).sub(&IntPoly::var(n, j - 1));
+            let factor = IntPoly::var_index(n, i - 1).sub(&IntPoly::var_index(n, j - 1));
             q = q.mul(&factor)?;
         }
         Ok(q)
@@ -198,11 +197,50 @@ impl HessenbergFn {
         let n = self.n();
         let mut d = RatPoly::one(n);
         for (i, j) in self.denominator_pairs() {
-            let factor = RatPoly::var(n, i - 1).sub(&RatPoly::var(n, j - 1));
+            let factor = RatPoly::var_index(n, i - 1).sub(&RatPoly::var_index(n, j - 1));
             d = d.mul(&factor)?;
         }
         Ok(d)
     }
+}
+
+/// The values of the default Hessenberg function, h(i) = i + 1 for i < n and
+/// h(n) = n (empty for n = 0).
+///
+/// ```
+/// use elbowroom::math::hessenberg::function::default_values;
+/// assert_eq!(default_values(4), vec![2, 3, 4, 4]);
+/// ```
+pub fn default_values(n: usize) -> Vec<usize> {
+    (1..=n).map(|i| (i + 1).min(n)).collect()
+}
+
+/// Sets h(i) = j and adjusts the other values so that h stays a Hessenberg
+/// function: weakly increasing, h(k) >= k, h(n) = n (all 1-based). Asking for
+/// a value no Hessenberg function has there (j < i, or i, j outside 1..n)
+/// changes nothing. This is the editing rule of the explorer's h grid.
+///
+/// ```
+/// use elbowroom::math::hessenberg::function::set_value;
+/// let mut h = vec![2, 3, 4, 4];
+/// set_value(&mut h, 3, 3); // h(3) = 3 pulls nothing before it above 3
+/// assert_eq!(h, vec![2, 3, 3, 4]);
+/// set_value(&mut h, 1, 4); // h(1) = 4 pushes every later value up to 4
+/// assert_eq!(h, vec![4, 4, 4, 4]);
+/// ```
+pub fn set_value(h: &mut [usize], i: usize, j: usize) {
+    let n = h.len();
+    if i == 0 || i > n || j < i || j > n {
+        return;
+    }
+    h[i - 1] = j;
+    for k in i + 1..=n {
+        h[k - 1] = h[k - 1].max(j);
+    }
+    for k in 1..i {
+        h[k - 1] = h[k - 1].min(j).max(k);
+    }
+    h[n - 1] = n;
 }
 
 /// The largest size bound of Q_h that [`HessenbergFn::complement_product`] expands.
@@ -250,6 +288,28 @@ mod tests {
         let catalan = [1usize, 1, 2, 5, 14, 42, 132, 429];
         for (n, &count) in catalan.iter().enumerate().skip(1) {
             assert_eq!(HessenbergFn::all(n).len(), count, "n = {n}");
+        }
+    }
+
+    #[test]
+    fn editing_keeps_h_a_hessenberg_function() {
+        let mut h = default_values(5);
+        set_value(&mut h, 2, 5);
+        assert_eq!(h, vec![2, 5, 5, 5, 5]);
+        set_value(&mut h, 1, 1);
+        assert_eq!(h, vec![1, 5, 5, 5, 5]);
+        set_value(&mut h, 4, 4);
+        assert_eq!(h, vec![1, 4, 4, 4, 5]);
+        // every click of every box of every function leaves a valid function
+        for start in HessenbergFn::all(4) {
+            for i in 1..=4 {
+                for j in i..=4 {
+                    let mut v = start.values().to_vec();
+                    set_value(&mut v, i, j);
+                    assert!(HessenbergFn::new(&v).is_ok(), "{v:?}");
+                    assert_eq!(v[i - 1], if i == 4 { 4 } else { j });
+                }
+            }
         }
     }
 }

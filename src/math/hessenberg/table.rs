@@ -9,7 +9,7 @@
 //! T(m, w) = L(m · S_w) for a monomial m satisfies T(m, w) = T(m x_r, v) + Σ_q T(m, v t_{qr})
 //! with T(m, id) = L(m); a^h_w = T(1, w). The values T(m, w) are machine integers,
 //! memoized per half of the listing (one half per core). Reference method
-//! ([`hessenberg_table_by_polynomials`]): S_w from [`SchubertTable`], then L term by term.
+//! ([`coefficient_table_by_polynomials`]): S_w from [`SchubertTable`], then L term by term.
 //!
 //! Listing order: permutations of length |h| in lexicographic order of their one-line
 //! notation (equivalently, of their Lehmer codes).
@@ -147,11 +147,11 @@ fn chosen_permutations(
 /// // n = 3, h = (2,3,3), |h| = 2: a_{231} = DS_3(S_{231}) = DS_3(x1 x2) = 1 and
 /// // a_{312} = DS_3(x1^2) = 1 (the permutohedral variety has class σ_{213} + σ_{132})
 /// let h = HessenbergFn::new(&[2, 3, 3]).unwrap();
-/// let t = hessenberg_table(&h, &|_| true, &Progress::new(0)).unwrap();
+/// let t = coefficient_table(&h, &|_| true, &Progress::new(0)).unwrap();
 /// let values: Vec<String> = t.entries.iter().map(|e| format!("{}:{}", e.perm, e.value)).collect();
 /// assert_eq!(values, vec!["231:1", "312:1"]);
 /// ```
-pub fn hessenberg_table(
+pub fn coefficient_table(
     h: &HessenbergFn,
     select: &(dyn Fn(usize) -> bool + Sync),
     progress: &Progress,
@@ -248,7 +248,7 @@ impl TransitionValues<'_> {
         // s: the largest index > r with w(s) < w(r)
         let s = (r + 1..n).rev().find(|&j| w[j] < w[r]).unwrap_or(r + 1);
         w.swap(r, s); // w is now v = w t_{rs}
-        let mut total = self.value(Mono(m.0 + Mono::var(r).0), w)?;
+        let mut total = self.value(Mono(m.0 + Mono::var_index(r).0), w)?;
         for q in 0..r {
             if w[q] < w[r] && !(q + 1..r).any(|k| w[q] < w[k] && w[k] < w[r]) {
                 w.swap(q, r);
@@ -264,8 +264,8 @@ impl TransitionValues<'_> {
 }
 
 /// The reference method: S_w from [`SchubertTable`] (one memo per batch of neighbouring
-/// permutations), then DS_h term by term. Same arguments and result as [`hessenberg_table`].
-pub fn hessenberg_table_by_polynomials(
+/// permutations), then DS_h term by term. Same arguments and result as [`coefficient_table`].
+pub fn coefficient_table_by_polynomials(
     h: &HessenbergFn,
     select: &(dyn Fn(usize) -> bool + Sync),
     progress: &Progress,

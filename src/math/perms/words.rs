@@ -235,13 +235,14 @@ fn count_layers_big(
 /// use elbowroom::math::{Perm, perms::words::count_reduced_words};
 /// use num_bigint::BigUint;
 /// // w0 in S_4: 6! / (1^3 3^2 5^1) = 16 (Stanley 1984)
-/// assert_eq!(count_reduced_words(&Perm::longest(4)), BigUint::from(16u32));
+/// assert_eq!(count_reduced_words(&Perm::longest(4)).unwrap(), BigUint::from(16u32));
 /// ```
 ///
-/// Returns zero only when the interval below w is too large to count (a layer
-/// beyond [`LAYER_LIMIT`]); use [`count_reduced_words_with`] to get that as an error.
-pub fn count_reduced_words(w: &Perm) -> BigUint {
-    count_reduced_words_with(w, &Progress::default()).unwrap_or_default()
+/// [`MathError::OutOfRange`] when the interval below w is too large to count
+/// (a layer beyond [`LAYER_LIMIT`]); [`count_reduced_words_with`] also reports
+/// progress and can be cancelled.
+pub fn count_reduced_words(w: &Perm) -> MathResult<BigUint> {
+    count_reduced_words_with(w, &Progress::default())
 }
 
 /// [`count_reduced_words`] with progress and cancellation;
@@ -553,7 +554,10 @@ mod tests {
     fn identity_has_the_empty_word() {
         let all: Vec<Vec<usize>> = reduced_words(&Perm::identity(4)).collect();
         assert_eq!(all, vec![Vec::<usize>::new()]);
-        assert_eq!(count_reduced_words(&Perm::identity(1)), BigUint::from(1u8));
+        assert_eq!(
+            count_reduced_words(&Perm::identity(1)).unwrap(),
+            BigUint::from(1u8)
+        );
     }
 
     #[test]

@@ -60,7 +60,7 @@ impl MonomialIndex {
             let mut table = Vec::with_capacity(by_degree[d].len() * n);
             for m in &by_degree[d] {
                 for i in 0..n {
-                    let next = Mono(m.0 + Mono::var(i).0);
+                    let next = Mono(m.0 + Mono::var_index(i).0);
                     table.push(position.get(&next).copied().unwrap_or(0));
                 }
             }
@@ -239,7 +239,7 @@ pub fn mixed_eulerian_number(c: &[u32]) -> MathResult<BigInt> {
     for (k, &e) in c.iter().enumerate() {
         let mut y = IntPoly::zero(n);
         for i in 0..=k {
-            y = y.add(&IntPoly::var(n, i));
+            y = y.add(&IntPoly::var_index(n, i));
         }
         product = product.mul(&y.pow(e)?)?;
     }

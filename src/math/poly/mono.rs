@@ -41,8 +41,8 @@ impl Mono {
         Some(Mono(m))
     }
 
-    /// The variable x_{i+1} (0-based index i).
-    pub fn var(i: usize) -> Mono {
+    /// The variable x_{i+1}, by its 0-based index i (so `var_index(0)` is x_1).
+    pub fn var_index(i: usize) -> Mono {
         Mono(1u128 << Self::shift(i))
     }
 
@@ -97,9 +97,9 @@ impl Mono {
         (0..MAX_VARS).all(|i| self.exp(i) <= other.exp(i))
     }
 
-    /// other / self, assuming `self` divides `other`.
-    pub fn quotient_of(self, other: Mono) -> Mono {
-        Mono(other.0 - self.0)
+    /// self / divisor, assuming `divisor` divides `self`.
+    pub fn divided_by(self, divisor: Mono) -> Mono {
+        Mono(self.0 - divisor.0)
     }
 
     /// The monomial with variables renamed: variable i goes to `map[i]` (0-based).

@@ -408,7 +408,7 @@ impl Parser<'_> {
                         &format!("x{i} is not among the variables x1..x{n} of this computation"),
                     ));
                 }
-                Ok(RatPoly::var(self.nvars, i - 1))
+                Ok(RatPoly::var_index(self.nvars, i - 1))
             }
             Tok::LParen => {
                 let inner = self.expr()?;

@@ -156,9 +156,9 @@ impl<C: Coeff> Poly<C> {
         Self::constant(nvars, C::one())
     }
 
-    /// The variable x_{i+1} (0-based index i < nvars).
-    pub fn var(nvars: usize, i: usize) -> Self {
-        Self::monomial(nvars, Mono::var(i), C::one())
+    /// The variable x_{i+1}, by its 0-based index i < nvars (so `var_index(n, 0)` is x_1).
+    pub fn var_index(nvars: usize, i: usize) -> Self {
+        Self::monomial(nvars, Mono::var_index(i), C::one())
     }
 
     /// c·m.
@@ -631,7 +631,7 @@ mod tests {
     use super::*;
 
     fn x(n: usize, i: usize) -> IntPoly {
-        IntPoly::var(n, i)
+        IntPoly::var_index(n, i)
     }
 
     #[test]

@@ -220,7 +220,7 @@ impl QuasiGroebner {
                         "internal: {m:?} is neither standard, a corner, nor divisible by a corner"
                     )));
                 };
-                let t = c.quotient_of(m);
+                let t = m.divided_by(c);
                 let mut touched = Vec::new();
                 for (s, a) in tails.get(&c).map_or(&[][..], |v| v) {
                     let sm = Mono(s.0 + t.0);

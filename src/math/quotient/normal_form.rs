@@ -20,17 +20,17 @@ use num_rational::BigRational;
 use num_traits::{One, Zero};
 use std::sync::{Arc, OnceLock};
 
-type Slot = OnceLock<MathResult<Arc<QuasiGroebner>>>;
-static CACHE: [Slot; MAX_QUOTIENT_N + 1] = [const { OnceLock::new() }; MAX_QUOTIENT_N + 1];
+type CachedBasis = OnceLock<MathResult<Arc<QuasiGroebner>>>;
+static CACHE: [CachedBasis; MAX_QUOTIENT_N + 1] = [const { OnceLock::new() }; MAX_QUOTIENT_N + 1];
 
 /// The Gröbner data of J_n, computed on first use and shared afterwards.
 ///
 /// ```
-/// use elbowroom::math::quotient::normal_form::quotient;
+/// use elbowroom::math::quotient::normal_form::groebner_basis;
 /// // dim Q[x1..x4]/J_4 = Catalan(4) = 14 (Aval–Bergeron–Bergeron 2004)
-/// assert_eq!(quotient(4).unwrap().basis().len(), 14);
+/// assert_eq!(groebner_basis(4).unwrap().basis().len(), 14);
 /// ```
-pub fn quotient(n: usize) -> MathResult<Arc<QuasiGroebner>> {
+pub fn groebner_basis(n: usize) -> MathResult<Arc<QuasiGroebner>> {
     if n == 0 || n > MAX_QUOTIENT_N {
         return Err(MathError::OutOfRange(format!(
             "the quotient is computed for 1 <= n <= {MAX_QUOTIENT_N}, not n = {n}"
@@ -69,8 +69,8 @@ impl NormalForm {
 /// The normal form of f modulo J_n (f in at most n variables, any coefficients).
 ///
 /// ```
-/// use elbowroom::math::{poly::parse::parse_poly, quotient::normal_form::{quotient, normal_form}};
-/// let q = quotient(3).unwrap();
+/// use elbowroom::math::{poly::parse::parse_poly, quotient::normal_form::{groebner_basis, normal_form}};
+/// let q = groebner_basis(3).unwrap();
 /// // x1 ≡ -(x2 + x3), since x1 + x2 + x3 = M_(1) lies in J_3
 /// let f = parse_poly("x1", Some(3)).unwrap();
 /// assert_eq!(normal_form(&q, &f).unwrap().poly.to_text(), "-x2 - x3");
@@ -111,9 +111,9 @@ pub fn normal_form<C: Coeff>(q: &QuasiGroebner, f: &Poly<C>) -> MathResult<Norma
 /// The graded dimensions of Q[x]/J_n: entry k counts the standard monomials of degree k.
 ///
 /// ```
-/// use elbowroom::math::quotient::normal_form::{quotient, hilbert_series};
+/// use elbowroom::math::quotient::normal_form::{groebner_basis, hilbert_series};
 /// // n = 4: 1 + 3t + 5t^2 + 5t^3 (the Catalan triangle row, OEIS A009766)
-/// assert_eq!(hilbert_series(&quotient(4).unwrap()), vec![1, 3, 5, 5]);
+/// assert_eq!(hilbert_series(&groebner_basis(4).unwrap()), vec![1, 3, 5, 5]);
 /// ```
 pub fn hilbert_series(q: &QuasiGroebner) -> Vec<usize> {
     let mut h = Vec::new();
@@ -142,7 +142,7 @@ pub fn hilbert_series(q: &QuasiGroebner) -> Vec<usize> {
 /// assert_eq!(divsym_via_quotient(&f, 2).unwrap().to_string(), "1");
 /// ```
 pub fn divsym_via_quotient<C: Coeff>(f: &Poly<C>, n: usize) -> MathResult<BigRational> {
-    let q = quotient(n)?;
+    let q = groebner_basis(n)?;
     let part = f.homogeneous_part(n.saturating_sub(1) as u32);
     let nf = normal_form(&q, &part)?;
     let s = nf.coefficient_sum();

@@ -13,7 +13,7 @@ use crate::math::error::{MathError, MathResult};
 use crate::math::perms::perm::Perm;
 use crate::math::poly::mono::Mono;
 use crate::math::progress::Progress;
-use crate::math::quotient::normal_form::{NormalForm, normal_form, quotient};
+use crate::math::quotient::normal_form::{NormalForm, groebner_basis, normal_form};
 use crate::math::schubert::polynomial::SchubertTable;
 use num_rational::BigRational;
 use num_traits::Zero;
@@ -71,7 +71,7 @@ pub fn survey_one(w: &Perm) -> MathResult<SurveyEntry> {
 
 fn entry(w: &Perm, table: &mut SchubertTable) -> MathResult<SurveyEntry> {
     let n = w.n();
-    let q = quotient(n)?;
+    let q = groebner_basis(n)?;
     let normal_form = if w.length() >= n {
         normal_form(&q, &crate::math::poly::polynomial::IntPoly::zero(n))?
     } else {
@@ -104,7 +104,7 @@ pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry
             "a survey takes permutations of one size; {w} is not in S_{n}"
         )));
     }
-    quotient(n)?;
+    groebner_basis(n)?;
     progress.check()?;
     perms
         .par_iter()

@@ -75,7 +75,7 @@ impl SchubertTable {
         // polynomials of smaller support are used as they are, without copies
         let sv = self.get_trimmed(&v);
         for (m, c) in sv.terms() {
-            let mm = Mono(m.0 + Mono::var(r).0);
+            let mm = Mono(m.0 + Mono::var_index(r).0);
             acc.add_term(mm, c);
         }
         for q in 0..r {
