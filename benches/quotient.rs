@@ -4,7 +4,8 @@
 #![allow(clippy::unwrap_used, missing_docs)]
 
 use criterion::{Criterion, criterion_group, criterion_main};
-use elbowroom::math::quotient::groebner::{QuasiGroebner, monomials_of_degree};
+use elbowroom::math::poly::compositions::monomials_of_degree;
+use elbowroom::math::quotient::groebner::QuasiGroebner;
 use elbowroom::math::quotient::normal_form::{groebner_basis, normal_form};
 use elbowroom::math::quotient::survey::survey;
 use elbowroom::math::{Perm, Progress, RatPoly};

@@ -7,7 +7,7 @@ use elbowroom::math::hessenberg::divsym::{
     divided_symmetrize_at,
 };
 use elbowroom::math::hessenberg::function::HessenbergFn;
-use elbowroom::math::permutohedra::permutohedron::weak_compositions;
+use elbowroom::math::poly::compositions::weak_compositions;
 use elbowroom::math::{Mono, RatPoly};
 use num_bigint::BigInt;
 use num_rational::BigRational;

@@ -4,7 +4,8 @@
 
 use elbowroom::math::hessenberg::divsym::divided_symmetrize_number_by_definition;
 use elbowroom::math::hessenberg::function::HessenbergFn;
-use elbowroom::math::hessenberg::table::{coefficient_table, perms_of_length};
+use elbowroom::math::hessenberg::table::coefficient_table;
+use elbowroom::math::perms::listing::perms_of_length;
 use elbowroom::math::perms::words;
 use elbowroom::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
 use elbowroom::math::schubert::polynomial::SchubertTable;

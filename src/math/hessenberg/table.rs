@@ -17,10 +17,12 @@
 use crate::math::error::{MathError, MathResult};
 use crate::math::hessenberg::divsym::HessenbergFunctional;
 use crate::math::hessenberg::function::HessenbergFn;
+use crate::math::perms::listing::perms_of_length;
 use crate::math::perms::perm::Perm;
 use crate::math::poly::mono::Mono;
 use crate::math::progress::Progress;
 use crate::math::schubert::polynomial::SchubertTable;
+use crate::math::schubert::transition::{pivot, raises_length_by_one};
 use num_bigint::BigInt;
 use num_traits::{Signed, Zero};
 use rayon::prelude::*;
@@ -79,42 +81,6 @@ impl HessenbergTable {
             .filter(|e| e.value.is_negative())
             .collect()
     }
-}
-
-/// All w in S_n with ℓ(w) = len, in lexicographic order of one-line notation.
-///
-/// ```
-/// use elbowroom::math::hessenberg::table::perms_of_length;
-/// let w: Vec<String> = perms_of_length(3, 1).iter().map(|w| w.to_string()).collect();
-/// assert_eq!(w, vec!["132", "213"]);
-/// ```
-pub fn perms_of_length(n: usize, len: usize) -> Vec<Perm> {
-    fn go(i: usize, n: usize, rest: usize, code: &mut Vec<usize>, out: &mut Vec<Perm>) {
-        if i == n {
-            if rest == 0
-                && let Ok(w) = Perm::from_code(code, Some(n))
-            {
-                out.push(w);
-            }
-            return;
-        }
-        // c_i <= n - i (1-based i), and the later entries can hold at most Σ_{k>i} (n - k)
-        let cap = n - 1 - i;
-        let later: usize = (i + 1..n).map(|k| n - 1 - k).sum();
-        for c in 0..=cap.min(rest) {
-            if rest - c > later {
-                continue;
-            }
-            code.push(c);
-            go(i + 1, n, rest - c, code, out);
-            code.pop();
-        }
-    }
-    let mut out = Vec::new();
-    if n >= 1 && len <= n * (n - 1) / 2 {
-        go(0, n, len, &mut Vec::with_capacity(n), &mut out);
-    }
-    out
 }
 
 /// The listing of the w of length |h| (its length) and the entries `select`
@@ -239,18 +205,15 @@ impl TransitionValues<'_> {
         if let Some(v) = self.memo.get(&key) {
             return Ok(*v);
         }
-        let n = w.len();
-        let Some(r) = (0..n.saturating_sub(1)).rev().find(|&i| w[i] > w[i + 1]) else {
+        let Some((r, s)) = pivot(w) else {
             let v = i128::try_from(self.functional.value(m)).map_err(|_| overflow())?;
             self.memo.insert(key, v);
             return Ok(v);
         };
-        // s: the largest index > r with w(s) < w(r)
-        let s = (r + 1..n).rev().find(|&j| w[j] < w[r]).unwrap_or(r + 1);
         w.swap(r, s); // w is now v = w t_{rs}
         let mut total = self.value(Mono(m.0 + Mono::var_index(r).0), w)?;
         for q in 0..r {
-            if w[q] < w[r] && !(q + 1..r).any(|k| w[q] < w[k] && w[k] < w[r]) {
+            if raises_length_by_one(w, q, r) {
                 w.swap(q, r);
                 let t = self.value(m, w);
                 w.swap(q, r);

@@ -7,6 +7,7 @@
 //! i and i+1. A word a_1...a_l stands for s_{a_1} s_{a_2} ... s_{a_l}.
 
 use crate::math::error::{MathError, MathResult};
+use crate::math::perms::arrangement::next_arrangement;
 use std::fmt;
 
 /// The largest n supported (so that polynomials in x_1..x_n fit a packed monomial).
@@ -321,25 +322,8 @@ impl Perm {
 
     /// The next permutation in lexicographic order, if any.
     pub fn next_lex(&self) -> Option<Perm> {
-        let mut v = self.values.clone();
-        let n = v.len();
-        if n < 2 {
-            return None;
-        }
-        let mut i = n - 1;
-        while i > 0 && v[i - 1] >= v[i] {
-            i -= 1;
-        }
-        if i == 0 {
-            return None;
-        }
-        let mut j = n - 1;
-        while v[j] <= v[i - 1] {
-            j -= 1;
-        }
-        v.swap(i - 1, j);
-        v[i..].reverse();
-        Some(Perm { values: v })
+        let mut values = self.values.clone();
+        next_arrangement(&mut values).then_some(Perm { values })
     }
 }
 

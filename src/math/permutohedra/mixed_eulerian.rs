@@ -16,7 +16,7 @@
 use crate::math::error::{MathError, MathResult};
 use crate::math::hessenberg::divsym::PostnikovFunctional;
 use crate::math::perms::perm::MAX_N;
-use crate::math::permutohedra::permutohedron::weak_compositions;
+use crate::math::poly::compositions::weak_compositions;
 use crate::math::poly::mono::Mono;
 use crate::math::poly::polynomial::IntPoly;
 use crate::math::progress::Progress;

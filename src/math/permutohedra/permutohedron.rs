@@ -12,7 +12,9 @@
 
 use crate::math::error::{MathError, MathResult};
 use crate::math::hessenberg::divsym::PostnikovFunctional;
+use crate::math::perms::arrangement::prev_arrangement;
 use crate::math::perms::perm::MAX_N;
+use crate::math::poly::compositions::weak_compositions;
 use crate::math::poly::mono::Mono;
 use crate::math::poly::polynomial::{PolyBuilder, RatPoly};
 use num_bigint::{BigInt, BigUint};
@@ -161,7 +163,7 @@ impl Permutohedron {
         // walk the rearrangements of the ranks of λ in decreasing lexicographic order
         let mut current = self.lambda.clone();
         let mut out = vec![current.clone()];
-        while prev_permutation(&mut current) {
+        while prev_arrangement(&mut current) {
             out.push(current.clone());
         }
         Ok(out)
@@ -248,62 +250,9 @@ pub fn volume_polynomial(n: usize) -> MathResult<RatPoly> {
     Ok(b.build())
 }
 
-/// All weak compositions of `total` into `parts` parts, in decreasing lexicographic order.
-///
-/// ```
-/// use elbowroom::math::permutohedra::permutohedron::weak_compositions;
-/// assert_eq!(weak_compositions(2, 2), vec![vec![2, 0], vec![1, 1], vec![0, 2]]);
-/// ```
-pub fn weak_compositions(total: u32, parts: usize) -> Vec<Vec<u32>> {
-    fn go(rest: u32, parts: usize, prefix: &mut Vec<u32>, out: &mut Vec<Vec<u32>>) {
-        if prefix.len() + 1 == parts {
-            prefix.push(rest);
-            out.push(prefix.clone());
-            prefix.pop();
-            return;
-        }
-        for v in (0..=rest).rev() {
-            prefix.push(v);
-            go(rest - v, parts, prefix, out);
-            prefix.pop();
-        }
-    }
-    let mut out = Vec::new();
-    if parts == 0 {
-        if total == 0 {
-            out.push(Vec::new());
-        }
-        return out;
-    }
-    go(total, parts, &mut Vec::with_capacity(parts), &mut out);
-    out
-}
-
 /// n! as a big integer.
 pub fn factorial(n: usize) -> BigUint {
     (1..=n).fold(BigUint::one(), |acc, k| acc * BigUint::from(k))
-}
-
-/// Steps to the previous rearrangement in lexicographic order.
-fn prev_permutation(v: &mut [BigRational]) -> bool {
-    let n = v.len();
-    if n < 2 {
-        return false;
-    }
-    let mut i = n - 1;
-    while i > 0 && v[i - 1] <= v[i] {
-        i -= 1;
-    }
-    if i == 0 {
-        return false;
-    }
-    let mut j = n - 1;
-    while v[j] >= v[i - 1] {
-        j -= 1;
-    }
-    v.swap(i - 1, j);
-    v[i..].reverse();
-    true
 }
 
 #[cfg(test)]

@@ -13,6 +13,7 @@
 use crate::math::error::{MathError, MathResult};
 use crate::math::perms::perm::{MAX_N, Perm};
 use crate::math::schubert::polynomial::SchubertTable;
+use crate::math::schubert::transition::{partners, pivot, trim_fixed_points};
 use num_bigint::BigUint;
 use std::collections::HashMap;
 use std::fmt;
@@ -413,37 +414,23 @@ impl PipeDream {
 /// ```
 pub fn count_pipe_dreams(w: &Perm) -> BigUint {
     let mut memo: HashMap<Vec<u8>, BigUint> = HashMap::new();
-    let core = trim(w.as_bytes());
-    transition_count(&core, &mut memo)
-}
-
-/// Drops the fixed points at the end (S_w does not change under S_n ⊂ S_{n+1}).
-fn trim(w: &[u8]) -> Vec<u8> {
-    let mut m = w.len();
-    while m > 1 && w[m - 1] as usize == m {
-        m -= 1;
-    }
-    w[..m].to_vec()
+    transition_count(trim_fixed_points(w.as_bytes()), &mut memo)
 }
 
 fn transition_count(w: &[u8], memo: &mut HashMap<Vec<u8>, BigUint>) -> BigUint {
     if let Some(c) = memo.get(w) {
         return c.clone();
     }
-    let n = w.len();
-    let Some(r) = (0..n.saturating_sub(1)).rev().find(|&i| w[i] > w[i + 1]) else {
+    let Some((r, s)) = pivot(w) else {
         return BigUint::from(1u8);
     };
-    let s = (r + 1..n).rev().find(|&j| w[j] < w[r]).unwrap_or(r + 1);
     let mut v = w.to_vec();
     v.swap(r, s);
-    let mut total = transition_count(&trim(&v), memo);
-    for q in 0..r {
-        if v[q] < v[r] && !(q + 1..r).any(|k| v[q] < v[k] && v[k] < v[r]) {
-            let mut u = v.clone();
-            u.swap(q, r);
-            total += transition_count(&trim(&u), memo);
-        }
+    let mut total = transition_count(trim_fixed_points(&v), memo);
+    for q in partners(&v, r) {
+        let mut u = v.clone();
+        u.swap(q, r);
+        total += transition_count(trim_fixed_points(&u), memo);
     }
     memo.insert(w.to_vec(), total.clone());
     total

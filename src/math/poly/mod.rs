@@ -1,7 +1,8 @@
 //! Polynomials with exact coefficients, in layers: packed monomials,
-//! sparse polynomials, quasisymmetric and symmetric polynomials, and at the
+//! sparse polynomials, compositions, quasisymmetric and symmetric polynomials, and at the
 //! top the parser of typed polynomials (which knows `M(..)` and `F(..)`).
 
+pub mod compositions;
 pub mod mono;
 pub mod polynomial;
 

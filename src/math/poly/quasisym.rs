@@ -9,6 +9,7 @@
 //! is checked in the tests.
 
 use crate::math::error::{MathError, MathResult};
+use crate::math::poly::compositions::compositions;
 use crate::math::poly::mono::{MAX_EXP, MAX_VARS, Mono};
 use crate::math::poly::polynomial::{IntPoly, PolyBuilder, RatPoly};
 use num_bigint::BigInt;
@@ -133,27 +134,6 @@ fn fill_words(
         fill_words(strict, nvars, word, m.with_exp(j, m.exp(j) + 1), b, one);
         word.pop();
     }
-}
-
-/// All compositions of d (positive parts summing to d), in lex order of part lists.
-///
-/// ```
-/// use elbowroom::math::poly::quasisym::compositions;
-/// assert_eq!(compositions(3), vec![vec![1, 1, 1], vec![1, 2], vec![2, 1], vec![3]]);
-/// assert_eq!(compositions(6).len(), 32); // 2^(d-1)
-/// ```
-pub fn compositions(d: u32) -> Vec<Vec<u32>> {
-    if d == 0 {
-        return vec![Vec::new()];
-    }
-    let mut out = Vec::new();
-    for first in 1..=d {
-        for mut rest in compositions(d - first) {
-            rest.insert(0, first);
-            out.push(rest);
-        }
-    }
-    out
 }
 
 /// The compositions refining α (obtained by splitting its parts), α itself included.

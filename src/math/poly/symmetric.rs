@@ -8,6 +8,7 @@
 //! Since ∂_{w0} f = A(f)/Δ with Δ = A(x^δ), this computes ∂_{w0} term by term.
 
 use crate::math::error::{MathError, MathResult};
+use crate::math::perms::arrangement::next_arrangement;
 use crate::math::poly::mono::Mono;
 use crate::math::poly::polynomial::{Coeff, Poly, PolyBuilder};
 use num_bigint::BigInt;
@@ -205,34 +206,12 @@ pub fn monomial_expansion<C: Coeff>(sym: &BTreeMap<Partition, C>, n: usize) -> M
             let m = Mono::from_exps(&arrangement)
                 .ok_or_else(|| MathError::OutOfRange("an exponent would exceed 255".into()))?;
             b.add_term(m, c);
-            if !next_permutation(&mut arrangement) {
+            if !next_arrangement(&mut arrangement) {
                 break;
             }
         }
     }
     Ok(b.build())
-}
-
-/// Advances to the next distinct rearrangement in increasing lexicographic order.
-fn next_permutation(v: &mut [u32]) -> bool {
-    let n = v.len();
-    if n < 2 {
-        return false;
-    }
-    let mut i = n - 1;
-    while i > 0 && v[i - 1] >= v[i] {
-        i -= 1;
-    }
-    if i == 0 {
-        return false;
-    }
-    let mut j = n - 1;
-    while v[j] <= v[i - 1] {
-        j -= 1;
-    }
-    v.swap(i - 1, j);
-    v[i..].reverse();
-    true
 }
 
 /// The m_λ coefficients of a symmetric polynomial: its coefficients at x^λ for partitions λ.

@@ -40,73 +40,17 @@
 //! n <= 8) or a non-integral coefficient is reported as an error, never rounded.
 
 use crate::math::error::{MathError, MathResult};
+use crate::math::poly::compositions::{compositions, monomials_of_degree};
 use crate::math::poly::mono::Mono;
-use crate::math::poly::quasisym::{compositions, monomial_qsym};
+use crate::math::poly::quasisym::monomial_qsym;
 use crate::math::progress::Progress;
+use crate::math::quotient::standard::{is_corner, is_standard};
 use num_bigint::BigInt;
 use num_traits::ToPrimitive;
 use std::collections::HashMap;
 
 /// The largest n for which the quotient is computed (the tables grow like C(2n, n)).
 pub const MAX_QUOTIENT_N: usize = 8;
-
-/// Whether x^e is standard: e_1 + ... + e_i <= i - 1 for every i.
-///
-/// ```
-/// use elbowroom::math::quotient::groebner::is_standard;
-/// assert!(is_standard(&[0, 1, 1, 0]));  // partial sums 0, 1, 2, 2 <= 0, 1, 2, 3
-/// assert!(!is_standard(&[0, 2, 0, 0])); // 0 + 2 > 1
-/// ```
-pub fn is_standard(e: &[u32]) -> bool {
-    let mut s = 0u32;
-    for (i, &a) in e.iter().enumerate() {
-        s += a;
-        if s as usize > i {
-            return false;
-        }
-    }
-    true
-}
-
-/// Whether x^e is a corner: a minimal non-standard monomial.
-pub fn is_corner(e: &[u32]) -> bool {
-    let mut s = 0u32;
-    for (i, &a) in e.iter().enumerate() {
-        s += a;
-        if s as usize > i {
-            return s as usize == i + 1 && e[i + 1..].iter().all(|&x| x == 0);
-        }
-    }
-    false
-}
-
-/// All monomials of degree d in n variables, in increasing lex order.
-pub fn monomials_of_degree(n: usize, d: u32) -> Vec<Mono> {
-    let mut out = Vec::new();
-    let mut e = vec![0u32; n];
-    fill(&mut e, 0, d, &mut out);
-    out.reverse();
-    out
-}
-
-fn fill(e: &mut [u32], i: usize, left: u32, out: &mut Vec<Mono>) {
-    if i + 1 == e.len() {
-        e[i] = left;
-        if let Some(m) = Mono::from_exps(e) {
-            out.push(m);
-        }
-        e[i] = 0;
-        return;
-    }
-    if e.is_empty() {
-        return;
-    }
-    for a in (0..=left).rev() {
-        e[i] = a;
-        fill(e, i + 1, left - a, out);
-    }
-    e[i] = 0;
-}
 
 /// One element G_c = c + Σ a_s·s of the reduced basis: its corner and its tail.
 #[derive(Clone, Debug, PartialEq, Eq)]

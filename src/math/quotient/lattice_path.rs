@@ -13,7 +13,7 @@
 //! monomial, which gives Catalan(n) paths.
 
 use crate::math::error::{MathError, MathResult};
-use crate::math::quotient::groebner::is_standard;
+use crate::math::quotient::standard::is_standard;
 
 /// One unit step of a path.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, Hash)]

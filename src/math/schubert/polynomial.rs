@@ -1,14 +1,13 @@
 //! Schubert polynomials.
 //!
-//! The fast method is Lascoux–Schützenberger transition, memoized: for w ≠ id let
-//! r be the last descent of w, s > r the largest index with w(s) < w(r), and
-//! v = w·t_{rs}; then S_w = x_r S_v + Σ S_{v t_{qr}} over q < r with
-//! ℓ(v t_{qr}) = ℓ(w). The reference method applies divided differences to
+//! The fast method is Lascoux–Schützenberger transition
+//! ([`crate::math::schubert::transition`]), memoized. The reference method applies divided differences to
 //! S_{w0} = x_1^{n-1} x_2^{n-2} ... x_{n-1}.
 
 use crate::math::perms::perm::Perm;
 use crate::math::poly::mono::Mono;
 use crate::math::poly::polynomial::{IntPoly, PolyBuilder};
+use crate::math::schubert::transition::{partners, pivot, trim_fixed_points};
 use num_bigint::BigInt;
 use num_traits::One;
 use std::collections::HashMap;
@@ -61,43 +60,29 @@ impl SchubertTable {
             return p.clone();
         }
         let n = w.len();
-        let Some(r) = (0..n.saturating_sub(1)).rev().find(|&i| w[i] > w[i + 1]) else {
+        let Some((r, s)) = pivot(w) else {
             let one = Arc::new(IntPoly::one(n));
             self.memo.insert(w.to_vec(), one.clone());
             return one;
         };
-        // s: the largest index > r with w(s) < w(r)
-        let s = (r + 1..n).rev().find(|&j| w[j] < w[r]).unwrap_or(r + 1);
         let mut v = w.to_vec();
         v.swap(r, s);
         let mut acc = PolyBuilder::new(n);
         // monomials do not depend on the number of variables, so the memoized
         // polynomials of smaller support are used as they are, without copies
-        let sv = self.get_trimmed(&v);
+        let sv = self.get_core(trim_fixed_points(&v));
+        let x_r = Mono::var_index(r);
         for (m, c) in sv.terms() {
-            let mm = Mono(m.0 + Mono::var_index(r).0);
-            acc.add_term(mm, c);
+            acc.add_term(Mono(m.0 + x_r.0), c);
         }
-        for q in 0..r {
-            if v[q] < v[r] && !(q + 1..r).any(|k| v[q] < v[k] && v[k] < v[r]) {
-                let mut u = v.clone();
-                u.swap(q, r);
-                let su = self.get_trimmed(&u);
-                acc.add_poly(&su);
-            }
+        for q in partners(&v, r) {
+            let mut u = v.clone();
+            u.swap(q, r);
+            acc.add_poly(&self.get_core(trim_fixed_points(&u)));
         }
         let result = Arc::new(acc.build());
         self.memo.insert(w.to_vec(), result.clone());
         result
-    }
-
-    /// S_w for w with its trailing fixed points dropped (in fewer variables).
-    fn get_trimmed(&mut self, w: &[u8]) -> Arc<IntPoly> {
-        let mut m = w.len();
-        while m > 1 && w[m - 1] as usize == m {
-            m -= 1;
-        }
-        self.get_core(&w[..m])
     }
 }
 
