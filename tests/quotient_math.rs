@@ -493,8 +493,9 @@ fn fresh_and_cached_bases_agree() {
     assert_eq!(fresh.polys(), groebner_basis(6).unwrap().polys());
 }
 
-/// As stated in `groebner`'s documentation: for n <= 6 every coefficient of the reduced
-/// basis is 1 or -1 (at n = 7 larger ones appear), every tail monomial is standard, and the leading monomials are the
+/// As stated in `groebner`'s documentation: the tail coefficients of the reduced basis
+/// are all 1 for n <= 5, lie in [-1, 1] at n = 6, [-1, 2] at n = 7 and [-2, 3] at n = 8
+/// (both ends reached), every tail monomial is standard, and the leading monomials are the
 /// corners, Catalan(k - 1) of them ending at x_k (so 1 + 1 + 2 + 5 + ... in all).
 #[test]
 fn basis_coefficients_are_units_and_leads_are_corners() {
@@ -514,16 +515,19 @@ fn basis_coefficients_are_units_and_leads_are_corners() {
             }
         }
         assert_eq!(by_last, catalan[..n].to_vec(), "n = {n}");
-        let largest = q
-            .elements()
-            .iter()
-            .flat_map(|e| e.tail.iter().map(|t| t.1.abs()))
-            .max();
-        let smallest = q
-            .elements()
-            .iter()
-            .flat_map(|e| e.tail.iter().map(|t| t.1))
-            .min();
-        println!("n = {n}: largest |coefficient| {largest:?}, smallest {smallest:?}");
+        // the range of the tail coefficients that `groebner`'s documentation states
+        let coefficients = q.elements().iter().flat_map(|e| e.tail.iter().map(|t| t.1));
+        let range = (coefficients.clone().min(), coefficients.max());
+        let stated = match n {
+            1 => (None, None), // G_{x1} = x1: no tail at all
+            2..=5 => (Some(1), Some(1)),
+            6 => (Some(-1), Some(1)),
+            7 => (Some(-1), Some(2)),
+            _ => (Some(-2), Some(3)),
+        };
+        assert_eq!(
+            range, stated,
+            "n = {n}: smallest and largest tail coefficient"
+        );
     }
 }

@@ -82,7 +82,7 @@ fn macdonald_tables() {
 #[test]
 fn all_of_s7_by_transition_and_pipe_dreams() {
     let mut table = SchubertTable::new();
-    for w in Perm::all(7).step_by(7) {
+    for w in Perm::all(7) {
         assert_eq!(*table.get(&w), from_dreams(&w), "w = {w}");
     }
 }

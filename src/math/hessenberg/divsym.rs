@@ -156,7 +156,11 @@ impl HessenbergFunctional {
 
     /// The pairing with Q_h, whatever h is (also used to cross-check the descent formula).
     pub fn by_complement(h: &HessenbergFn) -> MathResult<Self> {
-        let q = h.complement_product()?;
+        Self::pairing_with(h, &h.complement_product()?)
+    }
+
+    /// The pairing with `q`, which must be Q_h already expanded.
+    fn pairing_with(h: &HessenbergFn, q: &IntPoly) -> MathResult<Self> {
         let mut terms = Vec::with_capacity(q.len());
         for (m, c) in q.terms() {
             let Ok(c) = i64::try_from(c) else {
@@ -240,62 +244,94 @@ pub fn divided_symmetrize(f: &RatPoly, h: &HessenbergFn) -> MathResult<DividedSy
     let n = h.n();
     let f = f.with_nvars(n)?;
     let d0 = h.dimension() as u32;
-    let mut schur: BTreeMap<Partition, BigRational> = BTreeMap::new();
     let at_degree: Vec<&(Mono, BigRational)> =
         f.terms().iter().filter(|(m, _)| m.degree() == d0).collect();
     let above: Vec<&(Mono, BigRational)> =
         f.terms().iter().filter(|(m, _)| m.degree() > d0).collect();
-
+    // Q_h is expanded once, and only when some part of f needs it
+    let needs_q = !above.is_empty() || (!at_degree.is_empty() && !h.is_default());
+    let q = if needs_q {
+        Some(h.complement_product()?)
+    } else {
+        None
+    };
+    let mut schur: BTreeMap<Partition, BigRational> = BTreeMap::new();
     if !at_degree.is_empty() {
-        let mut constant = BigRational::zero();
-        if h.is_default() {
-            let p = PostnikovFunctional::new(n);
-            for (m, c) in &at_degree {
-                let v = p.value(*m);
-                if v != 0 {
-                    constant += c * BigRational::from_integer(BigInt::from(v));
-                }
-            }
-        } else {
-            let q = h.complement_product()?;
+        let constant = constant_part(&at_degree, h, q.as_ref())?;
+        if !constant.is_zero() {
+            schur.insert(vec![0; n], constant);
+        }
+    }
+    if let Some(q) = &q
+        && !above.is_empty()
+    {
+        add_schur_terms_above(&above, q, n, &mut schur)?;
+    }
+    schur.retain(|_, c| !c.is_zero());
+    let symmetric = schur_to_monomial(&schur, n);
+    let value = monomial_expansion(&symmetric, n)?;
+    Ok(DividedSymmetrization { value, symmetric })
+}
+
+/// DS_h of the terms of degree |h|, a constant: by the descent formula for the
+/// default h, otherwise by pairing with `q` = Q_h.
+fn constant_part(
+    at_degree: &[&(Mono, BigRational)],
+    h: &HessenbergFn,
+    q: Option<&IntPoly>,
+) -> MathResult<BigRational> {
+    let mut constant = BigRational::zero();
+    match q {
+        Some(q) if !h.is_default() => {
             check_pairs(at_degree.len(), q.len())?;
-            let functional = HessenbergFunctional::by_complement(h)?;
-            for (m, c) in &at_degree {
+            let functional = HessenbergFunctional::pairing_with(h, q)?;
+            for (m, c) in at_degree {
                 let v = functional.value(*m);
                 if !v.is_zero() {
                     constant += c * BigRational::from_integer(v);
                 }
             }
         }
-        if !constant.is_zero() {
-            schur.insert(vec![0; n], constant);
-        }
-    }
-
-    if !above.is_empty() {
-        let q = h.complement_product()?;
-        check_pairs(above.len(), q.len())?;
-        let mut exps = vec![0u32; n];
-        for (m, c) in &above {
-            for (b, qc) in q.terms() {
-                let Some(mm) = m.checked_mul(*b) else {
-                    return Err(MathError::OutOfRange("an exponent would exceed 255".into()));
-                };
-                for (i, e) in exps.iter_mut().enumerate() {
-                    *e = mm.exp(i);
-                }
-                if let Some((sign, mu)) = bialternant(&exps) {
-                    let term = c * BigRational::from_integer(qc * BigInt::from(sign));
-                    let entry = schur.entry(mu).or_insert_with(BigRational::zero);
-                    *entry += term;
+        _ => {
+            let p = PostnikovFunctional::new(h.n());
+            for (m, c) in at_degree {
+                let v = p.value(*m);
+                if v != 0 {
+                    constant += c * BigRational::from_integer(BigInt::from(v));
                 }
             }
         }
     }
-    schur.retain(|_, c| !c.is_zero());
-    let symmetric = schur_to_monomial(&schur, n);
-    let value = monomial_expansion(&symmetric, n)?;
-    Ok(DividedSymmetrization { value, symmetric })
+    Ok(constant)
+}
+
+/// Adds to `schur` the Schur expansion of DS_h of the terms above degree |h|:
+/// ∂_{w0}(x^a · Q_h) term by term, each product a Schur polynomial or 0 by the
+/// bialternant rule.
+fn add_schur_terms_above(
+    above: &[&(Mono, BigRational)],
+    q: &IntPoly,
+    n: usize,
+    schur: &mut BTreeMap<Partition, BigRational>,
+) -> MathResult<()> {
+    check_pairs(above.len(), q.len())?;
+    let mut exps = vec![0u32; n];
+    for (m, c) in above {
+        for (b, qc) in q.terms() {
+            let Some(mm) = m.checked_mul(*b) else {
+                return Err(MathError::OutOfRange("an exponent would exceed 255".into()));
+            };
+            for (i, e) in exps.iter_mut().enumerate() {
+                *e = mm.exp(i);
+            }
+            if let Some((sign, mu)) = bialternant(&exps) {
+                let term = c * BigRational::from_integer(qc * BigInt::from(sign));
+                let entry = schur.entry(mu).or_insert_with(BigRational::zero);
+                *entry += term;
+            }
+        }
+    }
+    Ok(())
 }
 
 fn check_pairs(a: usize, b: usize) -> MathResult<()> {

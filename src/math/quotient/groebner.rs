@@ -8,8 +8,9 @@
 //! (Adv. Math. 2004, from memory) show that the standard monomials are a basis of
 //! Q[x]/J_n (Catalan(n) of them), so the reduced basis has exactly one element
 //! G_c = c + (a combination of standard monomials of degree |c|) for each corner c.
-//! Here G_c comes out with integer coefficients: all ±1 for n <= 6, between -1 and 2 at
-//! n = 7 and between -2 and 3 at n = 8 (measured by the tests); for instance
+//! Here G_c comes out with integer coefficients: its tail coefficients are all 1 for
+//! n <= 5, lie between -1 and 1 at n = 6, between -1 and 2 at n = 7 and between -2 and
+//! 3 at n = 8 (both ends reached; asserted by the tests); for instance
 //! G_{x_1} = x_1 + ... + x_n, G_{x_2^2} = h_2(x_2..x_n), and, when the exponent of the
 //! corner has no zero after its first nonzero entry, G_c = F_α(x_{j+1}..x_n) with
 //! c = x^{(0^j, α)} (observed, checked in the tests for n <= 6). Corners with inner zeros
@@ -97,6 +98,279 @@ fn gcd128(a: i128, b: i128) -> i128 {
 /// A sparse vector over the indices of V_d.
 type Sparse = Vec<(u32, i128)>;
 
+/// The basis elements of the degrees done so far: their corners in the order
+/// found, and the tail of each.
+#[derive(Default)]
+struct LowerBasis {
+    corners: Vec<Mono>,
+    tails: HashMap<Mono, Vec<(Mono, i128)>>,
+}
+
+impl LowerBasis {
+    fn tail(&self, c: &Mono) -> &[(Mono, i128)] {
+        self.tails.get(c).map_or(&[][..], |v| v)
+    }
+}
+
+/// The monomials of one degree d and the space V_d spanned by its standard
+/// monomials and corners (decreasing lex order, with positions).
+struct DegreeSpace {
+    n: usize,
+    d: u32,
+    /// Every monomial of degree d, increasing lex order.
+    monos: Vec<Mono>,
+    /// The standard monomials of degree d, increasing lex order.
+    standard: Vec<Mono>,
+    /// The corners of degree d, increasing lex order.
+    corners: Vec<Mono>,
+    /// The standard monomials and corners, decreasing lex order.
+    v: Vec<Mono>,
+    /// Positions in `v`.
+    vidx: HashMap<Mono, u32>,
+}
+
+/// The echelon rows being collected in one degree: pivots by leading column,
+/// and how many corners still lead no row.
+struct CornerRows<'a> {
+    space: &'a DegreeSpace,
+    phi: &'a HashMap<Mono, Sparse>,
+    is_corner_col: Vec<bool>,
+    pivots: Vec<Option<Vec<i128>>>,
+    missing: usize,
+    used: usize,
+}
+
+impl CornerRows<'_> {
+    /// The image under φ of Σ a·m, as a dense row over V_d.
+    fn image(&self, terms: impl Iterator<Item = (Mono, i128)>) -> MathResult<Vec<i128>> {
+        let mut row = vec![0i128; self.space.v.len()];
+        for (m, a) in terms {
+            let Some(pm) = self.phi.get(&m) else {
+                return Err(MathError::InvalidInput(format!(
+                    "internal: no reduction of {m:?}"
+                )));
+            };
+            for &(i, b) in pm {
+                row[i as usize] = add_mul(row[i as usize], a, b)?;
+            }
+        }
+        Ok(row)
+    }
+
+    /// Row-reduces the image of one element of J_n into the pivots; `true`
+    /// once every corner leads a row. A standard monomial leading a row is an
+    /// error (it would contradict the basis theorem).
+    fn absorb(&mut self, terms: impl Iterator<Item = (Mono, i128)>) -> MathResult<bool> {
+        let row = self.image(terms)?;
+        self.used += 1;
+        let lead = insert_row(row, &mut self.pivots)?;
+        if let Some(j) = lead {
+            if !self.is_corner_col[j] {
+                return Err(MathError::InvalidInput(format!(
+                    "the standard monomial {:?} leads an element of J_{}; \
+                     this contradicts the expected basis",
+                    self.space.v[j], self.space.n
+                )));
+            }
+            self.missing -= 1;
+        }
+        Ok(self.missing == 0)
+    }
+}
+
+impl DegreeSpace {
+    fn new(n: usize, d: u32) -> DegreeSpace {
+        let monos = monomials_of_degree(n, d);
+        let mut standard = Vec::new();
+        let mut corners = Vec::new();
+        for &m in &monos {
+            let e = m.exps(n);
+            if is_standard(&e) {
+                standard.push(m);
+            } else if is_corner(&e) {
+                corners.push(m);
+            }
+        }
+        let mut v: Vec<Mono> = standard.iter().chain(&corners).copied().collect();
+        v.sort_unstable_by(|a, b| b.cmp(a));
+        let vidx = v.iter().enumerate().map(|(i, &m)| (m, i as u32)).collect();
+        DegreeSpace {
+            n,
+            d,
+            monos,
+            standard,
+            corners,
+            v,
+            vidx,
+        }
+    }
+
+    /// φ: reduction modulo the lower basis, for every monomial of degree d. A
+    /// monomial of V_d maps to itself; any other is divisible by a lower
+    /// corner c (the one with the shortest tail is used), and x^m = t·c maps to
+    /// −Σ a_s φ(t·s) over the tail of G_c.
+    fn reduction_map(&self, lower: &LowerBasis) -> MathResult<HashMap<Mono, Sparse>> {
+        let mut phi: HashMap<Mono, Sparse> = HashMap::with_capacity(self.monos.len());
+        let mut scratch = vec![0i128; self.v.len()];
+        for &m in &self.monos {
+            if let Some(&i) = self.vidx.get(&m) {
+                phi.insert(m, vec![(i, 1)]);
+                continue;
+            }
+            let Some(c) = lower
+                .corners
+                .iter()
+                .filter(|c| c.divides(m))
+                .min_by_key(|c| lower.tail(c).len())
+                .copied()
+            else {
+                return Err(MathError::InvalidInput(format!(
+                    "internal: {m:?} is neither standard, a corner, nor divisible by a corner"
+                )));
+            };
+            let t = m.divided_by(c);
+            let mut touched = Vec::new();
+            for (s, a) in lower.tail(&c) {
+                let sm = Mono(s.0 + t.0);
+                let Some(ps) = phi.get(&sm) else {
+                    return Err(MathError::InvalidInput(format!(
+                        "internal: reduction order broken at {sm:?}"
+                    )));
+                };
+                for &(i, b) in ps {
+                    let slot = &mut scratch[i as usize];
+                    if *slot == 0 {
+                        touched.push(i);
+                    }
+                    *slot = add_mul(*slot, -a, b)?;
+                }
+            }
+            touched.sort_unstable();
+            let mut out = Vec::with_capacity(touched.len());
+            for i in touched {
+                let x = std::mem::take(&mut scratch[i as usize]);
+                if x != 0 {
+                    out.push((i, x));
+                }
+            }
+            phi.insert(m, out);
+        }
+        Ok(phi)
+    }
+
+    /// Pushes genuine elements of J_n of degree d through φ (first the M_α
+    /// with |α| = d, then t·G_c for lower corners c, higher degrees of c
+    /// first) until every corner of degree d leads a row; returns the pivot
+    /// rows and how many elements were used.
+    fn corner_rows(
+        &self,
+        phi: &HashMap<Mono, Sparse>,
+        lower: &LowerBasis,
+        check: &dyn Fn() -> MathResult<()>,
+    ) -> MathResult<(Vec<Option<Vec<i128>>>, usize)> {
+        let (n, d) = (self.n, self.d);
+        let mut rows = CornerRows {
+            space: self,
+            phi,
+            is_corner_col: self.v.iter().map(|m| self.corners.contains(m)).collect(),
+            pivots: vec![None; self.v.len()],
+            missing: self.corners.len(),
+            used: 0,
+        };
+        let mut done = self.corners.is_empty();
+        if !done {
+            for alpha in compositions(d) {
+                if alpha.len() > n {
+                    continue;
+                }
+                let m_alpha = monomial_qsym(&alpha, n)?;
+                let terms = m_alpha
+                    .terms()
+                    .iter()
+                    .map(|(m, c)| (*m, c.to_i128().unwrap_or(0)));
+                if rows.absorb(terms)? {
+                    done = true;
+                    break;
+                }
+            }
+        }
+        if !done {
+            'outer: for dd in (1..d).rev() {
+                check()?;
+                let shifts = monomials_of_degree(n, d - dd);
+                for &c in lower.corners.iter().filter(|c| c.degree() == dd) {
+                    let tail = lower.tail(&c);
+                    for &t in &shifts {
+                        let terms = std::iter::once((Mono(c.0 + t.0), 1i128))
+                            .chain(tail.iter().map(|&(s, a)| (Mono(s.0 + t.0), a)));
+                        if rows.absorb(terms)? {
+                            done = true;
+                            break 'outer;
+                        }
+                    }
+                }
+            }
+        }
+        if !done {
+            return Err(MathError::InvalidInput(format!(
+                "some corner of degree {d} leads no element of J_{n}; \
+                 this contradicts the expected basis"
+            )));
+        }
+        Ok((rows.pivots, rows.used))
+    }
+
+    /// The reduced echelon form of the pivot rows (the corner columns right of
+    /// each pivot cleared, each row made primitive with a positive lead), read
+    /// as basis elements: (corner, tail over standard monomials). A tail
+    /// coefficient that is not a multiple of the lead is an error.
+    fn reduced_tails(
+        &self,
+        mut pivots: Vec<Option<Vec<i128>>>,
+    ) -> MathResult<Vec<(Mono, Vec<(Mono, i128)>)>> {
+        let v = &self.v;
+        let pivot_cols: Vec<usize> = (0..v.len()).filter(|&j| pivots[j].is_some()).collect();
+        for &j in pivot_cols.iter().rev() {
+            let Some(mut row) = pivots[j].take() else {
+                continue;
+            };
+            for &k in pivot_cols.iter().filter(|&&k| k > j) {
+                if row[k] == 0 {
+                    continue;
+                }
+                let Some(pk) = pivots[k].as_ref() else {
+                    continue;
+                };
+                combine(&mut row, pk, k)?;
+            }
+            normalize(&mut row, j);
+            pivots[j] = Some(row);
+        }
+        let mut new_tails = Vec::new();
+        for &j in &pivot_cols {
+            let Some(row) = pivots[j].as_ref() else {
+                continue;
+            };
+            let lead = row[j];
+            let mut tail = Vec::new();
+            for (k, &x) in row.iter().enumerate() {
+                if k == j || x == 0 {
+                    continue;
+                }
+                if x % lead != 0 {
+                    return Err(MathError::InvalidInput(format!(
+                        "the basis element led by {:?} has a non-integral coefficient",
+                        v[j]
+                    )));
+                }
+                tail.push((v[k], x / lead));
+            }
+            new_tails.push((v[j], tail));
+        }
+        Ok(new_tails)
+    }
+}
+
 impl QuasiGroebner {
     /// Computes the basis for n variables (1 <= n <= [`MAX_QUOTIENT_N`]), polling `progress`
     /// for cancellation between steps.
@@ -118,264 +392,116 @@ impl QuasiGroebner {
         let mut g = QuasiGroebner {
             n,
             elements: Vec::new(),
-            basis: Vec::new(),
-            basis_index: HashMap::new(),
+            basis: vec![Mono::ONE],
+            basis_index: HashMap::from([(Mono::ONE, 0)]),
             nf: vec![HashMap::new()],
             rows_used: vec![0],
         };
-        // tails of the known basis elements, by corner
-        let mut tails: HashMap<Mono, Vec<(Mono, i128)>> = HashMap::new();
-        let mut lower_corners: Vec<Mono> = Vec::new();
-        g.basis.push(Mono::ONE);
-        g.basis_index.insert(Mono::ONE, 0);
+        let mut lower = LowerBasis::default();
         for d in 1..=n as u32 {
             check()?;
-            let monos = monomials_of_degree(n, d);
-            let mut std_d = Vec::new();
-            let mut corners_d = Vec::new();
-            for &m in &monos {
-                let e = m.exps(n);
-                if is_standard(&e) {
-                    std_d.push(m);
-                } else if is_corner(&e) {
-                    corners_d.push(m);
-                }
-            }
-            // V_d, decreasing lex
-            let mut v: Vec<Mono> = std_d.iter().chain(&corners_d).copied().collect();
-            v.sort_unstable_by(|a, b| b.cmp(a));
-            let vidx: HashMap<Mono, u32> =
-                v.iter().enumerate().map(|(i, &m)| (m, i as u32)).collect();
-            // φ: reduction modulo the lower basis, for every monomial of degree d
-            let mut phi: HashMap<Mono, Sparse> = HashMap::with_capacity(monos.len());
-            let mut scratch = vec![0i128; v.len()];
-            for &m in &monos {
-                if let Some(&i) = vidx.get(&m) {
-                    phi.insert(m, vec![(i, 1)]);
-                    continue;
-                }
-                let Some(c) = lower_corners
-                    .iter()
-                    .filter(|c| c.divides(m))
-                    .min_by_key(|c| tails.get(c).map_or(0, |t| t.len()))
-                    .copied()
-                else {
-                    return Err(MathError::InvalidInput(format!(
-                        "internal: {m:?} is neither standard, a corner, nor divisible by a corner"
-                    )));
-                };
-                let t = m.divided_by(c);
-                let mut touched = Vec::new();
-                for (s, a) in tails.get(&c).map_or(&[][..], |v| v) {
-                    let sm = Mono(s.0 + t.0);
-                    let Some(ps) = phi.get(&sm) else {
-                        return Err(MathError::InvalidInput(format!(
-                            "internal: reduction order broken at {sm:?}"
-                        )));
-                    };
-                    for &(i, b) in ps {
-                        let slot = &mut scratch[i as usize];
-                        if *slot == 0 {
-                            touched.push(i);
-                        }
-                        *slot = add_mul(*slot, -a, b)?;
-                    }
-                }
-                touched.sort_unstable();
-                let mut out = Vec::with_capacity(touched.len());
-                for i in touched {
-                    let x = std::mem::take(&mut scratch[i as usize]);
-                    if x != 0 {
-                        out.push((i, x));
-                    }
-                }
-                phi.insert(m, out);
-            }
+            let space = DegreeSpace::new(n, d);
+            let phi = space.reduction_map(&lower)?;
             check()?;
-            // rows: images under φ of genuine elements of J_n of degree d
-            let is_corner_col: Vec<bool> = v.iter().map(|m| corners_d.contains(m)).collect();
-            let mut pivots: Vec<Option<Vec<i128>>> = vec![None; v.len()];
-            let mut missing = corners_d.len();
-            let mut used = 0usize;
-            let image = |terms: &mut dyn Iterator<Item = (Mono, i128)>| -> MathResult<Vec<i128>> {
-                let mut row = vec![0i128; v.len()];
-                for (m, a) in terms {
-                    let Some(pm) = phi.get(&m) else {
-                        return Err(MathError::InvalidInput(format!(
-                            "internal: no reduction of {m:?}"
-                        )));
-                    };
-                    for &(i, b) in pm {
-                        row[i as usize] = add_mul(row[i as usize], a, b)?;
-                    }
-                }
-                Ok(row)
-            };
-            let mut absorb = |row: Vec<i128>| -> MathResult<bool> {
-                let lead = insert_row(row, &mut pivots)?;
-                if let Some(j) = lead {
-                    if !is_corner_col[j] {
-                        return Err(MathError::InvalidInput(format!(
-                            "the standard monomial {:?} leads an element of J_{n}; \
-                             this contradicts the expected basis",
-                            v[j]
-                        )));
-                    }
-                    missing -= 1;
-                }
-                Ok(missing == 0)
-            };
-            let mut done = corners_d.is_empty();
-            if !done {
-                for alpha in compositions(d) {
-                    if alpha.len() > n {
-                        continue;
-                    }
-                    let m_alpha = monomial_qsym(&alpha, n)?;
-                    let mut it = m_alpha
-                        .terms()
-                        .iter()
-                        .map(|(m, c)| (*m, c.to_i128().unwrap_or(0)));
-                    let row = image(&mut it)?;
-                    used += 1;
-                    if absorb(row)? {
-                        done = true;
-                        break;
-                    }
-                }
-            }
-            if !done {
-                'outer: for dd in (1..d).rev() {
-                    check()?;
-                    let shifts = monomials_of_degree(n, d - dd);
-                    for &c in lower_corners.iter().filter(|c| c.degree() == dd) {
-                        let tail = tails.get(&c).map_or(&[][..], |v| v);
-                        for &t in &shifts {
-                            let mut it = std::iter::once((Mono(c.0 + t.0), 1i128))
-                                .chain(tail.iter().map(|&(s, a)| (Mono(s.0 + t.0), a)));
-                            let row = image(&mut it)?;
-                            used += 1;
-                            if absorb(row)? {
-                                done = true;
-                                break 'outer;
-                            }
-                        }
-                    }
-                }
-            }
-            if !done {
-                return Err(MathError::InvalidInput(format!(
-                    "some corner of degree {d} leads no element of J_{n}; \
-                     this contradicts the expected basis"
-                )));
-            }
+            let (pivots, used) = space.corner_rows(&phi, &lower, &check)?;
             g.rows_used.push(used);
-            // reduced echelon form: clear the corner columns right of each pivot
-            let pivot_cols: Vec<usize> = (0..v.len()).filter(|&j| pivots[j].is_some()).collect();
-            for &j in pivot_cols.iter().rev() {
-                let Some(mut row) = pivots[j].take() else {
-                    continue;
-                };
-                for &k in pivot_cols.iter().filter(|&&k| k > j) {
-                    if row[k] == 0 {
-                        continue;
-                    }
-                    let Some(pk) = pivots[k].as_ref() else {
-                        continue;
-                    };
-                    combine(&mut row, pk, k)?;
-                }
-                normalize(&mut row, j);
-                pivots[j] = Some(row);
-            }
-            let mut new_tails = Vec::new();
-            for &j in &pivot_cols {
-                let Some(row) = pivots[j].as_ref() else {
-                    continue;
-                };
-                let lead = row[j];
-                let mut tail = Vec::new();
-                for (k, &x) in row.iter().enumerate() {
-                    if k == j || x == 0 {
-                        continue;
-                    }
-                    if x % lead != 0 {
-                        return Err(MathError::InvalidInput(format!(
-                            "the basis element led by {:?} has a non-integral coefficient",
-                            v[j]
-                        )));
-                    }
-                    tail.push((v[k], x / lead));
-                }
-                new_tails.push((v[j], tail));
-            }
-            // the normal forms of degree d (only needed below degree n)
-            let offset = g.basis.len() as u32;
-            for (i, &m) in std_d.iter().rev().enumerate() {
-                // std_d is increasing; the basis lists each degree in decreasing lex order
-                g.basis.push(m);
-                g.basis_index.insert(m, offset + i as u32);
-            }
-            let std_global: Vec<Option<u32>> =
-                v.iter().map(|m| g.basis_index.get(m).copied()).collect();
-            let mut nf_d: HashMap<Mono, Vec<(u32, i128)>> = HashMap::new();
-            if (d as usize) < n {
-                let corner_nf: HashMap<u32, Vec<(u32, i128)>> = new_tails
-                    .iter()
-                    .map(|(c, tail)| {
-                        let ci = vidx.get(c).copied().unwrap_or(0);
-                        let nf = tail
-                            .iter()
-                            .filter_map(|(s, a)| g.basis_index.get(s).map(|&i| (i, -a)))
-                            .collect();
-                        (ci, nf)
-                    })
-                    .collect();
-                let mut acc: HashMap<u32, i128> = HashMap::new();
-                for &m in &monos {
-                    if g.basis_index.contains_key(&m) {
-                        continue;
-                    }
-                    acc.clear();
-                    for &(i, b) in phi.get(&m).map_or(&[][..], |v| v) {
-                        if let Some(s) = std_global[i as usize] {
-                            let e = acc.entry(s).or_insert(0);
-                            *e = e.checked_add(b).ok_or_else(overflow)?;
-                        } else if let Some(nf) = corner_nf.get(&i) {
-                            for &(s, a) in nf {
-                                let e = acc.entry(s).or_insert(0);
-                                *e = add_mul(*e, a, b)?;
-                            }
-                        }
-                    }
-                    let mut out: Vec<(u32, i128)> = acc
-                        .iter()
-                        .filter(|(_, x)| **x != 0)
-                        .map(|(&i, &x)| (i, x))
-                        .collect();
-                    out.sort_unstable();
-                    nf_d.insert(m, out);
-                }
-            }
+            let new_tails = space.reduced_tails(pivots)?;
+            g.add_standard_monomials(&space);
+            let nf_d = if (d as usize) < n {
+                g.normal_forms_of_degree(&space, &phi, &new_tails)?
+            } else {
+                HashMap::new()
+            };
             g.nf.push(nf_d);
             for (c, tail) in new_tails {
-                lower_corners.push(c);
+                lower.corners.push(c);
                 g.elements.push(GroebnerElement {
                     corner: c,
                     tail: tail.clone(),
                 });
-                tails.insert(c, tail);
+                lower.tails.insert(c, tail);
             }
         }
         g.elements.sort_by_key(|e| std::cmp::Reverse(e.corner));
-        // (2) of the module doc: every generator M_α with |α| <= n reduces to zero
+        g.check_generators_reduce_to_zero()?;
+        Ok(g)
+    }
+
+    /// Appends the standard monomials of one degree to the basis, in
+    /// decreasing lex order.
+    fn add_standard_monomials(&mut self, space: &DegreeSpace) {
+        let offset = self.basis.len() as u32;
+        // `standard` is increasing; the basis lists each degree in decreasing lex order
+        for (i, &m) in space.standard.iter().rev().enumerate() {
+            self.basis.push(m);
+            self.basis_index.insert(m, offset + i as u32);
+        }
+    }
+
+    /// The normal form of every non-standard monomial of degree d (needed only
+    /// below degree n): its image under φ, with each corner replaced by minus
+    /// the tail of its basis element.
+    fn normal_forms_of_degree(
+        &self,
+        space: &DegreeSpace,
+        phi: &HashMap<Mono, Sparse>,
+        new_tails: &[(Mono, Vec<(Mono, i128)>)],
+    ) -> MathResult<HashMap<Mono, Vec<(u32, i128)>>> {
+        let std_global: Vec<Option<u32>> = space
+            .v
+            .iter()
+            .map(|m| self.basis_index.get(m).copied())
+            .collect();
+        let corner_nf: HashMap<u32, Vec<(u32, i128)>> = new_tails
+            .iter()
+            .map(|(c, tail)| {
+                let ci = space.vidx.get(c).copied().unwrap_or(0);
+                let nf = tail
+                    .iter()
+                    .filter_map(|(s, a)| self.basis_index.get(s).map(|&i| (i, -a)))
+                    .collect();
+                (ci, nf)
+            })
+            .collect();
+        let mut nf_d = HashMap::new();
+        let mut acc: HashMap<u32, i128> = HashMap::new();
+        for &m in &space.monos {
+            if self.basis_index.contains_key(&m) {
+                continue;
+            }
+            acc.clear();
+            for &(i, b) in phi.get(&m).map_or(&[][..], |v| v) {
+                if let Some(s) = std_global[i as usize] {
+                    let e = acc.entry(s).or_insert(0);
+                    *e = e.checked_add(b).ok_or_else(overflow)?;
+                } else if let Some(nf) = corner_nf.get(&i) {
+                    for &(s, a) in nf {
+                        let e = acc.entry(s).or_insert(0);
+                        *e = add_mul(*e, a, b)?;
+                    }
+                }
+            }
+            let mut out: Vec<(u32, i128)> = acc
+                .iter()
+                .filter(|(_, x)| **x != 0)
+                .map(|(&i, &x)| (i, x))
+                .collect();
+            out.sort_unstable();
+            nf_d.insert(m, out);
+        }
+        Ok(nf_d)
+    }
+
+    /// (2) of the module doc: every generator M_α with |α| <= n reduces to zero.
+    fn check_generators_reduce_to_zero(&self) -> MathResult<()> {
+        let n = self.n;
         for d in 1..=n as u32 {
             for alpha in compositions(d) {
                 if alpha.len() > n {
                     continue;
                 }
                 let m = monomial_qsym(&alpha, n)?;
-                let nf = g.normal_form_int(m.terms())?;
+                let nf = self.normal_form_int(m.terms())?;
                 if nf.iter().any(|(_, c)| *c != BigInt::from(0)) {
                     return Err(MathError::InvalidInput(format!(
                         "M{alpha:?} does not reduce to zero; the computed basis is wrong"
@@ -383,7 +509,7 @@ impl QuasiGroebner {
                 }
             }
         }
-        Ok(g)
+        Ok(())
     }
 
     /// The number of variables.
