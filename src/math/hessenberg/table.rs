@@ -109,7 +109,7 @@ fn chosen_permutations(
 /// on rayon's pool, counting progress and stopping with `Canceled` when asked.
 ///
 /// ```
-/// use elbowroom::math::{Progress, hessenberg::function::HessenbergFn, hessenberg::table::hessenberg_table};
+/// use elbowroom::math::{Progress, hessenberg::function::HessenbergFn, hessenberg::table::coefficient_table};
 /// // n = 3, h = (2,3,3), |h| = 2: a_{231} = DS_3(S_{231}) = DS_3(x1 x2) = 1 and
 /// // a_{312} = DS_3(x1^2) = 1 (the permutohedral variety has class σ_{213} + σ_{132})
 /// let h = HessenbergFn::new(&[2, 3, 3]).unwrap();
