@@ -106,11 +106,50 @@ pub fn mixed_eulerian_numbers(
         )));
     }
     let top = n - 1;
-    let compositions = weak_compositions(top as u32, top);
-    progress.set_total(compositions.len() as u64);
+    let count = weak_composition_count(top as u64, top as u64);
+    progress.set_total(count);
     let index = MonomialIndex::new(n)?;
-    let ds = PostnikovFunctional::new(n);
-    // last[k][t] = DS_n(x^a y_{n-1}^k) for the t-th monomial a of degree n-1-k
+    let last = values_times_last_part(&index, &PostnikovFunctional::new(n));
+    if top == 1 {
+        let mut out = Vec::new();
+        walk(
+            &index,
+            &last,
+            &mut Vec::new(),
+            0,
+            vec![1],
+            progress,
+            &mut out,
+        )?;
+        return Ok(out);
+    }
+    let results: Vec<MathResult<Vec<Numbered>>> = (0..=top as u32)
+        .into_par_iter()
+        .map(|c1| walk_from_first_part(&index, &last, c1, progress))
+        .collect();
+    let mut all = Vec::with_capacity(usize::try_from(count).unwrap_or(0));
+    // c1 descending gives decreasing lexicographic order
+    for r in results.into_iter().rev() {
+        all.extend(r?);
+    }
+    Ok(all)
+}
+
+/// The number of weak compositions of `total` into `parts` parts,
+/// C(total + parts − 1, parts − 1), counted without listing them.
+fn weak_composition_count(total: u64, parts: u64) -> u64 {
+    if parts == 0 {
+        return u64::from(total == 0);
+    }
+    // C(total + parts - 1, parts - 1), exact at each step
+    (1..parts).fold(1u64, |acc, k| acc * (total + k) / k)
+}
+
+/// last[k][t] = DS_n(x^a y_{n-1}^k) for the t-th monomial a of degree
+/// n − 1 − k: the values that fold the last part of c into one lookup.
+fn values_times_last_part(index: &MonomialIndex, ds: &PostnikovFunctional) -> Vec<Vec<i128>> {
+    let n = index.n;
+    let top = n - 1;
     let mut last: Vec<Vec<i128>> = Vec::with_capacity(n);
     last.push(
         index.by_degree[top]
@@ -131,50 +170,35 @@ pub fn mixed_eulerian_numbers(
             .collect();
         last.push(row);
     }
-    if top == 1 {
-        let mut out = Vec::new();
-        walk(
-            &index,
-            &last,
-            &mut Vec::new(),
-            0,
-            vec![1],
-            progress,
-            &mut out,
-        )?;
-        return Ok(out);
-    }
-    let results: Vec<MathResult<Vec<Numbered>>> = (0..=top as u32)
-        .into_par_iter()
-        .map(|c1| {
-            let mut out = Vec::new();
-            // the product y_1^{c1} = x_1^{c1}
-            let mut start = vec![0u64; index.by_degree[c1 as usize].len()];
-            let first = Mono::from_exps(&[c1]).unwrap_or(Mono::ONE);
-            let pos = index.by_degree[c1 as usize]
-                .iter()
-                .position(|m| *m == first)
-                .unwrap_or(0);
-            start[pos] = 1;
-            let mut prefix = vec![c1];
-            walk(
-                &index,
-                &last,
-                &mut prefix,
-                c1 as usize,
-                start,
-                progress,
-                &mut out,
-            )?;
-            Ok(out)
-        })
-        .collect();
-    let mut all = Vec::with_capacity(compositions.len());
-    // c1 descending gives decreasing lexicographic order
-    for r in results.into_iter().rev() {
-        all.extend(r?);
-    }
-    Ok(all)
+    last
+}
+
+/// Every A_c with first part c_1, walked depth-first from y_1^{c_1} = x_1^{c_1}.
+fn walk_from_first_part(
+    index: &MonomialIndex,
+    last: &[Vec<i128>],
+    c1: u32,
+    progress: &Progress,
+) -> MathResult<Vec<Numbered>> {
+    let mut out = Vec::new();
+    let mut start = vec![0u64; index.by_degree[c1 as usize].len()];
+    let first = Mono::from_exps(&[c1]).unwrap_or(Mono::ONE);
+    let pos = index.by_degree[c1 as usize]
+        .iter()
+        .position(|m| *m == first)
+        .unwrap_or(0);
+    start[pos] = 1;
+    let mut prefix = vec![c1];
+    walk(
+        index,
+        last,
+        &mut prefix,
+        c1 as usize,
+        start,
+        progress,
+        &mut out,
+    )?;
+    Ok(out)
 }
 
 fn walk(
@@ -249,4 +273,24 @@ pub fn mixed_eulerian_number(c: &[u32]) -> MathResult<BigInt> {
         total += coeff * BigInt::from(ds.value(*m));
     }
     Ok(total)
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn the_count_of_weak_compositions_is_the_length_of_their_listing() {
+        for total in 0..=7u32 {
+            for parts in 0..=7usize {
+                assert_eq!(
+                    weak_composition_count(u64::from(total), parts as u64),
+                    weak_compositions(total, parts).len() as u64,
+                    "{total} into {parts} parts"
+                );
+            }
+        }
+        // C(29, 14) at n = 16, counted without listing 77 558 760 compositions
+        assert_eq!(weak_composition_count(15, 15), 77_558_760);
+    }
 }
