@@ -9,3 +9,5 @@ pub mod quasisym;
 pub mod symmetric;
 
 pub mod parse;
+
+pub mod rational;
