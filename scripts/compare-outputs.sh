@@ -5,6 +5,13 @@
 # every file written. Used to show that a refactoring changes no behaviour.
 #
 #   scripts/compare-outputs.sh OLD_BINARY NEW_BINARY
+#
+# Each line is run as `elbowroom LINE` by the shell, in a scratch folder
+# holding a copy of sessions/; `elbowroom` there is a shell function calling
+# the binary under test, so a line can go on with `&& elbowroom ...`. A line
+# that starts with `!` is run as it is, without the prefix (to prepare a file
+# first: `! sed ... > bad.ron && elbowroom session check bad.ron`). What is
+# compared is the output of the whole line.
 set -u
 cd "$(dirname "$0")/.."
 old=$(realpath "$1"); new=$(realpath "$2")
@@ -16,7 +23,9 @@ trap 'rm -rf "$scratch"' EXIT
 } > "$scratch/commands"
 run() { # binary, folder, command line
     mkdir -p "$2"; cp -r sessions "$2/sessions"
-    (cd "$2" && eval "\"$1\" $3" > ../stdout 2> ../stderr; echo "exit $?" > ../status)
+    (bin=$1; elbowroom() { "$bin" "$@"; }
+     case $3 in '!'*) line=${3#!} ;; *) line="elbowroom $3" ;; esac
+     cd "$2" && eval "$line" > ../stdout 2> ../stderr; echo "exit $?" > ../status)
     rm -rf "$2/sessions"
     (cd "$2" && find . -type f | sort | xargs -r sha256sum) > "$2.files"
 }

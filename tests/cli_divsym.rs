@@ -121,9 +121,12 @@ fn volume_and_eulerian() {
     rejects(&["eulerian", "--n", "1"], "2 <= n");
 }
 
+/// Ctrl-C: exit status 130, how far it got on stderr, nothing on stdout. SIGINT
+/// is sent once the binary says the table is registered with its handler.
+#[cfg(unix)]
 #[test]
 fn ctrl_c_stops_a_long_table_cleanly() {
-    let out = interrupted(&["hessenberg", "--n", "12", "--json"], 1500);
+    let out = interrupted(&["hessenberg", "--n", "12", "--json"]);
     assert_eq!(out.status.code(), Some(130));
     assert!(out.stdout.is_empty(), "no partial JSON");
     let err = String::from_utf8_lossy(&out.stderr);

@@ -117,13 +117,17 @@ fn sharded_survey_merges_to_the_whole() {
     let _ = std::fs::remove_dir_all(&dir);
 }
 
-/// Ctrl-C: exit status 130, a message on stderr, nothing on stdout.
+/// Ctrl-C: exit status 130, a message on stderr, nothing on stdout. SIGINT is
+/// sent once the binary says the survey is registered with its handler.
 #[cfg(unix)]
 #[test]
 fn interrupt_cancels_cleanly() {
-    let out = interrupted(&["survey", "--n", "8", "--json"], 700);
+    let out = interrupted(&["survey", "--n", "8", "--json"]);
     assert_eq!(out.status.code(), Some(130));
     assert!(out.stdout.is_empty());
     let err = String::from_utf8(out.stderr).unwrap();
-    assert!(err.contains("canceled"), "{err}");
+    assert!(
+        err.contains("the survey canceled after") && err.contains("permutations"),
+        "{err}"
+    );
 }

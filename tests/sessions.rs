@@ -5,8 +5,8 @@
 #![allow(clippy::unwrap_used)]
 
 use elbowroom::session::model::{
-    BrowserPlace, DreamPlace, FigureSettings, HessenbergPlace, QuotientPlace, SolidPlace, View,
-    WordPlace, WorkbenchPlace,
+    BrowserPlace, DreamPlace, FigureSettings, HessenbergPlace, QuotientPlace, SolidPlace,
+    SortColumn, View, WordPlace, WorkbenchPlace,
 };
 use elbowroom::session::{Session, SessionError, demo, format, recent, recovery, store};
 use proptest::prelude::*;
@@ -91,7 +91,12 @@ fn session() -> impl Strategy<Value = Session> {
             (
                 // the Hessenberg view has its own n, independent of the session's
                 prop_oneof![Just(Vec::new()), (1usize..=12).prop_flat_map(hessenberg)],
-                any::<String>(),
+                prop_oneof![
+                    Just(None),
+                    Just(Some(SortColumn::Perm)),
+                    Just(Some(SortColumn::Length)),
+                    Just(Some(SortColumn::Value)),
+                ],
                 any::<bool>(),
             ),
             (any::<String>(), any::<bool>()),
@@ -226,6 +231,31 @@ fn demo_text() -> String {
 fn message_of(text: &str) -> (String, SessionError) {
     let e = store::load_str(text, Path::new("study.ron")).unwrap_err();
     (e.to_string(), e)
+}
+
+/// The table's sort key is stored as the text it always was: `""` when not
+/// chosen, `"perm"`, `"length"` or `"value"`; an unknown key still loads, and
+/// sorts by w as before.
+#[test]
+fn the_sort_key_is_stored_as_text() {
+    let saved = format::encode(&Session::default()).unwrap();
+    assert!(saved.contains("sort_by: \"\","), "{saved}");
+    let text = demo_text();
+    assert!(text.contains("sort_by: \"perm\""));
+    for (key, read) in [
+        ("", None),
+        ("perm", Some(SortColumn::Perm)),
+        ("length", Some(SortColumn::Length)),
+        ("value", Some(SortColumn::Value)),
+        ("by-colour", None),
+    ] {
+        let edited = text.replacen("sort_by: \"perm\"", &format!("sort_by: {key:?}"), 1);
+        let s = store::load_str(&edited, Path::new("study.ron")).unwrap();
+        assert_eq!(s.hessenberg.sort_by, read, "{key:?}");
+        let again = format::encode(&s).unwrap();
+        let expected = read.map_or("", SortColumn::key);
+        assert!(again.contains(&format!("sort_by: {expected:?}")), "{again}");
+    }
 }
 
 #[test]

@@ -1,6 +1,10 @@
-//! The command-line grammar (clap definitions), one struct per command.
+//! The command-line grammar (clap definitions): every argument type of every
+//! command, one struct per command. The command modules read these; this
+//! module imports none of them. The doc comments are the `--help` texts.
 
-use clap::{Args, Parser, Subcommand};
+use crate::tables::table::Table;
+use clap::{Args, Parser, Subcommand, ValueEnum};
+use std::path::PathBuf;
 
 /// elbowroom: exact Schubert calculus. With no command, opens the explorer.
 #[derive(Parser, Debug)]
@@ -33,15 +37,15 @@ pub enum Command {
     /// Combines the JSON outputs of the pieces of a sharded run into one.
     Merge(MergeArgs),
     /// The quasisymmetric quotient Q[x1..xn]/J_n: basis, graded dimensions, Gröbner basis.
-    Quotient(super::cmd_quotient::QuotientArgs),
+    Quotient(QuotientArgs),
     /// The normal form of a polynomial modulo J_n, in the basis of standard monomials.
-    Reduce(super::cmd_reduce::ReduceArgs),
+    Reduce(ReduceArgs),
     /// Positivity survey: reversed Schubert polynomials modulo J_n over S_n.
-    Survey(super::cmd_survey::SurveyArgs),
+    Survey(SurveyArgs),
     /// Checks and summarises a session file (`session check FILE`).
-    Session(super::cmd_session::SessionArgs),
+    Session(SessionArgs),
     /// Draws a figure and writes it as PNG, SVG or TikZ (`figure dream 1432 --out f.png`).
-    Figure(super::cmd_figure::FigureArgs),
+    Figure(FigureArgs),
 }
 
 /// Arguments of `elbowroom perm`.
@@ -177,7 +181,7 @@ pub struct TableOutput {
 
 impl TableOutput {
     /// The table as CSV or LaTeX when one of those was asked for (built only then).
-    pub fn table(&self, build: impl FnOnce() -> crate::figure::table::Table) -> Option<String> {
+    pub fn table(&self, build: impl FnOnce() -> Table) -> Option<String> {
         if self.csv {
             Some(build().to_csv())
         } else if self.latex {
@@ -193,5 +197,189 @@ impl TableOutput {
 pub struct MergeArgs {
     /// The JSON outputs of the pieces of one sharded run.
     #[arg(required = true)]
-    pub files: Vec<std::path::PathBuf>,
+    pub files: Vec<PathBuf>,
+}
+
+/// Arguments of `elbowroom quotient`.
+#[derive(Args, Debug)]
+pub struct QuotientArgs {
+    /// The number of variables n (1 to 8).
+    #[arg(long)]
+    pub n: usize,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+    /// Draw every basis path in the text output (by default only for n <= 4).
+    #[arg(long, conflicts_with = "json")]
+    pub draw: bool,
+}
+
+/// Arguments of `elbowroom reduce`.
+#[derive(Args, Debug)]
+pub struct ReduceArgs {
+    /// The polynomial, e.g. "x1^2 x2 - 3/2 x3" or "M(2,1) + F(1,1)".
+    pub poly: String,
+    /// The number of variables n (1 to 8).
+    #[arg(long)]
+    pub n: usize,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// Arguments of `elbowroom survey`.
+#[derive(Args, Debug)]
+pub struct SurveyArgs {
+    /// Survey all of S_n (1 <= n <= 8).
+    #[arg(long, conflicts_with = "perm", required_unless_present = "perm")]
+    pub n: Option<usize>,
+    /// Survey one permutation, e.g. 2143.
+    #[arg(long)]
+    pub perm: Option<String>,
+    /// How to print the results.
+    #[command(flatten)]
+    pub output: TableOutput,
+    /// Leave out the per-permutation normal forms.
+    #[arg(long)]
+    pub summary: bool,
+    /// Run only piece K of N of the listing (item i goes to piece (i mod N) + 1).
+    #[arg(long, value_name = "K/N")]
+    pub shard: Option<String>,
+}
+
+/// Arguments of `elbowroom session`.
+#[derive(Args, Debug)]
+pub struct SessionArgs {
+    /// What to do with the session file.
+    #[command(subcommand)]
+    pub action: SessionAction,
+}
+
+/// What `elbowroom session` does.
+#[derive(Subcommand, Debug)]
+pub enum SessionAction {
+    /// Reads and validates a session file and summarises it; never writes.
+    Check(SessionCheckArgs),
+}
+
+/// Arguments of `elbowroom session check`.
+#[derive(Args, Debug)]
+pub struct SessionCheckArgs {
+    /// The session file (`.ron`).
+    pub file: PathBuf,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// What `elbowroom figure` draws.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum FigureKind {
+    /// A reduced pipe dream of w.
+    Dream,
+    /// A bumpless pipe dream of w.
+    Bumpless,
+    /// The wiring diagram of a reduced word of w.
+    Wiring,
+    /// Lattice paths of a normal form modulo J_n.
+    Paths,
+    /// The permutohedron P_λ (n <= 5).
+    Permutohedron,
+    /// The volume of P_λ along a segment.
+    Volume,
+}
+
+impl FigureKind {
+    /// The kind as typed, which also starts the names of the files written.
+    pub fn name(self) -> &'static str {
+        match self {
+            FigureKind::Dream => "dream",
+            FigureKind::Bumpless => "bumpless",
+            FigureKind::Wiring => "wiring",
+            FigureKind::Paths => "paths",
+            FigureKind::Permutohedron => "permutohedron",
+            FigureKind::Volume => "volume",
+        }
+    }
+}
+
+/// A figure format for `--all`.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum FormatArg {
+    /// PNG image.
+    Png,
+    /// SVG document.
+    Svg,
+    /// Standalone LaTeX/TikZ document.
+    Tex,
+}
+
+/// Arguments of `elbowroom figure`.
+#[derive(Args, Debug)]
+pub struct FigureArgs {
+    /// What to draw.
+    #[arg(value_enum)]
+    pub kind: FigureKind,
+    /// The permutation (dream, bumpless, wiring, paths): 1432, "1 4 3 2" or 1,4,3,2.
+    pub perm: Option<String>,
+    /// Which one to draw, 0-based in enumeration order (pipe dreams) or lexicographic order (words).
+    #[arg(long, default_value_t = 0)]
+    pub index: usize,
+    /// Draw every pipe dream (or word) of w; --out is then a directory.
+    #[arg(long, conflicts_with = "index")]
+    pub all: bool,
+    /// The file to write (.png, .svg, .tex), or the directory with --all.
+    #[arg(long)]
+    pub out: PathBuf,
+    /// The format of the files written with --all.
+    #[arg(long, value_enum, default_value = "svg")]
+    pub format: FormatArg,
+    /// PNG pixels per point (default 4).
+    #[arg(long, conflicts_with = "dpi")]
+    pub scale: Option<f32>,
+    /// PNG resolution in dots per inch (72 dpi = scale 1).
+    #[arg(long)]
+    pub dpi: Option<f32>,
+    /// Leave out the background.
+    #[arg(long)]
+    pub transparent: bool,
+    /// Light ink on a dark background.
+    #[arg(long)]
+    pub dark: bool,
+    /// Leave out row, column and vertex labels.
+    #[arg(long)]
+    pub no_labels: bool,
+    /// wiring: draw this reduced word (letters 1..n-1, e.g. 121 or 1,2,1) instead of one of w's.
+    #[arg(long)]
+    pub word: Option<String>,
+    /// paths: the polynomial to reduce instead of the reversed Schubert polynomial.
+    #[arg(long)]
+    pub poly: Option<String>,
+    /// paths: the number of variables for --poly (1 to 8).
+    #[arg(long)]
+    pub n: Option<usize>,
+    /// paths: panels per row (default: about the square root of their number).
+    #[arg(long)]
+    pub columns: Option<usize>,
+    /// permutohedron: λ_1,...,λ_n (rationals, n <= 5).
+    #[arg(long)]
+    pub lambda: Option<String>,
+    /// permutohedron: turn about the vertical axis, in radians.
+    #[arg(long, default_value_t = 0.6, allow_negative_numbers = true)]
+    pub yaw: f32,
+    /// permutohedron: tilt about the horizontal axis, in radians.
+    #[arg(long, default_value_t = 0.35, allow_negative_numbers = true)]
+    pub pitch: f32,
+    /// volume: the start λ_a of the segment.
+    #[arg(long)]
+    pub from: Option<String>,
+    /// volume: the end λ_b of the segment.
+    #[arg(long)]
+    pub to: Option<String>,
+    /// volume: the number of intervals sampled on the segment (1 to 400).
+    #[arg(long, default_value_t = 24)]
+    pub samples: usize,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
 }

@@ -2,25 +2,11 @@
 
 use super::args::DivsymArgs;
 use super::error::CliError;
+use super::inputs::hessenberg_from_args;
 use super::json;
 use crate::math::hessenberg::divsym::divided_symmetrize;
-use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::poly::parse::parse_poly;
 use serde_json::{Value, json};
-
-/// Reads `--n` and `--h` into a Hessenberg function (default h(i) = i + 1).
-pub fn hessenberg_from_args(n: usize, h: Option<&str>) -> Result<HessenbergFn, CliError> {
-    if n == 0 || n > crate::math::MAX_N {
-        return Err(CliError::Input(format!(
-            "--n {n} is out of range; 1 <= n <= {} is accepted",
-            crate::math::MAX_N
-        )));
-    }
-    Ok(match h {
-        Some(text) => HessenbergFn::parse(text, Some(n))?,
-        None => HessenbergFn::default_for(n)?,
-    })
-}
 
 /// Runs the command.
 pub fn run(args: &DivsymArgs) -> Result<String, CliError> {

@@ -6,8 +6,8 @@ use super::args::EulerianArgs;
 use super::error::CliError;
 use super::interrupt;
 use super::json;
-use crate::figure::result_tables::eulerian_table;
 use crate::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
+use crate::tables::results::eulerian_table;
 use num_bigint::BigInt;
 use serde_json::{Value, json};
 

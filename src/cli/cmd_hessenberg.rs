@@ -5,70 +5,29 @@
 //! (exit status 130, nothing on stdout).
 
 use super::args::HessenbergArgs;
-use super::cmd_divsym::hessenberg_from_args;
+use super::documents::hessenberg_table_json;
 use super::error::CliError;
+use super::inputs::hessenberg_from_args;
 use super::interrupt;
 use super::json;
 use super::shard::Shard;
-use crate::figure::result_tables;
 use crate::math::hessenberg::table::{HessenbergTable, coefficient_table};
-use serde_json::{Value, json};
-
-/// The value of "kind" in this command's JSON.
-pub const KIND: &str = "hessenberg_table";
+use crate::tables::results::hessenberg_table;
 
 /// Runs the command.
 pub fn run(args: &HessenbergArgs) -> Result<String, CliError> {
     let h = hessenberg_from_args(args.n, args.h.as_deref())?;
-    let shard = match &args.shard {
-        Some(s) => Shard::parse(s)?,
-        None => Shard::WHOLE,
-    };
+    let shard = Shard::of_arg(args.shard.as_deref())?;
     let table = interrupt::run_interruptible("the table", "permutations", 0, |progress| {
         coefficient_table(&h, &|i| shard.selects(i), progress)
     })?;
     if args.output.json {
-        return Ok(json::render(&table_json(&table, shard)));
+        return Ok(json::render(&hessenberg_table_json(&table, shard)));
     }
-    if let Some(out) = args
-        .output
-        .table(|| result_tables::hessenberg_table(&table))
-    {
+    if let Some(out) = args.output.table(|| hessenberg_table(&table)) {
         return Ok(out);
     }
     Ok(text(&table, shard))
-}
-
-/// The JSON object of a (possibly partial) table.
-pub fn table_json(table: &HessenbergTable, shard: Shard) -> Value {
-    let coefficients: Vec<Value> = table
-        .entries
-        .iter()
-        .map(|e| json!({"perm": e.perm.one_line(), "value": json::exact(&e.value)}))
-        .collect();
-    let mut v = json!({
-        "kind": KIND,
-        "n": table.h.n(),
-        "h": table.h.values(),
-        "dimension": table.h.dimension(),
-        "order": "lexicographic in one-line notation",
-        "listed": table.listed,
-        "coefficients": coefficients,
-        "total": json::exact(&table.total()),
-        "nonzero": table.nonzero(),
-        "max": json::exact(&table.max()),
-        "negative": table.negative().len(),
-        "all_nonnegative_integers": table.negative().is_empty(),
-    });
-    if !shard.is_whole()
-        && let Some(obj) = v.as_object_mut()
-    {
-        obj.insert(
-            "shard".into(),
-            Value::String(format!("{}/{}", shard.index, shard.count)),
-        );
-    }
-    v
 }
 
 fn text(table: &HessenbergTable, shard: Shard) -> String {

@@ -1,14 +1,16 @@
-//! `elbowroom merge FILES...`: combines the JSON outputs of the pieces of a sharded
-//! run into the output a single run gives.
+//! `elbowroom merge FILES...`: combines the JSON outputs of the shards of a run
+//! (`--shard K/N`) into the output a single run gives.
 //!
 //! Dispatch is on the `"kind"` key; each kind has its own merge function. A kind's
-//! pieces must agree on their parameters, carry distinct `"shard": "K/N"` labels
-//! with one N, and together cover the listing exactly once.
+//! shards must agree on their parameters, carry distinct `"shard": "K/N"` labels
+//! with one N, and together cover the listing exactly once. (The messages call
+//! a shard a "piece", as they always have.)
 
 use super::args::MergeArgs;
-use super::cmd_hessenberg::{self, table_json};
+use super::documents::{HESSENBERG_KIND, SURVEY_KIND, hessenberg_table_json};
 use super::error::CliError;
 use super::json;
+use super::merge_survey::merge_surveys;
 use super::shard::Shard;
 use crate::math::Perm;
 use crate::math::hessenberg::function::HessenbergFn;
@@ -50,15 +52,13 @@ pub fn merge_documents(docs: &[(String, Value)]) -> Result<Value, CliError> {
         }
     }
     match kind {
-        cmd_hessenberg::KIND => merge_hessenberg(docs),
-        super::cmd_survey::KIND => {
+        HESSENBERG_KIND => merge_hessenberg(docs),
+        SURVEY_KIND => {
             let values: Vec<Value> = docs.iter().map(|(_, v)| v.clone()).collect();
-            super::merge_survey::merge_surveys(&values)
+            merge_surveys(&values)
         }
         other => Err(CliError::Input(format!(
-            "cannot merge files of kind '{other}'; accepted kinds: {}, {}",
-            cmd_hessenberg::KIND,
-            super::cmd_survey::KIND
+            "cannot merge files of kind '{other}'; accepted kinds: {HESSENBERG_KIND}, {SURVEY_KIND}"
         ))),
     }
 }
@@ -71,23 +71,15 @@ fn shard_of(name: &str, d: &Value) -> Result<Shard, CliError> {
     .map_err(|e| CliError::Input(format!("{name}: {}", e.message())))
 }
 
-/// Merges pieces of `elbowroom hessenberg --shard K/N --json`.
+/// Merges shards of `elbowroom hessenberg --shard K/N --json`.
 pub fn merge_hessenberg(docs: &[(String, Value)]) -> Result<Value, CliError> {
     let mut h_seen: Option<HessenbergFn> = None;
     let mut count_seen: Option<usize> = None;
-    let mut pieces = BTreeSet::new();
+    let mut shards = BTreeSet::new();
     let mut entries: Vec<(Perm, BigInt)> = Vec::new();
     for (name, d) in docs {
         let bad = |what: &str| CliError::Input(format!("{name}: {what}"));
-        let h_values: Vec<usize> = d
-            .get("h")
-            .and_then(Value::as_array)
-            .ok_or_else(|| bad("no Hessenberg function \"h\""))?
-            .iter()
-            .map(|v| v.as_u64().map(|x| x as usize))
-            .collect::<Option<Vec<_>>>()
-            .ok_or_else(|| bad("\"h\" is not a list of positive integers"))?;
-        let h = HessenbergFn::new(&h_values).map_err(|e| bad(&e.to_string()))?;
+        let h = hessenberg_of(name, d)?;
         if let Some(prev) = &h_seen
             && *prev != h
         {
@@ -97,7 +89,7 @@ pub fn merge_hessenberg(docs: &[(String, Value)]) -> Result<Value, CliError> {
                 prev.n()
             )));
         }
-        h_seen = Some(h.clone());
+        h_seen = Some(h);
         let shard = shard_of(name, d)?;
         if let Some(c) = count_seen
             && c != shard.count
@@ -108,40 +100,69 @@ pub fn merge_hessenberg(docs: &[(String, Value)]) -> Result<Value, CliError> {
             )));
         }
         count_seen = Some(shard.count);
-        if !pieces.insert(shard.index) {
+        if !shards.insert(shard.index) {
             return Err(bad(&format!(
                 "piece {}/{} appears twice",
                 shard.index, shard.count
             )));
         }
-        let coeffs = d
-            .get("coefficients")
-            .and_then(Value::as_array)
-            .ok_or_else(|| bad("no \"coefficients\" list"))?;
-        for c in coeffs {
-            let perm: Vec<usize> = c
-                .get("perm")
-                .and_then(Value::as_array)
-                .and_then(|a| {
-                    a.iter()
-                        .map(|v| v.as_u64().map(|x| x as usize))
-                        .collect::<Option<Vec<_>>>()
-                })
-                .ok_or_else(|| bad("a coefficient without a \"perm\" list"))?;
-            let w = Perm::from_one_line(&perm).map_err(|e| bad(&e.to_string()))?;
-            let value: BigInt = c
-                .get("value")
-                .and_then(Value::as_str)
-                .and_then(|s| s.parse().ok())
-                .ok_or_else(|| bad("a coefficient whose \"value\" is not an integer string"))?;
-            entries.push((w, value));
-        }
+        entries.extend(coefficients_of(name, d)?);
     }
     let (Some(h), Some(count)) = (h_seen, count_seen) else {
         return Err(CliError::Input("nothing to merge".into()));
     };
+    check_every_shard_given(&shards, count)?;
+    let table = assemble_table(h, entries)?;
+    Ok(hessenberg_table_json(&table, Shard::WHOLE))
+}
+
+/// The `"h"` of one file.
+fn hessenberg_of(name: &str, d: &Value) -> Result<HessenbergFn, CliError> {
+    let bad = |what: &str| CliError::Input(format!("{name}: {what}"));
+    let h_values: Vec<usize> = d
+        .get("h")
+        .and_then(Value::as_array)
+        .ok_or_else(|| bad("no Hessenberg function \"h\""))?
+        .iter()
+        .map(|v| v.as_u64().map(|x| x as usize))
+        .collect::<Option<Vec<_>>>()
+        .ok_or_else(|| bad("\"h\" is not a list of positive integers"))?;
+    HessenbergFn::new(&h_values).map_err(|e| bad(&e.to_string()))
+}
+
+/// The `"coefficients"` of one file: (w, a^h_w) pairs.
+fn coefficients_of(name: &str, d: &Value) -> Result<Vec<(Perm, BigInt)>, CliError> {
+    let bad = |what: &str| CliError::Input(format!("{name}: {what}"));
+    let coeffs = d
+        .get("coefficients")
+        .and_then(Value::as_array)
+        .ok_or_else(|| bad("no \"coefficients\" list"))?;
+    let mut entries = Vec::with_capacity(coeffs.len());
+    for c in coeffs {
+        let perm: Vec<usize> = c
+            .get("perm")
+            .and_then(Value::as_array)
+            .and_then(|a| {
+                a.iter()
+                    .map(|v| v.as_u64().map(|x| x as usize))
+                    .collect::<Option<Vec<_>>>()
+            })
+            .ok_or_else(|| bad("a coefficient without a \"perm\" list"))?;
+        let w = Perm::from_one_line(&perm).map_err(|e| bad(&e.to_string()))?;
+        let value: BigInt = c
+            .get("value")
+            .and_then(Value::as_str)
+            .and_then(|s| s.parse().ok())
+            .ok_or_else(|| bad("a coefficient whose \"value\" is not an integer string"))?;
+        entries.push((w, value));
+    }
+    Ok(entries)
+}
+
+/// Refuses a merge that lacks some of the shards 1..count.
+fn check_every_shard_given(shards: &BTreeSet<usize>, count: usize) -> Result<(), CliError> {
     let missing: Vec<String> = (1..=count)
-        .filter(|k| !pieces.contains(k))
+        .filter(|k| !shards.contains(k))
         .map(|k| format!("{k}/{count}"))
         .collect();
     if !missing.is_empty() {
@@ -150,6 +171,15 @@ pub fn merge_hessenberg(docs: &[(String, Value)]) -> Result<Value, CliError> {
             missing.join(", ")
         )));
     }
+    Ok(())
+}
+
+/// The whole table from the entries of all shards, which must cover the
+/// listing of the permutations of length |h| exactly once.
+fn assemble_table(
+    h: HessenbergFn,
+    mut entries: Vec<(Perm, BigInt)>,
+) -> Result<HessenbergTable, CliError> {
     let listing = perms_of_length(h.n(), h.dimension());
     entries.sort_by(|a, b| a.0.cmp(&b.0));
     for pair in entries.windows(2) {
@@ -168,7 +198,7 @@ pub fn merge_hessenberg(docs: &[(String, Value)]) -> Result<Value, CliError> {
             h.dimension()
         )));
     }
-    let table = HessenbergTable {
+    Ok(HessenbergTable {
         h,
         listed: listing.len(),
         entries: entries
@@ -176,6 +206,5 @@ pub fn merge_hessenberg(docs: &[(String, Value)]) -> Result<Value, CliError> {
             .enumerate()
             .map(|(index, (perm, value))| TableEntry { index, perm, value })
             .collect(),
-    };
-    Ok(table_json(&table, Shard::WHOLE))
+    })
 }

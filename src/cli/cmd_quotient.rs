@@ -1,27 +1,13 @@
 //! `elbowroom quotient --n N`: the quasisymmetric quotient Q[x_1..x_n]/J_n — its basis of
 //! standard monomials (with their lattice paths), graded dimensions and Gröbner basis.
 
+use super::args::QuotientArgs;
 use super::error::CliError;
 use super::json;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::lattice_path::{LatticePath, Step};
 use crate::math::quotient::normal_form::{groebner_basis, hilbert_series};
-use clap::Args;
 use serde_json::{Value, json};
-
-/// Arguments of `elbowroom quotient`.
-#[derive(Args, Debug)]
-pub struct QuotientArgs {
-    /// The number of variables n (1 to 8).
-    #[arg(long)]
-    pub n: usize,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
-    /// Draw every basis path in the text output (by default only for n <= 4).
-    #[arg(long, conflicts_with = "json")]
-    pub draw: bool,
-}
 
 /// The steps of a path as JSON: the word and, per step, the variable it carries (or null).
 pub fn path_json(p: &LatticePath) -> Value {

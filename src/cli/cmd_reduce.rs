@@ -1,26 +1,13 @@
 //! `elbowroom reduce POLY --n N`: the normal form of a polynomial modulo J_n and its
 //! coefficients on the standard monomials (the lattice-path basis).
 
+use super::args::ReduceArgs;
 use super::error::CliError;
 use super::json;
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::normal_form::{groebner_basis, normal_form};
-use clap::Args;
 use serde_json::json;
-
-/// Arguments of `elbowroom reduce`.
-#[derive(Args, Debug)]
-pub struct ReduceArgs {
-    /// The polynomial, e.g. "x1^2 x2 - 3/2 x3" or "M(2,1) + F(1,1)".
-    pub poly: String,
-    /// The number of variables n (1 to 8).
-    #[arg(long)]
-    pub n: usize,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
-}
 
 /// Runs the command.
 pub fn run(args: &ReduceArgs) -> Result<String, CliError> {

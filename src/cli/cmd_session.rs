@@ -1,37 +1,11 @@
 //! `elbowroom session check FILE [--json]`: validates a session file without
 //! opening the explorer, and summarises what it would open.
 
+use super::args::{SessionAction, SessionArgs, SessionCheckArgs};
 use super::error::CliError;
 use super::json;
 use crate::session::{SessionError, store};
-use clap::{Args, Subcommand};
 use serde_json::json;
-use std::path::PathBuf;
-
-/// Arguments of `elbowroom session`.
-#[derive(Args, Debug)]
-pub struct SessionArgs {
-    /// What to do with the session file.
-    #[command(subcommand)]
-    pub action: SessionAction,
-}
-
-/// What `elbowroom session` does.
-#[derive(Subcommand, Debug)]
-pub enum SessionAction {
-    /// Reads and validates a session file and summarises it; never writes.
-    Check(SessionCheckArgs),
-}
-
-/// Arguments of `elbowroom session check`.
-#[derive(Args, Debug)]
-pub struct SessionCheckArgs {
-    /// The session file (`.ron`).
-    pub file: PathBuf,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
-}
 
 /// Runs `elbowroom session ...`.
 pub fn run(args: &SessionArgs) -> Result<String, CliError> {

@@ -5,39 +5,17 @@
 //! Ctrl-C stops the run: stderr says how far it got, the exit status is 130 and nothing
 //! is printed on stdout.
 
-use super::args::TableOutput;
+use super::args::SurveyArgs;
+use super::documents::SURVEY_KIND;
 use super::error::CliError;
+use super::interrupt;
 use super::json;
 use super::shard::Shard;
-use crate::figure::result_tables::survey_table;
 use crate::math::Perm;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::survey::{SurveyEntry, survey};
-use clap::Args;
+use crate::tables::results::survey_table;
 use serde_json::{Value, json};
-
-/// The `"kind"` of the survey's JSON output, for `elbowroom merge`.
-pub const KIND: &str = "quotient_survey";
-
-/// Arguments of `elbowroom survey`.
-#[derive(Args, Debug)]
-pub struct SurveyArgs {
-    /// Survey all of S_n (1 <= n <= 8).
-    #[arg(long, conflicts_with = "perm", required_unless_present = "perm")]
-    pub n: Option<usize>,
-    /// Survey one permutation, e.g. 2143.
-    #[arg(long)]
-    pub perm: Option<String>,
-    /// How to print the results.
-    #[command(flatten)]
-    pub output: TableOutput,
-    /// Leave out the per-permutation normal forms.
-    #[arg(long)]
-    pub summary: bool,
-    /// Run only piece K of N of the listing (item i goes to piece (i mod N) + 1).
-    #[arg(long, value_name = "K/N")]
-    pub shard: Option<String>,
-}
 
 fn negatives_json(e: &SurveyEntry, n: usize) -> Vec<Value> {
     e.negatives()
@@ -48,10 +26,7 @@ fn negatives_json(e: &SurveyEntry, n: usize) -> Vec<Value> {
 
 /// Runs the command.
 pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
-    let shard = match &args.shard {
-        Some(s) => Shard::parse(s)?,
-        None => Shard::WHOLE,
-    };
+    let shard = Shard::of_arg(args.shard.as_deref())?;
     let (n, perms): (usize, Vec<Perm>) = match (&args.perm, args.n) {
         (Some(text), _) => {
             let w = Perm::parse(text)?;
@@ -83,7 +58,7 @@ pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
         .filter(|(i, _)| shard.selects(*i))
         .map(|(_, w)| w)
         .collect();
-    let entries = super::interrupt::run_interruptible(
+    let entries = interrupt::run_interruptible(
         "the survey",
         "permutations",
         perms.len() as u64,
@@ -131,7 +106,7 @@ pub fn survey_json(n: usize, shard: &str, entries: &[SurveyEntry], summary: bool
         .map(|e| json!({"perm": e.perm.one_line(), "negative_coefficients": negatives_json(e, n)}))
         .collect();
     json!({
-        "kind": KIND,
+        "kind": SURVEY_KIND,
         "n": n,
         "shard": shard,
         "count": entries.len(),

@@ -2,63 +2,15 @@
 
 use super::args::VolumeArgs;
 use super::error::CliError;
+use super::inputs::parse_lambda;
 use super::json;
 use crate::math::permutohedra::permutohedron::{
     POLYNOMIAL_MAX_N, Permutohedron, volume_polynomial,
 };
-use num_bigint::BigInt;
-use num_rational::BigRational;
 use serde_json::{Value, json};
 
 /// Vertices are listed (exactly, and for drawing) up to this many.
 pub const VERTEX_LIST_LIMIT: usize = 720;
-
-/// Parses one exact rational: `3`, `-3/2` or `0.25`.
-pub fn parse_rational(text: &str) -> Result<BigRational, CliError> {
-    let t = text.trim();
-    let bad = || {
-        CliError::Input(format!(
-            "'{t}' is not a rational number; accepted: integers, fractions p/q and decimals (3, -3/2, 0.25)"
-        ))
-    };
-    if let Some((p, q)) = t.split_once('/') {
-        let p: BigInt = p.trim().parse().map_err(|_| bad())?;
-        let q: BigInt = q.trim().parse().map_err(|_| bad())?;
-        if q == BigInt::from(0) {
-            return Err(CliError::Input(format!("'{t}' divides by zero")));
-        }
-        return Ok(BigRational::new(p, q));
-    }
-    if let Some((whole, frac)) = t.split_once('.') {
-        let negative = whole.trim_start().starts_with('-');
-        if frac.is_empty() || !frac.chars().all(|c| c.is_ascii_digit()) {
-            return Err(bad());
-        }
-        let w: BigInt = if whole.is_empty() || whole == "-" {
-            BigInt::from(0)
-        } else {
-            whole.parse().map_err(|_| bad())?
-        };
-        let f: BigInt = frac.parse().map_err(|_| bad())?;
-        let scale = num_traits::pow(BigInt::from(10), frac.len());
-        let mag = BigRational::new(f, scale);
-        let base = BigRational::from_integer(w);
-        return Ok(if negative { base - mag } else { base + mag });
-    }
-    let v: BigInt = t.parse().map_err(|_| bad())?;
-    Ok(BigRational::from_integer(v))
-}
-
-/// Parses `l1,...,ln`.
-pub fn parse_lambda(text: &str) -> Result<Vec<BigRational>, CliError> {
-    let parts: Vec<&str> = text.split([',', ' ']).filter(|s| !s.is_empty()).collect();
-    if parts.is_empty() {
-        return Err(CliError::Input(
-            "--lambda is empty; give λ_1,...,λ_n as rationals, for example 3,1/2,0".into(),
-        ));
-    }
-    parts.iter().map(|p| parse_rational(p)).collect()
-}
 
 /// Runs the command.
 pub fn run(args: &VolumeArgs) -> Result<String, CliError> {

@@ -3,10 +3,21 @@
 //!
 //! The handler is installed once per process; each long run registers its
 //! [`Progress`] for as long as the returned guard lives.
+//!
+//! With `ELBOWROOM_ANNOUNCE_WATCH=1` in the environment, the moment a run is
+//! registered (so that Ctrl-C now cancels it) is announced on stderr with the
+//! line [`ANNOUNCEMENT`]: tests wait for it before sending SIGINT, instead of
+//! guessing with a sleep. Without the variable nothing is printed.
 
 use super::error::CliError;
 use crate::math::{MathError, MathResult, Progress};
 use std::sync::{Arc, Mutex, OnceLock};
+
+/// The environment variable that turns the announcement on (value `1`).
+pub const ANNOUNCE_ENV: &str = "ELBOWROOM_ANNOUNCE_WATCH";
+
+/// The line printed on stderr once Ctrl-C cancels the registered run.
+pub const ANNOUNCEMENT: &str = "elbowroom: watching for Ctrl-C";
 
 static WATCHED: OnceLock<Mutex<Option<Arc<Progress>>>> = OnceLock::new();
 
@@ -40,6 +51,9 @@ impl Drop for Watch {
 pub fn watch(progress: Arc<Progress>) -> Watch {
     if let Ok(mut g) = slot().lock() {
         *g = Some(progress);
+    }
+    if std::env::var(ANNOUNCE_ENV).is_ok_and(|v| v == "1") {
+        eprintln!("{ANNOUNCEMENT}");
     }
     Watch
 }

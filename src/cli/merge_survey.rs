@@ -1,7 +1,9 @@
-//! Merging the pieces of a sharded survey (`elbowroom survey --shard K/N --json`) back
+//! Merging the shards of a survey (`elbowroom survey --shard K/N --json`) back
 //! into one survey, as if it had been run whole.
 
+use super::documents::SURVEY_KIND;
 use super::error::CliError;
+use super::shard::Shard;
 use serde_json::{Value, json};
 use std::cmp::Ordering;
 
@@ -31,7 +33,7 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
     let mut results: Vec<Value> = Vec::new();
     let mut counterexamples: Vec<Value> = Vec::new();
     for (i, doc) in docs.iter().enumerate() {
-        if doc.get("kind").and_then(Value::as_str) != Some(super::cmd_survey::KIND) {
+        if doc.get("kind").and_then(Value::as_str) != Some(SURVEY_KIND) {
             return Err(bad(format!(
                 "piece {} is not a quotient survey (its \"kind\" is not \"quotient_survey\")",
                 i + 1
@@ -41,7 +43,7 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
             return Err(bad(format!("piece {} surveys a different n", i + 1)));
         }
         let shard = doc.get("shard").and_then(Value::as_str).unwrap_or("");
-        let parsed = super::shard::Shard::parse(shard)
+        let parsed = Shard::parse(shard)
             .map_err(|_| bad(format!("piece {} has no valid \"shard\": \"K/N\"", i + 1)))?;
         match count {
             None => {
@@ -83,7 +85,7 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
     results.sort_by(by_perm);
     counterexamples.sort_by(by_perm);
     Ok(json!({
-        "kind": super::cmd_survey::KIND,
+        "kind": SURVEY_KIND,
         "n": n,
         "shard": "1/1",
         "merged_from": seen.len(),
@@ -99,14 +101,14 @@ mod tests {
     use super::*;
 
     #[test]
-    fn pieces_must_cover_once() {
-        let piece = |k: usize, perms: &[[u64; 2]]| {
+    fn shards_must_cover_once() {
+        let shard = |k: usize, perms: &[[u64; 2]]| {
             json!({"kind": "quotient_survey", "n": 2, "shard": format!("{k}/2"),
                    "results": perms.iter().map(|p| json!({"perm": p})).collect::<Vec<_>>(),
                    "counterexamples": []})
         };
-        let a = piece(1, &[[1, 2]]);
-        let b = piece(2, &[[2, 1]]);
+        let a = shard(1, &[[1, 2]]);
+        let b = shard(2, &[[2, 1]]);
         let merged = merge_surveys(&[b.clone(), a.clone()]).unwrap_or(Value::Null);
         assert_eq!(merged["results"][0]["perm"], json!([1, 2]));
         assert_eq!(merged["count"], json!(2));

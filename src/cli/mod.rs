@@ -4,6 +4,12 @@
 //! with `--json`. Exact values (counts, coefficients, rationals) are JSON
 //! strings; small structural integers are JSON numbers. Bad input gives a
 //! one-line message on stderr and exit status 2.
+//!
+//! Layout: [`args`] holds the whole grammar (every argument type) and imports
+//! no command; each `cmd_*` module runs one command and imports no other
+//! command module. What several commands share lives beside them:
+//! [`inputs`] (reading `--n`/`--h` and λ), [`documents`] (the JSON kinds that
+//! `merge` reads back), [`shard`], [`interrupt`], [`json`] and [`error`].
 
 pub mod args;
 pub mod cmd_divsym;
@@ -20,7 +26,9 @@ pub mod cmd_session;
 pub mod cmd_survey;
 pub mod cmd_volume;
 pub mod cmd_words;
+pub mod documents;
 pub mod error;
+pub mod inputs;
 pub mod interrupt;
 pub mod json;
 pub mod merge_survey;

@@ -1,23 +1,25 @@
-//! `--shard K/N`: a deterministic split of a batch over S_n into N pieces, so
-//! that a cluster's array job can run piece K (1-based) of N on each node.
+//! `--shard K/N`: a deterministic split of a batch over S_n into N shards, so
+//! that a cluster's array job can run shard K (1-based) of N on each node.
 //!
-//! Item i (0-based, in the command's listing order) belongs to piece
-//! (i mod N) + 1; interleaving keeps the pieces balanced, since cost tends to
-//! grow along the listing.
+//! Item i (0-based, in the command's listing order) belongs to shard
+//! (i mod N) + 1; interleaving keeps the shards balanced, since cost tends to
+//! grow along the listing. "Shard" is the one word for this in the code; the
+//! printed texts and `--help` say "piece K/N", and the flag and the JSON key
+//! say `shard`: both are kept as they are, since scripts read them.
 
 use super::error::CliError;
 
-/// One piece of a split batch.
+/// One shard of a split batch.
 #[derive(Clone, Copy, Debug, PartialEq, Eq)]
 pub struct Shard {
-    /// The piece, 1-based.
+    /// The shard, 1-based.
     pub index: usize,
-    /// The number of pieces.
+    /// The number of shards.
     pub count: usize,
 }
 
 impl Shard {
-    /// The whole batch as one piece.
+    /// The whole batch as one shard.
     pub const WHOLE: Shard = Shard { index: 1, count: 1 };
 
     /// Parses `K/N` with 1 <= K <= N.
@@ -36,7 +38,12 @@ impl Shard {
         Ok(Shard { index, count })
     }
 
-    /// Whether item `i` (0-based, in listing order) belongs to this piece.
+    /// The shard of an optional `--shard` argument: the whole batch without one.
+    pub fn of_arg(text: Option<&str>) -> Result<Shard, CliError> {
+        text.map_or(Ok(Shard::WHOLE), Shard::parse)
+    }
+
+    /// Whether item `i` (0-based, in listing order) belongs to this shard.
     pub fn selects(&self, i: usize) -> bool {
         i % self.count == self.index - 1
     }
@@ -52,12 +59,12 @@ mod tests {
     use super::*;
 
     #[test]
-    fn pieces_partition_the_batch() {
-        let pieces: Vec<Shard> = (1..=3)
+    fn shards_partition_the_batch() {
+        let shards: Vec<Shard> = (1..=3)
             .map(|k| Shard::parse(&format!("{k}/3")).unwrap())
             .collect();
         for i in 0..100 {
-            assert_eq!(pieces.iter().filter(|s| s.selects(i)).count(), 1);
+            assert_eq!(shards.iter().filter(|s| s.selects(i)).count(), 1);
         }
         assert!(Shard::parse("0/3").is_err());
         assert!(Shard::parse("4/3").is_err());

@@ -6,8 +6,10 @@ use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::hessenberg::table::{HessenbergTable, coefficient_table};
 use crate::math::perms::class::PermClass;
 use crate::math::perms::words::{count_reduced_words_with, reduced_words};
+pub use crate::math::permutohedra::drawing::PolytopeDrawing;
 use crate::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
 use crate::math::permutohedra::permutohedron::Permutohedron;
+use crate::math::permutohedra::segment::volume_along_segment;
 use crate::math::pipes::bumpless::{BumplessDream, bumpless_dreams};
 use crate::math::pipes::dream::{PipeDream, count_pipe_dreams, pipe_dreams};
 use crate::math::poly::parse::parse_poly;
@@ -16,8 +18,7 @@ use crate::math::quotient::normal_form::{NormalForm, groebner_basis, hilbert_ser
 use crate::math::quotient::survey::{SurveyEntry, survey};
 use crate::math::schubert::polynomial::SchubertTable;
 use crate::math::{IntPoly, MathError, MathResult, Perm, Progress};
-use num_bigint::BigInt;
-use num_bigint::BigUint;
+use num_bigint::{BigInt, BigUint};
 use num_rational::BigRational;
 
 /// How the permutation browser filters and orders S_n.
@@ -166,17 +167,6 @@ pub enum Output {
     Survey(Vec<SurveyEntry>),
 }
 
-/// The vertices and edges of a permutohedron, with coordinates for drawing.
-#[derive(Clone, Debug)]
-pub struct PolytopeDrawing {
-    /// Each vertex as text, e.g. `(3, 1, 2)`.
-    pub labels: Vec<String>,
-    /// Coordinates in the hyperplane Σ x_i = Σ λ_i (n - 1 of them per vertex).
-    pub coords: Vec<Vec<f64>>,
-    /// Pairs of adjacent vertices.
-    pub edges: Vec<(usize, usize)>,
-}
-
 impl Output {
     /// The polynomial, if this is one.
     pub fn poly(&self) -> Option<&IntPoly> {
@@ -260,159 +250,144 @@ impl Output {
 }
 
 /// Computes the answer for `key`, reporting to `progress` and stopping with
-/// `Canceled` when asked to.
+/// `Canceled` when asked to. One function per kind of job below.
 pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
     match key {
-        JobKey::Schubert(w) => {
-            progress.set_total(1);
-            let p = SchubertTable::new().get(w);
-            progress.advance(1);
-            Ok(Output::Poly((*p).clone()))
-        }
+        JobKey::Schubert(w) => schubert_polynomial(w, progress).map(Output::Poly),
         JobKey::Browse(b) => browse(b, progress).map(Output::Perms),
-        JobKey::Counts(ws) => {
-            progress.set_total(ws.len() as u64);
-            let mut out = Vec::with_capacity(ws.len());
-            for w in ws {
-                progress.check()?;
-                out.push(count_pipe_dreams(w));
-                progress.advance(1);
-            }
-            Ok(Output::Counts(out))
-        }
-        JobKey::PipeDreams(w) => {
-            let total = count_pipe_dreams(w);
-            let total = u64::try_from(&total)
-                .unwrap_or(u64::MAX)
-                .min(DREAM_LIMIT as u64);
-            progress.set_total(total);
-            let mut out = Vec::new();
-            for d in pipe_dreams(w).take(DREAM_LIMIT) {
-                if out.len() % 256 == 0 {
-                    progress.check()?;
-                    progress.advance(256);
-                }
-                out.push(d);
-            }
-            Ok(Output::Dreams(out))
-        }
-        JobKey::Bumpless(w) => {
-            progress.set_total(1);
-            let out = bumpless_dreams(w);
-            progress.check()?;
-            progress.advance(1);
-            Ok(Output::Bumpless(out))
-        }
+        JobKey::Counts(ws) => dream_counts(ws, progress).map(Output::Counts),
+        JobKey::PipeDreams(w) => dreams(w, progress).map(Output::Dreams),
+        JobKey::Bumpless(w) => bumpless(w, progress).map(Output::Bumpless),
+        JobKey::WordCount(w) => count_reduced_words_with(w, progress).map(Output::Count),
+        JobKey::Words(w, page) => word_page(w, *page, progress).map(Output::Words),
         JobKey::Hessenberg(h) => {
             let h = HessenbergFn::new(h)?;
             coefficient_table(&h, &|_| true, progress).map(Output::Hessenberg)
         }
-        JobKey::Volume(lambda) => {
-            progress.set_total(1);
-            let v = Permutohedron::new(lambda)?.volume();
-            progress.advance(1);
-            Ok(Output::Rational(v))
-        }
+        JobKey::Volume(lambda) => volume(lambda, progress).map(Output::Rational),
         JobKey::VolumeSegment(a, b, m) => {
-            if a.len() != b.len() || *m == 0 {
-                return Err(MathError::InvalidInput(
-                    "the two ends of the segment need the same number of entries".into(),
-                ));
-            }
-            progress.set_total(*m as u64 + 1);
-            let mut out = Vec::with_capacity(m + 1);
-            for k in 0..=*m {
-                progress.check()?;
-                let t = BigRational::new(BigInt::from(k), BigInt::from(*m));
-                let one_minus = BigRational::from_integer(BigInt::from(1)) - &t;
-                let lambda: Vec<BigRational> = a
-                    .iter()
-                    .zip(b)
-                    .map(|(x, y)| &one_minus * x + &t * y)
-                    .collect();
-                out.push((t, Permutohedron::new(&lambda)?.volume()));
-                progress.advance(1);
-            }
-            Ok(Output::Samples(out))
+            volume_along_segment(a, b, *m, progress).map(Output::Samples)
         }
         JobKey::Eulerian(n) => mixed_eulerian_numbers(*n, progress).map(Output::Eulerian),
         JobKey::Polytope(lambda) => {
-            let p = Permutohedron::new(lambda)?;
-            if p.n() > 5 {
-                return Err(MathError::OutOfRange("P_λ is drawn for n <= 5".into()));
-            }
-            let vertices = p.vertices(120)?;
-            let edges = p.edges(&vertices);
-            let coords = Permutohedron::drawing_coordinates(&vertices);
-            let labels = vertices
-                .iter()
-                .map(|v| {
-                    let t: Vec<String> = v.iter().map(|x| x.to_string()).collect();
-                    format!("({})", t.join(", "))
-                })
-                .collect();
-            Ok(Output::Polytope(PolytopeDrawing {
-                labels,
-                coords,
-                edges,
-            }))
+            PolytopeDrawing::of(&Permutohedron::new(lambda)?).map(Output::Polytope)
         }
-        JobKey::DivSym(text, h) => {
-            progress.set_total(1);
-            let h = HessenbergFn::new(h)?;
-            let f = parse_poly(text, Some(h.n()))?;
-            let out = divided_symmetrize(&f, &h)?;
-            progress.advance(1);
-            Ok(Output::DivSym(out))
-        }
-        JobKey::Survey(n) => {
-            if *n == 0 || *n > MAX_QUOTIENT_N {
-                return Err(MathError::OutOfRange(format!(
-                    "surveys run for n from 1 to {MAX_QUOTIENT_N}"
-                )));
-            }
-            let perms: Vec<Perm> = Perm::all(*n).collect();
-            progress.set_total(perms.len() as u64);
-            survey(&perms, progress).map(Output::Survey)
-        }
-        JobKey::NormalForm(input) => {
-            progress.set_total(2);
-            let (n, f) = match input {
-                QuotientInput::ReversedSchubert(w) => {
-                    let s = SchubertTable::new().get(w);
-                    (w.n(), s.reverse_vars().to_rational())
-                }
-                QuotientInput::Typed(text, n) => (*n, parse_poly(text, Some(*n))?),
-            };
-            let q = groebner_basis(n)?;
-            progress.advance(1);
+        JobKey::DivSym(text, h) => divsym(text, h, progress).map(Output::DivSym),
+        JobKey::Survey(n) => survey_of_all(*n, progress).map(Output::Survey),
+        JobKey::NormalForm(input) => reduce(input, progress).map(Output::Reduced),
+    }
+}
+
+fn schubert_polynomial(w: &Perm, progress: &Progress) -> MathResult<IntPoly> {
+    progress.set_total(1);
+    let p = SchubertTable::new().get(w);
+    progress.advance(1);
+    Ok((*p).clone())
+}
+
+fn dream_counts(ws: &[Perm], progress: &Progress) -> MathResult<Vec<BigUint>> {
+    progress.set_total(ws.len() as u64);
+    let mut out = Vec::with_capacity(ws.len());
+    for w in ws {
+        progress.check()?;
+        out.push(count_pipe_dreams(w));
+        progress.advance(1);
+    }
+    Ok(out)
+}
+
+/// The first [`DREAM_LIMIT`] reduced pipe dreams of w.
+fn dreams(w: &Perm, progress: &Progress) -> MathResult<Vec<PipeDream>> {
+    let total = count_pipe_dreams(w);
+    let total = u64::try_from(&total)
+        .unwrap_or(u64::MAX)
+        .min(DREAM_LIMIT as u64);
+    progress.set_total(total);
+    let mut out = Vec::new();
+    for d in pipe_dreams(w).take(DREAM_LIMIT) {
+        if out.len() % 256 == 0 {
             progress.check()?;
-            let normal = normal_form(&q, &f)?;
-            progress.advance(1);
-            Ok(Output::Reduced(Reduced {
-                n,
-                input: f.to_text(),
-                normal,
-                hilbert: hilbert_series(&q),
-            }))
+            progress.advance(256);
         }
-        JobKey::WordCount(w) => count_reduced_words_with(w, progress).map(Output::Count),
-        JobKey::Words(w, page) => {
-            let skip = page.saturating_mul(WORD_PAGE);
-            progress.set_total((skip + WORD_PAGE) as u64);
-            let mut out = Vec::with_capacity(WORD_PAGE);
-            for (k, word) in reduced_words(w).enumerate().take(skip + WORD_PAGE) {
-                if k % 1024 == 0 {
-                    progress.check()?;
-                    progress.advance(1024);
-                }
-                if k >= skip {
-                    out.push(word);
-                }
-            }
-            Ok(Output::Words(out))
+        out.push(d);
+    }
+    Ok(out)
+}
+
+fn bumpless(w: &Perm, progress: &Progress) -> MathResult<Vec<BumplessDream>> {
+    progress.set_total(1);
+    let out = bumpless_dreams(w);
+    progress.check()?;
+    progress.advance(1);
+    Ok(out)
+}
+
+/// Page `page` (of [`WORD_PAGE`] words) of the reduced words of w in lex order.
+fn word_page(w: &Perm, page: usize, progress: &Progress) -> MathResult<Vec<Vec<usize>>> {
+    let skip = page.saturating_mul(WORD_PAGE);
+    progress.set_total((skip + WORD_PAGE) as u64);
+    let mut out = Vec::with_capacity(WORD_PAGE);
+    for (k, word) in reduced_words(w).enumerate().take(skip + WORD_PAGE) {
+        if k % 1024 == 0 {
+            progress.check()?;
+            progress.advance(1024);
+        }
+        if k >= skip {
+            out.push(word);
         }
     }
+    Ok(out)
+}
+
+fn volume(lambda: &[BigRational], progress: &Progress) -> MathResult<BigRational> {
+    progress.set_total(1);
+    let v = Permutohedron::new(lambda)?.volume();
+    progress.advance(1);
+    Ok(v)
+}
+
+fn divsym(text: &str, h: &[usize], progress: &Progress) -> MathResult<DividedSymmetrization> {
+    progress.set_total(1);
+    let h = HessenbergFn::new(h)?;
+    let f = parse_poly(text, Some(h.n()))?;
+    let out = divided_symmetrize(&f, &h)?;
+    progress.advance(1);
+    Ok(out)
+}
+
+/// The positivity survey over all of S_n, in lexicographic order.
+fn survey_of_all(n: usize, progress: &Progress) -> MathResult<Vec<SurveyEntry>> {
+    if n == 0 || n > MAX_QUOTIENT_N {
+        return Err(MathError::OutOfRange(format!(
+            "surveys run for n from 1 to {MAX_QUOTIENT_N}"
+        )));
+    }
+    let perms: Vec<Perm> = Perm::all(n).collect();
+    progress.set_total(perms.len() as u64);
+    survey(&perms, progress)
+}
+
+/// The normal form modulo J_n of what the quotient view reduces.
+fn reduce(input: &QuotientInput, progress: &Progress) -> MathResult<Reduced> {
+    progress.set_total(2);
+    let (n, f) = match input {
+        QuotientInput::ReversedSchubert(w) => {
+            let s = SchubertTable::new().get(w);
+            (w.n(), s.reverse_vars().to_rational())
+        }
+        QuotientInput::Typed(text, n) => (*n, parse_poly(text, Some(*n))?),
+    };
+    let q = groebner_basis(n)?;
+    progress.advance(1);
+    progress.check()?;
+    let normal = normal_form(&q, &f)?;
+    progress.advance(1);
+    Ok(Reduced {
+        n,
+        input: f.to_text(),
+        normal,
+        hilbert: hilbert_series(&q),
+    })
 }
 
 fn browse(b: &BrowseKey, progress: &Progress) -> MathResult<Vec<Perm>> {
@@ -484,6 +459,24 @@ mod tests {
             .map(|c| c.to_string())
             .collect();
         assert_eq!(c, ["5", "1"]);
+        Ok(())
+    }
+
+    #[test]
+    fn the_segment_and_the_drawing_come_from_the_shared_functions() -> MathResult<()> {
+        let r = |v: i64| BigRational::from_integer(v.into());
+        let (a, b) = (vec![r(1), r(1), r(0)], vec![r(2), r(1), r(0)]);
+        let p = Progress::new(0);
+        let out = compute(&JobKey::VolumeSegment(a.clone(), b.clone(), 4), &p)?;
+        let Output::Samples(samples) = out else {
+            return Err(MathError::InvalidInput("not samples".into()));
+        };
+        assert_eq!(samples, volume_along_segment(&a, &b, 4, &p)?);
+        let out = compute(&JobKey::Polytope(b.clone()), &p)?;
+        let Output::Polytope(d) = out else {
+            return Err(MathError::InvalidInput("not a drawing".into()));
+        };
+        assert_eq!(d, PolytopeDrawing::of(&Permutohedron::new(&b)?)?);
         Ok(())
     }
 }

@@ -7,7 +7,7 @@ use super::look::Look;
 use super::palette::label_color;
 use super::scene::{Anchor, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
 use crate::math::pipes::dream::PipeDream;
-use crate::math::pipes::trace::Side;
+use crate::math::pipes::trace::{PipePath, PipeTrace, Side};
 
 /// Side of a cell in figure units.
 pub const CELL: f32 = 28.0;
@@ -76,6 +76,40 @@ pub fn dream_scene(dream: &PipeDream, look: &Look, hints: &[(usize, usize)]) -> 
     let trace = dream.trace();
     let size = 2.0 * MARGIN + n as f32 * CELL;
     let mut scene = Scene::new(size, size, look.background());
+    tiles(&mut scene, &trace, look);
+    for pipe in &trace.pipes {
+        scene.push(
+            ItemKind::Path {
+                cmds: pipe_cmds(&trace, pipe),
+                stroke: Some(Stroke {
+                    width: CELL * 0.2,
+                    color: label_color(pipe.label, n),
+                }),
+                fill: None,
+            },
+            Tag::Pipe(pipe.label),
+        );
+    }
+    for &(i, j) in hints {
+        let o = cell_origin(i, j);
+        scene.push(
+            ItemKind::Circle {
+                center: Pt::new(o.x + CELL * 0.84, o.y + CELL * 0.84),
+                radius: CELL * 0.07,
+                stroke: None,
+                fill: Some(look.ink()),
+            },
+            Tag::Cell(i, j),
+        );
+    }
+    if look.labels {
+        row_and_column_labels(&mut scene, n, look);
+    }
+    scene
+}
+
+/// The tile of each cell of the staircase, tagged `Cell(i, j)`.
+fn tiles(scene: &mut Scene, trace: &PipeTrace, look: &Look) {
     let grid = Stroke {
         width: 0.8,
         color: look.grid(),
@@ -101,73 +135,54 @@ pub fn dream_scene(dream: &PipeDream, look: &Look, hints: &[(usize, usize)]) -> 
             Tag::Cell(t.row, t.col),
         );
     }
-    let width = CELL * 0.2;
-    for pipe in &trace.pipes {
-        let mut cmds = Vec::with_capacity(pipe.cells.len() + 2);
-        for (k, &(i, j)) in pipe.cells.iter().enumerate() {
-            let Some(tile) = trace.tile(i, j) else {
-                continue;
-            };
-            let Some(p) = tile.passages.iter().find(|p| p.label == pipe.label) else {
-                continue;
-            };
-            let o = cell_origin(i, j);
-            if k == 0 {
-                let start = side_mid(o, CELL, p.enters);
-                cmds.push(PathCmd::MoveTo(Pt::new(start.x - CELL * 0.25, start.y)));
-                cmds.push(PathCmd::LineTo(start));
-            }
-            cmds.push(passage_cmd(o, CELL, p.enters, p.leaves));
-        }
-        if let Some(PathCmd::LineTo(end) | PathCmd::CubicTo(_, _, end)) = cmds.last().copied() {
-            cmds.push(PathCmd::LineTo(Pt::new(end.x, end.y - CELL * 0.25)));
-        }
-        scene.push(
-            ItemKind::Path {
-                cmds,
-                stroke: Some(Stroke {
-                    width,
-                    color: label_color(pipe.label, n),
-                }),
-                fill: None,
-            },
-            Tag::Pipe(pipe.label),
-        );
-    }
-    for &(i, j) in hints {
-        let o = cell_origin(i, j);
-        scene.push(
-            ItemKind::Circle {
-                center: Pt::new(o.x + CELL * 0.84, o.y + CELL * 0.84),
-                radius: CELL * 0.07,
-                stroke: None,
-                fill: Some(look.ink()),
-            },
-            Tag::Cell(i, j),
-        );
-    }
-    if look.labels {
-        let text = |scene: &mut Scene, pos: Pt, t: String, anchor| {
-            scene.label(pos, t, CELL * 0.42, look.ink(), anchor);
+}
+
+/// One pipe as one path: in from the left of its first cell, through each of
+/// its passages, out at the top of its last.
+fn pipe_cmds(trace: &PipeTrace, pipe: &PipePath) -> Vec<PathCmd> {
+    let mut cmds = Vec::with_capacity(pipe.cells.len() + 2);
+    for (k, &(i, j)) in pipe.cells.iter().enumerate() {
+        let Some(tile) = trace.tile(i, j) else {
+            continue;
         };
-        for i in 1..=n {
-            let o = cell_origin(i, 1);
-            text(
-                &mut scene,
-                Pt::new(o.x - CELL * 0.35, o.y + CELL / 2.0),
-                i.to_string(),
-                Anchor::Right,
-            );
-            let o = cell_origin(1, i);
-            text(
-                &mut scene,
-                Pt::new(o.x + CELL / 2.0, o.y - CELL * 0.5),
-                i.to_string(),
-                Anchor::Center,
-            );
+        let Some(p) = tile.passages.iter().find(|p| p.label == pipe.label) else {
+            continue;
+        };
+        let o = cell_origin(i, j);
+        if k == 0 {
+            let start = side_mid(o, CELL, p.enters);
+            cmds.push(PathCmd::MoveTo(Pt::new(start.x - CELL * 0.25, start.y)));
+            cmds.push(PathCmd::LineTo(start));
         }
+        cmds.push(passage_cmd(o, CELL, p.enters, p.leaves));
     }
-    scene
+    if let Some(PathCmd::LineTo(end) | PathCmd::CubicTo(_, _, end)) = cmds.last().copied() {
+        cmds.push(PathCmd::LineTo(Pt::new(end.x, end.y - CELL * 0.25)));
+    }
+    cmds
+}
+
+/// Row numbers on the left and column numbers on top.
+fn row_and_column_labels(scene: &mut Scene, n: usize, look: &Look) {
+    let text = |scene: &mut Scene, pos: Pt, t: String, anchor| {
+        scene.label(pos, t, CELL * 0.42, look.ink(), anchor);
+    };
+    for i in 1..=n {
+        let o = cell_origin(i, 1);
+        text(
+            scene,
+            Pt::new(o.x - CELL * 0.35, o.y + CELL / 2.0),
+            i.to_string(),
+            Anchor::Right,
+        );
+        let o = cell_origin(1, i);
+        text(
+            scene,
+            Pt::new(o.x + CELL / 2.0, o.y - CELL * 0.5),
+            i.to_string(),
+            Anchor::Center,
+        );
+    }
 }
 
 #[cfg(test)]

@@ -1,11 +1,9 @@
-//! Writing a figure (or a table) to a file: the format follows the extension (`.png`,
-//! `.svg`, `.tex`/`.tikz`), and the file is written atomically (a temporary
-//! file in the same directory, then a rename), so a failed export never leaves
-//! half a figure behind.
+//! Writing a figure to a file: the format follows the extension (`.png`,
+//! `.svg`, `.tex`/`.tikz`), and the file is written atomically (see
+//! [`crate::atomic_write`]), so a failed export never leaves half a figure
+//! behind. Tables have their own writer, [`crate::tables::write`].
 
 use super::scene::Scene;
-use super::table::Table;
-use std::io::Write;
 use std::path::{Path, PathBuf};
 
 pub use super::png::to_png;
@@ -82,9 +80,6 @@ pub enum ExportError {
     /// The file name has no extension this writer knows.
     #[error("cannot tell the figure format of {}: use .png, .svg or .tex", .0.display())]
     UnknownFormat(PathBuf),
-    /// A table's file name has neither `.csv` nor `.tex`.
-    #[error("cannot tell the table format of {}: use .csv or .tex (a LaTeX tabular)", .0.display())]
-    UnknownTableFormat(PathBuf),
     /// Options out of range (a scale of zero, an image too large).
     #[error("{0}")]
     Options(String),
@@ -118,44 +113,10 @@ pub fn write(scene: &Scene, path: &Path, opts: &ExportOptions) -> Result<(), Exp
     write_atomically(path, &bytes)
 }
 
-/// Writes a table to `path`: CSV for `.csv`, a LaTeX tabular for `.tex`.
-pub fn write_table(table: &Table, path: &Path) -> Result<(), ExportError> {
-    let ext = path
-        .extension()
-        .and_then(|e| e.to_str())
-        .map(|e| e.to_ascii_lowercase());
-    let text = match ext.as_deref() {
-        Some("csv") => table.to_csv(),
-        Some("tex") => table.to_latex(),
-        _ => return Err(ExportError::UnknownTableFormat(path.to_path_buf())),
-    };
-    write_atomically(path, text.as_bytes())
-}
-
-/// Writes bytes through a temporary file in the same directory and a rename.
-pub fn write_atomically(path: &Path, bytes: &[u8]) -> Result<(), ExportError> {
-    let failed = |e: std::io::Error| ExportError::Write {
+/// Writes bytes through a temporary file `.NAME.writing` in the same directory and a rename.
+fn write_atomically(path: &Path, bytes: &[u8]) -> Result<(), ExportError> {
+    crate::atomic_write::write(path, "writing", bytes).map_err(|e| ExportError::Write {
         path: path.to_path_buf(),
         reason: e.to_string(),
-    };
-    let Some(name) = path.file_name() else {
-        return Err(ExportError::Write {
-            path: path.to_path_buf(),
-            reason: "the path names no file".into(),
-        });
-    };
-    let mut temp_name = std::ffi::OsString::from(".");
-    temp_name.push(name);
-    temp_name.push(".writing");
-    let temp = path.with_file_name(temp_name);
-    let result = (|| -> std::io::Result<()> {
-        let mut f = std::fs::File::create(&temp)?;
-        f.write_all(bytes)?;
-        f.sync_all()?;
-        std::fs::rename(&temp, path)
-    })();
-    result.map_err(|e| {
-        let _ = std::fs::remove_file(&temp);
-        failed(e)
     })
 }

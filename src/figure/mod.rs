@@ -5,10 +5,8 @@
 pub mod export;
 pub mod palette;
 pub mod png;
-pub mod result_tables;
 pub mod scene;
 pub mod svg;
-pub mod table;
 pub mod tikz;
 
 pub use scene::{Anchor, Color, Item, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};

@@ -7,7 +7,10 @@
 use super::look::Look;
 use super::palette::label_color;
 use super::scene::{Anchor, Color, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
+use crate::math::MathResult;
 use crate::math::quotient::lattice_path::{LatticePath, Step};
+use crate::math::quotient::normal_form::NormalForm;
+use num_traits::Signed;
 
 /// One panel: the path, the monomial as text, the coefficient as text, and its sign.
 pub struct PathPanel {
@@ -19,6 +22,24 @@ pub struct PathPanel {
     pub coefficient: String,
     /// Whether the coefficient is negative.
     pub negative: bool,
+}
+
+/// The panels of a normal form in n variables, one per standard monomial with
+/// a nonzero coefficient, in basis order; the monomial is written as in
+/// [`crate::math::poly::mono::exponents_text`] (`x2 x3^2`). An error when a
+/// monomial has no lattice path (it is then not standard).
+pub fn panels_of_normal_form(nf: &NormalForm, n: usize) -> MathResult<Vec<PathPanel>> {
+    nf.coefficients
+        .iter()
+        .map(|(_, m, c)| {
+            Ok(PathPanel {
+                path: LatticePath::of_monomial(&m.exps(n))?,
+                monomial: m.text(n),
+                coefficient: c.to_string(),
+                negative: c.is_negative(),
+            })
+        })
+        .collect()
 }
 
 const PANEL: f32 = 96.0;
@@ -33,137 +54,197 @@ pub fn path_grid_scene(panels: &[PathPanel], n: usize, columns: usize, look: &Lo
     let height = GAP + rows as f32 * (PANEL + CAPTION + GAP);
     let mut scene = Scene::new(width, height, look.background());
     let n = n.max(1);
-    let unit = (PANEL - 12.0) / n as f32;
     for (k, panel) in panels.iter().enumerate() {
         let x0 = GAP + (k % columns) as f32 * (PANEL + GAP);
         let y0 = GAP + (k / columns) as f32 * (PANEL + CAPTION + GAP);
-        let frame = if panel.negative {
-            look.alert()
-        } else {
-            look.grid()
-        };
+        let square = Square::at(x0, y0, n);
+        frame(&mut scene, k, panel, x0, y0, look);
+        grid_and_diagonal(&mut scene, &square, look);
+        path(&mut scene, k, panel, &square, look);
+        captions(&mut scene, panel, x0, y0, look);
+    }
+    scene
+}
+
+/// The n×n square of one panel: lattice point (a, b) -> a point of the figure,
+/// the square's lower-left corner being (0, 0).
+struct Square {
+    ox: f32,
+    oy: f32,
+    unit: f32,
+    n: usize,
+}
+
+impl Square {
+    fn at(x0: f32, y0: f32, n: usize) -> Square {
+        let unit = (PANEL - 12.0) / n as f32;
+        Square {
+            ox: x0 + 6.0,
+            oy: y0 + 6.0 + n as f32 * unit,
+            unit,
+            n,
+        }
+    }
+
+    fn pt(&self, a: usize, b: usize) -> Pt {
+        Pt::new(
+            self.ox + a as f32 * self.unit,
+            self.oy - b as f32 * self.unit,
+        )
+    }
+}
+
+/// The panel's tile and frame (red and thicker for a negative coefficient).
+fn frame(scene: &mut Scene, k: usize, panel: &PathPanel, x0: f32, y0: f32, look: &Look) {
+    let frame = if panel.negative {
+        look.alert()
+    } else {
+        look.grid()
+    };
+    scene.push(
+        ItemKind::Path {
+            cmds: vec![
+                PathCmd::MoveTo(Pt::new(x0, y0)),
+                PathCmd::LineTo(Pt::new(x0 + PANEL, y0)),
+                PathCmd::LineTo(Pt::new(x0 + PANEL, y0 + PANEL + CAPTION)),
+                PathCmd::LineTo(Pt::new(x0, y0 + PANEL + CAPTION)),
+                PathCmd::Close,
+            ],
+            stroke: Some(Stroke {
+                width: if panel.negative { 1.6 } else { 0.8 },
+                color: frame,
+            }),
+            fill: Some(look.tile()),
+        },
+        Tag::Panel(k),
+    );
+}
+
+/// The faint lattice lines of the square and its diagonal, dashed.
+fn grid_and_diagonal(scene: &mut Scene, sq: &Square, look: &Look) {
+    let n = sq.n;
+    let faint = Stroke {
+        width: 0.5,
+        color: look.grid(),
+    };
+    for t in 0..=n {
         scene.push(
             ItemKind::Path {
-                cmds: vec![
-                    PathCmd::MoveTo(Pt::new(x0, y0)),
-                    PathCmd::LineTo(Pt::new(x0 + PANEL, y0)),
-                    PathCmd::LineTo(Pt::new(x0 + PANEL, y0 + PANEL + CAPTION)),
-                    PathCmd::LineTo(Pt::new(x0, y0 + PANEL + CAPTION)),
-                    PathCmd::Close,
-                ],
-                stroke: Some(Stroke {
-                    width: if panel.negative { 1.6 } else { 0.8 },
-                    color: frame,
-                }),
-                fill: Some(look.tile()),
-            },
-            Tag::Panel(k),
-        );
-        // lattice point (a, b) -> the square's lower-left corner is (0, 0)
-        let ox = x0 + 6.0;
-        let oy = y0 + 6.0 + n as f32 * unit;
-        let at = |a: usize, b: usize| Pt::new(ox + a as f32 * unit, oy - b as f32 * unit);
-        let faint = Stroke {
-            width: 0.5,
-            color: look.grid(),
-        };
-        for t in 0..=n {
-            scene.push(
-                ItemKind::Path {
-                    cmds: vec![PathCmd::MoveTo(at(t, 0)), PathCmd::LineTo(at(t, n))],
-                    stroke: Some(faint),
-                    fill: None,
-                },
-                Tag::None,
-            );
-            scene.push(
-                ItemKind::Path {
-                    cmds: vec![PathCmd::MoveTo(at(0, t)), PathCmd::LineTo(at(n, t))],
-                    stroke: Some(faint),
-                    fill: None,
-                },
-                Tag::None,
-            );
-        }
-        // the diagonal, dashed
-        let mut dash = Vec::new();
-        for t in 0..n * 2 {
-            if t % 2 == 0 {
-                let a = t as f32 / 2.0;
-                let p = Pt::new(ox + a * unit, oy - a * unit);
-                let q = Pt::new(ox + (a + 0.5) * unit, oy - (a + 0.5) * unit);
-                dash.push(PathCmd::MoveTo(p));
-                dash.push(PathCmd::LineTo(q));
-            }
-        }
-        scene.push(
-            ItemKind::Path {
-                cmds: dash,
-                stroke: Some(Stroke {
-                    width: 0.8,
-                    color: look.ink(),
-                }),
+                cmds: vec![PathCmd::MoveTo(sq.pt(t, 0)), PathCmd::LineTo(sq.pt(t, n))],
+                stroke: Some(faint),
                 fill: None,
             },
             Tag::None,
         );
-        // the path, north steps coloured by their variable
-        let vertices = panel.path.vertices();
-        let cmds = PathCmd::polyline(vertices.iter().map(|&(a, b)| at(a, b)));
         scene.push(
             ItemKind::Path {
-                cmds,
-                stroke: Some(Stroke {
-                    width: 2.2,
-                    color: look.ink(),
-                }),
+                cmds: vec![PathCmd::MoveTo(sq.pt(0, t)), PathCmd::LineTo(sq.pt(n, t))],
+                stroke: Some(faint),
                 fill: None,
             },
-            Tag::Panel(k),
-        );
-        for (s, step) in panel.path.steps.iter().enumerate() {
-            if let Step::North { var: Some(v) } = step {
-                let (a, b) = vertices[s];
-                let (c, d) = vertices[s + 1];
-                scene.push(
-                    ItemKind::Path {
-                        cmds: vec![PathCmd::MoveTo(at(a, b)), PathCmd::LineTo(at(c, d))],
-                        stroke: Some(Stroke {
-                            width: 2.6,
-                            color: label_color(*v, n),
-                        }),
-                        fill: None,
-                    },
-                    Tag::Panel(k),
-                );
-            }
-        }
-        let text_color: Color = if panel.negative {
-            look.alert()
-        } else {
-            look.ink()
-        };
-        scene.label(
-            Pt::new(x0 + PANEL / 2.0, y0 + PANEL + 6.0),
-            panel.coefficient.clone(),
-            11.0,
-            text_color,
-            Anchor::Center,
-        );
-        scene.label(
-            Pt::new(x0 + PANEL / 2.0, y0 + PANEL + 20.0),
-            panel.monomial.clone(),
-            9.0,
-            look.ink(),
-            Anchor::Center,
+            Tag::None,
         );
     }
-    scene
+    let (ox, oy, unit) = (sq.ox, sq.oy, sq.unit);
+    let mut dash = Vec::new();
+    for t in 0..n * 2 {
+        if t % 2 == 0 {
+            let a = t as f32 / 2.0;
+            let p = Pt::new(ox + a * unit, oy - a * unit);
+            let q = Pt::new(ox + (a + 0.5) * unit, oy - (a + 0.5) * unit);
+            dash.push(PathCmd::MoveTo(p));
+            dash.push(PathCmd::LineTo(q));
+        }
+    }
+    scene.push(
+        ItemKind::Path {
+            cmds: dash,
+            stroke: Some(Stroke {
+                width: 0.8,
+                color: look.ink(),
+            }),
+            fill: None,
+        },
+        Tag::None,
+    );
+}
+
+/// The lattice path, its north steps coloured by their variable.
+fn path(scene: &mut Scene, k: usize, panel: &PathPanel, sq: &Square, look: &Look) {
+    let vertices = panel.path.vertices();
+    let cmds = PathCmd::polyline(vertices.iter().map(|&(a, b)| sq.pt(a, b)));
+    scene.push(
+        ItemKind::Path {
+            cmds,
+            stroke: Some(Stroke {
+                width: 2.2,
+                color: look.ink(),
+            }),
+            fill: None,
+        },
+        Tag::Panel(k),
+    );
+    for (s, step) in panel.path.steps.iter().enumerate() {
+        if let Step::North { var: Some(v) } = step {
+            let (a, b) = vertices[s];
+            let (c, d) = vertices[s + 1];
+            scene.push(
+                ItemKind::Path {
+                    cmds: vec![PathCmd::MoveTo(sq.pt(a, b)), PathCmd::LineTo(sq.pt(c, d))],
+                    stroke: Some(Stroke {
+                        width: 2.6,
+                        color: label_color(*v, sq.n),
+                    }),
+                    fill: None,
+                },
+                Tag::Panel(k),
+            );
+        }
+    }
+}
+
+/// The coefficient (in the alert colour when negative) and the monomial under the square.
+fn captions(scene: &mut Scene, panel: &PathPanel, x0: f32, y0: f32, look: &Look) {
+    let text_color: Color = if panel.negative {
+        look.alert()
+    } else {
+        look.ink()
+    };
+    scene.label(
+        Pt::new(x0 + PANEL / 2.0, y0 + PANEL + 6.0),
+        panel.coefficient.clone(),
+        11.0,
+        text_color,
+        Anchor::Center,
+    );
+    scene.label(
+        Pt::new(x0 + PANEL / 2.0, y0 + PANEL + 20.0),
+        panel.monomial.clone(),
+        9.0,
+        look.ink(),
+        Anchor::Center,
+    );
 }
 
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::math::poly::parse::parse_poly;
+    use crate::math::quotient::normal_form::{groebner_basis, normal_form};
+
+    #[test]
+    fn a_normal_form_gives_one_panel_per_term() -> MathResult<()> {
+        let q = groebner_basis(3)?;
+        let nf = normal_form(&q, &parse_poly("x2 x3 - x3^2", Some(3))?)?;
+        let panels = panels_of_normal_form(&nf, 3)?;
+        assert_eq!(panels.len(), nf.coefficients.len());
+        for (p, (_, m, c)) in panels.iter().zip(&nf.coefficients) {
+            assert_eq!(p.monomial, m.text(3));
+            assert_eq!(p.coefficient, c.to_string());
+            assert_eq!(p.path.exponents, m.exps(3));
+        }
+        Ok(())
+    }
 
     #[test]
     fn one_framed_panel_per_term_and_negatives_in_red() {

@@ -41,7 +41,20 @@ pub fn polytope_scene(
         return scene;
     }
     let dim = coords[0].len();
-    let projected: Vec<(f64, f64, f64)> = coords
+    let projected = project(coords, dim, yaw, pitch);
+    let view = View::fitting(&projected);
+    if dim == 2 && projected.len() >= 3 {
+        fill_polygon(&mut scene, &projected, &view);
+    }
+    draw_edges(&mut scene, &projected, edges, &view, look);
+    draw_vertices(&mut scene, &projected, labels, dim == 2, &view, look);
+    scene
+}
+
+/// (x, y, depth) of each vertex: turned when there are three or more
+/// coordinates, flat (depth 0) in the plane.
+fn project(coords: &[Vec<f64>], dim: usize, yaw: f32, pitch: f32) -> Vec<(f64, f64, f64)> {
+    coords
         .iter()
         .map(|c| {
             if dim >= 3 {
@@ -54,47 +67,80 @@ pub fn polytope_scene(
                 )
             }
         })
-        .collect();
-    let extent = projected
-        .iter()
-        .map(|(x, y, _)| x.abs().max(y.abs()))
-        .fold(0.0f64, f64::max)
-        .max(1e-9);
-    let k = ((SIZE / 2.0 - PAD) as f64) / extent;
-    let to_pt = |(x, y, _): (f64, f64, f64)| {
-        Pt::new(SIZE / 2.0 + (x * k) as f32, SIZE / 2.0 - (y * k) as f32)
-    };
-    let (zmin, zmax) = projected
-        .iter()
-        .fold((f64::MAX, f64::MIN), |(a, b), p| (a.min(p.2), b.max(p.2)));
-    if dim == 2 && projected.len() >= 3 {
-        // a convex polygon: order the vertices by angle about the centroid
-        let cx = projected.iter().map(|p| p.0).sum::<f64>() / projected.len() as f64;
-        let cy = projected.iter().map(|p| p.1).sum::<f64>() / projected.len() as f64;
-        let mut order: Vec<usize> = (0..projected.len()).collect();
-        order.sort_by(|&a, &b| {
-            let ta = (projected[a].1 - cy).atan2(projected[a].0 - cx);
-            let tb = (projected[b].1 - cy).atan2(projected[b].0 - cx);
-            ta.total_cmp(&tb)
-        });
-        let mut cmds = PathCmd::polyline(order.iter().map(|&v| to_pt(projected[v])));
-        cmds.push(PathCmd::Close);
-        let fill = label_color(3, 6);
-        scene.push(
-            ItemKind::Path {
-                cmds,
-                stroke: None,
-                fill: Some(Color { a: 60, ..fill }),
-            },
-            Tag::None,
-        );
+        .collect()
+}
+
+/// The scale that fits the projection in the square, and its range of depths.
+struct View {
+    k: f64,
+    zmin: f64,
+    zmax: f64,
+}
+
+impl View {
+    fn fitting(projected: &[(f64, f64, f64)]) -> View {
+        let extent = projected
+            .iter()
+            .map(|(x, y, _)| x.abs().max(y.abs()))
+            .fold(0.0f64, f64::max)
+            .max(1e-9);
+        let (zmin, zmax) = projected
+            .iter()
+            .fold((f64::MAX, f64::MIN), |(a, b), p| (a.min(p.2), b.max(p.2)));
+        View {
+            k: ((SIZE / 2.0 - PAD) as f64) / extent,
+            zmin,
+            zmax,
+        }
     }
+
+    fn pt(&self, (x, y, _): (f64, f64, f64)) -> Pt {
+        Pt::new(
+            SIZE / 2.0 + (x * self.k) as f32,
+            SIZE / 2.0 - (y * self.k) as f32,
+        )
+    }
+}
+
+/// The convex polygon of a plane figure, filled: its vertices ordered by
+/// angle about the centroid.
+fn fill_polygon(scene: &mut Scene, projected: &[(f64, f64, f64)], view: &View) {
+    let cx = projected.iter().map(|p| p.0).sum::<f64>() / projected.len() as f64;
+    let cy = projected.iter().map(|p| p.1).sum::<f64>() / projected.len() as f64;
+    let mut order: Vec<usize> = (0..projected.len()).collect();
+    order.sort_by(|&a, &b| {
+        let ta = (projected[a].1 - cy).atan2(projected[a].0 - cx);
+        let tb = (projected[b].1 - cy).atan2(projected[b].0 - cx);
+        ta.total_cmp(&tb)
+    });
+    let mut cmds = PathCmd::polyline(order.iter().map(|&v| view.pt(projected[v])));
+    cmds.push(PathCmd::Close);
+    let fill = label_color(3, 6);
+    scene.push(
+        ItemKind::Path {
+            cmds,
+            stroke: None,
+            fill: Some(Color { a: 60, ..fill }),
+        },
+        Tag::None,
+    );
+}
+
+/// The edges, back to front, nearer ones darker and thicker.
+fn draw_edges(
+    scene: &mut Scene,
+    projected: &[(f64, f64, f64)],
+    edges: &[(usize, usize)],
+    view: &View,
+    look: &Look,
+) {
     let mut sorted_edges: Vec<&(usize, usize)> = edges.iter().collect();
     let depth = |e: &(usize, usize)| {
         let (a, b) = (projected.get(e.0), projected.get(e.1));
         a.map_or(0.0, |p| p.2) + b.map_or(0.0, |p| p.2)
     };
     sorted_edges.sort_by(|a, b| depth(a).total_cmp(&depth(b)));
+    let (zmin, zmax) = (view.zmin, view.zmax);
     for e in sorted_edges {
         let (Some(&a), Some(&b)) = (projected.get(e.0), projected.get(e.1)) else {
             continue;
@@ -109,7 +155,7 @@ pub fn polytope_scene(
         let mix = |u: u8, v: u8| (u as f32 * t + v as f32 * (1.0 - t)).round() as u8;
         scene.push(
             ItemKind::Path {
-                cmds: vec![PathCmd::MoveTo(to_pt(a)), PathCmd::LineTo(to_pt(b))],
+                cmds: vec![PathCmd::MoveTo(view.pt(a)), PathCmd::LineTo(view.pt(b))],
                 stroke: Some(Stroke {
                     width: 1.0 + 1.2 * t,
                     color: Color::rgb(mix(ink.r, grid.r), mix(ink.g, grid.g), mix(ink.b, grid.b)),
@@ -119,8 +165,19 @@ pub fn polytope_scene(
             Tag::None,
         );
     }
+}
+
+/// A dot per vertex, tagged `Vertex(k)`; in the plane, its label outside the polygon.
+fn draw_vertices(
+    scene: &mut Scene,
+    projected: &[(f64, f64, f64)],
+    labels: &[String],
+    plane: bool,
+    view: &View,
+    look: &Look,
+) {
     for (v, p) in projected.iter().enumerate() {
-        let at = to_pt(*p);
+        let at = view.pt(*p);
         scene.push(
             ItemKind::Circle {
                 center: at,
@@ -130,7 +187,7 @@ pub fn polytope_scene(
             },
             Tag::Vertex(v),
         );
-        if look.labels && dim == 2 {
+        if look.labels && plane {
             let out_x = at.x - SIZE / 2.0;
             let out_y = at.y - SIZE / 2.0;
             let len = (out_x * out_x + out_y * out_y).sqrt().max(1e-3);
@@ -146,7 +203,6 @@ pub fn polytope_scene(
             scene.label(pos, text, 9.0, look.ink(), anchor);
         }
     }
-    scene
 }
 
 #[cfg(test)]

@@ -6,7 +6,7 @@
 //! Coordinates are the scene's own: the picture is drawn with `x=1pt, y=-1pt`,
 //! so one figure unit is one point and y points down as in the scene.
 
-use super::scene::{Anchor, Color, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
+use super::scene::{Anchor, Color, Item, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
 use super::svg::num;
 use std::collections::BTreeSet;
 use std::fmt::Write;
@@ -20,6 +20,26 @@ pub fn to_tikz(scene: &Scene) -> String {
 pub fn document(scene: &Scene, with_background: bool) -> String {
     let mut out = String::new();
     out.push_str("\\documentclass[tikz]{standalone}\n");
+    define_colors(&mut out, scene, with_background);
+    out.push_str("\\begin{document}\n\\begin{tikzpicture}[x=1pt, y=-1pt]\n");
+    let (w, h) = (num(scene.width), num(scene.height));
+    if with_background {
+        let _ = writeln!(
+            out,
+            "\\fill[{}] (0,0) rectangle ({w},{h});",
+            color_name(scene.background)
+        );
+    }
+    let _ = writeln!(out, "\\useasboundingbox (0,0) rectangle ({w},{h});");
+    for item in &scene.items {
+        item_line(&mut out, item);
+    }
+    out.push_str("\\end{tikzpicture}\n\\end{document}\n");
+    out
+}
+
+/// One `\definecolor` per colour the scene uses, in a fixed order.
+fn define_colors(out: &mut String, scene: &Scene, with_background: bool) {
     let mut colors: BTreeSet<(u8, u8, u8)> = BTreeSet::new();
     if with_background {
         colors.insert(rgb(scene.background));
@@ -45,70 +65,60 @@ pub fn document(scene: &Scene, with_background: bool) -> String {
             b
         );
     }
-    out.push_str("\\begin{document}\n\\begin{tikzpicture}[x=1pt, y=-1pt]\n");
-    let (w, h) = (num(scene.width), num(scene.height));
-    if with_background {
-        let _ = writeln!(
-            out,
-            "\\fill[{}] (0,0) rectangle ({w},{h});",
-            color_name(scene.background)
-        );
-    }
-    let _ = writeln!(out, "\\useasboundingbox (0,0) rectangle ({w},{h});");
-    for item in &scene.items {
-        let comment = tag_comment(item.tag);
-        match &item.kind {
-            ItemKind::Path { cmds, stroke, fill } => {
-                if cmds.is_empty() {
-                    continue;
-                }
-                let _ = writeln!(
-                    out,
-                    "\\draw[{}] {};{comment}",
-                    style(*stroke, *fill),
-                    path(cmds)
-                );
+}
+
+/// The line of one item: a `\draw` for a path or a circle, a `\node` for text.
+fn item_line(out: &mut String, item: &Item) {
+    let comment = tag_comment(item.tag);
+    match &item.kind {
+        ItemKind::Path { cmds, stroke, fill } => {
+            if cmds.is_empty() {
+                return;
             }
-            ItemKind::Circle {
-                center,
-                radius,
-                stroke,
-                fill,
-            } => {
-                let _ = writeln!(
-                    out,
-                    "\\draw[{}] {} circle[radius={}];{comment}",
-                    style(*stroke, *fill),
-                    point(*center),
-                    num(*radius)
-                );
-            }
-            ItemKind::Text {
-                pos,
-                text,
-                size,
-                color,
-                anchor,
-            } => {
-                let anchor = match anchor {
-                    Anchor::Center => "center",
-                    Anchor::Left => "west",
-                    Anchor::Right => "east",
-                };
-                let s = num(*size);
-                let leading = num(size * 1.2);
-                let _ = writeln!(
-                    out,
-                    "\\node[anchor={anchor}, inner sep=0pt, text={}, font=\\fontsize{{{s}}}{{{leading}}}\\selectfont\\sffamily] at {} {{{}}};{comment}",
-                    color_name(*color),
-                    point(*pos),
-                    latex_text(text)
-                );
-            }
+            let _ = writeln!(
+                out,
+                "\\draw[{}] {};{comment}",
+                style(*stroke, *fill),
+                path(cmds)
+            );
+        }
+        ItemKind::Circle {
+            center,
+            radius,
+            stroke,
+            fill,
+        } => {
+            let _ = writeln!(
+                out,
+                "\\draw[{}] {} circle[radius={}];{comment}",
+                style(*stroke, *fill),
+                point(*center),
+                num(*radius)
+            );
+        }
+        ItemKind::Text {
+            pos,
+            text,
+            size,
+            color,
+            anchor,
+        } => {
+            let anchor = match anchor {
+                Anchor::Center => "center",
+                Anchor::Left => "west",
+                Anchor::Right => "east",
+            };
+            let s = num(*size);
+            let leading = num(size * 1.2);
+            let _ = writeln!(
+                out,
+                "\\node[anchor={anchor}, inner sep=0pt, text={}, font=\\fontsize{{{s}}}{{{leading}}}\\selectfont\\sffamily] at {} {{{}}};{comment}",
+                color_name(*color),
+                point(*pos),
+                latex_text(text)
+            );
         }
     }
-    out.push_str("\\end{tikzpicture}\n\\end{document}\n");
-    out
 }
 
 fn rgb(c: Color) -> (u8, u8, u8) {

@@ -18,8 +18,40 @@ pub fn wiring_scene(word: &[usize], n: usize, look: &Look, selected: Option<usiz
     let width = 2.0 * MARGIN + (l as f32 + 1.0) * STEP;
     let height = 2.0 * MARGIN + (n.max(1) as f32 - 1.0) * GAP;
     let mut scene = Scene::new(width, height, look.background());
-    let y = |h: usize| MARGIN + (h as f32 - 1.0) * GAP;
-    let x = |k: usize| MARGIN + STEP * 0.5 + k as f32 * STEP;
+    let (paths, wire_at) = wires(word, n, width);
+    for (wire, cmds) in paths.into_iter().enumerate().skip(1) {
+        scene.push(
+            ItemKind::Path {
+                cmds,
+                stroke: Some(Stroke {
+                    width: 3.2,
+                    color: label_color(wire, n),
+                }),
+                fill: None,
+            },
+            Tag::Pipe(wire),
+        );
+    }
+    crossings(&mut scene, word, n, height, look, selected);
+    if look.labels {
+        end_labels(&mut scene, &wire_at, width, look);
+    }
+    scene
+}
+
+/// The height of wire level h (1 at the top).
+fn y(h: usize) -> f32 {
+    MARGIN + (h as f32 - 1.0) * GAP
+}
+
+/// Where the k-th letter's crossing starts.
+fn x(k: usize) -> f32 {
+    MARGIN + STEP * 0.5 + k as f32 * STEP
+}
+
+/// The path of each wire (indexed by its starting height; index 0 unused) and,
+/// at the right end, the wire at each height.
+fn wires(word: &[usize], n: usize, width: f32) -> (Vec<Vec<PathCmd>>, Vec<usize>) {
     // wire_at[h] = the wire (its starting height) at height h
     let mut wire_at: Vec<usize> = (0..=n).collect();
     let mut paths: Vec<Vec<PathCmd>> = (0..=n)
@@ -57,19 +89,18 @@ pub fn wiring_scene(word: &[usize], n: usize, look: &Look, selected: Option<usiz
     for (h, &wire) in wire_at.iter().enumerate().skip(1) {
         paths[wire].push(PathCmd::LineTo(Pt::new(end, y(h))));
     }
-    for (wire, cmds) in paths.into_iter().enumerate().skip(1) {
-        scene.push(
-            ItemKind::Path {
-                cmds,
-                stroke: Some(Stroke {
-                    width: 3.2,
-                    color: label_color(wire, n),
-                }),
-                fill: None,
-            },
-            Tag::Pipe(wire),
-        );
-    }
+    (paths, wire_at)
+}
+
+/// A marker per crossing, tagged `Crossing(k)`, and its letter under the diagram.
+fn crossings(
+    scene: &mut Scene,
+    word: &[usize],
+    n: usize,
+    height: f32,
+    look: &Look,
+    selected: Option<usize>,
+) {
     for (k, &a) in word.iter().enumerate() {
         if a == 0 || a >= n {
             continue;
@@ -98,25 +129,27 @@ pub fn wiring_scene(word: &[usize], n: usize, look: &Look, selected: Option<usiz
             );
         }
     }
-    if look.labels {
-        for (h, &wire) in wire_at.iter().enumerate().skip(1) {
-            scene.label(
-                Pt::new(MARGIN - 8.0, y(h)),
-                h.to_string(),
-                11.0,
-                look.ink(),
-                Anchor::Right,
-            );
-            scene.label(
-                Pt::new(end + 8.0, y(h)),
-                wire.to_string(),
-                11.0,
-                look.ink(),
-                Anchor::Left,
-            );
-        }
+}
+
+/// The heights at the left end and the wires arriving at the right end.
+fn end_labels(scene: &mut Scene, wire_at: &[usize], width: f32, look: &Look) {
+    let end = width - MARGIN;
+    for (h, &wire) in wire_at.iter().enumerate().skip(1) {
+        scene.label(
+            Pt::new(MARGIN - 8.0, y(h)),
+            h.to_string(),
+            11.0,
+            look.ink(),
+            Anchor::Right,
+        );
+        scene.label(
+            Pt::new(end + 8.0, y(h)),
+            wire.to_string(),
+            11.0,
+            look.ink(),
+            Anchor::Left,
+        );
     }
-    scene
 }
 
 #[cfg(test)]

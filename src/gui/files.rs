@@ -6,8 +6,8 @@
 
 use crate::figure::Scene;
 use crate::figure::export::{self, ExportOptions};
-use crate::figure::table::Table;
 use crate::session::{Session, demo, recent, store};
+use crate::tables::table::Table;
 use eframe::egui;
 use std::path::{Path, PathBuf};
 use std::sync::Arc;
@@ -270,8 +270,12 @@ impl FilePanel {
                     transparent: session.figure.transparent,
                 };
                 let written = match item {
-                    Exportable::Figure(scene) => export::write(scene, &path, &opts),
-                    Exportable::Table(table) => export::write_table(table, &path),
+                    Exportable::Figure(scene) => {
+                        export::write(scene, &path, &opts).map_err(|e| e.to_string())
+                    }
+                    Exportable::Table(table) => {
+                        crate::tables::write(table, &path).map_err(|e| e.to_string())
+                    }
                 };
                 match written {
                     Ok(()) => {

@@ -3,7 +3,7 @@
 //! when the export window asks, once per result.
 
 use crate::engine::requests::Output;
-use crate::figure::table::Table;
+use crate::tables::table::Table;
 use std::sync::Arc;
 
 /// The result a view shows, keyed by its inputs, and its export table once built.

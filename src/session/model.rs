@@ -167,10 +167,59 @@ impl Default for SolidPlace {
 pub struct HessenbergPlace {
     /// h(1), ..., h(n); empty means the default h(i) = i + 1.
     pub h: Vec<usize>,
-    /// The column the table is sorted by (`perm`, `length`, `value`).
-    pub sort_by: String,
+    /// The column the table is sorted by; `None` (not chosen yet) sorts by w.
+    /// Stored as the column's key (`"perm"`, `"length"`, `"value"`) or `""`
+    /// for `None`; an unknown key reads as `None`.
+    #[serde(with = "sort_key")]
+    pub sort_by: Option<SortColumn>,
     /// Sort descending.
     pub descending: bool,
+}
+
+/// A column of the Hessenberg view's table, to sort it by.
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, Hash)]
+pub enum SortColumn {
+    /// The permutation w, lexicographically (key `perm`).
+    #[default]
+    Perm,
+    /// The length ℓ(w) (key `length`).
+    Length,
+    /// The coefficient a^h_w (key `value`).
+    Value,
+}
+
+impl SortColumn {
+    /// The key a session file stores.
+    pub fn key(self) -> &'static str {
+        match self {
+            SortColumn::Perm => "perm",
+            SortColumn::Length => "length",
+            SortColumn::Value => "value",
+        }
+    }
+
+    /// The column of a stored key, if it names one.
+    pub fn from_key(key: &str) -> Option<SortColumn> {
+        [SortColumn::Perm, SortColumn::Length, SortColumn::Value]
+            .into_iter()
+            .find(|c| c.key() == key)
+    }
+}
+
+/// `sort_by` as a string, as files have always stored it: serde's own enum
+/// encoding would write a RON identifier (`perm`) instead of `"perm"`.
+mod sort_key {
+    use super::SortColumn;
+    use serde::{Deserialize, Deserializer, Serializer};
+
+    pub fn serialize<S: Serializer>(v: &Option<SortColumn>, s: S) -> Result<S::Ok, S::Error> {
+        s.serialize_str(v.map_or("", SortColumn::key))
+    }
+
+    pub fn deserialize<'de, D: Deserializer<'de>>(d: D) -> Result<Option<SortColumn>, D::Error> {
+        let key = String::deserialize(d)?;
+        Ok(SortColumn::from_key(&key))
+    }
 }
 
 /// The workbench's typed polynomial and choice of denominator.

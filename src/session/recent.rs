@@ -1,13 +1,14 @@
 //! The recently opened sessions, most recent first, kept in
-//! `recent.ron` in the configuration directory (at most [`MAX_RECENT`]).
+//! `recent.ron` in the configuration directory (at most [`MAX_RECENT`]),
+//! written atomically ([`crate::atomic_write`]).
 //!
 //! The functions without `_in` use [`super::config_dir::config_dir`]; the `_in`
 //! forms take the directory explicitly.
 
 use super::config_dir::config_dir;
 use super::error::SessionError;
+use crate::atomic_write;
 use std::fs;
-use std::io::Write;
 use std::path::{Path, PathBuf};
 
 /// How many recent sessions are remembered.
@@ -53,16 +54,6 @@ pub fn push_in(dir: &Path, path: &Path) -> Result<(), SessionError> {
         .map_err(|e| failed(e.to_string()))?;
     fs::create_dir_all(dir).map_err(|e| failed(e.to_string()))?;
     let target = dir.join(RECENT_FILE);
-    let temp = dir.join(".recent.ron.saving");
-    let written = (|| -> std::io::Result<()> {
-        let mut f = fs::File::create(&temp)?;
-        f.write_all(text.as_bytes())?;
-        f.write_all(b"\n")?;
-        f.sync_all()?;
-        fs::rename(&temp, &target)
-    })();
-    written.map_err(|e| {
-        let _ = fs::remove_file(&temp);
-        failed(e.to_string())
-    })
+    atomic_write::write(&target, "saving", format!("{text}\n").as_bytes())
+        .map_err(|e| failed(e.to_string()))
 }

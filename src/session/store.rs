@@ -1,18 +1,22 @@
 //! Saving and opening session files.
 //!
-//! Saving is atomic: the text goes to a temporary file in the same directory,
-//! which is flushed to disk and then renamed over the target, so a crash or a
-//! full disk leaves either the old file or the new one, never half of one.
-//! The previous version of the file is kept beside it as `NAME.bak`.
+//! Saving is atomic ([`crate::atomic_write`]): the text goes to a temporary
+//! file `.NAME.saving` in the same directory, which is flushed to disk and then
+//! renamed over the target, so a crash or a full disk leaves either the old
+//! file or the new one, never half of one. Between the two steps the previous
+//! version of the file is copied beside it as `NAME.bak`.
 //! Loading never writes: a damaged or newer file stays as it was.
 
 use super::error::SessionError;
 use super::format;
 use super::model::Session;
 use super::validate;
+use crate::atomic_write;
 use std::fs;
-use std::io::Write;
 use std::path::{Path, PathBuf};
+
+/// The suffix of the temporary file a save writes first (`.NAME.saving`).
+const TEMP_SUFFIX: &str = "saving";
 
 /// Opens a session file: reads it, migrates older versions, and validates it.
 ///
@@ -64,10 +68,7 @@ pub fn backup_path(path: &Path) -> PathBuf {
 
 /// The temporary file a save of `path` writes first: `.NAME.saving`.
 pub fn temp_path(path: &Path) -> PathBuf {
-    let mut name = std::ffi::OsString::from(".");
-    name.push(path.file_name().unwrap_or_default());
-    name.push(".saving");
-    path.with_file_name(name)
+    atomic_write::temp_path(path, TEMP_SUFFIX).unwrap_or_else(|_| path.with_file_name("..saving"))
 }
 
 /// Performs a save up to, but not including, the rename: the state a crash
@@ -94,17 +95,7 @@ fn write_temp(path: &Path, session: &Session) -> Result<PathBuf, SessionError> {
     }
     validate::check(session).map_err(|reason| write_failed(path, reason))?;
     let text = format::encode(session).map_err(|e| write_failed(path, e))?;
-    let temp = temp_path(path);
-    let result = (|| -> std::io::Result<()> {
-        let mut file = fs::File::create(&temp)?;
-        file.write_all(text.as_bytes())?;
-        file.sync_all()
-    })();
-    if let Err(e) = result {
-        let _ = fs::remove_file(&temp);
-        return Err(write_failed(path, e));
-    }
-    Ok(temp)
+    atomic_write::write_temp(path, TEMP_SUFFIX, text.as_bytes()).map_err(|e| write_failed(path, e))
 }
 
 fn finish(path: &Path, temp: &Path) -> Result<(), SessionError> {
@@ -115,27 +106,5 @@ fn finish(path: &Path, temp: &Path) -> Result<(), SessionError> {
             return Err(write_failed(path, format!("cannot keep a backup: {e}")));
         }
     }
-    if let Err(e) = fs::rename(temp, path) {
-        let _ = fs::remove_file(temp);
-        return Err(write_failed(path, e));
-    }
-    sync_parent(path);
-    Ok(())
-}
-
-/// Flushes the directory entry of a renamed file (best effort; only Unix
-/// lets a directory be opened for this).
-fn sync_parent(path: &Path) {
-    #[cfg(unix)]
-    {
-        let dir = match path.parent() {
-            Some(p) if !p.as_os_str().is_empty() => p,
-            _ => Path::new("."),
-        };
-        if let Ok(d) = fs::File::open(dir) {
-            let _ = d.sync_all();
-        }
-    }
-    #[cfg(not(unix))]
-    let _ = path;
+    atomic_write::replace(temp, path).map_err(|e| write_failed(path, e))
 }

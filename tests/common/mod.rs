@@ -40,20 +40,38 @@ pub fn rejects(args: &[&str], needle: &str) {
     assert!(err.contains(needle), "{args:?}: {err}");
 }
 
-/// Starts `elbowroom ARGS...`, sends it SIGINT (as Ctrl-C does) after
-/// `after_ms` milliseconds, and returns what it did.
-pub fn interrupted(args: &[&str], after_ms: u64) -> Output {
-    let child = Command::new(env!("CARGO_BIN_EXE_elbowroom"))
+/// Starts `elbowroom ARGS...`, waits until it announces on stderr that its
+/// long run is registered with the Ctrl-C handler (the hook
+/// `ELBOWROOM_ANNOUNCE_WATCH=1`), sends it SIGINT as Ctrl-C does, and returns
+/// what it did. The announcement line is left out of the stderr returned.
+pub fn interrupted(args: &[&str]) -> Output {
+    use elbowroom::cli::interrupt::{ANNOUNCE_ENV, ANNOUNCEMENT};
+    use std::io::{BufRead, BufReader, Read};
+    let mut child = Command::new(env!("CARGO_BIN_EXE_elbowroom"))
         .args(args)
+        .env(ANNOUNCE_ENV, "1")
         .stdout(Stdio::piped())
         .stderr(Stdio::piped())
         .spawn()
         .unwrap();
-    std::thread::sleep(std::time::Duration::from_millis(after_ms));
+    let mut stderr = BufReader::new(child.stderr.take().unwrap());
+    let mut line = String::new();
+    let read = stderr.read_line(&mut line).unwrap();
+    assert!(
+        read > 0 && line.trim_end() == ANNOUNCEMENT,
+        "{args:?}: expected {ANNOUNCEMENT:?} on stderr first, got {line:?}"
+    );
     let status = Command::new("kill")
         .args(["-INT", &child.id().to_string()])
         .status()
         .unwrap();
     assert!(status.success(), "kill -INT failed");
-    child.wait_with_output().unwrap()
+    // the rest of stderr on its own thread, so that neither pipe can fill up and stall the child
+    let rest = std::thread::spawn(move || {
+        let mut rest = Vec::new();
+        stderr.read_to_end(&mut rest).map(|_| rest)
+    });
+    let mut out = child.wait_with_output().unwrap();
+    out.stderr = rest.join().unwrap().unwrap();
+    out
 }

@@ -5,13 +5,14 @@
 
 use super::computing;
 use crate::engine::{Fetch, JobKey, Slot};
-use crate::figure::result_tables;
-use crate::figure::table::Table;
 use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
 use crate::math::Perm;
 use crate::math::hessenberg::function::{default_values, set_value};
 use crate::math::hessenberg::table::TableEntry;
+use crate::session::model::SortColumn;
+use crate::tables::results::hessenberg_table;
+use crate::tables::table::Table;
 use eframe::egui::{self, Rect, Sense, Stroke, Vec2};
 use num_traits::{Signed, Zero};
 use std::sync::Arc;
@@ -36,7 +37,7 @@ impl HessenbergView {
     /// The tables this view can export: the coefficients a^h_w on screen.
     pub fn tables(&mut self) -> Vec<(String, Arc<Table>)> {
         self.export
-            .table(|_, out| out.hessenberg().map(result_tables::hessenberg_table))
+            .table(|_, out| out.hessenberg().map(hessenberg_table))
             .map(|(_, t)| ("the table of a^h_w".to_string(), t))
             .into_iter()
             .collect()
@@ -195,11 +196,7 @@ impl HessenbergView {
         // sort order, cached per (h, column, direction)
         let current = ctx.perm();
         let place = &mut ctx.session.hessenberg;
-        let col = if place.sort_by.is_empty() {
-            "perm".to_string()
-        } else {
-            place.sort_by.clone()
-        };
+        let col = place.sort_by.unwrap_or_default().key().to_string();
         let needs = self
             .order
             .as_ref()
@@ -244,7 +241,7 @@ impl HessenbergView {
                     if col == key {
                         place.descending = !place.descending;
                     } else {
-                        place.sort_by = key.to_string();
+                        place.sort_by = SortColumn::from_key(key);
                         place.descending = key == "value";
                     }
                 }

@@ -9,12 +9,12 @@ use crate::engine::{Fetch, JobKey, Slot};
 use crate::figure::Scene;
 use crate::figure::look::Look;
 use crate::figure::permutohedron::polytope_scene;
-use crate::figure::table::Table;
 use crate::figure::volume::volume_plot_scene;
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
 use crate::gui::table_source::TableSource;
 use crate::math::permutohedra::permutohedron::rational_to_f64;
+use crate::tables::table::Table;
 use eframe::egui;
 use egui_plot::{Line, Plot, Points};
 use num_rational::BigRational;
@@ -111,9 +111,7 @@ impl SolidView {
     pub fn tables(&mut self) -> Vec<(String, Arc<Table>)> {
         self.eulerian_table
             .table(|n, out| match out {
-                Output::Eulerian(rows) => {
-                    Some(crate::figure::result_tables::eulerian_table(*n, rows))
-                }
+                Output::Eulerian(rows) => Some(crate::tables::results::eulerian_table(*n, rows)),
                 _ => None,
             })
             .map(|(n, t)| (format!("the mixed Eulerian numbers of n = {n}"), t))

@@ -7,12 +7,12 @@
 use super::computing;
 use crate::engine::requests::Output;
 use crate::engine::{Fetch, JobKey, Slot};
-use crate::figure::result_tables::survey_table;
-use crate::figure::table::Table;
 use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::survey::SurveyEntry;
+use crate::tables::results::survey_table;
+use crate::tables::table::Table;
 use eframe::egui;
 use std::sync::Arc;
 

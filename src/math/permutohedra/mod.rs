@@ -3,4 +3,8 @@
 
 pub mod permutohedron;
 
+pub mod segment;
+
+pub mod drawing;
+
 pub mod mixed_eulerian;

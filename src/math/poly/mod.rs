@@ -1,11 +1,14 @@
-//! Polynomials with exact coefficients, in layers: packed monomials,
-//! sparse polynomials, compositions, quasisymmetric and symmetric polynomials, and at the
-//! top the parser of typed polynomials (which knows `M(..)` and `F(..)`).
+//! Polynomials with exact coefficients, in layers: exact rationals as typed,
+//! packed monomials, sparse polynomials, compositions, quasisymmetric and
+//! symmetric polynomials, and at the top the parser of typed polynomials
+//! (which knows `M(..)` and `F(..)`).
 
-pub mod compositions;
+pub mod rational;
+
 pub mod mono;
 pub mod polynomial;
 
+pub mod compositions;
 pub mod quasisym;
 pub mod symmetric;
 

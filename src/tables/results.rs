@@ -19,7 +19,7 @@ pub fn perm_cell(w: &Perm) -> Cell {
 /// `value` (CSV headers), set as $w$, $\ell(w)$, $a^h_w$ in LaTeX.
 ///
 /// ```
-/// use elbowroom::figure::result_tables::hessenberg_table;
+/// use elbowroom::tables::results::hessenberg_table;
 /// use elbowroom::math::hessenberg::function::HessenbergFn;
 /// use elbowroom::math::{Progress, hessenberg::table::coefficient_table as compute};
 /// // h = (2,3,3): a^h_231 = DS_3(x1 x2) = 1 and a^h_312 = DS_3(x1^2) = 1

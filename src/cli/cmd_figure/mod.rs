@@ -1,0 +1,144 @@
+//! `elbowroom figure KIND ... --out FILE`: draws a figure headless and writes it
+//! as PNG, SVG or TikZ (the format follows the extension). The scenes are the
+//! ones the explorer draws, so a file looks like the view it came from.
+//!
+//! - `dream W [--index K | --all]`: reduced pipe dreams of w, in enumeration order.
+//! - `bumpless W [--index K | --all]`: bumpless pipe dreams of w.
+//! - `wiring W [--index K | --all | --word A]`: wiring diagrams of the reduced
+//!   words of w, in lexicographic order (or of the word given).
+//! - `paths W [--columns C]`: the normal form modulo J_n of the reversed Schubert
+//!   polynomial S_w(x_n, ..., x_1), one lattice path per standard monomial;
+//!   `paths --poly F --n N` draws the normal form of any polynomial instead.
+//! - `permutohedron --lambda L [--yaw A --pitch B]`: P_λ for n <= 5.
+//! - `volume --from A --to B [--samples M]`: Vol P_λ along λ(t) = (1 - t)A + tB.
+//!
+//! With `--all`, `--out` is a directory (created if missing) and the files are
+//! named `KIND-W-K.EXT` with `--format` (svg by default).
+//!
+//! One file per kind of figure builds its scenes; [`pick`] chooses the items
+//! of an enumeration and names their files; this file writes them.
+
+mod paths;
+mod permutohedron;
+pub mod pick;
+mod pipes;
+mod volume;
+mod wiring;
+
+pub use crate::math::permutohedra::drawing::MAX_DRAWN_N;
+pub use pick::MAX_FILES;
+
+use super::args::{FigureArgs, FigureKind, FormatArg};
+use super::error::CliError;
+use super::json;
+use crate::figure::Scene;
+use crate::figure::export::{self, ExportOptions, Format};
+use crate::figure::look::Look;
+use serde_json::json;
+use std::path::PathBuf;
+
+/// A figure to write: its index in the enumeration, its file name without the
+/// extension, and its scene.
+type Figure = (usize, String, Scene);
+
+/// A file written: index, path, width and height in points.
+type Written = (usize, PathBuf, f32, f32);
+
+/// Runs the command.
+pub fn run(args: &FigureArgs) -> Result<String, CliError> {
+    let opts = export_options(args)?;
+    let look = Look {
+        dark: args.dark,
+        labels: !args.no_labels,
+    };
+    let figures = scenes(args, &look)?;
+    prepare_out(args)?;
+    let mut written: Vec<Written> = Vec::with_capacity(figures.len());
+    for (index, name, scene) in &figures {
+        let path = file_path(args, name);
+        export::write(scene, &path, &opts).map_err(|e| CliError::Failed(e.to_string()))?;
+        written.push((*index, path, scene.width, scene.height));
+    }
+    Ok(report(args, &written))
+}
+
+fn export_options(args: &FigureArgs) -> Result<ExportOptions, CliError> {
+    let scale = match (args.scale, args.dpi) {
+        (Some(s), _) => s,
+        (None, Some(dpi)) => dpi / 72.0,
+        (None, None) => 4.0,
+    };
+    if !(scale.is_finite() && scale > 0.0 && scale <= 64.0) {
+        return Err(CliError::Input(format!(
+            "a scale of {scale} pixels per point is not accepted; use --scale in (0, 64] or --dpi in (0, 4608]"
+        )));
+    }
+    Ok(ExportOptions {
+        scale,
+        transparent: args.transparent,
+    })
+}
+
+/// The scenes of the figure kind asked for.
+fn scenes(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
+    match args.kind {
+        FigureKind::Dream => pipes::dreams(args, look),
+        FigureKind::Bumpless => pipes::bumpless(args, look),
+        FigureKind::Wiring => wiring::diagrams(args, look),
+        FigureKind::Paths => paths::panels(args, look),
+        FigureKind::Permutohedron => permutohedron::drawing(args, look),
+        FigureKind::Volume => volume::plot(args, look),
+    }
+}
+
+/// Makes the folder the files go to (the `--all` directory, or the parent of
+/// `--out`), after checking that `--out` names a format.
+fn prepare_out(args: &FigureArgs) -> Result<(), CliError> {
+    if args.all {
+        std::fs::create_dir_all(&args.out)
+            .map_err(|e| CliError::Failed(format!("cannot create {}: {e}", args.out.display())))?;
+    } else if Format::from_path(&args.out).is_err() {
+        return Err(CliError::Input(format!(
+            "cannot tell the figure format of {}: end --out with .png, .svg or .tex",
+            args.out.display()
+        )));
+    } else if let Some(dir) = args.out.parent().filter(|d| !d.as_os_str().is_empty()) {
+        // as with --all, a missing folder is made (slides/figures/dream.png)
+        std::fs::create_dir_all(dir)
+            .map_err(|e| CliError::Failed(format!("cannot create {}: {e}", dir.display())))?;
+    }
+    Ok(())
+}
+
+/// Where a figure named `name` goes: `--out`, or `--out/NAME.EXT` with `--all`.
+fn file_path(args: &FigureArgs, name: &str) -> PathBuf {
+    if !args.all {
+        return args.out.clone();
+    }
+    let ext = match args.format {
+        FormatArg::Png => "png",
+        FormatArg::Svg => "svg",
+        FormatArg::Tex => "tex",
+    };
+    args.out.join(format!("{name}.{ext}"))
+}
+
+/// What the command prints: one line per file, or one JSON object.
+fn report(args: &FigureArgs, written: &[Written]) -> String {
+    if args.json {
+        let files: Vec<_> = written
+            .iter()
+            .map(|(i, p, w, h)| json!({"index": i, "path": p.display().to_string(), "width": w, "height": h}))
+            .collect();
+        return json::render(&json!({
+            "kind": args.kind.name(),
+            "count": written.len(),
+            "files": files,
+        }));
+    }
+    let mut out = String::new();
+    for (_, p, w, h) in written {
+        out.push_str(&format!("wrote {} ({w} × {h} pt)\n", p.display()));
+    }
+    out
+}

@@ -1,0 +1,57 @@
+//! `figure paths`: the normal form modulo J_n of the reversed Schubert
+//! polynomial of w (or of `--poly` in `--n` variables) as lattice-path panels.
+
+use super::Figure;
+use super::pick::{compact, perm_arg};
+use crate::cli::args::FigureArgs;
+use crate::cli::error::CliError;
+use crate::figure::Scene;
+use crate::figure::look::Look;
+use crate::figure::paths::{panels_of_normal_form, path_grid_scene};
+use crate::math::RatPoly;
+use crate::math::poly::parse::parse_poly;
+use crate::math::quotient::groebner::MAX_QUOTIENT_N;
+use crate::math::quotient::normal_form::{groebner_basis, normal_form};
+use crate::math::schubert::polynomial::schubert;
+
+/// The one figure of panels, named `paths-W` or `paths-poly`.
+pub fn panels(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
+    let kind = args.kind.name();
+    let (f, n, name) = match &args.poly {
+        Some(text) => {
+            let Some(n) = args.n else {
+                return Err(CliError::Input(
+                    "figure paths --poly needs --n, the number of variables (1 to 8)".into(),
+                ));
+            };
+            (parse_poly(text, Some(n))?, n, format!("{kind}-poly"))
+        }
+        None => {
+            let w = perm_arg(args)?;
+            let s = schubert(&w).reverse_vars();
+            (s.to_rational(), w.n(), format!("{kind}-{}", compact(&w)))
+        }
+    };
+    Ok(vec![(0, name, paths_scene(&f, n, args.columns, look)?)])
+}
+
+fn paths_scene(
+    f: &RatPoly,
+    n: usize,
+    columns: Option<usize>,
+    look: &Look,
+) -> Result<Scene, CliError> {
+    if n == 0 || n > MAX_QUOTIENT_N {
+        return Err(CliError::Input(format!(
+            "n = {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
+        )));
+    }
+    let q = groebner_basis(n)?;
+    let nf = normal_form(&q, f)?;
+    let panels = panels_of_normal_form(&nf, n).map_err(|e| CliError::Failed(e.to_string()))?;
+    let columns = columns.unwrap_or_else(|| (panels.len() as f64).sqrt().ceil().max(1.0) as usize);
+    if columns == 0 {
+        return Err(CliError::Input("--columns must be at least 1".into()));
+    }
+    Ok(path_grid_scene(&panels, n, columns, look))
+}
