@@ -98,6 +98,9 @@ fn gcd128(a: i128, b: i128) -> i128 {
 /// A sparse vector over the indices of V_d.
 type Sparse = Vec<(u32, i128)>;
 
+/// A basis element of one degree: its corner and its tail.
+type CornerTail = (Mono, Vec<(Mono, i128)>);
+
 /// The basis elements of the degrees done so far: their corners in the order
 /// found, and the tail of each.
 #[derive(Default)]
@@ -324,10 +327,7 @@ impl DegreeSpace {
     /// each pivot cleared, each row made primitive with a positive lead), read
     /// as basis elements: (corner, tail over standard monomials). A tail
     /// coefficient that is not a multiple of the lead is an error.
-    fn reduced_tails(
-        &self,
-        mut pivots: Vec<Option<Vec<i128>>>,
-    ) -> MathResult<Vec<(Mono, Vec<(Mono, i128)>)>> {
+    fn reduced_tails(&self, mut pivots: Vec<Option<Vec<i128>>>) -> MathResult<Vec<CornerTail>> {
         let v = &self.v;
         let pivot_cols: Vec<usize> = (0..v.len()).filter(|&j| pivots[j].is_some()).collect();
         for &j in pivot_cols.iter().rev() {
@@ -445,7 +445,7 @@ impl QuasiGroebner {
         &self,
         space: &DegreeSpace,
         phi: &HashMap<Mono, Sparse>,
-        new_tails: &[(Mono, Vec<(Mono, i128)>)],
+        new_tails: &[CornerTail],
     ) -> MathResult<HashMap<Mono, Vec<(u32, i128)>>> {
         let std_global: Vec<Option<u32>> = space
             .v
