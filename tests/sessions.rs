@@ -5,7 +5,7 @@
 #![allow(clippy::unwrap_used)]
 
 use elbowroom::session::model::{
-    BrowserPlace, DreamPlace, FigureSettings, HessenbergPlace, QuotientPlace, SolidPlace,
+    BrowserPlace, DreamPlace, FigureSettings, HessenbergPlace, PermutohedronPlace, QuotientPlace,
     SortColumn, View, WordPlace, WorkbenchPlace,
 };
 use elbowroom::session::{Session, SessionError, demo, format, recent, recovery, store};
@@ -136,7 +136,7 @@ fn session() -> impl Strategy<Value = Session> {
                     typed: q.1,
                     survey: q.2,
                 },
-                solid: SolidPlace {
+                solid: PermutohedronPlace {
                     lambda: s.0,
                     from: s.1,
                     to: s.2,

@@ -8,8 +8,8 @@ use super::picker::Picker;
 use super::status::{self, FrameTimes};
 use super::theme;
 use super::views::{
-    self, dreams::DreamsView, hessenberg::HessenbergView, quotient::QuotientView, solid::SolidView,
-    words::WordsView, workbench::WorkbenchView,
+    self, dreams::DreamsView, hessenberg::HessenbergView, permutohedra::PermutohedronView,
+    quotient::QuotientView, words::WordsView, workbench::WorkbenchView,
 };
 use crate::engine::Engine;
 use crate::session::Session;
@@ -38,7 +38,7 @@ pub struct Explorer {
     /// The quotient view.
     pub quotient: QuotientView,
     /// The permutohedron view.
-    pub solid: SolidView,
+    pub permutohedron: PermutohedronView,
     /// The polynomial workbench.
     pub workbench: WorkbenchView,
     /// The save / open / export window.
@@ -103,7 +103,7 @@ impl Explorer {
             words: WordsView::default(),
             hessenberg: HessenbergView::default(),
             quotient: QuotientView::default(),
-            solid: SolidView::default(),
+            permutohedron: PermutohedronView::default(),
             workbench: WorkbenchView::default(),
             files: FilePanel::default(),
             autosave: Autosave::default(),
@@ -117,6 +117,35 @@ impl Explorer {
         let started = Instant::now();
         theme::apply(ui.ctx(), self.session.dark);
         self.shortcuts(ui);
+        if let Some(a) = self.status_line(ui) {
+            self.files.start(a, &self.session);
+        }
+        self.picker_panel(ui);
+        self.view_tabs(ui);
+        self.central_view(ui);
+        // figures and tables are gathered (tables built) only while the export window is open
+        let exports = if self.files.action == Some(FileAction::Export) {
+            self.exports()
+        } else {
+            Vec::new()
+        };
+        self.files
+            .ui(ui.ctx(), &mut self.session, &exports, &mut self.message);
+        self.autosave.offer_ui(ui.ctx(), &mut self.session);
+        if let Some(m) = self.autosave.tick(&self.session, ui.ctx()) {
+            self.message = Some(m);
+        }
+        if !self.engine.running().is_empty() {
+            ui.ctx().request_repaint_after(Duration::from_millis(50));
+        }
+        let took = started.elapsed();
+        self.times.record(took);
+        self.log_frame(ui, took);
+    }
+
+    /// The bottom panel: open, save as, export, the theme and label switches,
+    /// then the status line; the file action clicked, if any.
+    fn status_line(&mut self, ui: &mut egui::Ui) -> Option<FileAction> {
         let mut file_action = None;
         egui::Panel::bottom("status_line").show(ui, |ui| {
             ui.horizontal(|ui| {
@@ -152,9 +181,11 @@ impl Explorer {
                 status::ui(ui, &self.engine, &mut self.message, &self.times);
             });
         });
-        if let Some(a) = file_action {
-            self.files.start(a, &self.session);
-        }
+        file_action
+    }
+
+    /// The left panel: the permutation picker.
+    fn picker_panel(&mut self, ui: &mut egui::Ui) {
         egui::Panel::left("picker")
             .default_size(300.0)
             .show(ui, |ui| {
@@ -165,6 +196,10 @@ impl Explorer {
                 };
                 self.picker.ui(ui, &mut ctx);
             });
+    }
+
+    /// The tab bar over the central area.
+    fn view_tabs(&mut self, ui: &mut egui::Ui) {
         egui::Panel::top("view_tabs").show(ui, |ui| {
             ui.horizontal(|ui| {
                 for v in views::ORDER {
@@ -172,6 +207,10 @@ impl Explorer {
                 }
             });
         });
+    }
+
+    /// The central area: the view of the tab chosen.
+    fn central_view(&mut self, ui: &mut egui::Ui) {
         egui::CentralPanel::default().show(ui, |ui| {
             let mut ctx = AppCtx {
                 session: &mut self.session,
@@ -185,39 +224,28 @@ impl Explorer {
                 View::Words => self.words.ui(ui, &mut ctx),
                 View::Hessenberg => self.hessenberg.ui(ui, &mut ctx),
                 View::Quotient => self.quotient.ui(ui, &mut ctx),
-                View::Permutohedron => self.solid.ui(ui, &mut ctx),
+                View::Permutohedron => self.permutohedron.ui(ui, &mut ctx),
                 View::Workbench => self.workbench.ui(ui, &mut ctx),
                 _ => self.dreams.ui(ui, &mut ctx),
             }
         });
-        // figures and tables are gathered (tables built) only while the export window is open
-        let exports = if self.files.action == Some(FileAction::Export) {
-            self.exports()
-        } else {
-            Vec::new()
-        };
-        self.files
-            .ui(ui.ctx(), &mut self.session, &exports, &mut self.message);
-        self.autosave.offer_ui(ui.ctx(), &mut self.session);
-        if let Some(m) = self.autosave.tick(&self.session, ui.ctx()) {
-            self.message = Some(m);
+    }
+
+    /// The line per frame on stderr that `ELBOWROOM_FRAME_LOG` asks for (and
+    /// the next frame at once, for `continuous`).
+    fn log_frame(&self, ui: &egui::Ui, took: Duration) {
+        if self.frame_log == FrameLog::Off {
+            return;
         }
-        if !self.engine.running().is_empty() {
-            ui.ctx().request_repaint_after(Duration::from_millis(50));
+        if self.frame_log == FrameLog::Continuous {
+            ui.ctx().request_repaint();
         }
-        let took = started.elapsed();
-        self.times.record(took);
-        if self.frame_log != FrameLog::Off {
-            if self.frame_log == FrameLog::Continuous {
-                ui.ctx().request_repaint();
-            }
-            eprintln!(
-                "frame {:?} build {:.2} ms interval {:.2} ms",
-                self.session.view,
-                took.as_secs_f32() * 1e3,
-                ui.input(|i| i.unstable_dt) * 1e3
-            );
-        }
+        eprintln!(
+            "frame {:?} build {:.2} ms interval {:.2} ms",
+            self.session.view,
+            took.as_secs_f32() * 1e3,
+            ui.input(|i| i.unstable_dt) * 1e3
+        );
     }
 
     /// The current view's figures and tables, for the export window.
@@ -227,12 +255,12 @@ impl Explorer {
             View::Dreams => self.dreams.figures(),
             View::Words => self.words.figures(),
             View::Quotient if !survey => self.quotient.figures(),
-            View::Permutohedron => self.solid.figures(),
+            View::Permutohedron => self.permutohedron.figures(),
             _ => Vec::new(),
         };
         let tables = match self.session.view {
             View::Hessenberg => self.hessenberg.tables(),
-            View::Permutohedron => self.solid.tables(),
+            View::Permutohedron => self.permutohedron.tables(),
             View::Quotient if survey => self.quotient.survey.tables(),
             _ => Vec::new(),
         };

@@ -3,21 +3,96 @@
 //! visible rows are computed by the engine.
 
 use super::app_ctx::AppCtx;
-use crate::engine::{BrowseKey, Fetch, JobKey, Slot};
+use crate::engine::{BrowseKey, Engine, Fetch, JobKey, Output, Slot};
 use crate::math::Perm;
 use crate::math::perms::class::PermClass;
 use eframe::egui;
 use std::collections::HashMap;
+use std::ops::RangeInclusive;
+use std::sync::Arc;
 
 /// Rows per block of pipe-dream counts asked of the engine.
-const PAGE: usize = 48;
+const COUNT_BLOCK: usize = 48;
 
 /// The browser's UI state.
 #[derive(Default)]
 pub struct Browser {
-    list: Slot,
-    pages: HashMap<usize, Slot>,
-    pages_for: Option<BrowseKey>,
+    perms: Slot,
+    /// The pipe-dream counts of the rows, one request per block of [`COUNT_BLOCK`] rows.
+    count_blocks: HashMap<usize, Slot>,
+    /// The filter the blocks were asked for.
+    blocks_for: Option<BrowseKey>,
+}
+
+/// The range of lengths shown.
+fn length_filter(ui: &mut egui::Ui, ctx: &mut AppCtx, key: &BrowseKey, top: usize) {
+    ui.horizontal(|ui| {
+        let mut lo = key.min_length;
+        let mut hi = key.max_length;
+        ui.label("ℓ from");
+        if ui
+            .add(egui::DragValue::new(&mut lo).range(0..=top))
+            .changed()
+        {
+            ctx.session.browser.min_length = Some(lo);
+        }
+        ui.label("to");
+        if ui
+            .add(egui::DragValue::new(&mut hi).range(0..=top))
+            .changed()
+        {
+            ctx.session.browser.max_length = Some(hi);
+        }
+    });
+}
+
+/// The class shown and the order of the list.
+fn class_and_order(ui: &mut egui::Ui, ctx: &mut AppCtx, key: &BrowseKey) {
+    ui.horizontal(|ui| {
+        let shown = key.class.map_or("any class", |c| c.label());
+        egui::ComboBox::from_id_salt("class_filter")
+            .selected_text(shown)
+            .show_ui(ui, |ui| {
+                if ui
+                    .selectable_label(key.class.is_none(), "any class")
+                    .clicked()
+                {
+                    ctx.session.browser.class = None;
+                }
+                for c in PermClass::ALL {
+                    if ui
+                        .selectable_label(key.class == Some(c), c.label())
+                        .clicked()
+                    {
+                        ctx.session.browser.class = Some(c.key().to_string());
+                    }
+                }
+            });
+        let order = if key.by_length {
+            "by length"
+        } else {
+            "lexicographic"
+        };
+        egui::ComboBox::from_id_salt("sort_order")
+            .selected_text(order)
+            .show_ui(ui, |ui| {
+                ui.selectable_value(&mut ctx.session.browser.by_length, false, "lexicographic");
+                ui.selectable_value(&mut ctx.session.browser.by_length, true, "by length");
+            });
+    });
+}
+
+/// One row: w (a click picks it), ℓ(w) and its number of pipe dreams
+/// (`...` until counted); true if w was clicked.
+fn perm_row(ui: &mut egui::Ui, w: &Perm, current: &Perm, count: String) -> bool {
+    ui.horizontal(|ui| {
+        let text = egui::RichText::new(w.to_string()).monospace();
+        let clicked = ui.selectable_label(w == current, text).clicked();
+        ui.label(format!("{:>3}", w.length()));
+        ui.weak(count);
+        clicked
+    })
+    .inner
 }
 
 impl Browser {
@@ -40,61 +115,13 @@ impl Browser {
         let key = Self::key(ctx);
         let top = key.n * (key.n - 1) / 2;
         ui.heading(format!("All of S_{}", key.n));
-        ui.horizontal(|ui| {
-            let mut lo = key.min_length;
-            let mut hi = key.max_length;
-            ui.label("ℓ from");
-            if ui
-                .add(egui::DragValue::new(&mut lo).range(0..=top))
-                .changed()
-            {
-                ctx.session.browser.min_length = Some(lo);
-            }
-            ui.label("to");
-            if ui
-                .add(egui::DragValue::new(&mut hi).range(0..=top))
-                .changed()
-            {
-                ctx.session.browser.max_length = Some(hi);
-            }
-        });
-        ui.horizontal(|ui| {
-            let shown = key.class.map_or("any class", |c| c.label());
-            egui::ComboBox::from_id_salt("class_filter")
-                .selected_text(shown)
-                .show_ui(ui, |ui| {
-                    if ui
-                        .selectable_label(key.class.is_none(), "any class")
-                        .clicked()
-                    {
-                        ctx.session.browser.class = None;
-                    }
-                    for c in PermClass::ALL {
-                        if ui
-                            .selectable_label(key.class == Some(c), c.label())
-                            .clicked()
-                        {
-                            ctx.session.browser.class = Some(c.key().to_string());
-                        }
-                    }
-                });
-            let order = if key.by_length {
-                "by length"
-            } else {
-                "lexicographic"
-            };
-            egui::ComboBox::from_id_salt("sort_order")
-                .selected_text(order)
-                .show_ui(ui, |ui| {
-                    ui.selectable_value(&mut ctx.session.browser.by_length, false, "lexicographic");
-                    ui.selectable_value(&mut ctx.session.browser.by_length, true, "by length");
-                });
-        });
-        if self.pages_for.as_ref() != Some(&key) {
-            self.pages.clear();
-            self.pages_for = Some(key.clone());
+        length_filter(ui, ctx, &key, top);
+        class_and_order(ui, ctx, &key);
+        if self.blocks_for.as_ref() != Some(&key) {
+            self.count_blocks.clear();
+            self.blocks_for = Some(key.clone());
         }
-        let perms = match self.list.fetch(ctx.engine, JobKey::Browse(key)) {
+        let perms = match self.perms.fetch(ctx.engine, JobKey::Browse(key)) {
             Fetch::Ready(out) => out.clone(),
             Fetch::Running(f, _) => {
                 ui.add(egui::ProgressBar::new(f).text("listing"));
@@ -110,6 +137,19 @@ impl Browser {
             "{} permutations; w, ℓ(w), number of pipe dreams",
             perms.len()
         ));
+        if let Some(w) = self.rows(ui, ctx.engine, perms, current) {
+            ctx.go_to(w);
+        }
+    }
+
+    /// The list, drawn virtually, with the counts of the visible rows; the w clicked, if any.
+    fn rows(
+        &mut self,
+        ui: &mut egui::Ui,
+        engine: &Engine,
+        perms: &[Perm],
+        current: &Perm,
+    ) -> Option<Perm> {
         let row_h = ui
             .text_style_height(&egui::TextStyle::Monospace)
             .max(ui.spacing().interact_size.y);
@@ -118,44 +158,51 @@ impl Browser {
             .id_salt("perm_list")
             .auto_shrink([false, false])
             .show_rows(ui, row_h, perms.len(), |ui, rows| {
-                let first_page = rows.start / PAGE;
-                let last_page = rows.end.saturating_sub(1) / PAGE;
-                // forget unfinished blocks that scrolled away (dropping cancels them)
-                self.pages
-                    .retain(|p, s| (first_page..=last_page).contains(p) || !s.is_running());
-                let mut counts: HashMap<usize, Option<std::sync::Arc<crate::engine::Output>>> =
-                    HashMap::new();
-                for page in first_page..=last_page {
-                    let block: Vec<Perm> =
-                        perms.iter().skip(page * PAGE).take(PAGE).cloned().collect();
-                    let slot = self.pages.entry(page).or_default();
-                    let got = match slot.fetch(ctx.engine, JobKey::Counts(block)) {
-                        Fetch::Ready(out) => Some(out.clone()),
-                        _ => None,
-                    };
-                    counts.insert(page, got);
-                }
+                let first_block = rows.start / COUNT_BLOCK;
+                let last_block = rows.end.saturating_sub(1) / COUNT_BLOCK;
+                let counts = self.counts(engine, perms, first_block..=last_block);
                 for row in rows {
                     let Some(w) = perms.get(row) else { continue };
-                    let page = row / PAGE;
+                    let block = row / COUNT_BLOCK;
                     let count = counts
-                        .get(&page)
+                        .get(&block)
                         .and_then(|o| o.as_ref())
                         .and_then(|out| out.counts())
-                        .and_then(|c| c.get(row - page * PAGE))
+                        .and_then(|c| c.get(row - block * COUNT_BLOCK))
                         .map_or("...".to_string(), |c| c.to_string());
-                    ui.horizontal(|ui| {
-                        let text = egui::RichText::new(w.to_string()).monospace();
-                        if ui.selectable_label(w == current, text).clicked() {
-                            chosen = Some(w.clone());
-                        }
-                        ui.label(format!("{:>3}", w.length()));
-                        ui.weak(count);
-                    });
+                    if perm_row(ui, w, current, count) {
+                        chosen = Some(w.clone());
+                    }
                 }
             });
-        if let Some(w) = chosen {
-            ctx.go_to(w);
+        chosen
+    }
+
+    /// The pipe-dream counts of the blocks `visible`, as far as computed;
+    /// unfinished blocks that scrolled away are forgotten (dropping cancels them).
+    fn counts(
+        &mut self,
+        engine: &Engine,
+        perms: &[Perm],
+        visible: RangeInclusive<usize>,
+    ) -> HashMap<usize, Option<Arc<Output>>> {
+        self.count_blocks
+            .retain(|b, s| visible.contains(b) || !s.is_running());
+        let mut counts = HashMap::new();
+        for block in visible {
+            let perms: Vec<Perm> = perms
+                .iter()
+                .skip(block * COUNT_BLOCK)
+                .take(COUNT_BLOCK)
+                .cloned()
+                .collect();
+            let slot = self.count_blocks.entry(block).or_default();
+            let got = match slot.fetch(engine, JobKey::Counts(perms)) {
+                Fetch::Ready(out) => Some(out.clone()),
+                _ => None,
+            };
+            counts.insert(block, got);
         }
+        counts
     }
 }

@@ -1,8 +1,8 @@
-//! Saving and opening sessions and exporting figures (Ctrl+S, Ctrl+O, Ctrl+E):
-//! a small window with a typed path (and the desktop's file dialog where one
-//! runs; the typed path always works), the demo
-//! sessions and the recent ones to pick from, and the figures and tables the
-//! current view can export.
+//! Saving and opening sessions and exporting figures and tables (Ctrl+S,
+//! Ctrl+O, Ctrl+E): a small window with a typed path (and the desktop's file
+//! dialog where one runs; the typed path always works), the demo sessions and
+//! the recent ones to pick from, and the figures and tables the current view
+//! can export.
 
 use crate::figure::Scene;
 use crate::figure::export::{self, ExportOptions};
@@ -19,7 +19,7 @@ pub enum FileAction {
     Save,
     /// Open a session.
     Open,
-    /// Export a figure.
+    /// Export a figure or a table.
     Export,
 }
 
@@ -62,8 +62,8 @@ pub struct FilePanel {
     pub path: String,
     /// The file the session was last saved to or opened from.
     pub session_path: Option<PathBuf>,
-    /// Which of the view's figures or tables to export.
-    pub figure: usize,
+    /// Which of the view's figures or tables to export (an index into the list).
+    pub chosen: usize,
     /// Whether the typed path's extension was fitted to the first item yet.
     fitted: bool,
 }
@@ -86,7 +86,7 @@ impl FilePanel {
                 Path::new(&dir).join("figure.svg").display().to_string()
             }
         };
-        self.figure = 0;
+        self.chosen = 0;
         self.fitted = false;
         self.action = Some(action);
     }
@@ -107,13 +107,13 @@ impl FilePanel {
         true
     }
 
-    /// Draws the window (if open); `figures` are the current view's exportable
+    /// Draws the window (if open); `exports` are the current view's exportable
     /// figures and tables.
     pub fn ui(
         &mut self,
         ctx: &egui::Context,
         session: &mut Session,
-        figures: &[(String, Exportable)],
+        exports: &[(String, Exportable)],
         message: &mut Option<String>,
     ) {
         let Some(action) = self.action else { return };
@@ -129,97 +129,17 @@ impl FilePanel {
             .collapsible(false)
             .resizable(false)
             .show(ctx, |ui| {
-                if action == FileAction::Export {
-                    if figures.is_empty() {
-                        ui.label("This view has nothing to export yet.");
-                        return;
-                    }
-                    for (k, (name, _)) in figures.iter().enumerate() {
-                        if ui.radio_value(&mut self.figure, k, name).changed() {
-                            self.path = with_fitting_extension(&self.path, &figures[k].1);
-                        }
-                    }
-                    let chosen = &figures[self.figure.min(figures.len() - 1)].1;
-                    if !self.fitted {
-                        self.path = with_fitting_extension(&self.path, chosen);
-                        self.fitted = true;
-                    }
-                    if matches!(chosen, Exportable::Figure(_)) {
-                        ui.horizontal(|ui| {
-                            ui.label("PNG scale");
-                            ui.add(
-                                egui::DragValue::new(&mut session.figure.scale).range(1.0..=12.0),
-                            );
-                            ui.checkbox(&mut session.figure.transparent, "transparent background");
-                        });
-                    }
-                    ui.weak(chosen.hint());
+                if action == FileAction::Export && !self.export_choice(ui, session, exports) {
+                    return;
                 }
-                let edit = ui.add(
-                    egui::TextEdit::singleline(&mut self.path)
-                        .id_salt("file_path")
-                        .desired_width(420.0),
-                );
-                let enter = edit.lost_focus() && ui.input(|i| i.key_pressed(egui::Key::Enter));
-                let verb = match action {
-                    FileAction::Save => "save",
-                    FileAction::Open => "open",
-                    FileAction::Export => "export",
-                };
-                let mut go = false;
-                ui.horizontal(|ui| {
-                    go = ui.button(verb).clicked() || enter;
-                    if ui
-                        .button("browse…")
-                        .on_hover_text("the system's file dialog, where a dialog service runs")
-                        .clicked()
-                    {
-                        let exts = figures
-                            .get(self.figure)
-                            .map(|(_, e)| e.extensions())
-                            .unwrap_or(&["png", "svg", "tex"]);
-                        match native_dialog(action, &self.path, exts) {
-                            Some(p) => {
-                                self.path = p.display().to_string();
-                                go = true;
-                            }
-                            None => {
-                                *message = Some(
-                                    "no file chosen (or no file dialog service here); type the path instead".into(),
-                                );
-                            }
-                        }
-                    }
-                });
-                if go {
-                    done = self.perform(action, session, figures, message);
+                if self.path_row(ui, action, exports, message) {
+                    done = self.perform(action, session, exports, message);
                 }
-                if action == FileAction::Open {
-                    let mut pick = None;
-                    ui.separator();
-                    ui.weak("demo sessions");
-                    for p in demo::demo_paths() {
-                        let name = p
-                            .file_name()
-                            .map(|n| n.to_string_lossy().to_string())
-                            .unwrap_or_default();
-                        if ui.link(name).clicked() {
-                            pick = Some(p);
-                        }
-                    }
-                    let recent = recent::load();
-                    if !recent.is_empty() {
-                        ui.weak("recent");
-                        for p in recent.into_iter().take(8) {
-                            if ui.link(p.display().to_string()).clicked() {
-                                pick = Some(p);
-                            }
-                        }
-                    }
-                    if let Some(p) = pick {
-                        self.path = p.display().to_string();
-                        done = self.perform(action, session, figures, message);
-                    }
+                if action == FileAction::Open
+                    && let Some(p) = session_to_open(ui)
+                {
+                    self.path = p.display().to_string();
+                    done = self.perform(action, session, exports, message);
                 }
             });
         if !open || done {
@@ -227,11 +147,94 @@ impl FilePanel {
         }
     }
 
+    /// The list of the view's figures and tables to choose from (the path's
+    /// extension follows the choice), the PNG settings for a figure, and the
+    /// formats; false (after saying so) when there is nothing to export.
+    fn export_choice(
+        &mut self,
+        ui: &mut egui::Ui,
+        session: &mut Session,
+        exports: &[(String, Exportable)],
+    ) -> bool {
+        if exports.is_empty() {
+            ui.label("This view has nothing to export yet.");
+            return false;
+        }
+        for (k, (name, _)) in exports.iter().enumerate() {
+            if ui.radio_value(&mut self.chosen, k, name).changed() {
+                self.path = with_fitting_extension(&self.path, &exports[k].1);
+            }
+        }
+        let chosen = &exports[self.chosen.min(exports.len() - 1)].1;
+        if !self.fitted {
+            self.path = with_fitting_extension(&self.path, chosen);
+            self.fitted = true;
+        }
+        if matches!(chosen, Exportable::Figure(_)) {
+            ui.horizontal(|ui| {
+                ui.label("PNG scale");
+                ui.add(egui::DragValue::new(&mut session.figure.scale).range(1.0..=12.0));
+                ui.checkbox(&mut session.figure.transparent, "transparent background");
+            });
+        }
+        ui.weak(chosen.hint());
+        true
+    }
+
+    /// The typed path, the action's button and "browse…" (the desktop's
+    /// dialog); true when the action should go ahead (button, Enter, or a
+    /// path chosen in the dialog).
+    fn path_row(
+        &mut self,
+        ui: &mut egui::Ui,
+        action: FileAction,
+        exports: &[(String, Exportable)],
+        message: &mut Option<String>,
+    ) -> bool {
+        let edit = ui.add(
+            egui::TextEdit::singleline(&mut self.path)
+                .id_salt("file_path")
+                .desired_width(420.0),
+        );
+        let enter = edit.lost_focus() && ui.input(|i| i.key_pressed(egui::Key::Enter));
+        let verb = match action {
+            FileAction::Save => "save",
+            FileAction::Open => "open",
+            FileAction::Export => "export",
+        };
+        let mut go = false;
+        ui.horizontal(|ui| {
+            go = ui.button(verb).clicked() || enter;
+            if ui
+                .button("browse…")
+                .on_hover_text("the system's file dialog, where a dialog service runs")
+                .clicked()
+            {
+                let extensions = exports
+                    .get(self.chosen)
+                    .map(|(_, e)| e.extensions())
+                    .unwrap_or(&["png", "svg", "tex"]);
+                match native_dialog(action, &self.path, extensions) {
+                    Some(p) => {
+                        self.path = p.display().to_string();
+                        go = true;
+                    }
+                    None => {
+                        *message = Some(
+                            "no file chosen (or no file dialog service here); type the path instead".into(),
+                        );
+                    }
+                }
+            }
+        });
+        go
+    }
+
     fn perform(
         &mut self,
         action: FileAction,
         session: &mut Session,
-        figures: &[(String, Exportable)],
+        exports: &[(String, Exportable)],
         message: &mut Option<String>,
     ) -> bool {
         let path = PathBuf::from(self.path.trim());
@@ -262,7 +265,7 @@ impl FilePanel {
                 }
             },
             FileAction::Export => {
-                let Some((_, item)) = figures.get(self.figure).or_else(|| figures.first()) else {
+                let Some((_, item)) = exports.get(self.chosen).or_else(|| exports.first()) else {
                     return false;
                 };
                 let opts = ExportOptions {
@@ -295,10 +298,36 @@ impl FilePanel {
     }
 }
 
+/// The demo sessions and the recent ones, as links; the one clicked, if any.
+fn session_to_open(ui: &mut egui::Ui) -> Option<PathBuf> {
+    let mut pick = None;
+    ui.separator();
+    ui.weak("demo sessions");
+    for p in demo::demo_paths() {
+        let name = p
+            .file_name()
+            .map(|n| n.to_string_lossy().to_string())
+            .unwrap_or_default();
+        if ui.link(name).clicked() {
+            pick = Some(p);
+        }
+    }
+    let recent = recent::load();
+    if !recent.is_empty() {
+        ui.weak("recent");
+        for p in recent.into_iter().take(8) {
+            if ui.link(p.display().to_string()).clicked() {
+                pick = Some(p);
+            }
+        }
+    }
+    pick
+}
+
 /// Asks the desktop's file dialog (through the XDG portal) for a path; `None`
 /// when the user cancels or no dialog service is running, so the typed path stays
 /// the way in.
-fn native_dialog(action: FileAction, current: &str, exports: &[&str]) -> Option<PathBuf> {
+fn native_dialog(action: FileAction, current: &str, extensions: &[&str]) -> Option<PathBuf> {
     let current = Path::new(current);
     let mut dialog = rfd::FileDialog::new();
     if let Some(dir) = current.parent().filter(|d| d.is_dir()) {
@@ -310,7 +339,7 @@ fn native_dialog(action: FileAction, current: &str, exports: &[&str]) -> Option<
     match action {
         FileAction::Open => dialog.add_filter("elbowroom session", &["ron"]).pick_file(),
         FileAction::Save => dialog.add_filter("elbowroom session", &["ron"]).save_file(),
-        FileAction::Export => dialog.add_filter("figure or table", exports).save_file(),
+        FileAction::Export => dialog.add_filter("figure or table", extensions).save_file(),
     }
 }
 

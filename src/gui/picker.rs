@@ -16,8 +16,9 @@ pub struct Picker {
     pub text: String,
     /// Why the last typed entry was refused.
     pub error: Option<String>,
-    shown_for: Vec<usize>,
-    count: Slot,
+    /// The permutation (one-line) whose text the field was last set to.
+    text_for: Vec<usize>,
+    dream_count: Slot,
     browser: Browser,
 }
 
@@ -52,41 +53,26 @@ impl Picker {
     /// Draws the panel.
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
-        if self.shown_for != w.one_line() {
-            self.shown_for = w.one_line();
+        if self.text_for != w.one_line() {
+            self.text_for = w.one_line();
             self.text = w.to_string();
             self.error = None;
         }
         ui.heading("Permutation");
-        ui.horizontal(|ui| {
-            ui.label("n");
-            let mut n = ctx.session.n.clamp(1, 9);
-            let changed = ui
-                .add(egui::DragValue::new(&mut n).range(1..=9))
-                .on_hover_text("the size of S_n")
-                .changed();
-            if changed && n != w.n() {
-                let next = if w.support_size() <= n {
-                    w.restrict(n).or_else(|| w.embed(n).ok())
-                } else {
-                    None
-                };
-                ctx.go_to(next.unwrap_or_else(|| Perm::identity(n)));
-            }
-            if ui
-                .add_enabled(ctx.session.history_pos > 0, egui::Button::new("< back"))
-                .clicked()
-            {
-                step_history(ctx.session, -1);
-            }
-            let can_forward = ctx.session.history_pos + 1 < ctx.session.history.len();
-            if ui
-                .add_enabled(can_forward, egui::Button::new("forward >"))
-                .clicked()
-            {
-                step_history(ctx.session, 1);
-            }
-        });
+        size_and_history(ui, ctx, &w);
+        self.entry(ui, ctx);
+        ui.separator();
+        self.summary(ui, ctx, &w);
+        ui.separator();
+        self.neighbours(ui, ctx, &w);
+        ui.separator();
+        self.pins(ui, ctx, &w);
+        ui.separator();
+        self.browser.ui(ui, ctx, &w);
+    }
+
+    /// The field for a typed permutation, "go" (or Enter), and why the last entry was refused.
+    fn entry(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let edit = ui.add(
             egui::TextEdit::singleline(&mut self.text)
                 .id_salt("perm_entry")
@@ -109,16 +95,9 @@ impl Picker {
         if let Some(e) = &self.error {
             ui.colored_label(super::theme::alert(), e);
         }
-        ui.separator();
-        self.summary(ui, ctx, &w);
-        ui.separator();
-        self.neighbours(ui, ctx, &w);
-        ui.separator();
-        self.pins(ui, ctx, &w);
-        ui.separator();
-        self.browser.ui(ui, ctx, &w);
     }
 
+    /// w, ℓ(w), its code and classes, and its number of pipe dreams.
     fn summary(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
         ui.horizontal(|ui| {
             ui.label(egui::RichText::new(format!("w = {w}")).strong().monospace());
@@ -131,7 +110,7 @@ impl Picker {
             ui.weak(classes.join(", "));
         }
         match self
-            .count
+            .dream_count
             .fetch(ctx.engine, JobKey::Counts(vec![w.clone()]))
         {
             Fetch::Ready(out) => {
@@ -151,6 +130,7 @@ impl Picker {
         }
     }
 
+    /// Buttons to w·s_i and s_i·w.
     fn neighbours(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
         let n = w.n();
         if n < 2 {
@@ -183,6 +163,7 @@ impl Picker {
         }
     }
 
+    /// Pin or unpin w, and the pinned permutations to go to.
     fn pins(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
         let line = w.one_line();
         let pinned = ctx.session.pins.contains(&line);
@@ -215,6 +196,39 @@ impl Picker {
             ctx.go_to(v);
         }
     }
+}
+
+/// n (a new n keeps w when it fits, else goes to the identity), back and forward.
+fn size_and_history(ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
+    ui.horizontal(|ui| {
+        ui.label("n");
+        let mut n = ctx.session.n.clamp(1, 9);
+        let changed = ui
+            .add(egui::DragValue::new(&mut n).range(1..=9))
+            .on_hover_text("the size of S_n")
+            .changed();
+        if changed && n != w.n() {
+            let next = if w.support_size() <= n {
+                w.restrict(n).or_else(|| w.embed(n).ok())
+            } else {
+                None
+            };
+            ctx.go_to(next.unwrap_or_else(|| Perm::identity(n)));
+        }
+        if ui
+            .add_enabled(ctx.session.history_pos > 0, egui::Button::new("< back"))
+            .clicked()
+        {
+            step_history(ctx.session, -1);
+        }
+        let can_forward = ctx.session.history_pos + 1 < ctx.session.history.len();
+        if ui
+            .add_enabled(can_forward, egui::Button::new("forward >"))
+            .clicked()
+        {
+            step_history(ctx.session, 1);
+        }
+    });
 }
 
 #[cfg(test)]

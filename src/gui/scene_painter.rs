@@ -117,7 +117,7 @@ fn distance_to_segment(p: Pos2, a: Pos2, b: Pos2) -> f32 {
     p.distance(a + ab * t)
 }
 
-fn inside(p: Pos2, poly: &[Pos2]) -> bool {
+fn inside_polygon(p: Pos2, poly: &[Pos2]) -> bool {
     let mut odd = false;
     let n = poly.len();
     if n < 3 {
@@ -154,8 +154,32 @@ pub fn show(ui: &mut egui::Ui, scene: &Scene, opts: &PaintOptions) -> SceneRespo
     let (rect, response) =
         ui.allocate_exact_size(Vec2::new(sw * scale, sh * scale), Sense::click_and_drag());
     let origin = rect.min;
+    let geometry = screen_geometry(scene, origin, scale);
+    let hovered = match response.hover_pos() {
+        Some(p) => tags_at(p, scene, &geometry, scale),
+        None => Vec::new(),
+    };
+    let clicked = if response.clicked() {
+        hovered.clone()
+    } else {
+        Vec::new()
+    };
+    let painter = ui.painter_at(rect.expand(2.0));
+    painter.rect_filled(rect, 0.0, color(scene.background));
+    let halo = ui.visuals().text_color().gamma_multiply(0.35);
+    paint_scene(&painter, scene, &geometry, opts, scale, halo, origin);
+    SceneResponse {
+        response,
+        hovered,
+        clicked,
+        scale,
+    }
+}
+
+/// The screen geometry of every item of `scene`, drawn from `origin` at `scale`.
+fn screen_geometry(scene: &Scene, origin: Pos2, scale: f32) -> Vec<Geometry> {
     let map = |p: Pt| Pos2::new(origin.x + p.x * scale, origin.y + p.y * scale);
-    let geometry: Vec<Geometry> = scene
+    scene
         .items
         .iter()
         .map(|item| match &item.kind {
@@ -165,53 +189,62 @@ pub fn show(ui: &mut egui::Ui, scene: &Scene, opts: &PaintOptions) -> SceneRespo
             }
             ItemKind::Text { .. } => Geometry::Text,
         })
-        .collect();
+        .collect()
+}
 
-    // hit-testing, topmost first
+/// The tags of the items under `p`, topmost first, each once (untagged items and labels never).
+fn tags_at(p: Pos2, scene: &Scene, geometry: &[Geometry], scale: f32) -> Vec<Tag> {
     let mut hovered = Vec::new();
-    if let Some(p) = response.hover_pos() {
-        for (item, geo) in scene.items.iter().zip(&geometry).rev() {
-            if matches!(item.tag, Tag::None | Tag::Label) || hovered.contains(&item.tag) {
-                continue;
-            }
-            let hit = match (geo, &item.kind) {
-                (Geometry::Lines(lines), ItemKind::Path { stroke, fill, .. }) => {
-                    let tol = stroke.map_or(0.0, |s| s.width * scale / 2.0).max(4.0);
-                    (fill.is_some() && lines.iter().any(|l| inside(p, l)))
-                        || (stroke.is_some()
-                            && lines.iter().any(|l| {
-                                l.windows(2)
-                                    .any(|s| distance_to_segment(p, s[0], s[1]) <= tol)
-                            }))
-                }
-                (Geometry::Circle(c, r), _) => p.distance(*c) <= r + 3.0,
-                _ => false,
-            };
-            if hit {
-                hovered.push(item.tag);
-            }
+    for (item, geo) in scene.items.iter().zip(geometry).rev() {
+        if matches!(item.tag, Tag::None | Tag::Label) || hovered.contains(&item.tag) {
+            continue;
+        }
+        if hits(p, item, geo, scale) {
+            hovered.push(item.tag);
         }
     }
-    let clicked = if response.clicked() {
-        hovered.clone()
-    } else {
-        Vec::new()
-    };
+    hovered
+}
 
-    let painter = ui.painter_at(rect.expand(2.0));
-    painter.rect_filled(rect, 0.0, color(scene.background));
-    let halo = ui.visuals().text_color().gamma_multiply(0.35);
+/// Whether `p` is on the item: inside a filled path, near a stroked one
+/// (at least 4 points), or within 3 points of a circle.
+fn hits(p: Pos2, item: &crate::figure::Item, geo: &Geometry, scale: f32) -> bool {
+    match (geo, &item.kind) {
+        (Geometry::Lines(lines), ItemKind::Path { stroke, fill, .. }) => {
+            let tol = stroke.map_or(0.0, |s| s.width * scale / 2.0).max(4.0);
+            let near = |l: &Vec<Pos2>| {
+                l.windows(2)
+                    .any(|s| distance_to_segment(p, s[0], s[1]) <= tol)
+            };
+            (fill.is_some() && lines.iter().any(|l| inside_polygon(p, l)))
+                || (stroke.is_some() && lines.iter().any(near))
+        }
+        (Geometry::Circle(c, r), _) => p.distance(*c) <= r + 3.0,
+        _ => false,
+    }
+}
+
+/// Paints the items in order, those with a highlighted tag last, wider and with a halo.
+fn paint_scene(
+    painter: &egui::Painter,
+    scene: &Scene,
+    geometry: &[Geometry],
+    opts: &PaintOptions,
+    scale: f32,
+    halo: Color32,
+    origin: Pos2,
+) {
     let mut emphasised = Vec::new();
-    for (k, (item, geo)) in scene.items.iter().zip(&geometry).enumerate() {
+    for (k, (item, geo)) in scene.items.iter().zip(geometry).enumerate() {
         if opts.highlight.contains(&item.tag) && !matches!(item.tag, Tag::None) {
             emphasised.push(k);
             continue;
         }
-        paint_item(&painter, item, geo, scale, 1.0, None, origin);
+        paint_item(painter, item, geo, scale, 1.0, None, origin);
     }
     for k in emphasised {
         paint_item(
-            &painter,
+            painter,
             &scene.items[k],
             &geometry[k],
             scale,
@@ -219,12 +252,6 @@ pub fn show(ui: &mut egui::Ui, scene: &Scene, opts: &PaintOptions) -> SceneRespo
             Some(halo),
             origin,
         );
-    }
-    SceneResponse {
-        response,
-        hovered,
-        clicked,
-        scale,
     }
 }
 

@@ -23,7 +23,7 @@ impl<K> Default for TableSource<K> {
 
 impl<K: Clone + PartialEq> TableSource<K> {
     /// Notes the result on screen.
-    pub fn show(&mut self, key: &K, out: &Arc<Output>) {
+    pub fn note_shown(&mut self, key: &K, out: &Arc<Output>) {
         if self.shown.as_ref().is_none_or(|(k, _)| k != key) {
             self.shown = Some((key.clone(), out.clone()));
         }

@@ -37,7 +37,7 @@ pub struct Session {
     /// Where the quotient view is.
     pub quotient: QuotientPlace,
     /// Where the permutohedron view is.
-    pub solid: SolidPlace,
+    pub solid: PermutohedronPlace,
     /// Where the Hessenberg view is.
     pub hessenberg: HessenbergPlace,
     /// Where the polynomial workbench is.
@@ -62,7 +62,7 @@ impl Default for Session {
             dreams: DreamPlace::default(),
             words: WordPlace::default(),
             quotient: QuotientPlace::default(),
-            solid: SolidPlace::default(),
+            solid: PermutohedronPlace::default(),
             hessenberg: HessenbergPlace::default(),
             workbench: WorkbenchPlace::default(),
             figure: FigureSettings::default(),
@@ -135,7 +135,7 @@ pub struct QuotientPlace {
 /// The permutohedron view's inputs, as typed (exact rationals like `3/2`).
 #[derive(Clone, Debug, PartialEq, Serialize, Deserialize)]
 #[serde(default)]
-pub struct SolidPlace {
+pub struct PermutohedronPlace {
     /// λ for the exact volume and the drawing.
     pub lambda: Vec<String>,
     /// The start λ_a of the segment plotted.
@@ -148,10 +148,10 @@ pub struct SolidPlace {
     pub pitch: f32,
 }
 
-impl Default for SolidPlace {
+impl Default for PermutohedronPlace {
     fn default() -> Self {
         let s = |v: &[&str]| v.iter().map(|x| x.to_string()).collect::<Vec<_>>();
-        SolidPlace {
+        PermutohedronPlace {
             lambda: s(&["3", "2", "1", "0"]),
             from: s(&["1", "1", "0", "0"]),
             to: s(&["3", "2", "1", "0"]),

@@ -3,42 +3,163 @@
 //! ladder (or chute) move there, the dream's monomial and reading word; and a
 //! switch to bumpless pipe dreams.
 
-use super::{arrow_step, computing, failed};
+use super::{arrow_step, fetch_ready, figure_look};
 use crate::engine::requests::DREAM_LIMIT;
-use crate::engine::{Fetch, JobKey, Output, Slot};
+use crate::engine::{JobKey, Output, Slot};
 use crate::figure::bumpless::bumpless_scene;
 use crate::figure::dream::dream_scene;
 use crate::figure::look::Look;
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
-use crate::gui::scene_painter::{self, PaintOptions};
+use crate::gui::scene_painter::{self, PaintOptions, SceneResponse};
+use crate::math::Perm;
+use crate::math::pipes::bumpless::BumplessDream;
 use crate::math::pipes::dream::PipeDream;
+use crate::math::pipes::moves::MoveKind;
 use crate::math::poly::mono::exponents_text;
-use crate::math::{MathError, Perm};
 use eframe::egui;
 use std::sync::Arc;
 
 /// The dream view's UI state.
 #[derive(Default)]
 pub struct DreamsView {
-    list: Slot,
+    reduced: Slot,
     bumpless: Slot,
-    /// A dream reached by a move (shown instead of the indexed one).
-    moved: Option<PipeDream>,
+    /// A dream reached by a move that is not in the list (shown instead of the indexed one).
+    moved_off_list: Option<PipeDream>,
     scene: Option<(SceneKey, Arc<Scene>)>,
     hover_pipe: Option<usize>,
-    /// What the last click did.
-    pub note: Option<String>,
+    /// What the last click on the canvas did.
+    pub click_note: Option<String>,
     /// The dream drawn in the last frame.
     pub shown: Option<PipeDream>,
     /// Where the canvas was drawn in the last frame: its rectangle and screen points per figure unit.
     pub canvas: Option<(egui::Rect, f32)>,
 }
 
+/// What the scene on screen draws.
 #[derive(Clone, PartialEq)]
 enum SceneKey {
     Dream(PipeDream, Look),
     Bumpless(Perm, usize, Look),
+}
+
+/// "|< < k of N > >|" with the arrow keys; a step forgets the dream reached by a move.
+fn stepper(ui: &mut egui::Ui, index: &mut usize, total: usize, moved: &mut Option<PipeDream>) {
+    let step = arrow_step(ui);
+    let mut target: Option<usize> = None;
+    ui.horizontal(|ui| {
+        if ui.button("|<").on_hover_text("first").clicked() {
+            target = Some(0);
+        }
+        if ui
+            .button("<")
+            .on_hover_text("previous (left arrow)")
+            .clicked()
+            || step < 0
+        {
+            target = Some(index.saturating_sub(1));
+        }
+        ui.label(egui::RichText::new(format!("{} of {total}", *index + 1)).strong());
+        if ui.button(">").on_hover_text("next (right arrow)").clicked() || step > 0 {
+            target = Some((*index + 1).min(total.saturating_sub(1)));
+        }
+        if ui.button(">|").on_hover_text("last").clicked() {
+            target = Some(total.saturating_sub(1));
+        }
+    });
+    if let Some(t) = target {
+        *index = t;
+        *moved = None;
+    }
+}
+
+/// The cells where a ladder or chute move starts: the dots drawn on the dream.
+fn move_hints(dream: &PipeDream) -> Vec<(usize, usize)> {
+    let mut v: Vec<(usize, usize)> = dream
+        .available_moves()
+        .iter()
+        .filter(|m| matches!(m.kind, MoveKind::Ladder | MoveKind::Chute))
+        .map(|m| m.from)
+        .collect();
+    v.dedup();
+    v
+}
+
+/// The dream a click on cell (i, j) moves to, and the move's name: a ladder
+/// move, else a chute move; with `inverse`, the inverse moves.
+fn move_at(
+    dream: &PipeDream,
+    i: usize,
+    j: usize,
+    inverse: bool,
+) -> Option<(PipeDream, &'static str)> {
+    if inverse {
+        dream
+            .ladder_back_at(i, j)
+            .map(|d| (d, "inverse ladder"))
+            .or_else(|| dream.chute_back_at(i, j).map(|d| (d, "inverse chute")))
+    } else {
+        dream
+            .ladder_move_at(i, j)
+            .map(|d| (d, "ladder"))
+            .or_else(|| dream.chute_move_at(i, j).map(|d| (d, "chute")))
+    }
+}
+
+/// Beside a reduced dream: its weight, reading word and crosses, how to use the canvas, the last click's note.
+fn dream_facts(ui: &mut egui::Ui, dream: &PipeDream, note: Option<&String>) {
+    ui.vertical(|ui| {
+        ui.label(egui::RichText::new("weight").weak());
+        ui.label(
+            egui::RichText::new(exponents_text(&dream.monomial()))
+                .monospace()
+                .strong(),
+        );
+        ui.add_space(6.0);
+        ui.label(egui::RichText::new("reading word").weak());
+        let word: Vec<String> = dream.reading_word().iter().map(|a| a.to_string()).collect();
+        ui.label(egui::RichText::new(word.join(" ")).monospace());
+        ui.add_space(6.0);
+        ui.label(egui::RichText::new("crosses").weak());
+        let crosses: Vec<String> = dream
+            .crosses()
+            .iter()
+            .map(|(i, j)| format!("({i},{j})"))
+            .collect();
+        ui.label(crosses.join(" "));
+        ui.add_space(6.0);
+        ui.weak("Click a cell with a dot: ladder move (or chute).\nShift-click: the inverse move.\nLeft/Right arrow keys step through the dreams.");
+        if let Some(n) = note {
+            ui.add_space(6.0);
+            ui.label(n);
+        }
+    });
+}
+
+/// Beside a bumpless dream: its weight and blank tiles, and whether it is the Rothe dream of w.
+fn bumpless_facts(ui: &mut egui::Ui, d: &BumplessDream, w: &Perm) {
+    ui.vertical(|ui| {
+        ui.label(egui::RichText::new("weight (blank tiles)").weak());
+        ui.label(
+            egui::RichText::new(exponents_text(&d.monomial()))
+                .monospace()
+                .strong(),
+        );
+        ui.add_space(6.0);
+        let blanks: Vec<String> = d
+            .blanks()
+            .iter()
+            .map(|(i, j)| format!("({i},{j})"))
+            .collect();
+        ui.label(egui::RichText::new("blank tiles").weak());
+        ui.label(blanks.join(" "));
+        ui.add_space(6.0);
+        if *d == BumplessDream::rothe(w) {
+            ui.label("This is the Rothe dream: its blank tiles form the Rothe diagram of w.");
+        }
+        ui.weak("Left/Right arrow keys step through the dreams.");
+    });
 }
 
 impl DreamsView {
@@ -67,118 +188,51 @@ impl DreamsView {
             }
         });
         if ctx.session.dreams.bumpless {
-            self.bumpless_ui(ui, ctx, &w);
+            self.bumpless_dreams(ui, ctx, &w);
         } else {
-            self.dreams_ui(ui, ctx, &w);
+            self.reduced_dreams(ui, ctx, &w);
         }
     }
 
-    fn look(ctx: &AppCtx) -> Look {
-        Look {
-            dark: ctx.session.dark,
-            labels: ctx.session.figure.labels,
-        }
-    }
-
-    fn stepper(ui: &mut egui::Ui, index: &mut usize, total: usize, moved: &mut Option<PipeDream>) {
-        let step = arrow_step(ui);
-        let mut target: Option<usize> = None;
-        ui.horizontal(|ui| {
-            if ui.button("|<").on_hover_text("first").clicked() {
-                target = Some(0);
-            }
-            if ui
-                .button("<")
-                .on_hover_text("previous (left arrow)")
-                .clicked()
-                || step < 0
-            {
-                target = Some(index.saturating_sub(1));
-            }
-            ui.label(egui::RichText::new(format!("{} of {total}", *index + 1)).strong());
-            if ui.button(">").on_hover_text("next (right arrow)").clicked() || step > 0 {
-                target = Some((*index + 1).min(total.saturating_sub(1)));
-            }
-            if ui.button(">|").on_hover_text("last").clicked() {
-                target = Some(total.saturating_sub(1));
-            }
-        });
-        if let Some(t) = target {
-            *index = t;
-            *moved = None;
-        }
-    }
-
-    fn dreams_ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
-        let out = match self.list.fetch(ctx.engine, JobKey::PipeDreams(w.clone())) {
-            Fetch::Ready(out) => out.clone(),
-            Fetch::Running(f, _) => {
-                computing(ui, "enumerating pipe dreams", f, &self.list);
-                return;
-            }
-            Fetch::Failed(e) => {
-                let e: MathError = e.clone();
-                if failed(ui, &e) {
-                    self.list.retry();
-                }
-                return;
-            }
+    /// The reduced pipe dreams of w: the stepper, the canvas (hover a pipe,
+    /// click a cell to move) and the dream's facts.
+    fn reduced_dreams(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
+        let Some(out) = fetch_ready(
+            ui,
+            &mut self.reduced,
+            ctx.engine,
+            JobKey::PipeDreams(w.clone()),
+            |_| "enumerating pipe dreams".into(),
+        ) else {
+            return;
         };
         let Some(dreams) = out.dreams() else { return };
         if dreams.is_empty() {
             return;
         }
         let total = dreams.len();
+        let look = figure_look(ctx.session);
         let place = &mut ctx.session.dreams;
         place.index = place.index.min(total - 1);
-        if self.moved.as_ref().is_some_and(|m| m.permutation() != *w) {
-            self.moved = None;
+        if self
+            .moved_off_list
+            .as_ref()
+            .is_some_and(|m| m.permutation() != *w)
+        {
+            self.moved_off_list = None;
         }
-        Self::stepper(ui, &mut place.index, total, &mut self.moved);
+        stepper(ui, &mut place.index, total, &mut self.moved_off_list);
         if total == DREAM_LIMIT {
             ui.weak(format!("only the first {DREAM_LIMIT} dreams are listed"));
         }
-        let dream = self.moved.unwrap_or(dreams[place.index]);
-        let look = Self::look(ctx);
-        let key = SceneKey::Dream(dream, look);
-        let scene = match &self.scene {
-            Some((k, s)) if *k == key => s.clone(),
-            _ => {
-                let hints: Vec<(usize, usize)> = {
-                    let mut v: Vec<(usize, usize)> = dream
-                        .available_moves()
-                        .iter()
-                        .filter(|m| {
-                            matches!(
-                                m.kind,
-                                crate::math::pipes::moves::MoveKind::Ladder
-                                    | crate::math::pipes::moves::MoveKind::Chute
-                            )
-                        })
-                        .map(|m| m.from)
-                        .collect();
-                    v.dedup();
-                    v
-                };
-                let s = Arc::new(dream_scene(&dream, &look, &hints));
-                self.scene = Some((key, s.clone()));
-                s
-            }
-        };
+        let dream = self.moved_off_list.unwrap_or(dreams[place.index]);
+        let scene = self.scene_for(SceneKey::Dream(dream, look), || {
+            dream_scene(&dream, &look, &move_hints(&dream))
+        });
         ui.horizontal_top(|ui| {
-            let side = (ui.available_height() - 8.0).min(ui.available_width() - 300.0).max(160.0);
-            let opts = PaintOptions {
-                highlight: self.hover_pipe.map(Tag::Pipe).into_iter().collect(),
-                max_scale: 4.0,
-                size: Some(egui::vec2(side, side)),
-            };
-            let r = scene_painter::show(ui, &scene, &opts);
+            let r = self.show_canvas(ui, &scene);
             self.canvas = Some((r.response.rect, r.scale));
             self.shown = Some(dream);
-            self.hover_pipe = match r.hovered_where(|t| matches!(t, Tag::Pipe(_))) {
-                Some(Tag::Pipe(k)) => Some(k),
-                _ => None,
-            };
             if let Some(k) = self.hover_pipe {
                 r.response.clone().on_hover_text(format!(
                     "pipe {k}: enters row {k}, leaves column {}",
@@ -186,68 +240,54 @@ impl DreamsView {
                 ));
             }
             if let Some(Tag::Cell(i, j)) = r.clicked_where(|t| matches!(t, Tag::Cell(..))) {
-                let shift = ui.input(|inp| inp.modifiers.shift);
-                let next = if shift {
-                    dream
-                        .ladder_back_at(i, j)
-                        .map(|d| (d, "inverse ladder"))
-                        .or_else(|| dream.chute_back_at(i, j).map(|d| (d, "inverse chute")))
-                } else {
-                    dream
-                        .ladder_move_at(i, j)
-                        .map(|d| (d, "ladder"))
-                        .or_else(|| dream.chute_move_at(i, j).map(|d| (d, "chute")))
-                };
-                match next {
-                    Some((d, kind)) => {
-                        self.note = Some(format!("{kind} move at ({i}, {j})"));
-                        // find the new dream in the list so stepping continues from it
-                        if let Some(k) = dreams.iter().position(|e| *e == d) {
-                            ctx.session.dreams.index = k;
-                            self.moved = None;
-                        } else {
-                            self.moved = Some(d);
-                        }
-                    }
-                    None => self.note = Some(format!("no move at ({i}, {j})")),
-                }
+                let inverse = ui.input(|inp| inp.modifiers.shift);
+                self.click_cell(
+                    &dream,
+                    (i, j),
+                    inverse,
+                    dreams,
+                    &mut ctx.session.dreams.index,
+                );
             }
-            ui.vertical(|ui| {
-                ui.label(egui::RichText::new("weight").weak());
-                ui.label(egui::RichText::new(exponents_text(&dream.monomial())).monospace().strong());
-                ui.add_space(6.0);
-                ui.label(egui::RichText::new("reading word").weak());
-                let word: Vec<String> = dream.reading_word().iter().map(|a| a.to_string()).collect();
-                ui.label(egui::RichText::new(word.join(" ")).monospace());
-                ui.add_space(6.0);
-                ui.label(egui::RichText::new("crosses").weak());
-                let crosses: Vec<String> =
-                    dream.crosses().iter().map(|(i, j)| format!("({i},{j})")).collect();
-                ui.label(crosses.join(" "));
-                ui.add_space(6.0);
-                ui.weak("Click a cell with a dot: ladder move (or chute).\nShift-click: the inverse move.\nLeft/Right arrow keys step through the dreams.");
-                if let Some(n) = &self.note {
-                    ui.add_space(6.0);
-                    ui.label(n);
-                }
-            });
+            dream_facts(ui, &dream, self.click_note.as_ref());
         });
     }
 
-    fn bumpless_ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
-        let out = match self.bumpless.fetch(ctx.engine, JobKey::Bumpless(w.clone())) {
-            Fetch::Ready(out) => out.clone(),
-            Fetch::Running(f, _) => {
-                computing(ui, "enumerating bumpless pipe dreams", f, &self.bumpless);
-                return;
-            }
-            Fetch::Failed(e) => {
-                let e = e.clone();
-                if failed(ui, &e) {
-                    self.bumpless.retry();
+    /// Applies the move a click on cell (i, j) asks for, if there is one, and
+    /// notes what it did; stepping continues from the new dream when it is in the list.
+    fn click_cell(
+        &mut self,
+        dream: &PipeDream,
+        (i, j): (usize, usize),
+        inverse: bool,
+        dreams: &[PipeDream],
+        index: &mut usize,
+    ) {
+        match move_at(dream, i, j, inverse) {
+            Some((d, kind)) => {
+                self.click_note = Some(format!("{kind} move at ({i}, {j})"));
+                // find the new dream in the list so stepping continues from it
+                if let Some(k) = dreams.iter().position(|e| *e == d) {
+                    *index = k;
+                    self.moved_off_list = None;
+                } else {
+                    self.moved_off_list = Some(d);
                 }
-                return;
             }
+            None => self.click_note = Some(format!("no move at ({i}, {j})")),
+        }
+    }
+
+    /// The bumpless pipe dreams of w: the stepper, the canvas (hover a pipe) and the dream's facts.
+    fn bumpless_dreams(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
+        let Some(out) = fetch_ready(
+            ui,
+            &mut self.bumpless,
+            ctx.engine,
+            JobKey::Bumpless(w.clone()),
+            |_| "enumerating bumpless pipe dreams".into(),
+        ) else {
+            return;
         };
         let Output::Bumpless(list) = out.as_ref() else {
             return;
@@ -256,58 +296,48 @@ impl DreamsView {
             return;
         }
         let total = list.len();
-        let look = Self::look(ctx);
+        let look = figure_look(ctx.session);
         let place = &mut ctx.session.dreams;
         place.index = place.index.min(total - 1);
         let mut none = None;
-        Self::stepper(ui, &mut place.index, total, &mut none);
+        stepper(ui, &mut place.index, total, &mut none);
         let d = &list[place.index];
         let key = SceneKey::Bumpless(w.clone(), place.index, look);
-        let scene = match &self.scene {
+        let scene = self.scene_for(key, || bumpless_scene(d, &look));
+        ui.horizontal_top(|ui| {
+            self.show_canvas(ui, &scene);
+            bumpless_facts(ui, d, w);
+        });
+    }
+
+    /// The scene for `key`, drawn again by `draw` only when the key changed.
+    fn scene_for(&mut self, key: SceneKey, draw: impl FnOnce() -> Scene) -> Arc<Scene> {
+        match &self.scene {
             Some((k, s)) if *k == key => s.clone(),
             _ => {
-                let s = Arc::new(bumpless_scene(d, &look));
+                let s = Arc::new(draw());
                 self.scene = Some((key, s.clone()));
                 s
             }
+        }
+    }
+
+    /// Draws the dream's canvas (square, beside room for the facts) with the
+    /// hovered pipe lit, and notes which pipe the pointer is on.
+    fn show_canvas(&mut self, ui: &mut egui::Ui, scene: &Scene) -> SceneResponse {
+        let side = (ui.available_height() - 8.0)
+            .min(ui.available_width() - 300.0)
+            .max(160.0);
+        let opts = PaintOptions {
+            highlight: self.hover_pipe.map(Tag::Pipe).into_iter().collect(),
+            max_scale: 4.0,
+            size: Some(egui::vec2(side, side)),
         };
-        ui.horizontal_top(|ui| {
-            let side = (ui.available_height() - 8.0)
-                .min(ui.available_width() - 300.0)
-                .max(160.0);
-            let opts = PaintOptions {
-                highlight: self.hover_pipe.map(Tag::Pipe).into_iter().collect(),
-                max_scale: 4.0,
-                size: Some(egui::vec2(side, side)),
-            };
-            let r = scene_painter::show(ui, &scene, &opts);
-            self.hover_pipe = match r.hovered_where(|t| matches!(t, Tag::Pipe(_))) {
-                Some(Tag::Pipe(k)) => Some(k),
-                _ => None,
-            };
-            ui.vertical(|ui| {
-                ui.label(egui::RichText::new("weight (blank tiles)").weak());
-                ui.label(
-                    egui::RichText::new(exponents_text(&d.monomial()))
-                        .monospace()
-                        .strong(),
-                );
-                ui.add_space(6.0);
-                let blanks: Vec<String> = d
-                    .blanks()
-                    .iter()
-                    .map(|(i, j)| format!("({i},{j})"))
-                    .collect();
-                ui.label(egui::RichText::new("blank tiles").weak());
-                ui.label(blanks.join(" "));
-                ui.add_space(6.0);
-                if *d == crate::math::pipes::bumpless::BumplessDream::rothe(w) {
-                    ui.label(
-                        "This is the Rothe dream: its blank tiles form the Rothe diagram of w.",
-                    );
-                }
-                ui.weak("Left/Right arrow keys step through the dreams.");
-            });
-        });
+        let r = scene_painter::show(ui, scene, &opts);
+        self.hover_pipe = match r.hovered_where(|t| matches!(t, Tag::Pipe(_))) {
+            Some(Tag::Pipe(k)) => Some(k),
+            _ => None,
+        };
+        r
     }
 }

@@ -3,14 +3,14 @@
 //! the engine with progress and cancel, and browse it sorted by any column;
 //! clicking a row makes w current everywhere.
 
-use super::computing;
-use crate::engine::{Fetch, JobKey, Slot};
+use super::fetch_ready;
+use crate::engine::{Engine, JobKey, Output, Slot};
 use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
 use crate::math::Perm;
 use crate::math::hessenberg::function::{default_values, set_value};
-use crate::math::hessenberg::table::TableEntry;
-use crate::session::model::SortColumn;
+use crate::math::hessenberg::table::{HessenbergTable, TableEntry};
+use crate::session::model::{HessenbergPlace, SortColumn};
 use crate::tables::results::hessenberg_table;
 use crate::tables::table::Table;
 use eframe::egui::{self, Rect, Sense, Stroke, Vec2};
@@ -20,17 +20,125 @@ use std::sync::Arc;
 /// Tables up to this n start as soon as h changes; larger ones wait for the button.
 const AUTO_N: usize = 7;
 
+/// The table's columns: the session's key for sorting by it, its header, its width.
+const COLUMNS: [(&str, &str, f32); 3] = [
+    ("perm", "w", 120.0),
+    ("length", "ℓ(w)", 60.0),
+    ("value", "a^h_w", 140.0),
+];
+
 /// The Hessenberg view's UI state.
 #[derive(Default)]
 pub struct HessenbergView {
-    slot: Slot,
+    table: Slot,
     /// The h whose table was asked for.
     pub wanted: Option<Vec<usize>>,
-    order: Option<(Vec<usize>, String, bool, Vec<usize>)>,
+    /// The rows in the order shown, for the h, column and direction they were sorted by.
+    row_order: Option<RowOrder>,
     /// The summary line of the result shown (totals over every row, so kept).
     summary: Option<(Vec<usize>, String)>,
     /// The table shown (keyed by h), for export.
     export: TableSource<Vec<usize>>,
+}
+
+/// The table's rows sorted by a column: indices into the entries.
+struct RowOrder {
+    h: Vec<usize>,
+    column: String,
+    descending: bool,
+    rows: Vec<usize>,
+}
+
+/// The indices of `entries` sorted by `column` (`value`, `length`, otherwise the permutation).
+fn sorted_rows(entries: &[TableEntry], column: &str, descending: bool) -> Vec<usize> {
+    let mut idx: Vec<usize> = (0..entries.len()).collect();
+    let e = entries;
+    match column {
+        "value" => idx.sort_by(|&a, &b| e[a].value.cmp(&e[b].value).then(a.cmp(&b))),
+        "length" => idx.sort_by_key(|&a| (e[a].perm.length(), a)),
+        _ => idx.sort_by(|&a, &b| e[a].perm.cmp(&e[b].perm)),
+    }
+    if descending {
+        idx.reverse();
+    }
+    idx
+}
+
+/// The summary of a table: its size, Σ a^h_w, and how many entries are nonzero or negative.
+fn summary_text(table: &HessenbergTable) -> String {
+    let negatives = table
+        .entries
+        .iter()
+        .filter(|e| e.value.is_negative())
+        .count();
+    format!(
+        "{} permutations of length {}; Σ a^h_w = {}; nonzero {}; largest {}; negative {}",
+        table.listed,
+        table.h.dimension(),
+        table.total(),
+        table.nonzero(),
+        table.max(),
+        negatives
+    )
+}
+
+/// The header buttons: a click sorts by that column, a second click turns the order round.
+fn sort_headers(ui: &mut egui::Ui, place: &mut HessenbergPlace, column: &str) {
+    ui.horizontal(|ui| {
+        for (key, name, width) in COLUMNS {
+            let arrow = if column == key {
+                if place.descending {
+                    " (desc)"
+                } else {
+                    " (asc)"
+                }
+            } else {
+                ""
+            };
+            let b = ui.add_sized(
+                [width, ui.spacing().interact_size.y],
+                egui::Button::new(format!("{name}{arrow}")),
+            );
+            if b.clicked() {
+                if column == key {
+                    place.descending = !place.descending;
+                } else {
+                    place.sort_by = SortColumn::from_key(key);
+                    place.descending = key == "value";
+                }
+            }
+        }
+    });
+}
+
+/// One row of the table: w (a click picks it), ℓ(w), and a^h_w (negatives
+/// alerted, zeros weak); true if w was clicked.
+fn table_row(ui: &mut egui::Ui, entry: &TableEntry, current: &Perm, row_h: f32) -> bool {
+    let [perm_w, length_w, value_w] = COLUMNS.map(|(_, _, width)| width);
+    ui.horizontal(|ui| {
+        let sel = ui.add_sized(
+            [perm_w, row_h],
+            egui::Button::selectable(
+                entry.perm == *current,
+                egui::RichText::new(entry.perm.to_string()).monospace(),
+            ),
+        );
+        ui.add_sized(
+            [length_w, row_h],
+            egui::Label::new(entry.perm.length().to_string()),
+        );
+        let text = egui::RichText::new(entry.value.to_string()).monospace();
+        let text = if entry.value.is_negative() {
+            text.color(crate::gui::theme::alert())
+        } else if entry.value.is_zero() {
+            text.weak()
+        } else {
+            text
+        };
+        ui.add_sized([value_w, row_h], egui::Label::new(text));
+        sel.clicked()
+    })
+    .inner
 }
 
 impl HessenbergView {
@@ -49,100 +157,19 @@ impl HessenbergView {
         if place.h.is_empty() {
             place.h = default_values(ctx.session.n.clamp(2, 12));
         }
-        let mut n = place.h.len();
-        ui.horizontal(|ui| {
-            ui.heading("Hessenberg classes");
-            ui.separator();
-            ui.label("n");
-            if ui.add(egui::DragValue::new(&mut n).range(2..=12)).changed() {
-                place.h = default_values(n);
-            }
-            let text: Vec<String> = place.h.iter().map(|v| v.to_string()).collect();
-            ui.label(format!("h = ({})", text.join(", ")));
-            let dim: usize = place.h.iter().enumerate().map(|(k, v)| v - (k + 1)).sum();
-            ui.label(format!("|h| = {dim}"));
-            if ui.button("h(i) = i + 1").clicked() {
-                place.h = default_values(n);
-            }
-            if ui.button("h(i) = n").clicked() {
-                place.h = vec![n; n];
-            }
-        });
+        h_controls(ui, place);
         ui.weak("Click a box (i, j) above the diagonal to set h(i) = j; click the last box of a row to shrink it. The class of the Hessenberg variety is Σ a^h_w σ_{w0 w}, a^h_w = DS_h(S_w) over ℓ(w) = |h|.");
         ui.horizontal_top(|ui| {
-            self.grid(ui, &mut ctx.session.hessenberg.h);
-            ui.vertical(|ui| self.table(ui, ctx));
+            h_grid(ui, &mut ctx.session.hessenberg.h);
+            ui.vertical(|ui| self.coefficient_table(ui, ctx));
         });
     }
 
-    fn grid(&mut self, ui: &mut egui::Ui, h: &mut [usize]) {
-        let n = h.len();
-        let cell = (220.0 / n as f32).clamp(18.0, 34.0);
-        let (rect, response) =
-            ui.allocate_exact_size(Vec2::splat(cell * n as f32 + 2.0), Sense::click());
-        let painter = ui.painter_at(rect);
-        let visuals = ui.visuals();
-        let on = visuals.selection.bg_fill;
-        let off = visuals.extreme_bg_color;
-        let line = Stroke::new(1.0, visuals.widgets.noninteractive.bg_stroke.color);
-        let hover = response.hover_pos();
-        for i in 1..=n {
-            for j in 1..=n {
-                let min =
-                    rect.min + Vec2::new((j - 1) as f32 * cell + 1.0, (i - 1) as f32 * cell + 1.0);
-                let r = Rect::from_min_size(min, Vec2::splat(cell));
-                let inside = j <= h[i - 1];
-                let fill = if j < i {
-                    visuals.faint_bg_color
-                } else if inside {
-                    on
-                } else {
-                    off
-                };
-                painter.rect_filled(r.shrink(1.0), 2.0, fill);
-                painter.rect_stroke(r.shrink(1.0), 2.0, line, egui::StrokeKind::Inside);
-                if j == i {
-                    painter.circle_filled(r.center(), cell * 0.12, visuals.text_color());
-                }
-                if hover.is_some_and(|p| r.contains(p)) && j >= i {
-                    painter.rect_stroke(
-                        r.shrink(1.0),
-                        2.0,
-                        Stroke::new(2.0, visuals.strong_text_color()),
-                        egui::StrokeKind::Inside,
-                    );
-                }
-                if response.clicked()
-                    && let Some(p) = response.hover_pos()
-                    && r.contains(p)
-                    && j >= i
-                {
-                    if j == h[i - 1] && j > i {
-                        set_value(h, i, j - 1);
-                    } else {
-                        set_value(h, i, j);
-                    }
-                }
-            }
-        }
-    }
-
-    fn table(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+    /// The table of a^h_w for the h asked for: the button, the summary, the
+    /// sortable rows (a click makes w current).
+    fn coefficient_table(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let h = ctx.session.hessenberg.h.clone();
-        let n = h.len();
-        ui.horizontal(|ui| {
-            if ui.button("compute the table").clicked() {
-                self.wanted = Some(h.clone());
-                self.slot.retry();
-            }
-            if n <= AUTO_N {
-                ui.weak("(computed as h changes for n <= 7)");
-            }
-        });
-        if n <= AUTO_N {
-            self.wanted = Some(h.clone());
-        }
-        let Some(wanted) = self.wanted.clone() else {
+        let Some(wanted) = self.wanted_h(ui, &h) else {
             ui.weak("press the button to compute");
             return;
         };
@@ -151,142 +178,200 @@ impl HessenbergView {
                 "showing h = {wanted:?}; press the button for the new h"
             ));
         }
-        let out = match self
-            .slot
-            .fetch(ctx.engine, JobKey::Hessenberg(wanted.clone()))
-        {
-            Fetch::Ready(out) => out.clone(),
-            Fetch::Running(f, secs) => {
-                computing(ui, &format!("computing a^h_w ({secs:.0} s)"), f, &self.slot);
-                return;
-            }
-            Fetch::Failed(e) => {
-                let e = e.clone();
-                if super::failed(ui, &e) {
-                    self.slot.retry();
-                }
-                return;
-            }
+        let Some(out) = self.fetch_table(ui, ctx.engine, &wanted) else {
+            return;
         };
         let Some(table) = out.hessenberg() else {
             return;
         };
-        self.export.show(&wanted, &out);
+        self.export.note_shown(&wanted, &out);
         if self.summary.as_ref().is_none_or(|(k, _)| *k != wanted) {
-            let negatives = table
-                .entries
-                .iter()
-                .filter(|e| e.value.is_negative())
-                .count();
-            let text = format!(
-                "{} permutations of length {}; Σ a^h_w = {}; nonzero {}; largest {}; negative {}",
-                table.listed,
-                table.h.dimension(),
-                table.total(),
-                table.nonzero(),
-                table.max(),
-                negatives
-            );
-            self.summary = Some((wanted.clone(), text));
+            self.summary = Some((wanted.clone(), summary_text(table)));
         }
         if let Some((_, text)) = &self.summary {
             ui.label(text.as_str());
         }
         ui.weak("Ctrl+E exports this table as CSV or as a LaTeX tabular.");
-        // sort order, cached per (h, column, direction)
         let current = ctx.perm();
         let place = &mut ctx.session.hessenberg;
-        let col = place.sort_by.unwrap_or_default().key().to_string();
-        let needs = self
-            .order
-            .as_ref()
-            .is_none_or(|(hh, c, d, _)| *hh != wanted || *c != col || *d != place.descending);
-        if needs {
-            let mut idx: Vec<usize> = (0..table.entries.len()).collect();
-            let e = &table.entries;
-            match col.as_str() {
-                "value" => idx.sort_by(|&a, &b| e[a].value.cmp(&e[b].value).then(a.cmp(&b))),
-                "length" => idx.sort_by_key(|&a| (e[a].perm.length(), a)),
-                _ => idx.sort_by(|&a, &b| e[a].perm.cmp(&e[b].perm)),
-            }
-            if place.descending {
-                idx.reverse();
-            }
-            self.order = Some((wanted.clone(), col.clone(), place.descending, idx));
-        }
-        let Some((_, _, _, idx)) = &self.order else {
-            return;
-        };
-        let mut chosen: Option<Perm> = None;
-        let widths = [120.0, 60.0, 140.0];
-        ui.horizontal(|ui| {
-            for (k, (key, name)) in [("perm", "w"), ("length", "ℓ(w)"), ("value", "a^h_w")]
-                .into_iter()
-                .enumerate()
-            {
-                let arrow = if col == key {
-                    if place.descending {
-                        " (desc)"
-                    } else {
-                        " (asc)"
-                    }
-                } else {
-                    ""
-                };
-                let b = ui.add_sized(
-                    [widths[k], ui.spacing().interact_size.y],
-                    egui::Button::new(format!("{name}{arrow}")),
-                );
-                if b.clicked() {
-                    if col == key {
-                        place.descending = !place.descending;
-                    } else {
-                        place.sort_by = SortColumn::from_key(key);
-                        place.descending = key == "value";
-                    }
-                }
-            }
-        });
-        let row_h = ui.spacing().interact_size.y;
-        egui::ScrollArea::vertical()
-            .id_salt("hessenberg_rows")
-            .auto_shrink([false, false])
-            .show_rows(ui, row_h, idx.len(), |ui, rows| {
-                for r in rows {
-                    let Some(entry): Option<&TableEntry> =
-                        idx.get(r).and_then(|&i| table.entries.get(i))
-                    else {
-                        continue;
-                    };
-                    ui.horizontal(|ui| {
-                        let sel = ui.add_sized(
-                            [widths[0], row_h],
-                            egui::Button::selectable(
-                                entry.perm == current,
-                                egui::RichText::new(entry.perm.to_string()).monospace(),
-                            ),
-                        );
-                        if sel.clicked() {
-                            chosen = Some(entry.perm.clone());
-                        }
-                        ui.add_sized(
-                            [widths[1], row_h],
-                            egui::Label::new(entry.perm.length().to_string()),
-                        );
-                        let text = egui::RichText::new(entry.value.to_string()).monospace();
-                        let text = if entry.value.is_negative() {
-                            text.color(crate::gui::theme::alert())
-                        } else if entry.value.is_zero() {
-                            text.weak()
-                        } else {
-                            text
-                        };
-                        ui.add_sized([widths[2], row_h], egui::Label::new(text));
-                    });
-                }
-            });
-        if let Some(w) = chosen {
+        let column = place.sort_by.unwrap_or_default().key().to_string();
+        let rows = self.rows_sorted(&wanted, &column, place.descending, table);
+        sort_headers(ui, place, &column);
+        if let Some(w) = rows_list(ui, table, rows, &current) {
             ctx.go_to(w);
         }
     }
+
+    /// The button "compute the table" (and the automatic start for small n);
+    /// the h whose table was asked for, if any.
+    fn wanted_h(&mut self, ui: &mut egui::Ui, h: &[usize]) -> Option<Vec<usize>> {
+        let n = h.len();
+        ui.horizontal(|ui| {
+            if ui.button("compute the table").clicked() {
+                self.wanted = Some(h.to_vec());
+                self.table.retry();
+            }
+            if n <= AUTO_N {
+                ui.weak("(computed as h changes for n <= 7)");
+            }
+        });
+        if n <= AUTO_N {
+            self.wanted = Some(h.to_vec());
+        }
+        self.wanted.clone()
+    }
+
+    /// The table for `h` once computed; until then its progress or failure is drawn.
+    fn fetch_table(
+        &mut self,
+        ui: &mut egui::Ui,
+        engine: &Engine,
+        h: &[usize],
+    ) -> Option<Arc<Output>> {
+        fetch_ready(
+            ui,
+            &mut self.table,
+            engine,
+            JobKey::Hessenberg(h.to_vec()),
+            |secs| format!("computing a^h_w ({secs:.0} s)"),
+        )
+    }
+
+    /// The rows in sorted order, sorted again only when h, the column or the direction changed.
+    fn rows_sorted(
+        &mut self,
+        h: &[usize],
+        column: &str,
+        descending: bool,
+        table: &HessenbergTable,
+    ) -> &[usize] {
+        let stale = self
+            .row_order
+            .as_ref()
+            .is_none_or(|o| o.h != h || o.column != column || o.descending != descending);
+        if stale {
+            self.row_order = Some(RowOrder {
+                h: h.to_vec(),
+                column: column.to_string(),
+                descending,
+                rows: sorted_rows(&table.entries, column, descending),
+            });
+        }
+        self.row_order.as_ref().map_or(&[], |o| &o.rows)
+    }
+}
+
+/// The heading, n, h and |h|, and the buttons for the two extreme h.
+fn h_controls(ui: &mut egui::Ui, place: &mut HessenbergPlace) {
+    let mut n = place.h.len();
+    ui.horizontal(|ui| {
+        ui.heading("Hessenberg classes");
+        ui.separator();
+        ui.label("n");
+        if ui.add(egui::DragValue::new(&mut n).range(2..=12)).changed() {
+            place.h = default_values(n);
+        }
+        let text: Vec<String> = place.h.iter().map(|v| v.to_string()).collect();
+        ui.label(format!("h = ({})", text.join(", ")));
+        let dim: usize = place.h.iter().enumerate().map(|(k, v)| v - (k + 1)).sum();
+        ui.label(format!("|h| = {dim}"));
+        if ui.button("h(i) = i + 1").clicked() {
+            place.h = default_values(n);
+        }
+        if ui.button("h(i) = n").clicked() {
+            place.h = vec![n; n];
+        }
+    });
+}
+
+/// The n×n grid of boxes picking h: box (i, j) is filled when j <= h(i);
+/// a click on a box on or above the diagonal sets h(i) = j, or shrinks the
+/// row when it is its last box.
+fn h_grid(ui: &mut egui::Ui, h: &mut [usize]) {
+    let n = h.len();
+    let cell = (220.0 / n as f32).clamp(18.0, 34.0);
+    let (rect, response) =
+        ui.allocate_exact_size(Vec2::splat(cell * n as f32 + 2.0), Sense::click());
+    let painter = ui.painter_at(rect);
+    let hover = response.hover_pos();
+    for i in 1..=n {
+        for j in 1..=n {
+            let min =
+                rect.min + Vec2::new((j - 1) as f32 * cell + 1.0, (i - 1) as f32 * cell + 1.0);
+            let r = Rect::from_min_size(min, Vec2::splat(cell));
+            let hovered = hover.is_some_and(|p| r.contains(p));
+            paint_box(ui, &painter, r, (i, j), j <= h[i - 1], hovered, cell);
+            if response.clicked()
+                && let Some(p) = response.hover_pos()
+                && r.contains(p)
+                && j >= i
+            {
+                if j == h[i - 1] && j > i {
+                    set_value(h, i, j - 1);
+                } else {
+                    set_value(h, i, j);
+                }
+            }
+        }
+    }
+}
+
+/// One box (i, j) of the h grid: faint below the diagonal, filled inside h,
+/// a dot on the diagonal, outlined strongly when hovered on or above it.
+fn paint_box(
+    ui: &egui::Ui,
+    painter: &egui::Painter,
+    r: Rect,
+    (i, j): (usize, usize),
+    inside: bool,
+    hovered: bool,
+    cell: f32,
+) {
+    let visuals = ui.visuals();
+    let line = Stroke::new(1.0, visuals.widgets.noninteractive.bg_stroke.color);
+    let fill = if j < i {
+        visuals.faint_bg_color
+    } else if inside {
+        visuals.selection.bg_fill
+    } else {
+        visuals.extreme_bg_color
+    };
+    painter.rect_filled(r.shrink(1.0), 2.0, fill);
+    painter.rect_stroke(r.shrink(1.0), 2.0, line, egui::StrokeKind::Inside);
+    if j == i {
+        painter.circle_filled(r.center(), cell * 0.12, visuals.text_color());
+    }
+    if hovered && j >= i {
+        painter.rect_stroke(
+            r.shrink(1.0),
+            2.0,
+            Stroke::new(2.0, visuals.strong_text_color()),
+            egui::StrokeKind::Inside,
+        );
+    }
+}
+
+/// The rows of the table in `order`, drawn virtually; the w clicked, if any.
+fn rows_list(
+    ui: &mut egui::Ui,
+    table: &HessenbergTable,
+    order: &[usize],
+    current: &Perm,
+) -> Option<Perm> {
+    let mut chosen: Option<Perm> = None;
+    let row_h = ui.spacing().interact_size.y;
+    egui::ScrollArea::vertical()
+        .id_salt("hessenberg_rows")
+        .auto_shrink([false, false])
+        .show_rows(ui, row_h, order.len(), |ui, rows| {
+            for r in rows {
+                let Some(entry) = order.get(r).and_then(|&i| table.entries.get(i)) else {
+                    continue;
+                };
+                if table_row(ui, entry, current, row_h) {
+                    chosen = Some(entry.perm.clone());
+                }
+            }
+        });
+    chosen
 }

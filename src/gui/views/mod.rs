@@ -1,14 +1,22 @@
-//! The views of the central area, one file each, and their tab names.
+//! The views of the central area, one file each, their tab names, and the
+//! pieces they share: progress and failure of a computation, errors of the
+//! mathematics, the figures' look.
 
 pub mod dreams;
 pub mod hessenberg;
+pub mod permutohedra;
 pub mod quotient;
-pub mod solid;
 pub mod survey;
 pub mod words;
 pub mod workbench;
 
+use crate::engine::{Engine, Fetch, JobKey, Output, Slot};
+use crate::figure::look::Look;
+use crate::math::MathError;
+use crate::session::Session;
 use crate::session::model::View;
+use eframe::egui;
+use std::sync::Arc;
 
 /// The tab title of a view (what it does, in a few words).
 pub fn title(v: View) -> &'static str {
@@ -33,13 +41,13 @@ pub const ORDER: [View; 6] = [
 ];
 
 /// Whether arrow keys belong to the view (no text field has the keyboard).
-pub fn arrows_free(ui: &eframe::egui::Ui) -> bool {
+pub fn arrows_free(ui: &egui::Ui) -> bool {
     ui.ctx().memory(|m| m.focused().is_none())
 }
 
 /// -1, +1, or 0 for the arrow keys pressed this frame (left/up back, right/down forward).
-pub fn arrow_step(ui: &eframe::egui::Ui) -> isize {
-    use eframe::egui::Key;
+pub fn arrow_step(ui: &egui::Ui) -> isize {
+    use egui::Key;
     if !arrows_free(ui) {
         return 0;
     }
@@ -51,12 +59,12 @@ pub fn arrow_step(ui: &eframe::egui::Ui) -> isize {
 }
 
 /// Draws a progress bar with a cancel button for a slot that is computing.
-pub fn computing(ui: &mut eframe::egui::Ui, what: &str, fraction: f32, slot: &crate::engine::Slot) {
+pub fn show_progress(ui: &mut egui::Ui, what: &str, fraction: f32, slot: &Slot) {
     ui.horizontal(|ui| {
         ui.spinner();
         ui.label(what);
         ui.add(
-            eframe::egui::ProgressBar::new(fraction)
+            egui::ProgressBar::new(fraction)
                 .desired_width(200.0)
                 .show_percentage(),
         );
@@ -67,11 +75,68 @@ pub fn computing(ui: &mut eframe::egui::Ui, what: &str, fraction: f32, slot: &cr
 }
 
 /// Shows a failure with a retry button; true if retry was clicked.
-pub fn failed(ui: &mut eframe::egui::Ui, e: &crate::math::MathError) -> bool {
+pub fn show_failure_with_retry(ui: &mut egui::Ui, e: &MathError) -> bool {
     let mut retry = false;
     ui.horizontal(|ui| {
         ui.colored_label(super::theme::alert(), e.to_string());
         retry = ui.button("retry").clicked();
     });
     retry
+}
+
+/// The slot's result for `key` once it is ready. Until then `None`, after
+/// drawing the progress (labelled by `what` of the seconds elapsed) with a
+/// cancel button, or the failure with a retry button (a click forgets it).
+pub fn fetch_ready(
+    ui: &mut egui::Ui,
+    slot: &mut Slot,
+    engine: &Engine,
+    key: JobKey,
+    what: impl FnOnce(f32) -> String,
+) -> Option<Arc<Output>> {
+    let failure = match slot.fetch(engine, key) {
+        Fetch::Ready(out) => return Some(out.clone()),
+        Fetch::Running(fraction, secs) => {
+            show_progress(ui, &what(secs), fraction, slot);
+            return None;
+        }
+        Fetch::Failed(e) => e.clone(),
+    };
+    if show_failure_with_retry(ui, &failure) {
+        slot.retry();
+    }
+    None
+}
+
+/// Shows an error of the mathematics: a syntax error as its message and the
+/// input with a caret under the column, any other error as its text.
+pub fn show_math_error(ui: &mut egui::Ui, e: &MathError) {
+    let alert = super::theme::alert();
+    match e {
+        MathError::Syntax {
+            input,
+            column,
+            expected,
+            ..
+        } => {
+            ui.colored_label(alert, format!("column {column}: {expected}"));
+            let caret = format!("{}^", " ".repeat(column.saturating_sub(1)));
+            ui.label(
+                egui::RichText::new(format!("{input}\n{caret}"))
+                    .monospace()
+                    .color(alert),
+            );
+        }
+        other => {
+            ui.colored_label(alert, other.to_string());
+        }
+    }
+}
+
+/// The look of the figures: the session's theme and label setting.
+pub fn figure_look(session: &Session) -> Look {
+    Look {
+        dark: session.dark,
+        labels: session.figure.labels,
+    }
 }

@@ -4,18 +4,19 @@
 //! coefficients (negatives marked), and the Hilbert series of Q[x]/J_n; or the
 //! positivity survey over all of S_n (`survey.rs`).
 
-use super::computing;
 use super::survey::SurveyPanel;
-use super::workbench::show_parse_error;
-use crate::engine::requests::{Output, QuotientInput};
-use crate::engine::{Fetch, JobKey, Slot};
-use crate::figure::Tag;
+use super::{figure_look, show_math_error, show_progress};
+use crate::engine::requests::{Output, QuotientInput, Reduced};
+use crate::engine::{Engine, Fetch, JobKey, Slot};
 use crate::figure::look::Look;
-use crate::figure::paths::{PathPanel, path_grid_scene};
+use crate::figure::paths::{PathPanel, panels_of_normal_form, path_grid_scene};
+use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
+use crate::math::Perm;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::lattice_path::LatticePath;
+use crate::math::quotient::normal_form::NormalForm;
+use crate::session::model::QuotientPlace;
 use eframe::egui;
 use num_traits::Signed;
 use std::sync::Arc;
@@ -23,16 +24,151 @@ use std::sync::Arc;
 /// The quotient view's UI state.
 #[derive(Default)]
 pub struct QuotientView {
-    slot: Slot,
-    scene: Option<(JobKey, Look, Arc<crate::figure::Scene>)>,
+    normal_form: Slot,
+    /// The grid of lattice paths on screen, keyed by the normal form asked for and the look.
+    paths_scene: Option<(JobKey, Look, Arc<Scene>)>,
     /// The survey over all of S_n.
     pub survey: SurveyPanel,
 }
 
+/// The lattice-path panels of a normal form in `n` variables: one per
+/// standard monomial with a nonzero coefficient, in basis order.
+fn path_panels(normal: &NormalForm, n: usize) -> Vec<PathPanel> {
+    // every monomial of a normal form is standard, so each has its path
+    panels_of_normal_form(normal, n).unwrap_or_default()
+}
+
+/// The Hilbert series 1 + a t + b t^2 + ... as text.
+fn hilbert_series_text(hilbert: &[usize]) -> String {
+    let hs: Vec<String> = hilbert
+        .iter()
+        .enumerate()
+        .map(|(k, c)| match k {
+            0 => c.to_string(),
+            1 => format!("{c}t"),
+            _ => format!("{c}t^{k}"),
+        })
+        .collect();
+    hs.join(" + ")
+}
+
+/// The radio buttons choosing what the view shows: the reversed Schubert
+/// polynomial of w, a typed polynomial, or the survey of S_n.
+fn source_choice(ui: &mut egui::Ui, place: &mut QuotientPlace, w: &Perm) {
+    ui.horizontal(|ui| {
+        if ui
+            .radio(
+                !place.survey && !place.use_typed,
+                format!("reversed Schubert polynomial of w = {w}"),
+            )
+            .clicked()
+        {
+            place.survey = false;
+            place.use_typed = false;
+        }
+        if ui
+            .radio(!place.survey && place.use_typed, "a typed polynomial")
+            .clicked()
+        {
+            place.survey = false;
+            place.use_typed = true;
+        }
+        if ui
+            .radio(
+                place.survey,
+                format!("positivity survey of all of S_{}", w.n()),
+            )
+            .clicked()
+        {
+            place.survey = true;
+        }
+    });
+}
+
+/// The polynomial to reduce: the typed one (with its field, `None` while it
+/// does not parse) or the reversed Schubert polynomial of w.
+fn quotient_input(ui: &mut egui::Ui, place: &mut QuotientPlace, w: &Perm) -> Option<QuotientInput> {
+    let n = w.n();
+    if !place.use_typed {
+        return Some(QuotientInput::ReversedSchubert(w.clone()));
+    }
+    if place.typed.is_empty() {
+        place.typed = "x1^2 x2 + x2 x3".into();
+    }
+    ui.add(
+        egui::TextEdit::singleline(&mut place.typed)
+            .id_salt("quotient_poly")
+            .font(egui::TextStyle::Monospace)
+            .desired_width(f32::INFINITY),
+    );
+    if let Err(e) = crate::math::poly::parse::parse_poly(&place.typed, Some(n)) {
+        show_math_error(ui, &e);
+        return None;
+    }
+    Some(QuotientInput::Typed(place.typed.clone(), n))
+}
+
+/// f and NF(f); long polynomials (S_w has hundreds of terms at n = 8) scroll
+/// in a few lines instead of pushing the diagrams off the screen.
+fn polynomials(ui: &mut egui::Ui, r: &Reduced) {
+    egui::ScrollArea::vertical()
+        .id_salt("quotient_polynomials")
+        .max_height(96.0)
+        .show(ui, |ui| {
+            ui.label(egui::RichText::new(format!("f = {}", r.input)).monospace());
+            ui.label(
+                egui::RichText::new(format!("NF(f) = {}", r.normal.poly.to_text()))
+                    .monospace()
+                    .strong(),
+            );
+        });
+}
+
+/// The Hilbert series of the quotient and the counts of the normal form's terms.
+fn summary(ui: &mut egui::Ui, r: &Reduced) {
+    let dim: usize = r.hilbert.iter().sum();
+    let negatives = r
+        .normal
+        .coefficients
+        .iter()
+        .filter(|c| c.2.is_negative())
+        .count();
+    ui.label(format!(
+        "Hilbert series of Q[x]/J_{}: {}  (dimension {dim}, the Catalan number);  {} basis terms, {} negative, coefficient sum {}",
+        r.n,
+        hilbert_series_text(&r.hilbert),
+        r.normal.coefficients.len(),
+        negatives,
+        r.normal.coefficient_sum()
+    ));
+}
+
+/// The grid of lattice paths, scrolled, with the hovered panel's term as a tooltip.
+fn show_paths(ui: &mut egui::Ui, scene: &Scene, r: &Reduced) {
+    egui::ScrollArea::vertical()
+        .id_salt("paths")
+        .show(ui, |ui| {
+            let width = ui.available_width();
+            let scale = (width / scene.width).min(1.6);
+            let opts = PaintOptions {
+                highlight: Vec::new(),
+                max_scale: scale,
+                size: Some(egui::vec2(width, scene.height * scale)),
+            };
+            let resp = scene_painter::show(ui, scene, &opts);
+            if let Some(Tag::Panel(k)) = resp.hovered_where(|t| matches!(t, Tag::Panel(_)))
+                && let Some((_, m, c)) = r.normal.coefficients.get(k)
+            {
+                resp.response
+                    .on_hover_text(format!("{c} · {}", m.text(r.n)));
+            }
+        });
+}
+
 impl QuotientView {
     /// The figures this view can export: the grid of lattice paths.
-    pub fn figures(&self) -> Vec<(String, Arc<crate::figure::Scene>)> {
-        self.scene
+    pub fn figures(&self) -> Vec<(String, Arc<Scene>)> {
+        self.paths_scene
             .iter()
             .map(|(_, _, s)| ("the lattice-path normal form".to_string(), s.clone()))
             .collect()
@@ -42,37 +178,9 @@ impl QuotientView {
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
         ui.heading("Normal form in Q[x1..xn]/J_n (lex order x1 > x2 > ... > xn)");
-        let place = &mut ctx.session.quotient;
-        ui.horizontal(|ui| {
-            if ui
-                .radio(
-                    !place.survey && !place.use_typed,
-                    format!("reversed Schubert polynomial of w = {w}"),
-                )
-                .clicked()
-            {
-                place.survey = false;
-                place.use_typed = false;
-            }
-            if ui
-                .radio(!place.survey && place.use_typed, "a typed polynomial")
-                .clicked()
-            {
-                place.survey = false;
-                place.use_typed = true;
-            }
-            if ui
-                .radio(
-                    place.survey,
-                    format!("positivity survey of all of S_{}", w.n()),
-                )
-                .clicked()
-            {
-                place.survey = true;
-            }
-        });
+        source_choice(ui, &mut ctx.session.quotient, &w);
         let n = w.n();
-        if place.survey {
+        if ctx.session.quotient.survey {
             if self.survey.ui(ui, ctx, n) {
                 ctx.session.quotient.survey = false;
                 ctx.session.quotient.use_typed = false;
@@ -86,126 +194,60 @@ impl QuotientView {
             );
             return;
         }
-        let input = if place.use_typed {
-            if place.typed.is_empty() {
-                place.typed = "x1^2 x2 + x2 x3".into();
-            }
-            ui.add(
-                egui::TextEdit::singleline(&mut place.typed)
-                    .id_salt("quotient_poly")
-                    .font(egui::TextStyle::Monospace)
-                    .desired_width(f32::INFINITY),
-            );
-            if let Err(e) = crate::math::poly::parse::parse_poly(&place.typed, Some(n)) {
-                show_parse_error(ui, &e);
-                return;
-            }
-            QuotientInput::Typed(place.typed.clone(), n)
-        } else {
-            QuotientInput::ReversedSchubert(w.clone())
+        let Some(input) = quotient_input(ui, &mut ctx.session.quotient, &w) else {
+            return;
         };
         let key = JobKey::NormalForm(input);
-        let out = match self.slot.fetch(ctx.engine, key.clone()) {
-            Fetch::Ready(out) => out.clone(),
-            Fetch::Running(f, _) => {
-                computing(ui, "reducing", f, &self.slot);
-                return;
-            }
-            Fetch::Failed(e) => {
-                let e = e.clone();
-                show_parse_error(ui, &e);
-                return;
-            }
+        let Some(out) = self.fetch_normal_form(ui, ctx.engine, &key) else {
+            return;
         };
         let Output::Reduced(r) = out.as_ref() else {
             return;
         };
-        // long polynomials (S_w has hundreds of terms at n = 8) scroll in a few
-        // lines instead of pushing the diagrams off the screen
-        egui::ScrollArea::vertical()
-            .id_salt("quotient_polynomials")
-            .max_height(96.0)
-            .show(ui, |ui| {
-                ui.label(egui::RichText::new(format!("f = {}", r.input)).monospace());
-                ui.label(
-                    egui::RichText::new(format!("NF(f) = {}", r.normal.poly.to_text()))
-                        .monospace()
-                        .strong(),
-                );
-            });
-        let hs: Vec<String> = r
-            .hilbert
-            .iter()
-            .enumerate()
-            .map(|(k, c)| match k {
-                0 => c.to_string(),
-                1 => format!("{c}t"),
-                _ => format!("{c}t^{k}"),
-            })
-            .collect();
-        let dim: usize = r.hilbert.iter().sum();
-        let negatives = r
-            .normal
-            .coefficients
-            .iter()
-            .filter(|c| c.2.is_negative())
-            .count();
-        ui.label(format!(
-            "Hilbert series of Q[x]/J_{}: {}  (dimension {dim}, the Catalan number);  {} basis terms, {} negative, coefficient sum {}",
-            r.n,
-            hs.join(" + "),
-            r.normal.coefficients.len(),
-            negatives,
-            r.normal.coefficient_sum()
-        ));
-        let look = Look {
-            dark: ctx.session.dark,
-            labels: ctx.session.figure.labels,
-        };
-        let scene = match &self.scene {
-            Some((k, l, s)) if *k == key && *l == look => s.clone(),
-            _ => {
-                let panels: Vec<PathPanel> = r
-                    .normal
-                    .coefficients
-                    .iter()
-                    .filter_map(|(_, m, c)| {
-                        let path = LatticePath::of_monomial(&m.exps(r.n)).ok()?;
-                        Some(PathPanel {
-                            path,
-                            monomial: m.text(r.n),
-                            coefficient: c.to_string(),
-                            negative: c.is_negative(),
-                        })
-                    })
-                    .collect();
-                let cols = ((ui.available_width() / 150.0) as usize).clamp(2, 10);
-                let s = Arc::new(path_grid_scene(&panels, r.n, cols, &look));
-                self.scene = Some((key, look, s.clone()));
-                s
-            }
-        };
+        polynomials(ui, r);
+        summary(ui, r);
+        let scene = self.paths_scene(ui, key, figure_look(ctx.session), r);
         if r.normal.coefficients.is_empty() {
             ui.label("NF(f) = 0: f lies in J_n.");
             return;
         }
-        egui::ScrollArea::vertical()
-            .id_salt("paths")
-            .show(ui, |ui| {
-                let width = ui.available_width();
-                let scale = (width / scene.width).min(1.6);
-                let opts = PaintOptions {
-                    highlight: Vec::new(),
-                    max_scale: scale,
-                    size: Some(egui::vec2(width, scene.height * scale)),
-                };
-                let resp = scene_painter::show(ui, &scene, &opts);
-                if let Some(Tag::Panel(k)) = resp.hovered_where(|t| matches!(t, Tag::Panel(_)))
-                    && let Some((_, m, c)) = r.normal.coefficients.get(k)
-                {
-                    resp.response
-                        .on_hover_text(format!("{c} · {}", m.text(r.n)));
-                }
-            });
+        show_paths(ui, &scene, r);
+    }
+
+    /// The normal form once reduced; until then the progress (with cancel) or
+    /// the error is drawn.
+    fn fetch_normal_form(
+        &mut self,
+        ui: &mut egui::Ui,
+        engine: &Engine,
+        key: &JobKey,
+    ) -> Option<Arc<Output>> {
+        match self.normal_form.fetch(engine, key.clone()) {
+            Fetch::Ready(out) => Some(out.clone()),
+            Fetch::Running(f, _) => {
+                show_progress(ui, "reducing", f, &self.normal_form);
+                None
+            }
+            Fetch::Failed(e) => {
+                let e = e.clone();
+                show_math_error(ui, &e);
+                None
+            }
+        }
+    }
+
+    /// The grid of lattice paths of `r`, built again only when the normal form
+    /// asked for or the look changed.
+    fn paths_scene(&mut self, ui: &egui::Ui, key: JobKey, look: Look, r: &Reduced) -> Arc<Scene> {
+        match &self.paths_scene {
+            Some((k, l, s)) if *k == key && *l == look => s.clone(),
+            _ => {
+                let panels = path_panels(&r.normal, r.n);
+                let cols = ((ui.available_width() / 150.0) as usize).clamp(2, 10);
+                let s = Arc::new(path_grid_scene(&panels, r.n, cols, &look));
+                self.paths_scene = Some((key, look, s.clone()));
+                s
+            }
+        }
     }
 }

@@ -4,11 +4,12 @@
 //! coefficient) first and marked, every row clickable to show that w's normal
 //! form, and the table ready for export as CSV or LaTeX.
 
-use super::computing;
+use super::fetch_ready;
 use crate::engine::requests::Output;
-use crate::engine::{Fetch, JobKey, Slot};
+use crate::engine::{JobKey, Slot};
 use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
+use crate::math::Perm;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::survey::SurveyEntry;
 use crate::tables::results::survey_table;
@@ -19,10 +20,19 @@ use std::sync::Arc;
 /// Surveys up to this n start as soon as the panel shows; S_8 waits for the button.
 const AUTO_N: usize = 7;
 
+/// The columns of the rows before the negative coefficients: header and width.
+const COLUMNS: [(&str, f32); 5] = [
+    ("w", 90.0),
+    ("ℓ(w)", 40.0),
+    ("terms", 50.0),
+    ("sum", 60.0),
+    ("≥ 0", 40.0),
+];
+
 /// The survey panel's UI state.
 #[derive(Default)]
 pub struct SurveyPanel {
-    slot: Slot,
+    survey: Slot,
     /// The n whose survey was asked for.
     pub wanted: Option<usize>,
     /// Show only the counterexamples.
@@ -31,8 +41,85 @@ pub struct SurveyPanel {
     summary: Option<(usize, String)>,
     /// The survey shown (keyed by n), for export.
     export: TableSource<usize>,
-    /// Row order: counterexamples first, then lexicographic (indices into the entries).
+    /// Row order: counterexamples first, then lexicographic (indices into the
+    /// entries), for the n and the "only counterexamples" setting it was made for.
     order: Option<(usize, bool, Vec<usize>)>,
+}
+
+/// The summary of a survey: how many permutations, and how many counterexamples.
+fn summary_text(entries: &[SurveyEntry]) -> String {
+    let bad = entries.iter().filter(|e| !e.nonnegative()).count();
+    if bad == 0 {
+        format!(
+            "{} permutations: every normal form has nonnegative coefficients",
+            entries.len()
+        )
+    } else {
+        format!(
+            "{} permutations: {bad} counterexample{} (a negative coefficient), listed first",
+            entries.len(),
+            if bad == 1 { "" } else { "s" }
+        )
+    }
+}
+
+/// The header of the rows.
+fn header_row(ui: &mut egui::Ui) {
+    ui.horizontal(|ui| {
+        for (head, width) in COLUMNS {
+            ui.add_sized(
+                [width, 18.0],
+                egui::Label::new(egui::RichText::new(head).strong()),
+            );
+        }
+        ui.label(egui::RichText::new("negative coefficients").strong());
+    });
+}
+
+/// One row: w (a click picks it), ℓ(w), the number of terms, the coefficient
+/// sum, whether all are ≥ 0, and the negative terms, all alerted for a
+/// counterexample; true if w was clicked.
+fn survey_row(ui: &mut egui::Ui, e: &SurveyEntry, current: &Perm, n: usize) -> bool {
+    let alert = !e.nonnegative();
+    let text = |s: String| {
+        let t = egui::RichText::new(s).monospace();
+        if alert {
+            t.color(crate::gui::theme::alert())
+        } else {
+            t
+        }
+    };
+    let [perm_w, length_w, terms_w, sum_w, sign_w] = COLUMNS.map(|(_, width)| width);
+    ui.horizontal(|ui| {
+        let selected = e.perm == *current;
+        let clicked = ui
+            .add_sized(
+                [perm_w, 18.0],
+                egui::Button::selectable(selected, text(e.perm.to_string())),
+            )
+            .clicked();
+        ui.add_sized(
+            [length_w, 18.0],
+            egui::Label::new(text(e.perm.length().to_string())),
+        );
+        ui.add_sized(
+            [terms_w, 18.0],
+            egui::Label::new(text(e.terms().to_string())),
+        );
+        ui.add_sized([sum_w, 18.0], egui::Label::new(text(e.sum().to_string())));
+        let sign = if alert { "no" } else { "yes" };
+        ui.add_sized([sign_w, 18.0], egui::Label::new(text(sign.to_string())));
+        if alert {
+            let negs: Vec<String> = e
+                .negatives()
+                .iter()
+                .map(|(m, c)| format!("{c}·{}", m.text(n)))
+                .collect();
+            ui.label(text(negs.join("  ")));
+        }
+        clicked
+    })
+    .inner
 }
 
 impl SurveyPanel {
@@ -58,63 +145,28 @@ impl SurveyPanel {
             );
             return false;
         }
-        ui.horizontal(|ui| {
-            if ui.button(format!("survey all of S_{n}")).clicked() {
-                self.wanted = Some(n);
-                self.slot.retry();
-            }
-            if n <= AUTO_N {
-                ui.weak(format!("(runs by itself for n <= {AUTO_N})"));
-            }
-        });
-        if n <= AUTO_N {
-            self.wanted = Some(n);
-        }
-        let Some(wanted) = self.wanted else {
+        let Some(wanted) = self.wanted_n(ui, n) else {
             ui.weak("press the button to survey");
             return false;
         };
         if wanted != n {
             ui.weak(format!("showing S_{wanted}; press the button for S_{n}"));
         }
-        let out = match self.slot.fetch(ctx.engine, JobKey::Survey(wanted)) {
-            Fetch::Ready(out) => out.clone(),
-            Fetch::Running(f, secs) => {
-                computing(
-                    ui,
-                    &format!("reducing S_w(x{wanted}, ..., x1) over S_{wanted} ({secs:.0} s)"),
-                    f,
-                    &self.slot,
-                );
-                return false;
-            }
-            Fetch::Failed(e) => {
-                let e = e.clone();
-                if super::failed(ui, &e) {
-                    self.slot.retry();
-                }
-                return false;
-            }
+        let Some(out) = fetch_ready(
+            ui,
+            &mut self.survey,
+            ctx.engine,
+            JobKey::Survey(wanted),
+            |secs| format!("reducing S_w(x{wanted}, ..., x1) over S_{wanted} ({secs:.0} s)"),
+        ) else {
+            return false;
         };
         let Output::Survey(entries) = out.as_ref() else {
             return false;
         };
-        self.export.show(&wanted, &out);
+        self.export.note_shown(&wanted, &out);
         if self.summary.as_ref().is_none_or(|(k, _)| *k != wanted) {
-            let bad = entries.iter().filter(|e| !e.nonnegative()).count();
-            let text = if bad == 0 {
-                format!(
-                    "{} permutations: every normal form has nonnegative coefficients",
-                    entries.len()
-                )
-            } else {
-                format!(
-                    "{} permutations: {bad} counterexample{} (a negative coefficient), listed first",
-                    entries.len(),
-                    if bad == 1 { "" } else { "s" }
-                )
-            };
-            self.summary = Some((wanted, text));
+            self.summary = Some((wanted, summary_text(entries)));
         }
         if let Some((_, text)) = &self.summary {
             ui.label(egui::RichText::new(text.as_str()).strong());
@@ -129,6 +181,26 @@ impl SurveyPanel {
         self.rows(ui, ctx, entries, &order, wanted)
     }
 
+    /// The button "survey all of S_n" (and the automatic start for small n);
+    /// the n whose survey was asked for, if any.
+    fn wanted_n(&mut self, ui: &mut egui::Ui, n: usize) -> Option<usize> {
+        ui.horizontal(|ui| {
+            if ui.button(format!("survey all of S_{n}")).clicked() {
+                self.wanted = Some(n);
+                self.survey.retry();
+            }
+            if n <= AUTO_N {
+                ui.weak(format!("(runs by itself for n <= {AUTO_N})"));
+            }
+        });
+        if n <= AUTO_N {
+            self.wanted = Some(n);
+        }
+        self.wanted
+    }
+
+    /// The rows to show in order: the counterexamples first (or only them),
+    /// made again only when n or the setting changed.
     fn order_for(&mut self, n: usize, entries: &[SurveyEntry]) -> Vec<usize> {
         let only = self.only_counterexamples;
         if let Some((k, o, order)) = &self.order
@@ -148,6 +220,8 @@ impl SurveyPanel {
         order
     }
 
+    /// The header and the rows in `order`, drawn virtually; a click makes
+    /// that w current and returns true.
     fn rows(
         &self,
         ui: &mut egui::Ui,
@@ -158,21 +232,7 @@ impl SurveyPanel {
     ) -> bool {
         let mut picked = None;
         let current = ctx.perm();
-        ui.horizontal(|ui| {
-            for (head, width) in [
-                ("w", 90.0),
-                ("ℓ(w)", 40.0),
-                ("terms", 50.0),
-                ("sum", 60.0),
-                ("≥ 0", 40.0),
-            ] {
-                ui.add_sized(
-                    [width, 18.0],
-                    egui::Label::new(egui::RichText::new(head).strong()),
-                );
-            }
-            ui.label(egui::RichText::new("negative coefficients").strong());
-        });
+        header_row(ui);
         egui::ScrollArea::vertical()
             .id_salt("survey_rows")
             .max_height(ui.available_height() - 4.0)
@@ -183,46 +243,9 @@ impl SurveyPanel {
                 |ui, range| {
                     for &i in &order[range] {
                         let e = &entries[i];
-                        let alert = !e.nonnegative();
-                        let text = |s: String| {
-                            let t = egui::RichText::new(s).monospace();
-                            if alert {
-                                t.color(crate::gui::theme::alert())
-                            } else {
-                                t
-                            }
-                        };
-                        ui.horizontal(|ui| {
-                            let selected = e.perm == current;
-                            if ui
-                                .add_sized(
-                                    [90.0, 18.0],
-                                    egui::Button::selectable(selected, text(e.perm.to_string())),
-                                )
-                                .clicked()
-                            {
-                                picked = Some(e.perm.clone());
-                            }
-                            ui.add_sized(
-                                [40.0, 18.0],
-                                egui::Label::new(text(e.perm.length().to_string())),
-                            );
-                            ui.add_sized(
-                                [50.0, 18.0],
-                                egui::Label::new(text(e.terms().to_string())),
-                            );
-                            ui.add_sized([60.0, 18.0], egui::Label::new(text(e.sum().to_string())));
-                            let sign = if alert { "no" } else { "yes" };
-                            ui.add_sized([40.0, 18.0], egui::Label::new(text(sign.to_string())));
-                            if alert {
-                                let negs: Vec<String> = e
-                                    .negatives()
-                                    .iter()
-                                    .map(|(m, c)| format!("{c}·{}", m.text(n)))
-                                    .collect();
-                                ui.label(text(negs.join("  ")));
-                            }
-                        });
+                        if survey_row(ui, e, &current, n) {
+                            picked = Some(e.perm.clone());
+                        }
                     }
                 },
             );

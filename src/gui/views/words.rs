@@ -2,26 +2,44 @@
 //! selected word drawn as a wiring diagram whose crossings light up with the
 //! letters, and the commutation and braid moves available from it.
 
-use super::{arrow_step, computing, failed};
+use super::{arrow_step, fetch_ready, figure_look};
 use crate::engine::requests::WORD_PAGE;
-use crate::engine::{Fetch, JobKey, Slot};
-use crate::figure::Tag;
+use crate::engine::{Engine, Fetch, JobKey, Slot};
 use crate::figure::look::Look;
 use crate::figure::wiring::wiring_scene;
+use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
+use crate::math::Perm;
 use crate::math::perms::words::{WordMove, apply_word_move, content, word_moves};
 use eframe::egui;
+use std::sync::Arc;
 
 /// The word view's UI state.
 #[derive(Default)]
 pub struct WordsView {
     count: Slot,
     page: Slot,
-    /// A word reached by a move (shown instead of the indexed one).
-    moved: Option<Vec<usize>>,
+    /// A word reached by a move that is not on the page shown (shown instead
+    /// of the selected one).
+    moved_off_page: Option<Vec<usize>>,
     hover_crossing: Option<usize>,
-    last: Option<std::sync::Arc<crate::figure::Scene>>,
+    /// The wiring diagram on screen, without the hover highlight, for export.
+    wiring_shown: Option<Arc<Scene>>,
+}
+
+/// Where the selection is: the page of the list shown and the words on it.
+struct PageShown<'a> {
+    /// The page's number (its first word is the `number * WORD_PAGE`-th).
+    number: usize,
+    words: &'a [Vec<usize>],
+}
+
+impl PageShown<'_> {
+    /// The index in the whole list of the `k`-th word on the page.
+    fn index_of(&self, k: usize) -> usize {
+        self.number * WORD_PAGE + k
+    }
 }
 
 fn word_text(word: &[usize]) -> String {
@@ -29,10 +47,35 @@ fn word_text(word: &[usize]) -> String {
     v.join(" ")
 }
 
+fn content_text(word: &[usize], n: usize, separator: &str) -> String {
+    let c: Vec<String> = content(word, n).iter().map(|c| c.to_string()).collect();
+    c.join(separator)
+}
+
+/// A move's button label and the position of its first letter.
+fn move_label(word: &[usize], mv: WordMove) -> (String, usize) {
+    match mv {
+        WordMove::Commute { at } => (
+            format!("commute {} {} at {}", word[at], word[at + 1], at + 1),
+            at,
+        ),
+        WordMove::Braid { at } => (
+            format!(
+                "braid {} {} {} at {}",
+                word[at],
+                word[at + 1],
+                word[at + 2],
+                at + 1
+            ),
+            at,
+        ),
+    }
+}
+
 impl WordsView {
     /// The figures this view can export: the wiring diagram on screen.
-    pub fn figures(&self) -> Vec<(String, std::sync::Arc<crate::figure::Scene>)> {
-        self.last
+    pub fn figures(&self) -> Vec<(String, Arc<Scene>)> {
+        self.wiring_shown
             .iter()
             .map(|s| ("the wiring diagram shown".to_string(), s.clone()))
             .collect()
@@ -42,10 +85,65 @@ impl WordsView {
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
         let n = w.n();
+        self.heading_with_count(ui, ctx.engine, &w);
+        let total = self.total();
+        let look = figure_look(ctx.session);
+        let index = &mut ctx.session.words.index;
+        self.step_by_arrows(ui, index, total);
+        let page_no = *index / WORD_PAGE;
+        let Some(out) = fetch_ready(
+            ui,
+            &mut self.page,
+            ctx.engine,
+            JobKey::Words(w.clone(), page_no),
+            |_| "listing reduced words".into(),
+        ) else {
+            return;
+        };
+        let Some(words) = out.words() else { return };
+        if words.is_empty() {
+            if *index > 0 {
+                *index = 0;
+            }
+            return;
+        }
+        let page = PageShown {
+            number: page_no,
+            words,
+        };
+        let in_page = (*index - page.index_of(0)).min(words.len() - 1);
+        *index = page.index_of(in_page);
+        let word = self
+            .moved_off_page
+            .clone()
+            .unwrap_or_else(|| words[in_page].clone());
+        self.page_bar(ui, &page, index, total);
+        ui.separator();
+        ui.horizontal_top(|ui| {
+            self.word_list(ui, &page, in_page, n, index);
+            ui.separator();
+            ui.vertical(|ui| {
+                self.letters(ui, &word);
+                ui.label(format!("content ({})", content_text(&word, n, ", ")));
+                self.wiring(ui, &word, n, &look);
+                ui.add_space(6.0);
+                self.moves(ui, &word, &page, index);
+            });
+        });
+    }
+
+    /// Selects the word at `to` in the whole list.
+    fn select(&mut self, index: &mut usize, to: usize) {
+        *index = to;
+        self.moved_off_page = None;
+    }
+
+    /// The heading, with the number of reduced words once counted.
+    fn heading_with_count(&mut self, ui: &mut egui::Ui, engine: &Engine, w: &Perm) {
         ui.horizontal(|ui| {
             ui.heading(format!("Reduced words of w = {w}"));
             ui.separator();
-            match self.count.fetch(ctx.engine, JobKey::WordCount(w.clone())) {
+            match self.count.fetch(engine, JobKey::WordCount(w.clone())) {
                 Fetch::Ready(out) => {
                     if let Some(c) = out.count() {
                         ui.label(egui::RichText::new(format!("{c} reduced words")).strong());
@@ -59,179 +157,153 @@ impl WordsView {
                 }
             }
         });
-        let total = self
-            .count
+    }
+
+    /// The number of reduced words, once counted (the latest count received).
+    fn total(&self) -> Option<usize> {
+        self.count
             .latest()
             .and_then(|o| o.count())
-            .and_then(|c| usize::try_from(c).ok());
-        let index = &mut ctx.session.words.index;
+            .and_then(|c| usize::try_from(c).ok())
+    }
+
+    /// Moves the selection by the arrow keys pressed, within the count.
+    fn step_by_arrows(&mut self, ui: &egui::Ui, index: &mut usize, total: Option<usize>) {
         let step = arrow_step(ui);
         if step != 0 {
-            self.moved = None;
+            self.moved_off_page = None;
             *index = index.saturating_add_signed(step);
             if let Some(t) = total {
                 *index = (*index).min(t.saturating_sub(1));
             }
         }
-        let page_no = *index / WORD_PAGE;
-        let out = match self
-            .page
-            .fetch(ctx.engine, JobKey::Words(w.clone(), page_no))
-        {
-            Fetch::Ready(out) => out.clone(),
-            Fetch::Running(f, _) => {
-                computing(ui, "listing reduced words", f, &self.page);
-                return;
-            }
-            Fetch::Failed(e) => {
-                let e = e.clone();
-                if failed(ui, &e) {
-                    self.page.retry();
-                }
-                return;
-            }
-        };
-        let Some(words) = out.words() else { return };
-        if words.is_empty() {
-            if *index > 0 {
-                *index = 0;
-            }
-            return;
-        }
-        let in_page = (*index - page_no * WORD_PAGE).min(words.len() - 1);
-        *index = page_no * WORD_PAGE + in_page;
-        let word = self.moved.clone().unwrap_or_else(|| words[in_page].clone());
-        let look = Look {
-            dark: ctx.session.dark,
-            labels: ctx.session.figure.labels,
-        };
+    }
+
+    /// "< page", which words the page holds and which is selected, "page >".
+    fn page_bar(
+        &mut self,
+        ui: &mut egui::Ui,
+        page: &PageShown,
+        index: &mut usize,
+        total: Option<usize>,
+    ) {
         ui.horizontal(|ui| {
             if ui
-                .add_enabled(page_no > 0, egui::Button::new("< page"))
+                .add_enabled(page.number > 0, egui::Button::new("< page"))
                 .clicked()
             {
-                *index = (page_no - 1) * WORD_PAGE;
-                self.moved = None;
+                self.select(index, (page.number - 1) * WORD_PAGE);
             }
-            let shown_to = page_no * WORD_PAGE + words.len();
+            let shown_to = page.index_of(page.words.len());
             ui.label(format!(
                 "words {}–{} (lexicographic); selected {}",
-                page_no * WORD_PAGE + 1,
+                page.index_of(0) + 1,
                 shown_to,
                 *index + 1
             ));
-            let more = words.len() == WORD_PAGE && total.is_none_or(|t| shown_to < t);
+            let more = page.words.len() == WORD_PAGE && total.is_none_or(|t| shown_to < t);
             if ui.add_enabled(more, egui::Button::new("page >")).clicked() {
-                *index = (page_no + 1) * WORD_PAGE;
-                self.moved = None;
+                self.select(index, (page.number + 1) * WORD_PAGE);
             }
         });
-        ui.separator();
-        ui.horizontal_top(|ui| {
-            // the list
-            ui.vertical(|ui| {
-                ui.set_width(260.0);
-                ui.weak("word · content");
-                let row_h = ui.spacing().interact_size.y;
-                egui::ScrollArea::vertical()
-                    .id_salt("word_list")
-                    .max_height(ui.available_height() - 4.0)
-                    .show_rows(ui, row_h, words.len(), |ui, rows| {
-                        for r in rows {
-                            let wd = &words[r];
-                            let c: Vec<String> =
-                                content(wd, n).iter().map(|c| c.to_string()).collect();
-                            let text = egui::RichText::new(format!(
-                                "{}   ({})",
-                                word_text(wd),
-                                c.join(",")
-                            ))
-                            .monospace();
-                            if ui
-                                .selectable_label(r == in_page && self.moved.is_none(), text)
-                                .clicked()
-                            {
-                                *index = page_no * WORD_PAGE + r;
-                                self.moved = None;
-                            }
-                        }
-                    });
-            });
-            ui.separator();
-            ui.vertical(|ui| {
-                // the letters, in step with the crossings
-                ui.horizontal_wrapped(|ui| {
-                    ui.label("word");
-                    for (k, a) in word.iter().enumerate() {
-                        let lit = self.hover_crossing == Some(k);
-                        let r = ui.selectable_label(
-                            lit,
-                            egui::RichText::new(a.to_string()).monospace().strong(),
-                        );
-                        if r.hovered() {
-                            self.hover_crossing = Some(k);
+    }
+
+    /// The page's words with their content vectors, drawn virtually; a click selects.
+    fn word_list(
+        &mut self,
+        ui: &mut egui::Ui,
+        page: &PageShown,
+        in_page: usize,
+        n: usize,
+        index: &mut usize,
+    ) {
+        ui.vertical(|ui| {
+            ui.set_width(260.0);
+            ui.weak("word · content");
+            let row_h = ui.spacing().interact_size.y;
+            egui::ScrollArea::vertical()
+                .id_salt("word_list")
+                .max_height(ui.available_height() - 4.0)
+                .show_rows(ui, row_h, page.words.len(), |ui, rows| {
+                    for r in rows {
+                        let wd = &page.words[r];
+                        let text = egui::RichText::new(format!(
+                            "{}   ({})",
+                            word_text(wd),
+                            content_text(wd, n, ",")
+                        ))
+                        .monospace();
+                        let selected = r == in_page && self.moved_off_page.is_none();
+                        if ui.selectable_label(selected, text).clicked() {
+                            self.select(index, page.index_of(r));
                         }
                     }
                 });
-                let c: Vec<String> = content(&word, n).iter().map(|c| c.to_string()).collect();
-                ui.label(format!("content ({})", c.join(", ")));
-                let scene = wiring_scene(&word, n, &look, self.hover_crossing);
-                self.last = Some(std::sync::Arc::new(wiring_scene(&word, n, &look, None)));
-                let avail = ui.available_size();
-                let opts = PaintOptions {
-                    highlight: self.hover_crossing.map(Tag::Crossing).into_iter().collect(),
-                    max_scale: 3.0,
-                    size: Some(egui::vec2(avail.x, (avail.y * 0.6).max(120.0))),
-                };
-                let r = scene_painter::show(ui, &scene, &opts);
-                if let Some(Tag::Crossing(k)) = r.hovered_where(|t| matches!(t, Tag::Crossing(_))) {
-                    self.hover_crossing = Some(k);
-                } else if r.response.hovered() {
-                    self.hover_crossing = None;
-                }
-                ui.add_space(6.0);
-                ui.label(egui::RichText::new("moves from this word").weak());
-                let moves = word_moves(&word);
-                if moves.is_empty() {
-                    ui.weak("none: this is the only reduced word");
-                }
-                ui.horizontal_wrapped(|ui| {
-                    for mv in moves {
-                        let (label, at) = match mv {
-                            WordMove::Commute { at } => (
-                                format!("commute {} {} at {}", word[at], word[at + 1], at + 1),
-                                at,
-                            ),
-                            WordMove::Braid { at } => (
-                                format!(
-                                    "braid {} {} {} at {}",
-                                    word[at],
-                                    word[at + 1],
-                                    word[at + 2],
-                                    at + 1
-                                ),
-                                at,
-                            ),
-                        };
-                        let r = ui.button(label);
-                        if r.hovered() {
-                            self.hover_crossing = Some(at);
-                        }
-                        if r.clicked()
-                            && let Ok(next) = apply_word_move(&word, mv)
-                        {
-                            // keep the list selection if the new word is on this page
-                            match words.iter().position(|x| *x == next) {
-                                Some(k) => {
-                                    *index = page_no * WORD_PAGE + k;
-                                    self.moved = None;
-                                }
-                                None => self.moved = Some(next),
-                            }
-                        }
-                    }
-                });
-            });
         });
+    }
+
+    /// The letters of the word, in step with the crossings: hovering one lights both.
+    fn letters(&mut self, ui: &mut egui::Ui, word: &[usize]) {
+        ui.horizontal_wrapped(|ui| {
+            ui.label("word");
+            for (k, a) in word.iter().enumerate() {
+                let lit = self.hover_crossing == Some(k);
+                let r = ui
+                    .selectable_label(lit, egui::RichText::new(a.to_string()).monospace().strong());
+                if r.hovered() {
+                    self.hover_crossing = Some(k);
+                }
+            }
+        });
+    }
+
+    /// The wiring diagram, with the hovered crossing lit.
+    fn wiring(&mut self, ui: &mut egui::Ui, word: &[usize], n: usize, look: &Look) {
+        let scene = wiring_scene(word, n, look, self.hover_crossing);
+        self.wiring_shown = Some(Arc::new(wiring_scene(word, n, look, None)));
+        let avail = ui.available_size();
+        let opts = PaintOptions {
+            highlight: self.hover_crossing.map(Tag::Crossing).into_iter().collect(),
+            max_scale: 3.0,
+            size: Some(egui::vec2(avail.x, (avail.y * 0.6).max(120.0))),
+        };
+        let r = scene_painter::show(ui, &scene, &opts);
+        if let Some(Tag::Crossing(k)) = r.hovered_where(|t| matches!(t, Tag::Crossing(_))) {
+            self.hover_crossing = Some(k);
+        } else if r.response.hovered() {
+            self.hover_crossing = None;
+        }
+    }
+
+    /// A button per commutation or braid move from the word; a click applies it.
+    fn moves(&mut self, ui: &mut egui::Ui, word: &[usize], page: &PageShown, index: &mut usize) {
+        ui.label(egui::RichText::new("moves from this word").weak());
+        let moves = word_moves(word);
+        if moves.is_empty() {
+            ui.weak("none: this is the only reduced word");
+        }
+        ui.horizontal_wrapped(|ui| {
+            for mv in moves {
+                let (label, at) = move_label(word, mv);
+                let r = ui.button(label);
+                if r.hovered() {
+                    self.hover_crossing = Some(at);
+                }
+                if r.clicked()
+                    && let Ok(next) = apply_word_move(word, mv)
+                {
+                    self.show_moved(next, page, index);
+                }
+            }
+        });
+    }
+
+    /// Shows the word a move reached: selected in the list if it is on this
+    /// page, else shown in place of the selection.
+    fn show_moved(&mut self, next: Vec<usize>, page: &PageShown, index: &mut usize) {
+        match page.words.iter().position(|x| *x == next) {
+            Some(k) => self.select(index, page.index_of(k)),
+            None => self.moved_off_page = Some(next),
+        }
     }
 }
