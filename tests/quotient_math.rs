@@ -498,7 +498,7 @@ fn fresh_and_cached_bases_agree() {
 /// (both ends reached), every tail monomial is standard, and the leading monomials are the
 /// corners, Catalan(k - 1) of them ending at x_k (so 1 + 1 + 2 + 5 + ... in all).
 #[test]
-fn basis_coefficients_are_units_and_leads_are_corners() {
+fn basis_coefficient_ranges_and_leads_are_corners() {
     let catalan = [1usize, 1, 2, 5, 14, 42, 132, 429];
     for n in 1..=8usize {
         let q = groebner_basis(n).unwrap();
