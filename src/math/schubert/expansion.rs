@@ -250,8 +250,7 @@ pub fn schubert_expansion(f: &RatPoly, space: Space, progress: &Progress) -> Mat
             Space::Stable => Some(w.restrict(w.support_size()).unwrap_or(w)),
             Space::Flag(n) => {
                 if w.support_size() <= n {
-                    w.restrict(w.support_size())
-                        .and_then(|v| v.embed(n).ok())
+                    w.restrict(w.support_size()).and_then(|v| v.embed(n).ok())
                 } else {
                     None
                 }
@@ -430,9 +429,8 @@ pub fn expand_linear_factors(
         Space::Stable => {
             check_stable_room(vars, degree, "the product")?;
             if affine {
-                (0..=u128::from(degree)).fold(0u128, |a, d| {
-                    a.saturating_add(monomials_of_degree(d, vars))
-                })
+                (0..=u128::from(degree))
+                    .fold(0u128, |a, d| a.saturating_add(monomials_of_degree(d, vars)))
             } else {
                 (0..=u128::from(degree))
                     .map(|d| monomials_of_degree(d, vars))
@@ -454,9 +452,7 @@ pub fn expand_linear_factors(
         let den = denominator_lcm(f);
         let scale = BigRational::from_integer(den.clone());
         let int = |c: BigRational| (c * &scale).to_integer();
-        let linear: Vec<BigInt> = (0..vars)
-            .map(|i| int(f.coeff(Mono::var(i))))
-            .collect();
+        let linear: Vec<BigInt> = (0..vars).map(|i| int(f.coeff(Mono::var(i)))).collect();
         let constant = int(f.coeff(Mono::ONE));
         scalar /= num_traits::pow(scale.clone(), *e as usize);
         factors.push(IntFactor {

@@ -380,7 +380,9 @@ impl<C: Coefficient> LinearForm<C> {
     pub fn var(k: usize) -> MathResult<Self> {
         let mut c = vec![C::zero_value(); k];
         if k == 0 {
-            return Err(MathError::InvalidInput("variables are x_1, x_2, ...".into()));
+            return Err(MathError::InvalidInput(
+                "variables are x_1, x_2, ...".into(),
+            ));
         }
         c[k - 1] = C::from_i64(1);
         Self::new(c)
@@ -653,7 +655,11 @@ impl<C: Coefficient> SchubertVector<C> {
 
 /// out[w] += c, removing the entry when it becomes 0.
 #[inline]
-pub(crate) fn add_into<C: Coefficient>(out: &mut TermMap<C>, w: PackedPerm, c: &C) -> StepResult<()> {
+pub(crate) fn add_into<C: Coefficient>(
+    out: &mut TermMap<C>,
+    w: PackedPerm,
+    c: &C,
+) -> StepResult<()> {
     use std::collections::hash_map::Entry;
     match out.entry(w) {
         Entry::Occupied(mut e) => {
