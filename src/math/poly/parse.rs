@@ -485,7 +485,10 @@ impl Parser<'_> {
                     return None;
                 }
                 self.bump();
-                Some((BigRational::one(), vec![(RatPoly::var(self.nvars, i - 1), 1)]))
+                Some((
+                    BigRational::one(),
+                    vec![(RatPoly::var(self.nvars, i - 1), 1)],
+                ))
             }
             Tok::LParen if depth < FACTOR_NESTING => {
                 self.bump();
