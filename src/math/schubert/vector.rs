@@ -229,7 +229,7 @@ pub fn exactly<T>(
 }
 
 /// An exact integer coefficient: checked `i128` or [`BigInt`].
-pub trait Coefficient: Clone + PartialEq + fmt::Debug + Send + Sync + 'static {
+pub trait Coefficient: Clone + Ord + fmt::Debug + Send + Sync + 'static {
     /// 0.
     fn zero_value() -> Self;
     /// Whether this is 0.
