@@ -156,6 +156,40 @@ fn check_stable_room(vars: usize, degree: u64, what: &str) -> MathResult<()> {
     Ok(())
 }
 
+/// The size of the largest S_m the stable expansion of f needs, bounded from the
+/// monomials of f: the w with c_w ≠ 0 that are minimal for dominance of codes
+/// (a ⊴ b when a_1 + ⋯ + a_i ≤ b_1 + ⋯ + b_i for all i) have x^{code(w)} among the
+/// monomials of f, since every monomial of S_w dominates code(w) (ladder moves of
+/// pipe dreams move crosses up, Bergeron–Billey 1993); every other code dominates a
+/// minimal one. So each code a of the expansion has a_i ≤ t_i(b) := Σ_{j ≥ i} b_j for
+/// a monomial x^b of f of the same degree, and w lies in S_m with
+/// m = max_{i : a_i > 0} (i + a_i) ≤ max_b max_{i : t_i(b) > 0} (i + t_i(b)).
+fn peel_room(f: &RatPoly) -> usize {
+    let mut room = 1;
+    for (m, _) in f.terms() {
+        let mut tail = 0usize;
+        for i in (1..=MAX_N).rev() {
+            tail += m.exp(i - 1) as usize;
+            if tail > 0 {
+                room = room.max(i + tail);
+            }
+        }
+    }
+    room
+}
+
+/// Refuses a peel whose terms could leave S_16 (see [`peel_room`]).
+fn check_peel_room(f: &RatPoly) -> MathResult<()> {
+    let room = peel_room(f);
+    if room > MAX_N {
+        return Err(MathError::OutOfRange(format!(
+            "the stable expansion of the polynomial may hold S_w with w in S_{room}; stable \
+             expansions are limited to S_{MAX_N}; the expansion in H*(Fl_N) has no such limit"
+        )));
+    }
+    Ok(())
+}
+
 /// The Schubert expansion of f (stable, or its image in H*(Fl_n)), by peeling the
 /// lex-smallest monomial (see the module notes).
 ///
@@ -186,11 +220,11 @@ pub fn schubert_expansion(f: &RatPoly, space: Space, progress: &Progress) -> Mat
                 "the polynomial uses x{vars}, which is not a variable of H*(Fl_{n})"
             )));
         }
-        if check_stable_room(vars, degree, "the polynomial").is_err() {
+        if check_peel_room(f).is_err() {
             return expansion_by_divided_differences(f, space, progress);
         }
     } else {
-        check_stable_room(vars, degree, "the polynomial")?;
+        check_peel_room(f)?;
     }
     let monomials = monomials_of_degree(u128::from(degree), vars);
     if monomials > EXPANSION_MONOMIAL_LIMIT {
