@@ -36,7 +36,7 @@ use num_bigint::BigInt;
 pub const CLASS_TERM_LIMIT: u128 = 40_000_000;
 
 /// The most permutations a table by class may list (the Mahonian number M(n, |h|));
-/// M(12, 33) = 24 934 914 (the largest at n = 12) is accepted.
+/// M(12, 33) = 25 598 186 (the largest at n = 12) is accepted.
 pub const CLASS_TABLE_LIMIT: u128 = 30_000_000;
 
 /// How many entries are filled between two checks of the cancel flag.

@@ -62,11 +62,18 @@ fn transition_step(x: PackedPerm) -> Option<(usize, PackedPerm, Vec<PackedPerm>)
 
 /// The permutations reached from u by transition, ordered so that each comes after
 /// the ones it needs: by increasing length, then decreasing lexicographic order.
-fn transition_closure(u: PackedPerm, limit: usize) -> MathResult<Vec<PackedPerm>> {
+fn transition_closure(
+    u: PackedPerm,
+    limit: usize,
+    progress: &Progress,
+) -> MathResult<Vec<PackedPerm>> {
     let mut seen: HashSet<PackedPerm> = HashSet::new();
     let mut stack = vec![u];
     seen.insert(u);
     while let Some(x) = stack.pop() {
+        if seen.len().is_multiple_of(1 << 12) {
+            progress.check()?;
+        }
         if let Some((_, xp, others)) = transition_step(x) {
             for y in std::iter::once(xp).chain(others) {
                 if seen.insert(y) {
@@ -172,8 +179,8 @@ pub fn schubert_product(
     }
     let (pu, pv) = (PackedPerm::from_perm(u), PackedPerm::from_perm(v));
     // transition the factor that reaches fewer permutations
-    let cu = transition_closure(pu, TRANSITION_NODE_LIMIT);
-    let cv = transition_closure(pv, TRANSITION_NODE_LIMIT);
+    let cu = transition_closure(pu, TRANSITION_NODE_LIMIT, progress);
+    let cv = transition_closure(pv, TRANSITION_NODE_LIMIT, progress);
     let (order, other) = match (cu, cv) {
         (Ok(a), Ok(b)) => {
             if a.len() <= b.len() {

@@ -639,7 +639,7 @@ impl<C: Coefficient> SchubertVector<C> {
             .iter()
             .map(|(w, c)| (w.length(), w.values(), *w, c))
             .collect();
-        keyed.sort_unstable_by(|a, b| (a.0, a.1).cmp(&(b.0, b.1)));
+        keyed.sort_unstable_by_key(|a| (a.0, a.1));
         keyed
             .into_iter()
             .map(|(_, _, w, c)| {
@@ -731,8 +731,7 @@ impl<C: Coefficient> Monk<C> {
             // covers (a, b), b > a: w(a) < w(b) < every w(c) > w(a) with a < c < b
             let va = v[a];
             let mut ceiling = u8::MAX;
-            for b in a + 1..=len {
-                let vb = v[b];
+            for (b, &vb) in v.iter().enumerate().take(len + 1).skip(a + 1) {
                 if vb > va && vb < ceiling {
                     ceiling = vb;
                     let mult = self.lambda[a - 1].sub_checked(&self.lambda[b - 1])?;
