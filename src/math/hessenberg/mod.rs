@@ -1,8 +1,12 @@
 //! Hessenberg functions and their classes: the function h itself, divided
-//! symmetrization DS_h, and tables of the coefficients a^h_w = DS_h(S_w).
+//! symmetrization DS_h, tables of the coefficients a^h_w = DS_h(S_w) by DS_h and by
+//! the class Q_h itself, and the sweep over every h of a given n.
 
 pub mod function;
 
 pub mod divsym;
 
 pub mod table;
+
+pub mod class;
+pub mod sweep;

@@ -27,7 +27,105 @@ use num_traits::{One, Zero};
 pub fn parse_poly(text: &str, nvars: Option<usize>) -> MathResult<RatPoly> {
     let tokens = lex(text)?;
     let declared = nvars;
-    let width = match nvars {
+    let width = width_of(&tokens, nvars)?;
+    let mut p = Parser {
+        text,
+        tokens,
+        pos: 0,
+        nvars: width,
+        declared,
+    };
+    if p.tokens.len() == 1 {
+        return Err(p.error_here("the input is empty; type a polynomial such as 2x1 x2 - 3/2 x3^2"));
+    }
+    let value = p.expr()?;
+    if !matches!(p.peek(), Tok::End) {
+        return Err(p.error_here("expected an operator (+ - * / ^) or the end of the input"));
+    }
+    value.with_nvars(width)
+}
+
+/// A typed product of powers of linear forms: `scalar · Π factor^exponent`.
+#[derive(Clone, Debug, PartialEq)]
+pub struct LinearFactors {
+    /// The number in front (0 when the product is 0).
+    pub scalar: BigRational,
+    /// The factors, each of degree exactly one (a constant term is allowed, as in
+    /// `x1 + 1`), with their exponents; a factor may repeat.
+    pub factors: Vec<(RatPoly, u32)>,
+    /// The number of variables of the factors.
+    pub nvars: usize,
+}
+
+impl LinearFactors {
+    /// The product multiplied out (a reference for tests; it expands into monomials).
+    pub fn expand(&self) -> MathResult<RatPoly> {
+        let mut p = RatPoly::constant(self.nvars, self.scalar.clone());
+        for (f, e) in &self.factors {
+            p = p.mul(&f.pow(*e)?)?;
+        }
+        Ok(p)
+    }
+
+    /// The total degree Σ exponents.
+    pub fn degree(&self) -> u64 {
+        self.factors.iter().map(|(_, e)| u64::from(*e)).sum()
+    }
+}
+
+/// Reads `text` as a product of powers of linear forms and numbers, such as
+/// `(x1-x3)(x2-x4)^2` or `-2 x1 (x1 + x2/2)^3 / 3`, without multiplying it out.
+/// `Ok(None)` when the text is a polynomial of another shape (a sum at the top,
+/// a factor of degree two or more, `M(..)`); then [`parse_poly`] reads it, and
+/// gives the error for a malformed input. With `nvars` as in [`parse_poly`].
+///
+/// ```
+/// use elbowroom::math::poly::parse::parse_linear_factors;
+/// let f = parse_linear_factors("-(x1-x3)(x2 - x4)^2/2", Some(4)).unwrap().unwrap();
+/// assert_eq!(f.scalar.to_string(), "-1/2");
+/// let shown: Vec<String> = f.factors.iter().map(|(p, e)| format!("({})^{e}", p.to_text())).collect();
+/// assert_eq!(shown, vec!["(x1 - x3)^1", "(x2 - x4)^2"]);
+/// assert!(parse_linear_factors("x1 x2 + x3", Some(4)).unwrap().is_none());
+/// assert!(parse_linear_factors("(x1 + x2)(x1^2 - x3)", Some(4)).unwrap().is_none());
+/// assert!(parse_linear_factors("x5", Some(4)).is_err());
+/// ```
+pub fn parse_linear_factors(text: &str, nvars: Option<usize>) -> MathResult<Option<LinearFactors>> {
+    let tokens = match lex(text) {
+        Ok(t) => t,
+        Err(_) => return parse_poly(text, nvars).map(|_| None),
+    };
+    let width = width_of(&tokens, nvars)?;
+    let mut p = Parser {
+        text,
+        tokens,
+        pos: 0,
+        nvars: width,
+        declared: nvars,
+    };
+    if p.tokens.len() > 1
+        && let Some((scalar, factors)) = p.factored_product(0)
+        && matches!(p.peek(), Tok::End)
+    {
+        return Ok(Some(LinearFactors {
+            scalar,
+            factors,
+            nvars: width,
+        }));
+    }
+    // another shape, or an error that the full reader reports with its column
+    parse_poly(text, nvars).map(|_| None)
+}
+
+/// How deep parentheses may nest in [`parse_linear_factors`] before the text is
+/// left to [`parse_poly`].
+const FACTOR_NESTING: usize = 64;
+
+/// A scalar and a list of (factor of degree one, exponent).
+type Factored = (BigRational, Vec<(RatPoly, u32)>);
+
+/// The number of variables: `nvars`, or the largest index used (at least 1).
+fn width_of(tokens: &[Token], nvars: Option<usize>) -> MathResult<usize> {
+    Ok(match nvars {
         Some(n) => {
             if n == 0 || n > MAX_VARS {
                 return Err(MathError::OutOfRange(format!(
@@ -45,22 +143,7 @@ pub fn parse_poly(text: &str, nvars: Option<usize>) -> MathResult<RatPoly> {
             .max()
             .unwrap_or(1)
             .max(1),
-    };
-    let mut p = Parser {
-        text,
-        tokens,
-        pos: 0,
-        nvars: width,
-        declared,
-    };
-    if p.tokens.len() == 1 {
-        return Err(p.error_here("the input is empty; type a polynomial such as 2x1 x2 - 3/2 x3^2"));
-    }
-    let value = p.expr()?;
-    if !matches!(p.peek(), Tok::End) {
-        return Err(p.error_here("expected an operator (+ - * / ^) or the end of the input"));
-    }
-    value.with_nvars(width)
+    })
 }
 
 #[derive(Clone, Debug, PartialEq)]
@@ -297,6 +380,138 @@ impl Parser<'_> {
             first = false;
             let t = self.term()?;
             acc = if negate { acc.sub(&t) } else { acc.add(&t) };
+        }
+    }
+
+    /// product := ('+'|'-')* power (('*' | '/' number | implicit) power)*, up to the
+    /// end or a ')'; `None` when the text has another shape.
+    fn factored_product(&mut self, depth: usize) -> Option<Factored> {
+        let mut scalar = BigRational::one();
+        let mut factors = Vec::new();
+        loop {
+            match self.peek() {
+                Tok::Plus => {
+                    self.bump();
+                }
+                Tok::Minus => {
+                    self.bump();
+                    scalar = -scalar;
+                }
+                _ => break,
+            }
+        }
+        let (s, f) = self.factored_power(depth)?;
+        scalar *= s;
+        factors.extend(f);
+        loop {
+            match self.peek().clone() {
+                Tok::Star => {
+                    self.bump();
+                    let (s, f) = self.factored_power(depth)?;
+                    scalar *= s;
+                    factors.extend(f);
+                }
+                Tok::Slash => {
+                    self.bump();
+                    let (s, f) = self.factored_power(depth)?;
+                    if !f.is_empty() || s.is_zero() {
+                        return None;
+                    }
+                    scalar /= s;
+                }
+                t if Self::starts_factor(&t) => {
+                    let (s, f) = self.factored_power(depth)?;
+                    scalar *= s;
+                    factors.extend(f);
+                }
+                Tok::End | Tok::RParen => return Some((scalar, factors)),
+                _ => return None,
+            }
+        }
+    }
+
+    /// power := ('-'|'+') power | primary ['^' integer]
+    fn factored_power(&mut self, depth: usize) -> Option<Factored> {
+        match self.peek() {
+            Tok::Minus => {
+                self.bump();
+                let (s, f) = self.factored_power(depth)?;
+                return Some((-s, f));
+            }
+            Tok::Plus => {
+                self.bump();
+                return self.factored_power(depth);
+            }
+            _ => {}
+        }
+        let (s, f) = self.factored_primary(depth)?;
+        if !matches!(self.peek(), Tok::Caret) {
+            return Some((s, f));
+        }
+        self.bump();
+        let k = match self.bump() {
+            Tok::Num(v) if v.is_integer() => v.to_integer(),
+            Tok::LParen => {
+                let Tok::Num(v) = self.bump() else {
+                    return None;
+                };
+                if !v.is_integer() || !matches!(self.bump(), Tok::RParen) {
+                    return None;
+                }
+                v.to_integer()
+            }
+            _ => return None,
+        };
+        let k = u32::try_from(k).ok().filter(|&k| k <= MAX_EXP)?;
+        if matches!(self.peek(), Tok::Caret) {
+            return None;
+        }
+        let mut powered = Vec::with_capacity(f.len());
+        for (p, e) in f {
+            powered.push((p, e.checked_mul(k)?));
+        }
+        Some((num_traits::pow(s, k as usize), powered))
+    }
+
+    /// primary := number | variable | '(' product ')' | '(' linear expression ')'
+    fn factored_primary(&mut self, depth: usize) -> Option<Factored> {
+        match self.peek().clone() {
+            Tok::Num(v) => {
+                self.bump();
+                Some((v, Vec::new()))
+            }
+            Tok::Var(i) => {
+                if self.declared.is_some_and(|n| i > n) {
+                    return None;
+                }
+                self.bump();
+                Some((
+                    BigRational::one(),
+                    vec![(RatPoly::var_index(self.nvars, i - 1), 1)],
+                ))
+            }
+            Tok::LParen if depth < FACTOR_NESTING => {
+                self.bump();
+                let start = self.pos;
+                if let Some(inner) = self.factored_product(depth + 1)
+                    && matches!(self.peek(), Tok::RParen)
+                {
+                    self.bump();
+                    return Some(inner);
+                }
+                self.pos = start;
+                let inner = self.expr().ok()?;
+                if !matches!(self.peek(), Tok::RParen) {
+                    return None;
+                }
+                self.bump();
+                match inner.degree() {
+                    0 => Some((constant_value(&inner)?, Vec::new())),
+                    1 => Some((BigRational::one(), vec![(inner, 1)])),
+                    _ => None,
+                }
+            }
+            _ => None,
         }
     }
 

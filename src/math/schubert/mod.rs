@@ -1,6 +1,16 @@
-//! Schubert polynomials: the transition step, and the polynomials by
-//! transition (memoized) and by divided differences.
+//! Schubert polynomials and the Schubert basis, in layers:
+//!
+//! - [`transition`]: the transition step, written once.
+//! - [`polynomial`]: Schubert polynomials by transition (memoized) and by divided differences.
+//! - [`vector`]: sparse vectors Σ c_w S_w (stable or in H*(Fl_n)) and Monk's rule.
+//! - [`expansion`]: the Schubert expansion of a polynomial, and of a product of linear forms.
+//! - [`product`]: structure constants S_u · S_v = Σ c^w_{uv} S_w.
 
 pub mod transition;
 
 pub mod polynomial;
+
+pub mod vector;
+
+pub mod expansion;
+pub mod product;
