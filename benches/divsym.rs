@@ -5,7 +5,9 @@
 use criterion::{Criterion, criterion_group, criterion_main};
 use elbowroom::math::hessenberg::divsym::{divided_symmetrize, divided_symmetrize_at};
 use elbowroom::math::hessenberg::function::HessenbergFn;
-use elbowroom::math::hessenberg::table::{coefficient_table, coefficient_table_by_polynomials};
+use elbowroom::math::hessenberg::table::{
+    coefficient_table_by_divsym, coefficient_table_by_polynomials,
+};
 use elbowroom::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
 use elbowroom::math::permutohedra::permutohedron::Permutohedron;
 use elbowroom::math::{Mono, PolyBuilder, Progress, RatPoly};
@@ -124,11 +126,11 @@ fn benches(c: &mut Criterion) {
     let all = |_: usize| true;
     let h9 = HessenbergFn::default_for(9).unwrap();
     g.bench_function("table_n9", |b| {
-        b.iter(|| black_box(coefficient_table(&h9, &all, &Progress::new(0)).unwrap()))
+        b.iter(|| black_box(coefficient_table_by_divsym(&h9, &all, &Progress::new(0)).unwrap()))
     });
     let h10 = HessenbergFn::default_for(10).unwrap();
     g.bench_function("table_n10", |b| {
-        b.iter(|| black_box(coefficient_table(&h10, &all, &Progress::new(0)).unwrap()))
+        b.iter(|| black_box(coefficient_table_by_divsym(&h10, &all, &Progress::new(0)).unwrap()))
     });
     g.bench_function("table_n9_by_polynomials", |b| {
         b.iter(|| {
@@ -136,9 +138,9 @@ fn benches(c: &mut Criterion) {
         })
     });
     g.bench_function("table_n5_fast", |b| {
-        b.iter(|| black_box(coefficient_table(&h5, &all, &Progress::new(0)).unwrap()))
+        b.iter(|| black_box(coefficient_table_by_divsym(&h5, &all, &Progress::new(0)).unwrap()))
     });
-    let t5 = coefficient_table(&h5, &all, &Progress::new(0)).unwrap();
+    let t5 = coefficient_table_by_divsym(&h5, &all, &Progress::new(0)).unwrap();
     let mut memo = elbowroom::math::schubert::polynomial::SchubertTable::new();
     let polys: Vec<RatPoly> = t5
         .entries

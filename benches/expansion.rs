@@ -8,7 +8,7 @@ use criterion::{Criterion, criterion_group, criterion_main};
 use elbowroom::math::hessenberg::class::coefficient_table_by_class;
 use elbowroom::math::hessenberg::function::HessenbergFn;
 use elbowroom::math::hessenberg::sweep::sweep_every_h;
-use elbowroom::math::hessenberg::table::coefficient_table;
+use elbowroom::math::hessenberg::table::coefficient_table_by_divsym;
 use elbowroom::math::poly::parse::{parse_linear_factors, parse_poly};
 use elbowroom::math::schubert::expansion::{expand_linear_factors, schubert_expansion};
 use elbowroom::math::schubert::product::{product_by_polynomials, schubert_product};
@@ -34,7 +34,9 @@ fn tables(c: &mut Criterion) {
         })
     });
     g.bench_function("n8_h34567888/ds_h", |b| {
-        b.iter(|| coefficient_table(black_box(&h8), &|_| true, &Progress::default()).unwrap())
+        b.iter(|| {
+            coefficient_table_by_divsym(black_box(&h8), &|_| true, &Progress::default()).unwrap()
+        })
     });
     // the default h at n = 10, both methods
     let d10 = HessenbergFn::default_for(10).unwrap();
@@ -44,7 +46,9 @@ fn tables(c: &mut Criterion) {
         })
     });
     g.bench_function("n10_default/ds_h", |b| {
-        b.iter(|| coefficient_table(black_box(&d10), &|_| true, &Progress::default()).unwrap())
+        b.iter(|| {
+            coefficient_table_by_divsym(black_box(&d10), &|_| true, &Progress::default()).unwrap()
+        })
     });
     // the h at n = 9 (the DS_h method takes about two minutes for it: measured
     // once in the README, not here) and larger tables by the class only
@@ -145,7 +149,9 @@ fn sweeps(c: &mut Criterion) {
     g.bench_function("n6/ds_h_per_h", |b| {
         b.iter(|| {
             for hh in &all6 {
-                black_box(coefficient_table(hh, &|_| true, &Progress::default()).unwrap());
+                black_box(
+                    coefficient_table_by_divsym(hh, &|_| true, &Progress::default()).unwrap(),
+                );
             }
         })
     });

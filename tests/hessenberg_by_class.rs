@@ -7,7 +7,7 @@ use elbowroom::math::hessenberg::class::{
 };
 use elbowroom::math::hessenberg::function::HessenbergFn;
 use elbowroom::math::hessenberg::sweep::{SWEEP_MAX_N, sweep_every_h};
-use elbowroom::math::hessenberg::table::coefficient_table;
+use elbowroom::math::hessenberg::table::coefficient_table_by_divsym;
 use elbowroom::math::perms::listing::perms_of_length;
 use elbowroom::math::schubert::expansion::schubert_expansion;
 use elbowroom::math::schubert::vector::{PackedPerm, Space};
@@ -32,7 +32,7 @@ fn class_method_agrees_with_ds_h_for_every_h_up_to_n_6() {
     for n in 1..=6 {
         for h in HessenbergFn::all(n) {
             let by_class = coefficient_table_by_class(&h, &|_| true, &go()).unwrap();
-            let by_ds = coefficient_table(&h, &|_| true, &go()).unwrap();
+            let by_ds = coefficient_table_by_divsym(&h, &|_| true, &go()).unwrap();
             assert_eq!(by_class, by_ds, "h = {h}");
             functions += 1;
             nonzero += by_class.nonzero();
@@ -57,7 +57,7 @@ fn class_method_agrees_with_ds_h_for_every_h_at_n_7() {
         all.par_iter()
             .map(|h| {
                 let by_class = coefficient_table_by_class(h, &|_| true, &go()).unwrap();
-                let by_ds = coefficient_table(h, &|_| true, &go()).unwrap();
+                let by_ds = coefficient_table_by_divsym(h, &|_| true, &go()).unwrap();
                 assert_eq!(by_class, by_ds, "h = {h}");
                 by_class.nonzero()
             })
@@ -74,7 +74,7 @@ fn select_sees_the_listing_index_and_zeros_are_kept() {
         let by_class = coefficient_table_by_class(&h, &shard, &go()).unwrap();
         assert_eq!(
             by_class,
-            coefficient_table(&h, &shard, &go()).unwrap(),
+            coefficient_table_by_divsym(&h, &shard, &go()).unwrap(),
             "h = {h}"
         );
         let listing = perms_of_length(h.n(), h.dimension());
@@ -148,7 +148,7 @@ fn the_sweep_counts_catalan_many_functions_and_matches_per_h_tables() {
         assert!(rows.iter().all(|r| r.negative == 0), "n = {n}");
         if n <= 6 {
             for r in &rows {
-                let t = coefficient_table(&r.h, &|_| true, &go()).unwrap();
+                let t = coefficient_table_by_divsym(&r.h, &|_| true, &go()).unwrap();
                 assert_eq!(r.dimension, r.h.dimension());
                 assert_eq!(r.total, t.total(), "h = {}", r.h);
                 assert_eq!(r.nonzero, t.nonzero(), "h = {}", r.h);

@@ -34,6 +34,10 @@ pub enum Command {
     Volume(VolumeArgs),
     /// Mixed Eulerian numbers A_c.
     Eulerian(EulerianArgs),
+    /// The Schubert expansion of a polynomial: in H*(Fl_n), or stably with --stable.
+    Expand(ExpandArgs),
+    /// Structure constants: S_u · S_v = Σ c^w_{uv} S_w, stably or in H*(Fl_n) with --n.
+    Product(ProductArgs),
     /// Combines the JSON outputs of the pieces of a sharded run into one.
     Merge(MergeArgs),
     /// The quasisymmetric quotient Q[x1..xn]/J_n: basis, graded dimensions, Gröbner basis.
@@ -134,9 +138,45 @@ pub struct HessenbergArgs {
     /// Compute only piece K of N (K/N): the permutations at listing positions i with i mod N = K-1.
     #[arg(long)]
     pub shard: Option<String>,
+    /// Summarise the table of every Hessenberg function of n (Catalan(n) of
+    /// them): dimension, total, nonzero entries, maximum, negative entries.
+    #[arg(long, conflicts_with_all = ["h", "shard"])]
+    pub every_h: bool,
     /// How to print the table.
     #[command(flatten)]
     pub output: TableOutput,
+}
+
+/// Arguments of `elbowroom expand`.
+#[derive(Args, Debug)]
+pub struct ExpandArgs {
+    /// The polynomial, for example "(x1 - x3)(x2 - x3)" or "x1^2 x2 + 3x3".
+    #[arg(allow_hyphen_values = true)]
+    pub poly: String,
+    /// The number of variables N: the class in H*(Fl_N), or the stable expansion in Q[x1..xN].
+    #[arg(long)]
+    pub n: usize,
+    /// The expansion in Q[x1..xN] over S_∞ instead of its image in H*(Fl_N).
+    #[arg(long)]
+    pub stable: bool,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// Arguments of `elbowroom product`.
+#[derive(Args, Debug)]
+pub struct ProductArgs {
+    /// The permutation u: 132, "1 3 2" or 1,3,2.
+    pub u: String,
+    /// The permutation v.
+    pub v: String,
+    /// Multiply in H*(Fl_N) instead of stably (u and v must lie in S_N).
+    #[arg(long)]
+    pub n: Option<usize>,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
 }
 
 /// Arguments of `elbowroom volume`.

@@ -15,10 +15,12 @@ pub mod args;
 pub mod cmd_divsym;
 pub mod cmd_dreams;
 pub mod cmd_eulerian;
+pub mod cmd_expand;
 pub mod cmd_figure;
 pub mod cmd_hessenberg;
 pub mod cmd_merge;
 pub mod cmd_perm;
+pub mod cmd_product;
 pub mod cmd_quotient;
 pub mod cmd_reduce;
 pub mod cmd_schubert;
@@ -28,6 +30,7 @@ pub mod cmd_volume;
 pub mod cmd_words;
 pub mod documents;
 pub mod error;
+pub mod expansion_text;
 pub mod inputs;
 pub mod interrupt;
 pub mod json;
@@ -81,6 +84,8 @@ pub fn execute(command: &Command) -> Result<String, CliError> {
         Command::Hessenberg(a) => cmd_hessenberg::run(a),
         Command::Volume(a) => cmd_volume::run(a),
         Command::Eulerian(a) => cmd_eulerian::run(a),
+        Command::Expand(a) => cmd_expand::run(a),
+        Command::Product(a) => cmd_product::run(a),
         Command::Merge(a) => cmd_merge::run(a),
         Command::Quotient(a) => cmd_quotient::run(a),
         Command::Reduce(a) => cmd_reduce::run(a),

@@ -1,9 +1,10 @@
 //! What the explorer can ask for, keyed by its inputs, and how each answer is
 //! computed (always by the same `math` functions the command line uses).
 
+use crate::math::hessenberg::coefficients::coefficient_table;
 use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize};
 use crate::math::hessenberg::function::HessenbergFn;
-use crate::math::hessenberg::table::{HessenbergTable, coefficient_table};
+use crate::math::hessenberg::table::HessenbergTable;
 use crate::math::perms::class::PermClass;
 use crate::math::perms::words::{count_reduced_words_with, reduced_words};
 pub use crate::math::permutohedra::drawing::PolytopeDrawing;

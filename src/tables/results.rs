@@ -4,6 +4,7 @@
 //! Eulerian numbers.
 
 use super::table::{Cell, Column, Table};
+use crate::math::hessenberg::sweep::SweepRow;
 use crate::math::hessenberg::table::HessenbergTable;
 use crate::math::quotient::survey::SurveyEntry;
 use crate::math::{IntPoly, Perm};
@@ -21,7 +22,7 @@ pub fn perm_cell(w: &Perm) -> Cell {
 /// ```
 /// use elbowroom::tables::results::hessenberg_table;
 /// use elbowroom::math::hessenberg::function::HessenbergFn;
-/// use elbowroom::math::{Progress, hessenberg::table::coefficient_table as compute};
+/// use elbowroom::math::{Progress, hessenberg::coefficients::coefficient_table as compute};
 /// // h = (2,3,3): a^h_231 = DS_3(x1 x2) = 1 and a^h_312 = DS_3(x1^2) = 1
 /// let t = compute(&HessenbergFn::new(&[2, 3, 3]).unwrap(), &|_| true, &Progress::new(0)).unwrap();
 /// let csv = hessenberg_table(&t).to_csv();
@@ -48,6 +49,37 @@ pub fn hessenberg_table(table: &HessenbergTable) -> Table {
             perm_cell(&e.perm),
             len.to_string().into(),
             e.value.to_string().into(),
+        ]);
+    }
+    t
+}
+
+/// The sweep over every Hessenberg function of n: columns `h`, `dimension`,
+/// `total`, `nonzero`, `max`, `negative` (CSV headers), set as $h$, $|h|$,
+/// $\sum_w a^h_w$, ... in LaTeX.
+pub fn every_h_table(n: usize, rows: &[SweepRow]) -> Table {
+    let mut t = Table::new(vec![
+        Column::math("$h$").keyed("h"),
+        Column::math("$|h|$").keyed("dimension"),
+        Column::math("$\\sum_w a^h_w$").keyed("total"),
+        Column::text("nonzero"),
+        Column::math("$\\max_w a^h_w$").keyed("max"),
+        Column::text("negative"),
+    ]);
+    let with_negative = rows.iter().filter(|r| r.negative > 0).count();
+    t.comment(format!(
+        "the tables a^h_w = DS_h(S_w) of every Hessenberg function of n = {n}: {} functions, {with_negative} with a negative entry",
+        rows.len()
+    ));
+    for r in rows {
+        let h: Vec<String> = r.h.values().iter().map(|v| v.to_string()).collect();
+        t.push(vec![
+            format!("({})", h.join(",")),
+            r.dimension.to_string(),
+            r.total.to_string(),
+            r.nonzero.to_string(),
+            r.max.to_string(),
+            r.negative.to_string(),
         ]);
     }
     t

@@ -1,6 +1,7 @@
 //! Hessenberg functions and their classes: the function h itself, divided
-//! symmetrization DS_h, tables of the coefficients a^h_w = DS_h(S_w) by DS_h and by
-//! the class Q_h itself, and the sweep over every h of a given n.
+//! symmetrization DS_h, tables of the coefficients a^h_w = DS_h(S_w) by DS_h
+//! and by the class Q_h itself, the choice between them, and the sweep over
+//! every h of a given n.
 
 pub mod function;
 
@@ -9,4 +10,7 @@ pub mod divsym;
 pub mod table;
 
 pub mod class;
+
+pub mod coefficients;
+
 pub mod sweep;

@@ -109,15 +109,15 @@ fn chosen_permutations(
 /// on rayon's pool, counting progress and stopping with `Canceled` when asked.
 ///
 /// ```
-/// use elbowroom::math::{Progress, hessenberg::function::HessenbergFn, hessenberg::table::coefficient_table};
+/// use elbowroom::math::{Progress, hessenberg::function::HessenbergFn, hessenberg::table::coefficient_table_by_divsym};
 /// // n = 3, h = (2,3,3), |h| = 2: a_{231} = DS_3(S_{231}) = DS_3(x1 x2) = 1 and
 /// // a_{312} = DS_3(x1^2) = 1 (the permutohedral variety has class σ_{213} + σ_{132})
 /// let h = HessenbergFn::new(&[2, 3, 3]).unwrap();
-/// let t = coefficient_table(&h, &|_| true, &Progress::new(0)).unwrap();
+/// let t = coefficient_table_by_divsym(&h, &|_| true, &Progress::new(0)).unwrap();
 /// let values: Vec<String> = t.entries.iter().map(|e| format!("{}:{}", e.perm, e.value)).collect();
 /// assert_eq!(values, vec!["231:1", "312:1"]);
 /// ```
-pub fn coefficient_table(
+pub fn coefficient_table_by_divsym(
     h: &HessenbergFn,
     select: &(dyn Fn(usize) -> bool + Sync),
     progress: &Progress,
@@ -227,7 +227,7 @@ impl TransitionValues<'_> {
 }
 
 /// The reference method: S_w from [`SchubertTable`] (one memo per batch of neighbouring
-/// permutations), then DS_h term by term. Same arguments and result as [`coefficient_table`].
+/// permutations), then DS_h term by term. Same arguments and result as [`coefficient_table_by_divsym`].
 pub fn coefficient_table_by_polynomials(
     h: &HessenbergFn,
     select: &(dyn Fn(usize) -> bool + Sync),

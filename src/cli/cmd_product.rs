@@ -1,0 +1,56 @@
+//! `elbowroom product U V [--n N] [--json]`: the structure constants of
+//! S_u · S_v = Σ_w c^w_{uv} S_w, stably (w in the smallest S_m that holds it)
+//! or, with `--n N`, in H*(Fl_N) (w written with N entries). Terms by length,
+//! then lexicographically.
+
+use super::args::ProductArgs;
+use super::error::CliError;
+use super::expansion_text::{sum_text, terms_json};
+use super::interrupt;
+use super::json;
+use crate::math::Perm;
+use crate::math::schubert::product::schubert_product;
+use crate::math::schubert::vector::Space;
+use serde_json::json;
+
+/// Runs the command.
+pub fn run(args: &ProductArgs) -> Result<String, CliError> {
+    let u = Perm::parse(&args.u)?;
+    let v = Perm::parse(&args.v)?;
+    let space = match args.n {
+        None => Space::Stable,
+        Some(n) => {
+            let space = Space::flag(n)?;
+            for (name, w) in [("u", &u), ("v", &v)] {
+                if w.support_size() > n {
+                    return Err(CliError::Input(format!(
+                        "{name} = {w} does not lie in S_{n}; give --n of at least {}",
+                        w.support_size()
+                    )));
+                }
+            }
+            space
+        }
+    };
+    let product = interrupt::run_interruptible("the product", "steps", 0, |progress| {
+        schubert_product(&u, &v, space, progress)
+    })?;
+    let terms = product.sorted_terms();
+    let written = |w: &Perm| match args.n {
+        Some(n) => w.embed(n).unwrap_or_else(|_| w.clone()),
+        None => w.restrict(w.support_size()).unwrap_or_else(|| w.clone()),
+    };
+    let (u, v) = (written(&u), written(&v));
+    if args.json {
+        let mut doc = json!({
+            "u": u.one_line(),
+            "v": v.one_line(),
+            "terms": terms_json(&terms),
+        });
+        if let Some(n) = args.n {
+            doc["n"] = json!(n);
+        }
+        return Ok(json::render(&doc));
+    }
+    Ok(format!("S_{u} · S_{v} = {}", sum_text(&terms)))
+}
