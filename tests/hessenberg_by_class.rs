@@ -163,7 +163,7 @@ fn the_sweep_counts_catalan_many_functions_and_matches_per_h_tables() {
 fn sizes_are_refused_before_the_work() {
     // M(13, 39) permutations would be listed: far above the limit
     let h = HessenbergFn::parse("4,5,6,7,8,9,10,11,12,13,13,13,13", None).unwrap();
-    let listed = elbowroom::math::schubert::vector::mahonian_row(13)[h.dimension()];
+    let listed = elbowroom::math::perms::listing::mahonian_row(13)[h.dimension()];
     assert!(listed > CLASS_TABLE_LIMIT);
     let progress = go();
     match coefficient_table_by_class(&h, &|_| true, &progress) {

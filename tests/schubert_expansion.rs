@@ -3,15 +3,14 @@
 //! permutations, laws of the product, and agreement of the expansion methods.
 #![allow(clippy::unwrap_used)]
 
+use elbowroom::math::perms::listing::mahonian_row;
 use elbowroom::math::poly::parse::{parse_linear_factors, parse_poly};
 use elbowroom::math::schubert::expansion::{
     expand_linear_factors, expand_typed, expansion_by_divided_differences, schubert_expansion,
 };
 use elbowroom::math::schubert::polynomial::SchubertTable;
 use elbowroom::math::schubert::product::{product_by_polynomials, schubert_product};
-use elbowroom::math::schubert::vector::{
-    LinearForm, PackedPerm, SchubertVector, Space, mahonian_row,
-};
+use elbowroom::math::schubert::vector::{LinearForm, PackedPerm, SchubertVector, Space};
 use elbowroom::math::{IntPoly, MathError, Mono, Perm, PolyBuilder, Progress, RatPoly};
 use num_bigint::BigInt;
 use num_rational::BigRational;

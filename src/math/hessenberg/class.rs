@@ -24,11 +24,11 @@
 use crate::math::error::{MathError, MathResult};
 use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::hessenberg::table::{HessenbergTable, TableEntry};
+use crate::math::perms::listing::{for_each_of_length, mahonian_row};
 use crate::math::perms::perm::{MAX_N, Perm};
 use crate::math::progress::Progress;
 use crate::math::schubert::vector::{
     Coefficient, LinearForm, PackedPerm, SchubertVector, Space, StepError, StepResult, exactly,
-    mahonian_row,
 };
 use num_bigint::BigInt;
 
@@ -128,65 +128,6 @@ pub fn hessenberg_class(
         || class_in::<i128>(h, progress).map(|v| v.to_big()),
         || class_in::<BigInt>(h, progress),
     )
-}
-
-/// Calls `visit(index, w)` for every w in S_n of length `len`, in lexicographic order
-/// of one-line notation (that is, of Lehmer codes); stops at the first error.
-/// Recursion depth n ≤ 16.
-pub(crate) fn for_each_of_length(
-    n: usize,
-    len: usize,
-    visit: &mut dyn FnMut(usize, &[u8]) -> MathResult<()>,
-) -> MathResult<()> {
-    struct Walk<'a> {
-        n: usize,
-        code: Vec<usize>,
-        line: Vec<u8>,
-        index: usize,
-        visit: &'a mut dyn FnMut(usize, &[u8]) -> MathResult<()>,
-    }
-    fn go(walk: &mut Walk<'_>, i: usize, rest: usize, free: &mut Vec<u8>) -> MathResult<()> {
-        let n = walk.n;
-        if i == n {
-            if rest == 0 {
-                (walk.visit)(walk.index, &walk.line)?;
-                walk.index += 1;
-            }
-            return Ok(());
-        }
-        // c_i ≤ n − i (1-based i), and the later entries hold at most Σ_{k>i} (n − k)
-        let cap = n - 1 - i;
-        let later = if i + 2 <= n {
-            (n - 2 - i) * (n - 1 - i) / 2
-        } else {
-            0
-        };
-        for c in 0..=cap.min(rest) {
-            if rest - c > later {
-                continue;
-            }
-            let value = free.remove(c);
-            walk.code.push(c);
-            walk.line.push(value);
-            go(walk, i + 1, rest - c, free)?;
-            walk.line.pop();
-            walk.code.pop();
-            free.insert(c, value);
-        }
-        Ok(())
-    }
-    if n == 0 || len > n * (n - 1) / 2 {
-        return Ok(());
-    }
-    let mut walk = Walk {
-        n,
-        code: Vec::with_capacity(n),
-        line: Vec::with_capacity(n),
-        index: 0,
-        visit,
-    };
-    let mut free: Vec<u8> = (1..=n as u8).collect();
-    go(&mut walk, 0, len, &mut free)
 }
 
 /// Checks n and the listing size of a table of h; returns M(n, |h|).

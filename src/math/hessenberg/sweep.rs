@@ -17,10 +17,9 @@
 use crate::math::error::{MathError, MathResult};
 use crate::math::hessenberg::class::times_difference;
 use crate::math::hessenberg::function::HessenbergFn;
+use crate::math::perms::listing::mahonian_row;
 use crate::math::progress::Progress;
-use crate::math::schubert::vector::{
-    Coefficient, SchubertVector, Space, StepResult, exactly, mahonian_row,
-};
+use crate::math::schubert::vector::{Coefficient, SchubertVector, Space, StepResult, exactly};
 use num_bigint::BigInt;
 use num_traits::Zero;
 use rayon::prelude::*;

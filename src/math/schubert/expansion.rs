@@ -21,6 +21,7 @@
 //! otherwise. Coefficients are exact rationals.
 
 use crate::math::error::{MathError, MathResult};
+use crate::math::perms::listing::mahonian_row;
 use crate::math::perms::perm::{MAX_N, Perm};
 use crate::math::poly::mono::Mono;
 use crate::math::poly::parse::{LinearFactors, parse_linear_factors, parse_poly};
@@ -28,7 +29,7 @@ use crate::math::poly::polynomial::RatPoly;
 use crate::math::progress::Progress;
 use crate::math::schubert::polynomial::SchubertTable;
 use crate::math::schubert::vector::{
-    Coefficient, LinearForm, SchubertVector, Space, StepError, StepResult, exactly, mahonian_row,
+    Coefficient, LinearForm, SchubertVector, Space, StepError, StepResult, exactly,
 };
 use num_bigint::BigInt;
 use num_integer::Integer;

@@ -19,12 +19,14 @@
 //! The transition step here is a small private helper on packed permutations.
 
 use crate::math::error::{MathError, MathResult};
+use crate::math::perms::listing::mahonian_row;
 use crate::math::perms::perm::{MAX_N, Perm};
 use crate::math::progress::Progress;
 use crate::math::schubert::expansion::schubert_expansion;
 use crate::math::schubert::polynomial::SchubertTable;
+use crate::math::schubert::transition::{partners, pivot};
 use crate::math::schubert::vector::{
-    Coefficient, LinearForm, PackedPerm, SchubertVector, Space, StepResult, exactly, mahonian_row,
+    Coefficient, LinearForm, PackedPerm, SchubertVector, Space, StepResult, exactly,
 };
 use num_bigint::BigInt;
 use std::collections::{HashMap, HashSet};
@@ -41,23 +43,13 @@ pub const TRANSITION_NODE_LIMIT: usize = 2_000_000;
 /// `None` for the identity. Positions are 1-based.
 fn transition_step(x: PackedPerm) -> Option<(usize, PackedPerm, Vec<PackedPerm>)> {
     let m = x.support();
-    let v = x.values();
-    // r: the last descent (1-based)
-    let r = (1..m).rev().find(|&i| v[i - 1] > v[i])?;
-    let s = (r + 1..=m).rev().find(|&j| v[j - 1] < v[r - 1])?;
-    let xp = x.swapped(r, s);
+    let (r, s) = pivot(&x.values()[..m])?;
+    let xp = x.swapped(r + 1, s + 1);
     let w = xp.values();
-    let mut others = Vec::new();
-    let target = w[r - 1];
-    let mut floor = 0u8;
-    for q in (1..r).rev() {
-        let vq = w[q - 1];
-        if vq < target && vq > floor {
-            floor = vq;
-            others.push(xp.swapped(q, r));
-        }
-    }
-    Some((r, xp, others))
+    let others = partners(&w[..m], r)
+        .map(|q| xp.swapped(q + 1, r + 1))
+        .collect();
+    Some((r + 1, xp, others))
 }
 
 /// The permutations reached from u by transition, ordered so that each comes after

@@ -772,28 +772,6 @@ impl<C: Coefficient> Monk<C> {
     }
 }
 
-/// The Mahonian numbers of S_n: entry k is the number of w in S_n with ℓ(w) = k,
-/// the dimension of the degree-k part of H*(Fl_n) (OEIS A008302), for k = 0..=n(n−1)/2.
-///
-/// ```
-/// use elbowroom::math::schubert::vector::mahonian_row;
-/// assert_eq!(mahonian_row(4), vec![1, 3, 5, 6, 5, 3, 1]);
-/// ```
-pub fn mahonian_row(n: usize) -> Vec<u128> {
-    let mut row = vec![1u128];
-    for m in 2..=n {
-        // multiply by 1 + q + ... + q^{m-1}
-        let mut next = vec![0u128; row.len() + m - 1];
-        for (k, &c) in row.iter().enumerate() {
-            for slot in &mut next[k..k + m] {
-                *slot = slot.saturating_add(c);
-            }
-        }
-        row = next;
-    }
-    row
-}
-
 #[cfg(test)]
 mod tests {
     use super::*;
