@@ -1,5 +1,6 @@
 //! The `perm`, `words` and `dreams` commands, run as the real binary; values are
-//! checked against published counts (OEIS A005118, A000108) and Schubert polynomials.
+//! checked against published counts (OEIS A005118, A000108) and Schubert polynomials;
+//! and what any command does when its output cannot be written.
 #![allow(clippy::unwrap_used)]
 
 use serde_json::Value;
@@ -134,4 +135,24 @@ fn bad_input_exits_2_with_one_line() {
         assert!(out.is_empty(), "{args:?}: {out}");
         assert_eq!(err.trim_end().lines().count(), 1, "{args:?}: {err}");
     }
+}
+
+#[test]
+fn a_failed_write_is_an_error_not_a_success() {
+    // /dev/full refuses every write with ENOSPC, as a full disk does
+    let Ok(full) = std::fs::OpenOptions::new().write(true).open("/dev/full") else {
+        eprintln!("skipped: this system has no /dev/full");
+        return;
+    };
+    let out = std::process::Command::new(env!("CARGO_BIN_EXE_elbowroom"))
+        .args(["hessenberg", "--n", "6", "--json"])
+        .stdout(full)
+        .output()
+        .unwrap();
+    assert_eq!(out.status.code(), Some(1));
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(
+        err.starts_with("elbowroom: cannot write standard output:"),
+        "{err}"
+    );
 }

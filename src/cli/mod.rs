@@ -57,20 +57,31 @@ pub fn run(argv: Vec<OsString>) -> ExitCode {
         return ExitCode::from(2);
     };
     match execute(&command) {
-        Ok(out) => {
-            let mut stdout = std::io::stdout().lock();
-            // a closed pipe (for example `| head`) is not an error worth a panic
-            let _ = stdout.write_all(out.as_bytes());
-            if !out.ends_with('\n') {
-                let _ = stdout.write_all(b"\n");
+        Ok(out) => match write_stdout(&out) {
+            Ok(()) => ExitCode::SUCCESS,
+            // a closed pipe (for example `| head`) means the reader has what it wanted
+            Err(e) if e.kind() == std::io::ErrorKind::BrokenPipe => ExitCode::SUCCESS,
+            Err(e) => {
+                eprintln!("elbowroom: cannot write standard output: {e}");
+                ExitCode::from(1)
             }
-            ExitCode::SUCCESS
-        }
+        },
         Err(e) => {
             eprintln!("elbowroom: {}", e.message());
             ExitCode::from(e.exit_code())
         }
     }
+}
+
+/// Writes the command's output, ending in a newline, and flushes it: a
+/// failed write (a full disk, /dev/full) is an error, never a success.
+fn write_stdout(out: &str) -> std::io::Result<()> {
+    let mut stdout = std::io::stdout().lock();
+    stdout.write_all(out.as_bytes())?;
+    if !out.ends_with('\n') {
+        stdout.write_all(b"\n")?;
+    }
+    stdout.flush()
 }
 
 /// Runs a parsed command and returns what it prints.

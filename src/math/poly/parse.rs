@@ -34,6 +34,7 @@ pub fn parse_poly(text: &str, nvars: Option<usize>) -> MathResult<RatPoly> {
         pos: 0,
         nvars: width,
         declared,
+        depth: 0,
     };
     if p.tokens.len() == 1 {
         return Err(p.error_here("the input is empty; type a polynomial such as 2x1 x2 - 3/2 x3^2"));
@@ -101,6 +102,7 @@ pub fn parse_linear_factors(text: &str, nvars: Option<usize>) -> MathResult<Opti
         pos: 0,
         nvars: width,
         declared: nvars,
+        depth: 0,
     };
     if p.tokens.len() > 1
         && let Some((scalar, factors)) = p.factored_product(0)
@@ -324,12 +326,18 @@ fn decimal(s: &str) -> Option<BigRational> {
     Some(BigRational::new(num, den))
 }
 
+/// The deepest nesting of parentheses and signs the parser follows; deeper
+/// input is refused with a message instead of exhausting the stack.
+pub const MAX_NESTING: usize = 200;
+
 struct Parser<'a> {
     text: &'a str,
     tokens: Vec<Token>,
     pos: usize,
     nvars: usize,
     declared: Option<usize>,
+    /// How many parentheses and signs enclose the current position.
+    depth: usize,
 }
 
 impl Parser<'_> {
@@ -347,6 +355,23 @@ impl Parser<'_> {
             self.pos += 1;
         }
         t
+    }
+
+    /// Runs `inner` one level deeper, refusing input nested beyond [`MAX_NESTING`].
+    fn nested(
+        &mut self,
+        inner: impl FnOnce(&mut Self) -> MathResult<RatPoly>,
+    ) -> MathResult<RatPoly> {
+        if self.depth >= MAX_NESTING {
+            return Err(self.error_here(&format!(
+                "the input nests parentheses and signs more than {MAX_NESTING} deep; \
+                 write it with fewer"
+            )));
+        }
+        self.depth += 1;
+        let result = inner(self);
+        self.depth -= 1;
+        result
     }
 
     fn error_here(&self, expected: &str) -> MathError {
@@ -556,11 +581,11 @@ impl Parser<'_> {
     fn factor(&mut self) -> MathResult<RatPoly> {
         if matches!(self.peek(), Tok::Minus) {
             self.bump();
-            return Ok(self.factor()?.neg());
+            return self.nested(|p| Ok(p.factor()?.neg()));
         }
         if matches!(self.peek(), Tok::Plus) {
             self.bump();
-            return self.factor();
+            return self.nested(|p| p.factor());
         }
         let base = self.primary()?;
         if !matches!(self.peek(), Tok::Caret) {
@@ -626,7 +651,7 @@ impl Parser<'_> {
                 Ok(RatPoly::var_index(self.nvars, i - 1))
             }
             Tok::LParen => {
-                let inner = self.expr()?;
+                let inner = self.nested(|p| p.expr())?;
                 if !matches!(self.peek(), Tok::RParen) {
                     return Err(self.error_here("expected ')' to close the parenthesis"));
                 }
@@ -766,5 +791,17 @@ mod tests {
         assert!(parse_poly("x1^300", None).is_err());
         assert!(parse_poly("x17", None).is_err());
         assert!(parse_poly("(x1+x2+x3+x4+x5+x6+x7+x8+x9+x10+x11+x12)^200", None).is_err());
+    }
+
+    #[test]
+    fn deep_nesting_is_refused_not_followed() {
+        let deep = |k: usize| format!("{}x1{}", "(".repeat(k), ")".repeat(k));
+        assert_eq!(parse_poly(&deep(150), None).unwrap().to_text(), "x1");
+        for text in [deep(100_000), format!("{}x1", "-".repeat(60_000))] {
+            let e = parse_poly(&text, None).unwrap_err().to_string();
+            assert!(e.contains("more than 200 deep"), "{}", &e[..80]);
+        }
+        // the recognizer of products of linear forms falls back on the same parser
+        assert!(parse_linear_factors(&deep(100_000), Some(3)).is_err());
     }
 }
