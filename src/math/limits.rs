@@ -25,9 +25,11 @@ pub use crate::math::poly::polynomial::TERM_LIMIT;
 pub use crate::math::schubert::expansion::{EXPANSION_MONOMIAL_LIMIT, VECTOR_TERM_LIMIT};
 pub use crate::math::schubert::product::{PRODUCT_TERM_LIMIT, TRANSITION_NODE_LIMIT};
 
-/// The most characters a typed polynomial may have. A megabyte is far more
-/// than anyone types; the bound keeps lexing and error excerpts cheap.
-pub const TYPED_TEXT_LIMIT: usize = 1_000_000;
+/// The most characters a typed polynomial may have (on the command line, in
+/// the explorer, in a session file). Linux passes at most 128 KiB in one
+/// argument; 200 000 characters is above that and far above anything typed,
+/// and reading that much takes well under a second.
+pub const TYPED_TEXT_LIMIT: usize = 200_000;
 
 /// The most terms a typed polynomial may expand to while it is read (a power
 /// of a sum, a product of sums). 200 000 terms of big rationals take tens of
@@ -40,10 +42,14 @@ pub const TYPED_TERM_LIMIT: u128 = 200_000;
 /// would have 2.5 million).
 pub const TYPED_DIGIT_LIMIT: u64 = 100_000;
 
-/// The most coefficient products one multiplication may take while a typed
-/// polynomial is read (terms of one factor times terms of the other): about
-/// a second of big-rational arithmetic.
-pub const TYPED_PRODUCT_LIMIT: u128 = 10_000_000;
+/// The most coefficient products one multiplication, or one power (all the
+/// products of its squaring chain, estimated before the first), may take
+/// while a typed polynomial is read. A product of big rationals into the
+/// sum took about 8 µs in the debug build (a million products, 8 s), so
+/// 400 000 keeps reading within a few seconds there and well under one in
+/// a release build. `(x1 + x2 + x3 + x4)^20` (1 771 terms) is inside;
+/// `(x1 + x2 + x3 + x4)^100` is refused at once.
+pub const TYPED_PRODUCT_LIMIT: u128 = 400_000;
 
 /// The most monomials DS_h(f) may have: DS_h(f) is symmetric of degree
 /// deg f − dim, so it has at most C(deg f − dim + n − 1, n − 1) monomials

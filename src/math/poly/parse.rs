@@ -13,7 +13,7 @@ use crate::math::limits::{
     QUOTE_LIMIT, TYPED_DIGIT_LIMIT, TYPED_PRODUCT_LIMIT, TYPED_TERM_LIMIT, TYPED_TEXT_LIMIT, monomials_up_to_degree,
 };
 use crate::math::poly::mono::{MAX_EXP, MAX_VARS};
-use crate::math::poly::polynomial::RatPoly;
+use crate::math::poly::polynomial::{PolyBuilder, RatPoly};
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::{One, Zero};
@@ -419,7 +419,9 @@ impl Parser<'_> {
 
     /// expr := ['+'|'-'] term (('+'|'-') term)*
     fn expr(&mut self) -> MathResult<RatPoly> {
-        let mut acc = RatPoly::zero(self.nvars);
+        // the terms are gathered in a builder, so a long sum costs its length, not its square
+        let mut acc = PolyBuilder::new(self.nvars);
+        let minus_one = -BigRational::one();
         let mut first = true;
         loop {
             let negate = match self.peek() {
@@ -432,11 +434,20 @@ impl Parser<'_> {
                     true
                 }
                 _ if first => false,
-                _ => return Ok(acc),
+                _ => return Ok(acc.build()),
             };
             first = false;
             let t = self.term()?;
-            acc = if negate { acc.sub(&t) } else { acc.add(&t) };
+            if negate {
+                acc.add_scaled(&t, &minus_one);
+            } else {
+                acc.add_poly(&t);
+            }
+            if acc.len() as u128 > TYPED_TERM_LIMIT {
+                return Err(self.error_here(&format!(
+                    "the sum has more than {TYPED_TERM_LIMIT} terms, the most a typed polynomial may have"
+                )));
+            }
         }
     }
 
@@ -688,7 +699,7 @@ impl Parser<'_> {
                 at,
                 &format!(
                     "multiplying polynomials of {} and {} terms takes {products} coefficient products; \
-                     a typed polynomial may take at most {TYPED_PRODUCT_LIMIT} per product",
+                     a typed polynomial may take at most {TYPED_PRODUCT_LIMIT}",
                     a.len(),
                     b.len()
                 ),
@@ -714,10 +725,35 @@ impl Parser<'_> {
     fn power(&self, base: &RatPoly, k: u32, at: usize) -> MathResult<RatPoly> {
         let t = base.len() as u64;
         let d = u64::from(base.degree());
+        // terms of base^j are at most min(C(j + t − 1, t − 1), C(j·d + n, n))
+        let terms_of = |j: u64| {
+            crate::math::limits::binomial(j + t - 1, t - 1)
+                .min(monomials_up_to_degree(d.saturating_mul(j), self.nvars as u64))
+        };
         if t > 1 && k > 1 {
-            let bound = crate::math::limits::binomial(u64::from(k) + t - 1, t - 1).min(
-                monomials_up_to_degree(d.saturating_mul(u64::from(k)), self.nvars as u64),
-            );
+            let bound = terms_of(u64::from(k));
+            // the products of the squaring chain, estimated before any is taken
+            let (mut work, mut have, mut j, mut rest) = (0u128, 0u64, 1u64, k);
+            while rest > 0 {
+                if rest & 1 == 1 {
+                    work = work.saturating_add(terms_of(have).saturating_mul(terms_of(j)));
+                    have += j;
+                }
+                rest >>= 1;
+                if rest > 0 {
+                    work = work.saturating_add(terms_of(j).saturating_mul(terms_of(j)));
+                    j *= 2;
+                }
+            }
+            if work > TYPED_PRODUCT_LIMIT {
+                return Err(syntax(
+                    self.text,
+                    at,
+                    &format!(
+                        "the power takes about {work} coefficient products; a typed polynomial may take at most {TYPED_PRODUCT_LIMIT}"
+                    ),
+                ));
+            }
             if bound > TYPED_TERM_LIMIT {
                 return Err(syntax(
                     self.text,
