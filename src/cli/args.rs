@@ -467,7 +467,10 @@ pub fn whole_count(text: &str) -> Result<usize, String> {
 pub fn finite_number(text: &str) -> Result<f32, String> {
     match text.trim().parse::<f32>() {
         Ok(v) if v.is_finite() => Ok(v),
-        _ => Err(format!("must be a finite number such as 4 or 2.5; got {}", quoted(text))),
+        _ => Err(format!(
+            "must be a finite number such as 4 or 2.5; got {}",
+            quoted(text)
+        )),
     }
 }
 

@@ -14,9 +14,7 @@ use crate::math::Progress;
 use crate::math::RatPoly;
 use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize};
 use crate::math::hessenberg::function::HessenbergFn;
-use crate::math::limits::{
-    DIVSYM_PRODUCT_LIMIT, DIVSYM_TERM_LIMIT, binomial, monomials_of_degree,
-};
+use crate::math::limits::{DIVSYM_PRODUCT_LIMIT, DIVSYM_TERM_LIMIT, binomial, monomials_of_degree};
 use crate::math::poly::parse::parse_poly;
 use serde_json::{Value, json};
 use std::sync::Arc;

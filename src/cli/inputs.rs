@@ -27,7 +27,11 @@ pub fn hessenberg_from_args(n: usize, h: Option<&str>) -> Result<HessenbergFn, C
 /// Parses `l1,...,ln` (commas or spaces between the entries), each entry an
 /// exact rational as [`parse_rational`] reads it.
 pub fn parse_lambda(text: &str) -> Result<Vec<BigRational>, CliError> {
-    let parts = entries(text, "--lambda", "λ_1,...,λ_n as rationals, for example 3,1/2,0")?;
+    let parts = entries(
+        text,
+        "--lambda",
+        "λ_1,...,λ_n as rationals, for example 3,1/2,0",
+    )?;
     if parts.len() > crate::math::MAX_N {
         return Err(CliError::Input(format!(
             "--lambda has {} entries; λ has 1 to {} entries",
@@ -69,7 +73,9 @@ pub fn entries<'a>(text: &'a str, name: &str, accepted: &str) -> Result<Vec<&'a 
             } else {
                 format!("has an empty entry (entry {} of {})", k + 1, pieces.len())
             };
-            return Err(CliError::Input(format!("{name} {problem}; give {accepted}")));
+            return Err(CliError::Input(format!(
+                "{name} {problem}; give {accepted}"
+            )));
         }
         out.extend(piece.split_whitespace());
     }
@@ -88,7 +94,10 @@ mod tests {
         assert!(parse_lambda(" , ").is_err());
         for bad in ["1,,2", "1,2,", ",1", ""] {
             let e = parse_lambda(bad).map_err(|e| e.message().to_string());
-            assert!(e.as_ref().is_err_and(|m| m.contains("empty")), "{bad:?}: {e:?}");
+            assert!(
+                e.as_ref().is_err_and(|m| m.contains("empty")),
+                "{bad:?}: {e:?}"
+            );
         }
         assert!(parse_lambda(&vec!["1"; 17].join(",")).is_err());
         assert_eq!(

@@ -27,8 +27,8 @@
 
 use super::error::SessionError;
 use super::model::Session;
-use serde::{Deserialize, Serialize};
 use crate::math::limits::RON_NESTING_LIMIT;
+use serde::{Deserialize, Serialize};
 use std::path::Path;
 
 /// The value of the `format` field of every session file.
@@ -201,8 +201,14 @@ fn lower_first(text: &str) -> String {
 fn plain(text: &str) -> String {
     let mut t = text.replace("r#", "");
     for (inner, outer) in [
-        ("struct `Header`", "an elbowroom session `(format: \"elbowroom-session\", version: 1, session: (...))`"),
-        ("struct `FileV1`", "an elbowroom session `(format: \"elbowroom-session\", version: 1, session: (...))`"),
+        (
+            "struct `Header`",
+            "an elbowroom session `(format: \"elbowroom-session\", version: 1, session: (...))`",
+        ),
+        (
+            "struct `FileV1`",
+            "an elbowroom session `(format: \"elbowroom-session\", version: 1, session: (...))`",
+        ),
         ("`FileV1`", "the session file"),
         ("`Header`", "the session file"),
         ("usize", "a whole number 0, 1, 2, ..."),

@@ -3,9 +3,7 @@
 
 use super::model::Session;
 use crate::math::MAX_N;
-use crate::math::limits::{
-    FIGURE_INDEX_LIMIT, QUOTE_LIMIT, SESSION_LIST_LIMIT, TYPED_TEXT_LIMIT,
-};
+use crate::math::limits::{FIGURE_INDEX_LIMIT, QUOTE_LIMIT, SESSION_LIST_LIMIT, TYPED_TEXT_LIMIT};
 use crate::math::perms::class::PermClass;
 use crate::math::poly::rational::parse_rational;
 

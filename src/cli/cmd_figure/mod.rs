@@ -85,12 +85,16 @@ fn export_options(args: &FigureArgs) -> Result<ExportOptions, CliError> {
 
 /// Refuses a PNG larger than [`FIGURE_PIXEL_LIMIT`] pixels (or wider or higher
 /// than the writer's side limit) before anything is drawn: bad input, exit 2.
-fn check_pixels(scene: &Scene, path: &std::path::Path, opts: &ExportOptions) -> Result<(), CliError> {
+fn check_pixels(
+    scene: &Scene,
+    path: &std::path::Path,
+    opts: &ExportOptions,
+) -> Result<(), CliError> {
     if !matches!(Format::from_path(path), Ok(Format::Png)) {
         return Ok(());
     }
-    let (w, h) = crate::figure::png::pixel_size(scene, opts)
-        .map_err(|e| CliError::Input(format!("{e}")))?;
+    let (w, h) =
+        crate::figure::png::pixel_size(scene, opts).map_err(|e| CliError::Input(format!("{e}")))?;
     let pixels = u64::from(w) * u64::from(h);
     if pixels > FIGURE_PIXEL_LIMIT {
         return Err(CliError::Input(format!(

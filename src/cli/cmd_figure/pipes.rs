@@ -9,8 +9,8 @@ use crate::figure::dream::dream_scene;
 use crate::figure::look::Look;
 use crate::math::limits::BUMPLESS_LISTING_LIMIT;
 use crate::math::pipes::bumpless::bumpless_dreams;
-use num_bigint::BigUint;
 use crate::math::pipes::dream::{count_pipe_dreams, pipe_dreams};
+use num_bigint::BigUint;
 
 /// The reduced pipe dreams picked, in enumeration order.
 pub fn dreams(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {

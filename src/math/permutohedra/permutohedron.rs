@@ -315,7 +315,7 @@ mod tests {
 
 /// The least common multiple of the denominators of `values`.
 fn common_denominator(values: &[BigRational]) -> BigInt {
-    values
-        .iter()
-        .fold(BigInt::one(), |acc, v| num_integer::Integer::lcm(&acc, v.denom()))
+    values.iter().fold(BigInt::one(), |acc, v| {
+        num_integer::Integer::lcm(&acc, v.denom())
+    })
 }

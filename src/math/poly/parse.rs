@@ -10,7 +10,8 @@
 
 use crate::math::error::{MathError, MathResult};
 use crate::math::limits::{
-    QUOTE_LIMIT, TYPED_DIGIT_LIMIT, TYPED_PRODUCT_LIMIT, TYPED_TERM_LIMIT, TYPED_TEXT_LIMIT, monomials_up_to_degree,
+    QUOTE_LIMIT, TYPED_DIGIT_LIMIT, TYPED_PRODUCT_LIMIT, TYPED_TERM_LIMIT, TYPED_TEXT_LIMIT,
+    monomials_up_to_degree,
 };
 use crate::math::poly::mono::{MAX_EXP, MAX_VARS};
 use crate::math::poly::polynomial::{PolyBuilder, RatPoly};
@@ -194,7 +195,9 @@ fn syntax(text: &str, at: usize, expected: &str) -> MathError {
     let (from, to) = if chars.len() <= QUOTE_LIMIT {
         (0, chars.len())
     } else {
-        let from = at.saturating_sub(QUOTE_LIMIT / 2).min(chars.len() - QUOTE_LIMIT);
+        let from = at
+            .saturating_sub(QUOTE_LIMIT / 2)
+            .min(chars.len() - QUOTE_LIMIT);
         (from, from + QUOTE_LIMIT)
     };
     let cut = |s: String| {
@@ -348,7 +351,9 @@ fn decimal(s: &str) -> Option<BigRational> {
         None => (s, ""),
     };
     // as the rational reader: a point needs a digit after it (`1.` is refused)
-    if frac.contains('.') || (s.contains('.') && frac.is_empty()) || int.is_empty() && frac.is_empty()
+    if frac.contains('.')
+        || (s.contains('.') && frac.is_empty())
+        || int.is_empty() && frac.is_empty()
     {
         return None;
     }
@@ -727,8 +732,10 @@ impl Parser<'_> {
         let d = u64::from(base.degree());
         // terms of base^j are at most min(C(j + t − 1, t − 1), C(j·d + n, n))
         let terms_of = |j: u64| {
-            crate::math::limits::binomial(j + t - 1, t - 1)
-                .min(monomials_up_to_degree(d.saturating_mul(j), self.nvars as u64))
+            crate::math::limits::binomial(j + t - 1, t - 1).min(monomials_up_to_degree(
+                d.saturating_mul(j),
+                self.nvars as u64,
+            ))
         };
         if t > 1 && k > 1 {
             let bound = terms_of(u64::from(k));
