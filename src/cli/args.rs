@@ -56,6 +56,7 @@ pub enum Command {
 #[derive(Args, Debug)]
 pub struct PermArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4 (commas needed for n >= 10).
+    #[arg(allow_hyphen_values = true)]
     pub perm: String,
     /// Print one JSON object instead of text.
     #[arg(long)]
@@ -66,6 +67,7 @@ pub struct PermArgs {
 #[derive(Args, Debug)]
 pub struct SchubertArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4.
+    #[arg(allow_hyphen_values = true)]
     pub perm: String,
     /// Print one JSON object instead of text.
     #[arg(long)]
@@ -79,9 +81,10 @@ pub struct SchubertArgs {
 #[derive(Args, Debug)]
 pub struct WordsArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4.
+    #[arg(allow_hyphen_values = true)]
     pub perm: String,
     /// List at most this many words (the first ones in lexicographic order).
-    #[arg(long, default_value_t = 1000)]
+    #[arg(long, default_value_t = 1000, allow_hyphen_values = true, value_parser = whole_count)]
     pub limit: usize,
     /// Only count; list no words.
     #[arg(long)]
@@ -95,9 +98,10 @@ pub struct WordsArgs {
 #[derive(Args, Debug)]
 pub struct DreamsArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4.
+    #[arg(allow_hyphen_values = true)]
     pub perm: String,
     /// List at most this many dreams.
-    #[arg(long, default_value_t = 1000)]
+    #[arg(long, default_value_t = 1000, allow_hyphen_values = true, value_parser = whole_count)]
     pub limit: usize,
     /// Only count; list no dreams.
     #[arg(long)]
@@ -114,12 +118,13 @@ pub struct DreamsArgs {
 #[derive(Args, Debug)]
 pub struct DivsymArgs {
     /// The polynomial f, for example "x1^2 x3 - 3/2 x2^3" (x1 or x_1; + - * ^ / and parentheses).
+    #[arg(allow_hyphen_values = true)]
     pub poly: String,
     /// The number of variables n.
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: usize,
     /// A Hessenberg function h(1),...,h(n) (default h(i) = i+1, i.e. DS_n).
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true)]
     pub h: Option<String>,
     /// Print one JSON object instead of text.
     #[arg(long)]
@@ -130,13 +135,13 @@ pub struct DivsymArgs {
 #[derive(Args, Debug)]
 pub struct HessenbergArgs {
     /// The number of variables n.
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: usize,
     /// A Hessenberg function h(1),...,h(n) (default h(i) = i+1 for i < n).
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true)]
     pub h: Option<String>,
     /// Compute only piece K of N (K/N): the permutations at listing positions i with i mod N = K-1.
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true)]
     pub shard: Option<String>,
     /// Summarise the table of every Hessenberg function of n (Catalan(n) of
     /// them): dimension, total, nonzero entries, maximum, negative entries.
@@ -154,7 +159,7 @@ pub struct ExpandArgs {
     #[arg(allow_hyphen_values = true)]
     pub poly: String,
     /// The number of variables N: the class in H*(Fl_N), or the stable expansion in Q[x1..xN].
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: usize,
     /// The expansion in Q[x1..xN] over S_∞ instead of its image in H*(Fl_N).
     #[arg(long)]
@@ -168,11 +173,13 @@ pub struct ExpandArgs {
 #[derive(Args, Debug)]
 pub struct ProductArgs {
     /// The permutation u: 132, "1 3 2" or 1,3,2.
+    #[arg(allow_hyphen_values = true)]
     pub u: String,
     /// The permutation v.
+    #[arg(allow_hyphen_values = true)]
     pub v: String,
     /// Multiply in H*(Fl_N) instead of stably (u and v must lie in S_N).
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: Option<usize>,
     /// Print one JSON object instead of text.
     #[arg(long)]
@@ -197,7 +204,7 @@ pub struct VolumeArgs {
 #[derive(Args, Debug)]
 pub struct EulerianArgs {
     /// The number of variables n (compositions of n-1 into n-1 parts).
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: usize,
     /// How to print the table.
     #[command(flatten)]
@@ -244,7 +251,7 @@ pub struct MergeArgs {
 #[derive(Args, Debug)]
 pub struct QuotientArgs {
     /// The number of variables n (1 to 8).
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: usize,
     /// Print one JSON object instead of text.
     #[arg(long)]
@@ -258,9 +265,10 @@ pub struct QuotientArgs {
 #[derive(Args, Debug)]
 pub struct ReduceArgs {
     /// The polynomial, e.g. "x1^2 x2 - 3/2 x3" or "M(2,1) + F(1,1)".
+    #[arg(allow_hyphen_values = true)]
     pub poly: String,
     /// The number of variables n (1 to 8).
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: usize,
     /// Print one JSON object instead of text.
     #[arg(long)]
@@ -271,7 +279,13 @@ pub struct ReduceArgs {
 #[derive(Args, Debug)]
 pub struct SurveyArgs {
     /// Survey all of S_n (1 <= n <= 8).
-    #[arg(long, conflicts_with = "perm", required_unless_present = "perm")]
+    #[arg(
+        long,
+        conflicts_with = "perm",
+        required_unless_present = "perm",
+        allow_hyphen_values = true,
+        value_parser = whole_n
+    )]
     pub n: Option<usize>,
     /// Survey one permutation, e.g. 2143.
     #[arg(long)]
@@ -290,9 +304,9 @@ pub struct SurveyArgs {
 /// Arguments of `elbowroom session`.
 #[derive(Args, Debug)]
 pub struct SessionArgs {
-    /// What to do with the session file.
+    /// What to do with the session file (none: the usage is printed, exit status 2).
     #[command(subcommand)]
-    pub action: SessionAction,
+    pub action: Option<SessionAction>,
 }
 
 /// What `elbowroom session` does.
@@ -363,7 +377,7 @@ pub struct FigureArgs {
     /// The permutation (dream, bumpless, wiring, paths): 1432, "1 4 3 2" or 1,4,3,2.
     pub perm: Option<String>,
     /// Which one to draw, 0-based in enumeration order (pipe dreams) or lexicographic order (words).
-    #[arg(long, default_value_t = 0)]
+    #[arg(long, default_value_t = 0, allow_hyphen_values = true, value_parser = whole_count)]
     pub index: usize,
     /// Draw every pipe dream (or word) of w; --out is then a directory.
     #[arg(long, conflicts_with = "index")]
@@ -375,10 +389,10 @@ pub struct FigureArgs {
     #[arg(long, value_enum, default_value = "svg")]
     pub format: FormatArg,
     /// PNG pixels per point (default 4).
-    #[arg(long, conflicts_with = "dpi")]
+    #[arg(long, conflicts_with = "dpi", allow_hyphen_values = true, value_parser = finite_number)]
     pub scale: Option<f32>,
     /// PNG resolution in dots per inch (72 dpi = scale 1).
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true, value_parser = finite_number)]
     pub dpi: Option<f32>,
     /// Leave out the background.
     #[arg(long)]
@@ -390,36 +404,115 @@ pub struct FigureArgs {
     #[arg(long)]
     pub no_labels: bool,
     /// wiring: draw this reduced word (letters 1..n-1, e.g. 121 or 1,2,1) instead of one of w's.
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true)]
     pub word: Option<String>,
     /// paths: the polynomial to reduce instead of the reversed Schubert polynomial.
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true)]
     pub poly: Option<String>,
     /// paths: the number of variables for --poly (1 to 8).
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: Option<usize>,
     /// paths: panels per row (default: about the square root of their number).
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_count)]
     pub columns: Option<usize>,
     /// permutohedron: λ_1,...,λ_n (rationals, n <= 5).
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true)]
     pub lambda: Option<String>,
     /// permutohedron: turn about the vertical axis, in radians.
-    #[arg(long, default_value_t = 0.6, allow_negative_numbers = true)]
+    #[arg(long, default_value_t = 0.6, allow_hyphen_values = true, value_parser = finite_angle)]
     pub yaw: f32,
     /// permutohedron: tilt about the horizontal axis, in radians.
-    #[arg(long, default_value_t = 0.35, allow_negative_numbers = true)]
+    #[arg(long, default_value_t = 0.35, allow_hyphen_values = true, value_parser = finite_angle)]
     pub pitch: f32,
     /// volume: the start λ_a of the segment.
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true)]
     pub from: Option<String>,
     /// volume: the end λ_b of the segment.
-    #[arg(long)]
+    #[arg(long, allow_hyphen_values = true)]
     pub to: Option<String>,
     /// volume: the number of intervals sampled on the segment (1 to 400).
-    #[arg(long, default_value_t = 24)]
+    #[arg(long, default_value_t = 24, allow_hyphen_values = true, value_parser = whole_count)]
     pub samples: usize,
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
+}
+
+/// `--n`: a whole number from 1 to [`crate::math::MAX_N`], with a message
+/// that says so for anything else (`-1`, `x`, `17`).
+pub fn whole_n(text: &str) -> Result<usize, String> {
+    let max = crate::math::MAX_N;
+    match text.trim().parse::<usize>() {
+        Ok(n) if (1..=max).contains(&n) => Ok(n),
+        _ => Err(format!(
+            "--n must be a whole number from 1 to {max}; got {}",
+            quoted(text)
+        )),
+    }
+}
+
+/// A count or a position (`--limit`, `--index`, `--columns`, `--samples`):
+/// a whole number 0, 1, 2, ...
+pub fn whole_count(text: &str) -> Result<usize, String> {
+    text.trim().parse::<usize>().map_err(|_| {
+        format!(
+            "must be a whole number 0, 1, 2, ... (at most {}); got {}",
+            usize::MAX,
+            quoted(text)
+        )
+    })
+}
+
+/// `--scale`, `--dpi`: a finite number (its range is checked where it is used).
+pub fn finite_number(text: &str) -> Result<f32, String> {
+    match text.trim().parse::<f32>() {
+        Ok(v) if v.is_finite() => Ok(v),
+        _ => Err(format!(
+            "must be a finite number such as 4 or 2.5; got {}",
+            quoted(text)
+        )),
+    }
+}
+
+/// `--yaw`, `--pitch`: a finite angle in radians, at most 10^6 in size.
+pub fn finite_angle(text: &str) -> Result<f32, String> {
+    match text.trim().parse::<f32>() {
+        Ok(v) if v.is_finite() && v.abs() <= 1.0e6 => Ok(v),
+        _ => Err(format!(
+            "must be a finite angle in radians such as 0.6 or -1.2 (|angle| <= 1000000); got {}",
+            quoted(text)
+        )),
+    }
+}
+
+/// A typed value as quoted in a message: a short excerpt of a long one.
+fn quoted(text: &str) -> String {
+    let limit = crate::math::limits::QUOTE_LIMIT;
+    if text.trim().is_empty() {
+        "nothing".into()
+    } else if text.chars().count() <= limit {
+        text.to_string()
+    } else {
+        format!("{}…", text.chars().take(limit).collect::<String>())
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn numbers_are_read_with_their_range() {
+        assert_eq!(whole_n("4"), Ok(4));
+        assert_eq!(
+            whole_n("-1"),
+            Err("--n must be a whole number from 1 to 16; got -1".into())
+        );
+        assert!(whole_n("17").is_err() && whole_n("0").is_err() && whole_n("x").is_err());
+        assert_eq!(whole_count("0"), Ok(0));
+        assert!(whole_count("-3").is_err());
+        assert!(finite_angle("NaN").is_err() && finite_angle("inf").is_err());
+        assert_eq!(finite_angle("-0.5"), Ok(-0.5));
+        assert!(finite_number("nan").is_err());
+    }
 }

@@ -1,18 +1,31 @@
 //! `elbowroom divsym POLY --n N [--h ...]`: the divided symmetrization DS_h(f).
+//!
+//! Sized before it starts ([`check_budget`]): the monomials of the answer and
+//! the terms of f·Q_h it goes through. The computation runs on its own thread
+//! while this one watches for Ctrl-C, so an interrupt is answered at once with
+//! a message and exit status 130.
 
 use super::args::DivsymArgs;
 use super::error::CliError;
 use super::inputs::hessenberg_from_args;
+use super::interrupt;
 use super::json;
-use crate::math::hessenberg::divsym::divided_symmetrize;
+use crate::math::Progress;
+use crate::math::RatPoly;
+use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize};
+use crate::math::hessenberg::function::HessenbergFn;
+use crate::math::limits::{DIVSYM_PRODUCT_LIMIT, DIVSYM_TERM_LIMIT, binomial, monomials_of_degree};
 use crate::math::poly::parse::parse_poly;
 use serde_json::{Value, json};
+use std::sync::Arc;
+use std::time::Duration;
 
 /// Runs the command.
 pub fn run(args: &DivsymArgs) -> Result<String, CliError> {
     let h = hessenberg_from_args(args.n, args.h.as_deref())?;
     let f = parse_poly(&args.poly, Some(args.n))?;
-    let ds = divided_symmetrize(&f, &h)?;
+    check_budget(&f, &h)?;
+    let ds = interruptible(&f, &h)?;
     if args.json {
         let symmetric: Vec<Value> = ds
             .symmetric
@@ -50,4 +63,69 @@ pub fn run(args: &DivsymArgs) -> Result<String, CliError> {
         out.push_str(&format!("  = {}\n", parts.join(" + ")));
     }
     Ok(out)
+}
+
+/// Refuses DS_h(f) before it starts when its answer could have more than
+/// [`DIVSYM_TERM_LIMIT`] monomials (it is symmetric of degree deg f − dim, so
+/// at most C(deg f − dim + n − 1, n − 1) of them), or when f·Q_h could have
+/// more than [`DIVSYM_PRODUCT_LIMIT`] terms (terms(f) times
+/// min(2^k, C(k + n − 1, n − 1)) for the k factors of Q_h).
+pub fn check_budget(f: &RatPoly, h: &HessenbergFn) -> Result<(), CliError> {
+    let n = h.n() as u64;
+    let dim = h.dimension() as u64;
+    let degree = u64::from(f.degree());
+    if !f.is_zero() && degree > dim {
+        let monomials = monomials_of_degree(degree - dim, n);
+        if monomials > DIVSYM_TERM_LIMIT {
+            return Err(CliError::Input(format!(
+                "DS_h(f) is symmetric of degree {} in {n} variables and may have {monomials} monomials; at most {DIVSYM_TERM_LIMIT} are accepted",
+                degree - dim
+            )));
+        }
+    }
+    let needs_q = degree > dim || (degree == dim && !h.is_default());
+    if needs_q {
+        let k = h.complement_pairs().len() as u64;
+        let q_terms = if k >= 127 {
+            u128::MAX
+        } else {
+            (1u128 << k).min(binomial(k + n - 1, n - 1))
+        };
+        let product = (f.len() as u128).saturating_mul(q_terms);
+        if product > DIVSYM_PRODUCT_LIMIT {
+            return Err(CliError::Input(format!(
+                "DS_h(f) goes through f·Q_h: {} terms of f times up to {q_terms} terms of Q_h is {product}; at most {DIVSYM_PRODUCT_LIMIT} are accepted",
+                f.len()
+            )));
+        }
+    }
+    Ok(())
+}
+
+/// DS_h(f) on a thread of its own while this thread watches for Ctrl-C: an
+/// interrupt returns at once (the process then exits, ending the thread).
+fn interruptible(f: &RatPoly, h: &HessenbergFn) -> Result<DividedSymmetrization, CliError> {
+    let progress = Arc::new(Progress::new(1));
+    let _watch = interrupt::watch(progress.clone());
+    let (send, receive) = std::sync::mpsc::channel();
+    let (f, h) = (f.clone(), h.clone());
+    std::thread::spawn(move || {
+        let _ = send.send(divided_symmetrize(&f, &h));
+    });
+    loop {
+        match receive.recv_timeout(Duration::from_millis(20)) {
+            Ok(result) => return Ok(result?),
+            Err(std::sync::mpsc::RecvTimeoutError::Timeout) if progress.is_canceled() => {
+                return Err(CliError::Canceled(
+                    "divided symmetrization canceled; no output written".into(),
+                ));
+            }
+            Err(std::sync::mpsc::RecvTimeoutError::Timeout) => {}
+            Err(std::sync::mpsc::RecvTimeoutError::Disconnected) => {
+                return Err(CliError::Failed(
+                    "the divided symmetrization stopped without an answer".into(),
+                ));
+            }
+        }
+    }
 }

@@ -10,7 +10,10 @@ use serde_json::json;
 /// Runs `elbowroom session ...`.
 pub fn run(args: &SessionArgs) -> Result<String, CliError> {
     match &args.action {
-        SessionAction::Check(a) => check(a),
+        Some(SessionAction::Check(a)) => check(a),
+        None => Err(CliError::Input(
+            "session needs an action; usage: elbowroom session check FILE [--json]".into(),
+        )),
     }
 }
 

@@ -3,6 +3,7 @@
 
 use super::error::CliError;
 use crate::math::hessenberg::function::HessenbergFn;
+use crate::math::permutohedra::permutohedron::Permutohedron;
 use crate::math::poly::rational::parse_rational;
 use num_rational::BigRational;
 
@@ -15,7 +16,10 @@ pub fn hessenberg_from_args(n: usize, h: Option<&str>) -> Result<HessenbergFn, C
         )));
     }
     Ok(match h {
-        Some(text) => HessenbergFn::parse(text, Some(n))?,
+        Some(text) => {
+            entries(text, "--h", "h(1),...,h(n), for example 2,3,4,4")?;
+            HessenbergFn::parse(text, Some(n))?
+        }
         None => HessenbergFn::default_for(n)?,
     })
 }
@@ -23,16 +27,59 @@ pub fn hessenberg_from_args(n: usize, h: Option<&str>) -> Result<HessenbergFn, C
 /// Parses `l1,...,ln` (commas or spaces between the entries), each entry an
 /// exact rational as [`parse_rational`] reads it.
 pub fn parse_lambda(text: &str) -> Result<Vec<BigRational>, CliError> {
-    let parts: Vec<&str> = text.split([',', ' ']).filter(|s| !s.is_empty()).collect();
-    if parts.is_empty() {
-        return Err(CliError::Input(
-            "--lambda is empty; give λ_1,...,λ_n as rationals, for example 3,1/2,0".into(),
-        ));
+    let parts = entries(
+        text,
+        "--lambda",
+        "λ_1,...,λ_n as rationals, for example 3,1/2,0",
+    )?;
+    if parts.len() > crate::math::MAX_N {
+        return Err(CliError::Input(format!(
+            "--lambda has {} entries; λ has 1 to {} entries",
+            parts.len(),
+            crate::math::MAX_N
+        )));
     }
     parts
         .iter()
         .map(|p| parse_rational(p).map_err(CliError::from))
         .collect()
+}
+
+/// Refuses a volume computation whose numbers would have more than
+/// [`crate::math::limits::VOLUME_DIGIT_LIMIT`] digits (the estimate is
+/// [`Permutohedron::volume_digit_estimate`], plus `extra` digits).
+pub fn check_volume_size(p: &Permutohedron, extra: u64, what: &str) -> Result<(), CliError> {
+    let limit = crate::math::limits::VOLUME_DIGIT_LIMIT;
+    let digits = p.volume_digit_estimate().saturating_add(extra);
+    if digits > limit {
+        return Err(CliError::Input(format!(
+            "{what} at n = {} works with numbers of about {digits} digits ((n − 1) times the digits of λ over a common denominator); at most {limit} are accepted",
+            p.n()
+        )));
+    }
+    Ok(())
+}
+
+/// The entries of a list typed as `a,b,c` or `a b c` (or both): between two
+/// commas, and before or after one, there must be an entry (`1,,2` and `1,2,`
+/// are refused rather than read as 1,2).
+pub fn entries<'a>(text: &'a str, name: &str, accepted: &str) -> Result<Vec<&'a str>, CliError> {
+    let mut out = Vec::new();
+    let pieces: Vec<&str> = text.split(',').collect();
+    for (k, piece) in pieces.iter().enumerate() {
+        if piece.trim().is_empty() {
+            let problem = if pieces.len() == 1 {
+                "is empty".to_string()
+            } else {
+                format!("has an empty entry (entry {} of {})", k + 1, pieces.len())
+            };
+            return Err(CliError::Input(format!(
+                "{name} {problem}; give {accepted}"
+            )));
+        }
+        out.extend(piece.split_whitespace());
+    }
+    Ok(out)
 }
 
 #[cfg(test)]
@@ -45,6 +92,14 @@ mod tests {
         let shown: Vec<String> = l.iter().map(|v| v.to_string()).collect();
         assert_eq!(shown, ["3", "1/2", "-1", "1/4"]);
         assert!(parse_lambda(" , ").is_err());
+        for bad in ["1,,2", "1,2,", ",1", ""] {
+            let e = parse_lambda(bad).map_err(|e| e.message().to_string());
+            assert!(
+                e.as_ref().is_err_and(|m| m.contains("empty")),
+                "{bad:?}: {e:?}"
+            );
+        }
+        assert!(parse_lambda(&vec!["1"; 17].join(",")).is_err());
         assert_eq!(
             parse_lambda("1,x").map_err(|e| e.message().to_string()),
             Err("'x' is not a rational number; accepted: integers, fractions p/q and decimals (3, -3/2, 0.25)".into())

@@ -1,6 +1,7 @@
 //! `elbowroom FILE`: a single argument naming a session file opens it in the
 //! explorer. This decides whether the command line is such a call, without
-//! taking any command name away from the headless commands.
+//! taking any command name away from the headless commands; and
+//! [`read_text`] is the bounded reader for the files commands read.
 
 use super::args::Cli;
 use clap::CommandFactory;
@@ -31,6 +32,15 @@ pub fn session_file_argument(argv: &[OsString]) -> Option<PathBuf> {
         .extension()
         .is_some_and(|e| e.eq_ignore_ascii_case(crate::session::format::EXTENSION));
     (named_as_session || path.is_file()).then_some(path)
+}
+
+/// Reads a text file a command was given (a JSON piece, a session), refusing
+/// what is not a regular file or is larger than
+/// [`crate::math::limits::FILE_SIZE_LIMIT`] before reading it: bad input, exit 2.
+pub fn read_text(path: &std::path::Path) -> Result<String, super::error::CliError> {
+    crate::session::store::read_bounded(path).map_err(|reason| {
+        super::error::CliError::Input(format!("cannot read {}: {reason}", path.display()))
+    })
 }
 
 #[cfg(test)]

@@ -6,7 +6,8 @@
 //! Grouped by subject, each group a module; arrows run only downward in this
 //! list (a module uses the ones above it, never one below):
 //!
-//! 1. [`error`], [`progress`]: the shared error type and progress/cancel.
+//! 1. [`error`], [`progress`]: the shared error type and progress/cancel;
+//!    [`limits`]: every limit of the mathematics, in one place.
 //! 2. [`perms`]: permutations, their classes, reduced words, listings.
 //! 3. [`poly`]: monomials, polynomials, compositions, quasisymmetric and
 //!    symmetric polynomials, and the parser of typed polynomials.
@@ -17,6 +18,7 @@
 //! 8. [`permutohedra`]: permutohedron volumes and mixed Eulerian numbers.
 
 pub mod error;
+pub mod limits;
 pub mod progress;
 
 pub mod perms;

@@ -27,6 +27,7 @@
 
 use super::error::SessionError;
 use super::model::Session;
+use crate::math::limits::RON_NESTING_LIMIT;
 use serde::{Deserialize, Serialize};
 use std::path::Path;
 
@@ -44,9 +45,22 @@ pub const EXTENSION: &str = "ron";
 struct Header {
     #[serde(default)]
     format: String,
-    /// 0 when absent: versions start at 1.
-    #[serde(default)]
-    version: u32,
+    /// `None` when absent; versions start at 1 (0 or a negative number is no version).
+    #[serde(default, deserialize_with = "present")]
+    version: Option<i64>,
+}
+
+/// A version written as a plain number (`version: 1`) read as present.
+fn present<'de, D: serde::Deserializer<'de>>(d: D) -> Result<Option<i64>, D::Error> {
+    i64::deserialize(d).map(Some)
+}
+
+/// Reads RON with the nesting of brackets limited to [`RON_NESTING_LIMIT`],
+/// so a file of a hundred thousand `(` is refused instead of exhausting the stack.
+fn read_ron<'a, T: Deserialize<'a>>(text: &'a str) -> Result<T, ron::error::SpannedError> {
+    ron::Options::default()
+        .with_recursion_limit(RON_NESTING_LIMIT)
+        .from_str(text)
 }
 
 /// Version 1 of the file: the header and the session.
@@ -86,7 +100,7 @@ pub fn decode(text: &str, path: &Path) -> Result<Session, SessionError> {
 
 /// [`decode`], also returning the format version the file was written in.
 pub fn decode_with_version(text: &str, path: &Path) -> Result<(Session, u32), SessionError> {
-    let header: Header = ron::from_str(text).map_err(|e| syntax(path, text, &e))?;
+    let header: Header = read_ron(text).map_err(|e| syntax(path, text, &e))?;
     match header.format.as_str() {
         FORMAT_NAME => {}
         "" => {
@@ -103,22 +117,24 @@ pub fn decode_with_version(text: &str, path: &Path) -> Result<(Session, u32), Se
         }
     }
     match header.version {
-        0 => Err(SessionError::NotASession {
+        None => Err(SessionError::NotASession {
             path: path.into(),
             reason: "it has no `version` field".into(),
         }),
-        1 => {
-            let file: FileV1 = ron::from_str(text).map_err(|e| syntax(path, text, &e))?;
+        Some(1) => {
+            let file: FileV1 = read_ron(text).map_err(|e| syntax(path, text, &e))?;
             Ok((file.session, 1))
         }
-        v if v > CURRENT_VERSION => Err(SessionError::NewerVersion {
+        Some(v) if v > i64::from(CURRENT_VERSION) => Err(SessionError::NewerVersion {
             path: path.into(),
-            found: v,
+            found: u32::try_from(v).unwrap_or(u32::MAX),
             supported: CURRENT_VERSION,
         }),
-        v => Err(SessionError::NotASession {
+        Some(v) => Err(SessionError::NotASession {
             path: path.into(),
-            reason: format!("format version {v} is unknown"),
+            reason: format!(
+                "its format version is {v}; versions are whole numbers from 1 (this build reads 1 to {CURRENT_VERSION})"
+            ),
         }),
     }
 }
@@ -137,21 +153,87 @@ fn syntax(path: &Path, text: &str, e: &ron::error::SpannedError) -> SessionError
     }
 }
 
-/// RON's message, with a plainer word for the end of a truncated file.
+/// What went wrong, in the words of a session file rather than of the RON
+/// library or of this program's types.
 fn explain(code: &ron::Error) -> String {
+    use ron::Error as E;
     match code {
-        ron::Error::Eof | ron::Error::ExpectedStringEnd => {
-            "the file ends too early (is it truncated?)".into()
+        E::Eof | E::ExpectedStringEnd => "the file ends too early (is it truncated?)".into(),
+        E::ExceededRecursionLimit => format!(
+            "brackets nest more than {RON_NESTING_LIMIT} deep here; a session file nests four deep"
+        ),
+        E::MissingStructField { field, .. } => format!("the field `{field}` is missing here"),
+        E::DuplicateStructField { field, .. } => format!("the field `{field}` appears twice"),
+        E::NoSuchEnumVariant {
+            expected, found, ..
+        } => format!(
+            "`{}` is not accepted here; accepted: {}",
+            plain(found),
+            expected.join(", ")
+        ),
+        E::InvalidValueForType { expected, found } => {
+            format!("expected {} here, found {}", plain(expected), plain(found))
         }
-        other => {
-            // the header's type name means nothing to a reader: say what it is
-            let text = other.to_string().replace(
-                "struct `Header`",
-                "an elbowroom session `(format: \"elbowroom-session\", version: 1, session: (...))`",
-            );
-            format!("{} here", text.trim_end_matches('.'))
+        E::IntegerOutOfBounds => "this number is too large for its field".into(),
+        E::ExpectedDifferentStructName { .. } | E::ExpectedNamedStructLike(_) => {
+            "expected `(` here: a session file is `(format: \"elbowroom-session\", version: 1, session: (...))`".into()
         }
+        E::TrailingCharacters => "there is more text after the end of the session".into(),
+        E::Message(m) => format!("{} here", lower_first(&plain(m)).trim_end_matches('.')),
+        other => format!(
+            "{} here",
+            lower_first(&plain(&other.to_string())).trim_end_matches('.')
+        ),
     }
+}
+
+/// RON starts its messages with a capital; ours continue a sentence.
+fn lower_first(text: &str) -> String {
+    let mut chars = text.chars();
+    match chars.next() {
+        Some(c) => c.to_lowercase().chain(chars).collect(),
+        None => String::new(),
+    }
+}
+
+/// A message with the program's own type names and RON's raw-identifier
+/// marks replaced by what a reader of the file sees.
+fn plain(text: &str) -> String {
+    let mut t = text.replace("r#", "");
+    for (inner, outer) in [
+        (
+            "struct `Header`",
+            "an elbowroom session `(format: \"elbowroom-session\", version: 1, session: (...))`",
+        ),
+        (
+            "struct `FileV1`",
+            "an elbowroom session `(format: \"elbowroom-session\", version: 1, session: (...))`",
+        ),
+        ("`FileV1`", "the session file"),
+        ("`Header`", "the session file"),
+        ("usize", "a whole number 0, 1, 2, ..."),
+        ("u32", "a whole number 0, 1, 2, ..."),
+        ("i64", "a whole number"),
+        ("f32", "a number"),
+        ("a sequence", "a list `[...]`"),
+    ] {
+        t = t.replace(inner, outer);
+    }
+    for name in [
+        "Session",
+        "BrowserPlace",
+        "DreamPlace",
+        "WordPlace",
+        "QuotientPlace",
+        "PermutohedronPlace",
+        "HessenbergPlace",
+        "WorkbenchPlace",
+        "FigureSettings",
+    ] {
+        t = t.replace(&format!("struct `{name}`"), "a group of fields `(...)`");
+        t = t.replace(&format!(" in `{name}`"), "");
+    }
+    t
 }
 
 /// The name of the field written as `name:` on `line` before `column`, if any.

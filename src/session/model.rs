@@ -169,7 +169,7 @@ pub struct HessenbergPlace {
     pub h: Vec<usize>,
     /// The column the table is sorted by; `None` (not chosen yet) sorts by w.
     /// Stored as the column's key (`"perm"`, `"length"`, `"value"`) or `""`
-    /// for `None`; an unknown key reads as `None`.
+    /// for `None`; an unknown key is refused with the keys accepted.
     #[serde(with = "sort_key")]
     pub sort_by: Option<SortColumn>,
     /// Sort descending.
@@ -218,7 +218,14 @@ mod sort_key {
 
     pub fn deserialize<'de, D: Deserializer<'de>>(d: D) -> Result<Option<SortColumn>, D::Error> {
         let key = String::deserialize(d)?;
-        Ok(SortColumn::from_key(&key))
+        if key.is_empty() {
+            return Ok(None);
+        }
+        SortColumn::from_key(&key).map(Some).ok_or_else(|| {
+            serde::de::Error::custom(format!(
+                "the sort key \"{key}\" is not known; accepted: \"perm\", \"length\", \"value\" or \"\""
+            ))
+        })
     }
 }
 

@@ -30,10 +30,12 @@ pub fn push(path: &Path) -> Result<(), SessionError> {
 
 /// [`load`] in a given directory.
 pub fn load_in(dir: &Path) -> Vec<PathBuf> {
-    let Ok(text) = fs::read_to_string(dir.join(RECENT_FILE)) else {
+    let Ok(text) = super::store::read_bounded(&dir.join(RECENT_FILE)) else {
         return Vec::new();
     };
-    let Ok(list) = ron::from_str::<Vec<PathBuf>>(&text) else {
+    let reader =
+        ron::Options::default().with_recursion_limit(crate::math::limits::RON_NESTING_LIMIT);
+    let Ok(list) = reader.from_str::<Vec<PathBuf>>(&text) else {
         return Vec::new();
     };
     list.into_iter().filter(|p| p.is_file()).collect()

@@ -12,6 +12,7 @@ use super::format;
 use super::model::Session;
 use super::validate;
 use crate::atomic_write;
+use crate::math::limits::FILE_SIZE_LIMIT;
 use std::fs;
 use std::path::{Path, PathBuf};
 
@@ -34,11 +35,51 @@ pub fn load_str(text: &str, path: &Path) -> Result<Session, SessionError> {
 
 /// [`load`], also returning the format version the file was written in.
 pub fn load_with_version(path: &Path) -> Result<(Session, u32), SessionError> {
-    let text = fs::read_to_string(path).map_err(|e| SessionError::Read {
+    let text = read_bounded(path).map_err(|reason| SessionError::Read {
         path: path.into(),
-        reason: e.to_string(),
+        reason,
     })?;
     load_str_with_version(&text, path)
+}
+
+/// Reads a text file of at most [`FILE_SIZE_LIMIT`] bytes. A path that is
+/// not a regular file (a directory, `/dev/zero`, a pipe) or a larger file is
+/// refused before anything is read, and at most one byte past the limit is
+/// ever read, so a file that grows while it is read is refused too. The
+/// error is the reason, in one line.
+pub fn read_bounded(path: &Path) -> Result<String, String> {
+    use std::io::Read;
+    let meta = fs::metadata(path).map_err(|e| e.to_string())?;
+    if !meta.is_file() {
+        return Err(if meta.is_dir() {
+            "it is a directory, not a file".into()
+        } else {
+            "it is not a regular file (a device, a pipe or a socket)".into()
+        });
+    }
+    let too_large = |size: u64| {
+        format!(
+            "it is {size} bytes; files of at most {FILE_SIZE_LIMIT} bytes ({} MB) are read",
+            FILE_SIZE_LIMIT / (1024 * 1024)
+        )
+    };
+    if meta.len() > FILE_SIZE_LIMIT {
+        return Err(too_large(meta.len()));
+    }
+    let file = fs::File::open(path).map_err(|e| e.to_string())?;
+    let mut bytes = Vec::with_capacity(usize::try_from(meta.len()).unwrap_or(0));
+    file.take(FILE_SIZE_LIMIT + 1)
+        .read_to_end(&mut bytes)
+        .map_err(|e| e.to_string())?;
+    if bytes.len() as u64 > FILE_SIZE_LIMIT {
+        return Err(too_large(bytes.len() as u64));
+    }
+    String::from_utf8(bytes).map_err(|e| {
+        format!(
+            "it is not UTF-8 text (byte {} is not part of a character); a session file is RON text",
+            e.utf8_error().valid_up_to() + 1
+        )
+    })
 }
 
 fn load_str_with_version(text: &str, path: &Path) -> Result<(Session, u32), SessionError> {

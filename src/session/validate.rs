@@ -3,6 +3,9 @@
 
 use super::model::Session;
 use crate::math::MAX_N;
+use crate::math::limits::{FIGURE_INDEX_LIMIT, QUOTE_LIMIT, SESSION_LIST_LIMIT, TYPED_TEXT_LIMIT};
+use crate::math::perms::class::PermClass;
+use crate::math::poly::rational::parse_rational;
 
 /// Why a session is impossible: the first problem found, as one sentence.
 pub fn check(session: &Session) -> Result<(), String> {
@@ -25,6 +28,14 @@ pub fn check(session: &Session) -> Result<(), String> {
             session.current
         ));
     }
+    for (name, list) in [("history", &session.history), ("pins", &session.pins)] {
+        if list.len() > SESSION_LIST_LIMIT {
+            return Err(format!(
+                "{name} has {} entries; at most {SESSION_LIST_LIMIT} are kept",
+                list.len()
+            ));
+        }
+    }
     for (k, w) in session.history.iter().enumerate() {
         check_listed("history", k, w)?;
     }
@@ -39,6 +50,35 @@ pub fn check(session: &Session) -> Result<(), String> {
         check_listed("pins", k, w)?;
     }
     check_hessenberg(&session.hessenberg.h)?;
+    check_browser(session)?;
+    for (name, index) in [
+        ("dreams.index", session.dreams.index),
+        ("words.index", session.words.index),
+    ] {
+        if index > FIGURE_INDEX_LIMIT {
+            return Err(format!(
+                "{name} = {index}; positions go from 0 to {FIGURE_INDEX_LIMIT}"
+            ));
+        }
+    }
+    for (name, text) in [
+        ("quotient.typed", &session.quotient.typed),
+        ("workbench.poly", &session.workbench.poly),
+    ] {
+        let len = text.chars().count();
+        if len > TYPED_TEXT_LIMIT {
+            return Err(format!(
+                "{name} is {len} characters long; a typed polynomial has at most {TYPED_TEXT_LIMIT}"
+            ));
+        }
+    }
+    for (name, entries) in [
+        ("solid.lambda", &session.solid.lambda),
+        ("solid.from", &session.solid.from),
+        ("solid.to", &session.solid.to),
+    ] {
+        check_rationals(name, entries)?;
+    }
     let scale = session.figure.scale;
     if !(scale.is_finite() && scale > 0.0 && scale <= 64.0) {
         return Err(format!(
@@ -52,6 +92,72 @@ pub fn check(session: &Session) -> Result<(), String> {
         if !v.is_finite() {
             return Err(format!("{name} = {v} is not a finite angle"));
         }
+    }
+    Ok(())
+}
+
+/// λ as typed in the permutohedron view: at most [`MAX_N`] entries, each an
+/// exact rational as the view reads it (or empty, a field being typed).
+fn check_rationals(name: &str, entries: &[String]) -> Result<(), String> {
+    if entries.len() > MAX_N {
+        return Err(format!(
+            "{name} has {} entries; λ has at most {MAX_N}",
+            entries.len()
+        ));
+    }
+    for (k, text) in entries.iter().enumerate() {
+        if text.trim().is_empty() {
+            continue;
+        }
+        if text.chars().count() > QUOTE_LIMIT * 10 {
+            return Err(format!(
+                "{name}[{k}] is {} characters long; an entry has at most {}",
+                text.chars().count(),
+                QUOTE_LIMIT * 10
+            ));
+        }
+        if let Err(e) = parse_rational(text) {
+            return Err(format!("{name}[{k}]: {e}"));
+        }
+    }
+    Ok(())
+}
+
+/// The browser's filter: lengths within 0..=n(n−1)/2 for n <= [`MAX_N`]
+/// (smallest first), and a class named by its key.
+fn check_browser(session: &Session) -> Result<(), String> {
+    let b = &session.browser;
+    let top = MAX_N * (MAX_N - 1) / 2;
+    for (name, v) in [
+        ("browser.min_length", b.min_length),
+        ("browser.max_length", b.max_length),
+    ] {
+        if let Some(v) = v
+            && v > top
+        {
+            return Err(format!(
+                "{name} = {v}; lengths go from 0 to {top} (the length of w0 in S_{MAX_N})"
+            ));
+        }
+    }
+    if let (Some(lo), Some(hi)) = (b.min_length, b.max_length)
+        && lo > hi
+    {
+        return Err(format!(
+            "browser.min_length = {lo} is larger than browser.max_length = {hi}"
+        ));
+    }
+    if let Some(key) = &b.class
+        && PermClass::from_key(key).is_none()
+    {
+        let keys: Vec<String> = PermClass::ALL
+            .iter()
+            .map(|c| format!("\"{}\"", c.key()))
+            .collect();
+        return Err(format!(
+            "browser.class = \"{key}\" is not a class; accepted: {} (or leave it out)",
+            keys.join(", ")
+        ));
     }
     Ok(())
 }

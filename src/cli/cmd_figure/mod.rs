@@ -34,6 +34,7 @@ use super::json;
 use crate::figure::Scene;
 use crate::figure::export::{self, ExportOptions, Format};
 use crate::figure::look::Look;
+use crate::math::limits::FIGURE_PIXEL_LIMIT;
 use serde_json::json;
 use std::path::PathBuf;
 
@@ -54,6 +55,9 @@ pub fn run(args: &FigureArgs) -> Result<String, CliError> {
     let figures = scenes(args, &look)?;
     prepare_out(args)?;
     let mut written: Vec<Written> = Vec::with_capacity(figures.len());
+    for (_, name, scene) in &figures {
+        check_pixels(scene, &file_path(args, name), &opts)?;
+    }
     for (index, name, scene) in &figures {
         let path = file_path(args, name);
         export::write(scene, &path, &opts).map_err(|e| CliError::Failed(e.to_string()))?;
@@ -77,6 +81,27 @@ fn export_options(args: &FigureArgs) -> Result<ExportOptions, CliError> {
         scale,
         transparent: args.transparent,
     })
+}
+
+/// Refuses a PNG larger than [`FIGURE_PIXEL_LIMIT`] pixels (or wider or higher
+/// than the writer's side limit) before anything is drawn: bad input, exit 2.
+fn check_pixels(
+    scene: &Scene,
+    path: &std::path::Path,
+    opts: &ExportOptions,
+) -> Result<(), CliError> {
+    if !matches!(Format::from_path(path), Ok(Format::Png)) {
+        return Ok(());
+    }
+    let (w, h) =
+        crate::figure::png::pixel_size(scene, opts).map_err(|e| CliError::Input(format!("{e}")))?;
+    let pixels = u64::from(w) * u64::from(h);
+    if pixels > FIGURE_PIXEL_LIMIT {
+        return Err(CliError::Input(format!(
+            "the PNG would be {w} × {h} = {pixels} pixels; at most {FIGURE_PIXEL_LIMIT} are accepted: lower --scale or --dpi"
+        )));
+    }
+    Ok(())
 }
 
 /// The scenes of the figure kind asked for.

@@ -7,6 +7,7 @@ use crate::cli::args::FigureArgs;
 use crate::cli::error::CliError;
 use crate::figure::Scene;
 use crate::math::Perm;
+use crate::math::limits::FIGURE_INDEX_LIMIT;
 
 /// The most files one `--all` writes.
 pub const MAX_FILES: usize = 2000;
@@ -47,6 +48,12 @@ pub fn pick<T>(
             )));
         }
         return Ok(v);
+    }
+    if args.index > FIGURE_INDEX_LIMIT {
+        return Err(CliError::Input(format!(
+            "--index {} is past the {FIGURE_INDEX_LIMIT} {what} a figure walks through; give an index from 0 to {FIGURE_INDEX_LIMIT}",
+            args.index
+        )));
     }
     let mut items = items;
     match items.nth(args.index) {

@@ -3,11 +3,12 @@
 use super::Figure;
 use crate::cli::args::FigureArgs;
 use crate::cli::error::CliError;
-use crate::cli::inputs::parse_lambda;
+use crate::cli::inputs::{check_volume_size, parse_lambda};
 use crate::cli::interrupt;
 use crate::figure::look::Look;
 use crate::figure::volume::volume_plot_scene;
 use crate::math::Progress;
+use crate::math::permutohedra::permutohedron::Permutohedron;
 use crate::math::permutohedra::permutohedron::rational_to_f64;
 use crate::math::permutohedra::segment::volume_along_segment;
 use std::sync::Arc;
@@ -35,6 +36,13 @@ pub fn plot(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
             a.len(),
             b.len()
         )));
+    }
+    if let (Ok(pa), Ok(pb)) = (Permutohedron::new(&a), Permutohedron::new(&b)) {
+        // the points (1 − t)A + tB, t = k/M, have both ends and M in their digits
+        let n = a.len() as u64;
+        let extra =
+            pb.volume_digit_estimate() + n.saturating_sub(1) * (args.samples.ilog10() as u64 + 1);
+        check_volume_size(&pa, extra, "the volume along the segment")?;
     }
     // exact volumes, converted to floats only for drawing; Ctrl-C stops between samples
     let progress = Arc::new(Progress::new(0));

@@ -82,6 +82,12 @@ impl Perm {
         let has_sep = trimmed.contains([',', ' ', '\t']);
         let mut values = Vec::new();
         if has_sep {
+            // between two commas there must be an entry: `1,,2` is not 12
+            if trimmed.split(',').any(|piece| piece.trim().is_empty()) {
+                return Err(MathError::InvalidPermutation(format!(
+                    "'{text}' has an empty entry between commas; accepted: 31524, 3 1 5 2 4 or 3,1,5,2,4"
+                )));
+            }
             for tok in trimmed.split([',', ' ', '\t']).filter(|t| !t.is_empty()) {
                 let v: usize = tok.parse().map_err(|_| {
                     MathError::InvalidPermutation(format!(

@@ -80,6 +80,7 @@ impl MonomialIndex {
             }
             let row = &self.up[d][t * n..t * n + k];
             for &target in row {
+                // no overflow: the coefficients of Π y_k^{c_k} sum to Π k^{c_k} <= 15^15 < 2^64
                 to[target as usize] += c;
             }
         }
@@ -109,7 +110,7 @@ pub fn mixed_eulerian_numbers(
     let count = weak_composition_count(top as u64, top as u64);
     progress.set_total(count);
     let index = MonomialIndex::new(n)?;
-    let last = values_times_last_part(&index, &PostnikovFunctional::new(n));
+    let last = values_times_last_part(&index, &PostnikovFunctional::new(n))?;
     if top == 1 {
         let mut out = Vec::new();
         walk(
@@ -147,7 +148,12 @@ fn weak_composition_count(total: u64, parts: u64) -> u64 {
 
 /// last[k][t] = DS_n(x^a y_{n-1}^k) for the t-th monomial a of degree
 /// n − 1 − k: the values that fold the last part of c into one lookup.
-fn values_times_last_part(index: &MonomialIndex, ds: &PostnikovFunctional) -> Vec<Vec<i128>> {
+/// Sums are checked: a sum beyond i128 is an error (it does not occur for
+/// n <= 16, where the values stay below 10^30).
+fn values_times_last_part(
+    index: &MonomialIndex,
+    ds: &PostnikovFunctional,
+) -> MathResult<Vec<Vec<i128>>> {
     let n = index.n;
     let top = n - 1;
     let mut last: Vec<Vec<i128>> = Vec::with_capacity(n);
@@ -160,17 +166,22 @@ fn values_times_last_part(index: &MonomialIndex, ds: &PostnikovFunctional) -> Ve
     for k in 1..=top {
         let d = top - k;
         let prev = &last[k - 1];
-        let row: Vec<i128> = (0..index.by_degree[d].len())
+        let row: Option<Vec<i128>> = (0..index.by_degree[d].len())
             .map(|t| {
                 index.up[d][t * n..t * n + (n - 1)]
                     .iter()
-                    .map(|&u| prev[u as usize])
-                    .sum()
+                    .try_fold(0i128, |acc, &u| acc.checked_add(prev[u as usize]))
             })
             .collect();
+        let Some(row) = row else {
+            return Err(MathError::OutOfRange(format!(
+                "a value DS_n(x^a y_{}^{k}) at n = {n} exceeds the 128-bit range",
+                n - 1
+            )));
+        };
         last.push(row);
     }
-    last
+    Ok(last)
 }
 
 /// Every A_c with first part c_1, walked depth-first from y_1^{c_1} = x_1^{c_1}.
@@ -217,15 +228,9 @@ fn walk(
         // the last part c_{n-1} = top - degree is folded into last[c_{n-1}]
         let k = top - degree;
         let table = &last[k];
-        let mut total: i128 = 0;
-        for (t, &c) in poly.iter().enumerate() {
-            if c != 0 {
-                total += i128::from(c) * table[t];
-            }
-        }
         let mut c = prefix.clone();
         c.push(k as u32);
-        out.push((c, BigInt::from(total)));
+        out.push((c, fold_last_part(&poly, table)));
         progress.advance(1);
         return Ok(());
     }
@@ -246,6 +251,28 @@ fn walk(
         prefix.pop();
     }
     Ok(())
+}
+
+/// Σ_t poly[t] · table[t] in checked i128, redone in big integers if a step overflows.
+fn fold_last_part(poly: &[u64], table: &[i128]) -> BigInt {
+    let mut total: i128 = 0;
+    for (t, &c) in poly.iter().enumerate() {
+        if c == 0 {
+            continue;
+        }
+        let Some(next) = i128::from(c)
+            .checked_mul(table[t])
+            .and_then(|v| total.checked_add(v))
+        else {
+            return poly
+                .iter()
+                .zip(table)
+                .map(|(&c, &v)| BigInt::from(c) * BigInt::from(v))
+                .sum();
+        };
+        total = next;
+    }
+    BigInt::from(total)
 }
 
 /// A_c = DS_n(y_1^{c_1} ... y_{n-1}^{c_{n-1}}) for one composition, by expanding the
@@ -278,6 +305,15 @@ pub fn mixed_eulerian_number(c: &[u32]) -> MathResult<BigInt> {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn the_fold_agrees_in_big_integers_past_the_128_bit_range() {
+        let poly = [u64::MAX, 3, 0];
+        let table = [i128::MAX / 2, -7, 5];
+        let expected = BigInt::from(u64::MAX) * BigInt::from(i128::MAX / 2) - BigInt::from(21);
+        assert_eq!(fold_last_part(&poly, &table), expected);
+        assert_eq!(fold_last_part(&[2, 3], &[5, -1]), BigInt::from(7));
+    }
 
     #[test]
     fn the_count_of_weak_compositions_is_the_length_of_their_listing() {

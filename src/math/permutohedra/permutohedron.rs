@@ -68,6 +68,18 @@ impl Permutohedron {
         if n == 1 {
             return BigRational::one();
         }
+        // over a common denominator L: Vol P_λ = Vol P_{Lλ} / L^{n-1}, and the
+        // programme then runs on integers (no growing denominators to reduce)
+        let common = common_denominator(&self.lambda);
+        if !common.is_one() {
+            let scaled: Vec<BigRational> = self
+                .lambda
+                .iter()
+                .map(|l| l * BigRational::from_integer(common.clone()))
+                .collect();
+            let integral = Permutohedron { lambda: scaled }.volume();
+            return integral / BigRational::from_integer(num_traits::pow(common, n - 1));
+        }
         let top = n - 1;
         // weights[i][a] = λ_{i+1}^a / a!
         let weights: Vec<Vec<BigRational>> = self
@@ -134,6 +146,20 @@ impl Permutohedron {
             total += v;
         }
         total
+    }
+
+    /// About how many decimal digits the numbers of [`Self::volume`] reach:
+    /// (n − 1) times the digits of the largest entry of λ over a common
+    /// denominator (the volume is homogeneous of degree n − 1 in λ).
+    pub fn volume_digit_estimate(&self) -> u64 {
+        let common = BigRational::from_integer(common_denominator(&self.lambda));
+        let largest = self
+            .lambda
+            .iter()
+            .map(|l| (l * &common).to_integer().bits())
+            .max()
+            .unwrap_or(0);
+        (self.n() as u64 - 1).max(1) * (largest * 3 / 10 + 1)
     }
 
     /// The number of distinct vertices, n! / Π (multiplicity of each value)!.
@@ -285,4 +311,11 @@ mod tests {
         let poly = volume_polynomial(5).unwrap();
         assert_eq!(poly.eval(&lambda), p.volume());
     }
+}
+
+/// The least common multiple of the denominators of `values`.
+fn common_denominator(values: &[BigRational]) -> BigInt {
+    values.iter().fold(BigInt::one(), |acc, v| {
+        num_integer::Integer::lcm(&acc, v.denom())
+    })
 }

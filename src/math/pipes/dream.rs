@@ -436,6 +436,41 @@ fn transition_count(w: &[u8], memo: &mut HashMap<Vec<u8>, BigUint>) -> BigUint {
     total
 }
 
+/// A bound on the number of terms of S_w, found without building it: the
+/// smaller of S_w(1, ..., 1) (the number of reduced pipe dreams, each giving
+/// one monomial) and the number of exponent vectors of degree ℓ(w) under the
+/// staircase, a_i <= n − i (every monomial of S_w divides x^δ, Macdonald (4.13)
+/// from memory). Saturates at `u128::MAX`.
+///
+/// ```
+/// use elbowroom::math::{Perm, pipes::dream::term_bound, schubert::polynomial::schubert};
+/// let w = Perm::parse("1432").unwrap();
+/// assert!(term_bound(&w) >= schubert(&w).len() as u128);
+/// assert_eq!(term_bound(&w), 5);
+/// ```
+pub fn term_bound(w: &Perm) -> u128 {
+    let dreams = u128::try_from(count_pipe_dreams(w)).unwrap_or(u128::MAX);
+    let n = w.n();
+    let l = w.length();
+    // ways[s] = number of (a_1..a_i) with a_j <= n − j and sum s
+    let mut ways = vec![0u128; l + 1];
+    ways[0] = 1;
+    for i in 1..=n {
+        let cap = n - i;
+        let mut next = vec![0u128; l + 1];
+        for (s, &v) in ways.iter().enumerate() {
+            if v == 0 {
+                continue;
+            }
+            for a in 0..=cap.min(l - s) {
+                next[s + a] = next[s + a].saturating_add(v);
+            }
+        }
+        ways = next;
+    }
+    dreams.min(ways[l])
+}
+
 /// The number of reduced pipe dreams of w as the coefficient sum of S_w (a
 /// second method, through the polynomial).
 pub fn count_pipe_dreams_by_polynomial(w: &Perm) -> BigUint {

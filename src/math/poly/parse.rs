@@ -9,8 +9,12 @@
 //! quotes the input and marks the column; reading never panics.
 
 use crate::math::error::{MathError, MathResult};
+use crate::math::limits::{
+    QUOTE_LIMIT, TYPED_DIGIT_LIMIT, TYPED_PRODUCT_LIMIT, TYPED_TERM_LIMIT, TYPED_TEXT_LIMIT,
+    monomials_up_to_degree,
+};
 use crate::math::poly::mono::{MAX_EXP, MAX_VARS};
-use crate::math::poly::polynomial::RatPoly;
+use crate::math::poly::polynomial::{PolyBuilder, RatPoly};
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::{One, Zero};
@@ -25,6 +29,7 @@ use num_traits::{One, Zero};
 /// assert!(parse_poly("2x1 + * x3", Some(3)).is_err());
 /// ```
 pub fn parse_poly(text: &str, nvars: Option<usize>) -> MathResult<RatPoly> {
+    check_length(text)?;
     let tokens = lex(text)?;
     let declared = nvars;
     let width = width_of(&tokens, nvars)?;
@@ -91,6 +96,7 @@ impl LinearFactors {
 /// assert!(parse_linear_factors("x5", Some(4)).is_err());
 /// ```
 pub fn parse_linear_factors(text: &str, nvars: Option<usize>) -> MathResult<Option<LinearFactors>> {
+    check_length(text)?;
     let tokens = match lex(text) {
         Ok(t) => t,
         Err(_) => return parse_poly(text, nvars).map(|_| None),
@@ -116,6 +122,17 @@ pub fn parse_linear_factors(text: &str, nvars: Option<usize>) -> MathResult<Opti
     }
     // another shape, or an error that the full reader reports with its column
     parse_poly(text, nvars).map(|_| None)
+}
+
+/// Refuses a text longer than [`TYPED_TEXT_LIMIT`] characters before reading it.
+fn check_length(text: &str) -> MathResult<()> {
+    let len = text.chars().count();
+    if len > TYPED_TEXT_LIMIT {
+        return Err(MathError::OutOfRange(format!(
+            "the polynomial is {len} characters long; at most {TYPED_TEXT_LIMIT} are accepted"
+        )));
+    }
+    Ok(())
 }
 
 /// How deep parentheses may nest in [`parse_linear_factors`] before the text is
@@ -171,10 +188,25 @@ struct Token {
     at: usize,
 }
 
+/// A syntax error at character `at`. A long input is quoted as an excerpt of
+/// at most [`QUOTE_LIMIT`] characters around the column, with `…` where it was cut.
 fn syntax(text: &str, at: usize, expected: &str) -> MathError {
     let chars: Vec<char> = text.chars().collect();
+    let (from, to) = if chars.len() <= QUOTE_LIMIT {
+        (0, chars.len())
+    } else {
+        let from = at
+            .saturating_sub(QUOTE_LIMIT / 2)
+            .min(chars.len() - QUOTE_LIMIT);
+        (from, from + QUOTE_LIMIT)
+    };
+    let cut = |s: String| {
+        let head = if from > 0 { "…" } else { "" };
+        let tail = if to < chars.len() { "…" } else { "" };
+        format!("{head}{s}{tail}")
+    };
     let mut marked = String::new();
-    for (i, c) in chars.iter().enumerate() {
+    for (i, c) in chars.iter().enumerate().take(to).skip(from) {
         if i == at {
             marked.push('⟦');
             marked.push(*c);
@@ -186,8 +218,9 @@ fn syntax(text: &str, at: usize, expected: &str) -> MathError {
     if at >= chars.len() {
         marked.push_str("⟦⟧");
     }
+    let marked = cut(marked);
     MathError::Syntax {
-        input: text.to_string(),
+        input: cut(chars[from..to].iter().collect()),
         column: at + 1,
         expected: expected.to_string(),
         marked,
@@ -317,7 +350,11 @@ fn decimal(s: &str) -> Option<BigRational> {
         Some((a, b)) => (a, b),
         None => (s, ""),
     };
-    if frac.contains('.') || (int.is_empty() && frac.is_empty()) {
+    // as the rational reader: a point needs a digit after it (`1.` is refused)
+    if frac.contains('.')
+        || (s.contains('.') && frac.is_empty())
+        || int.is_empty() && frac.is_empty()
+    {
         return None;
     }
     let digits = format!("{int}{frac}");
@@ -387,7 +424,9 @@ impl Parser<'_> {
 
     /// expr := ['+'|'-'] term (('+'|'-') term)*
     fn expr(&mut self) -> MathResult<RatPoly> {
-        let mut acc = RatPoly::zero(self.nvars);
+        // the terms are gathered in a builder, so a long sum costs its length, not its square
+        let mut acc = PolyBuilder::new(self.nvars);
+        let minus_one = -BigRational::one();
         let mut first = true;
         loop {
             let negate = match self.peek() {
@@ -400,11 +439,20 @@ impl Parser<'_> {
                     true
                 }
                 _ if first => false,
-                _ => return Ok(acc),
+                _ => return Ok(acc.build()),
             };
             first = false;
             let t = self.term()?;
-            acc = if negate { acc.sub(&t) } else { acc.add(&t) };
+            if negate {
+                acc.add_scaled(&t, &minus_one);
+            } else {
+                acc.add_poly(&t);
+            }
+            if acc.len() as u128 > TYPED_TERM_LIMIT {
+                return Err(self.error_here(&format!(
+                    "the sum has more than {TYPED_TERM_LIMIT} terms, the most a typed polynomial may have"
+                )));
+            }
         }
     }
 
@@ -457,18 +505,25 @@ impl Parser<'_> {
 
     /// power := ('-'|'+') power | primary ['^' integer]
     fn factored_power(&mut self, depth: usize) -> Option<Factored> {
-        match self.peek() {
-            Tok::Minus => {
-                self.bump();
-                let (s, f) = self.factored_power(depth)?;
-                return Some((-s, f));
+        // signs are read in a loop, so a long run of them cannot deepen the stack
+        let mut negative = false;
+        loop {
+            match self.peek() {
+                Tok::Minus => negative = !negative,
+                Tok::Plus => {}
+                _ => break,
             }
-            Tok::Plus => {
-                self.bump();
-                return self.factored_power(depth);
-            }
-            _ => {}
+            self.bump();
         }
+        if negative {
+            let (s, f) = self.factored_unsigned_power(depth)?;
+            return Some((-s, f));
+        }
+        self.factored_unsigned_power(depth)
+    }
+
+    /// primary ['^' integer]
+    fn factored_unsigned_power(&mut self, depth: usize) -> Option<Factored> {
         let (s, f) = self.factored_primary(depth)?;
         if !matches!(self.peek(), Tok::Caret) {
             return Some((s, f));
@@ -494,6 +549,11 @@ impl Parser<'_> {
         let mut powered = Vec::with_capacity(f.len());
         for (p, e) in f {
             powered.push((p, e.checked_mul(k)?));
+        }
+        let bits = s.numer().bits().max(s.denom().bits());
+        if bits.saturating_mul(u64::from(k)) * 3 / 10 > TYPED_DIGIT_LIMIT {
+            // too large here: the full reader refuses it with its column
+            return None;
         }
         Some((num_traits::pow(s, k as usize), powered))
     }
@@ -553,7 +613,7 @@ impl Parser<'_> {
                 Tok::Star => {
                     self.bump();
                     let f = self.factor()?;
-                    acc = acc.mul(&f).map_err(|e| self.fail(at, e))?;
+                    acc = self.product(&acc, &f, at)?;
                 }
                 Tok::Slash => {
                     self.bump();
@@ -570,7 +630,7 @@ impl Parser<'_> {
                 }
                 t if Self::starts_factor(&t) => {
                     let f = self.factor()?;
-                    acc = acc.mul(&f).map_err(|e| self.fail(at, e))?;
+                    acc = self.product(&acc, &f, at)?;
                 }
                 _ => return Ok(acc),
             }
@@ -630,7 +690,110 @@ impl Parser<'_> {
         if matches!(self.peek(), Tok::Caret) {
             return Err(self.error_here("write repeated powers with parentheses, as (x1^2)^3"));
         }
-        base.pow(k).map_err(|e| self.fail(caret_at, e))
+        self.power(&base, k, caret_at)
+    }
+
+    /// a·b, refused before it starts when it would take more than
+    /// [`TYPED_PRODUCT_LIMIT`] coefficient products or could have more than
+    /// [`TYPED_TERM_LIMIT`] terms.
+    fn product(&self, a: &RatPoly, b: &RatPoly, at: usize) -> MathResult<RatPoly> {
+        let products = a.len() as u128 * b.len() as u128;
+        if products > TYPED_PRODUCT_LIMIT {
+            return Err(syntax(
+                self.text,
+                at,
+                &format!(
+                    "multiplying polynomials of {} and {} terms takes {products} coefficient products; \
+                     a typed polynomial may take at most {TYPED_PRODUCT_LIMIT}",
+                    a.len(),
+                    b.len()
+                ),
+            ));
+        }
+        let degree = u64::from(a.degree()) + u64::from(b.degree());
+        let bound = products.min(monomials_up_to_degree(degree, self.nvars as u64));
+        if bound > TYPED_TERM_LIMIT {
+            return Err(syntax(
+                self.text,
+                at,
+                &format!(
+                    "the product may have up to {bound} terms; a typed polynomial may have at most {TYPED_TERM_LIMIT}"
+                ),
+            ));
+        }
+        a.mul(b).map_err(|e| self.fail(at, e))
+    }
+
+    /// base^k by repeated squaring, each multiplication sized by [`Self::product`];
+    /// refused at once when base^k could have more than [`TYPED_TERM_LIMIT`] terms,
+    /// estimated as min(C(k + t − 1, t − 1), C(k·d + n, n)) for t terms of degree d.
+    fn power(&self, base: &RatPoly, k: u32, at: usize) -> MathResult<RatPoly> {
+        let t = base.len() as u64;
+        let d = u64::from(base.degree());
+        // terms of base^j are at most min(C(j + t − 1, t − 1), C(j·d + n, n))
+        let terms_of = |j: u64| {
+            crate::math::limits::binomial(j + t - 1, t - 1).min(monomials_up_to_degree(
+                d.saturating_mul(j),
+                self.nvars as u64,
+            ))
+        };
+        if t > 1 && k > 1 {
+            let bound = terms_of(u64::from(k));
+            // the products of the squaring chain, estimated before any is taken
+            let (mut work, mut have, mut j, mut rest) = (0u128, 0u64, 1u64, k);
+            while rest > 0 {
+                if rest & 1 == 1 {
+                    work = work.saturating_add(terms_of(have).saturating_mul(terms_of(j)));
+                    have += j;
+                }
+                rest >>= 1;
+                if rest > 0 {
+                    work = work.saturating_add(terms_of(j).saturating_mul(terms_of(j)));
+                    j *= 2;
+                }
+            }
+            if work > TYPED_PRODUCT_LIMIT {
+                return Err(syntax(
+                    self.text,
+                    at,
+                    &format!(
+                        "the power takes about {work} coefficient products; a typed polynomial may take at most {TYPED_PRODUCT_LIMIT}"
+                    ),
+                ));
+            }
+            if bound > TYPED_TERM_LIMIT {
+                return Err(syntax(
+                    self.text,
+                    at,
+                    &format!(
+                        "the power may have up to {bound} terms; a typed polynomial may have at most {TYPED_TERM_LIMIT}"
+                    ),
+                ));
+            }
+        }
+        let digits = u64::from(k).saturating_mul(largest_digits(base));
+        if digits > TYPED_DIGIT_LIMIT {
+            return Err(syntax(
+                self.text,
+                at,
+                &format!(
+                    "the power has coefficients of about {digits} digits; a typed polynomial may have at most {TYPED_DIGIT_LIMIT}"
+                ),
+            ));
+        }
+        let mut result = RatPoly::one(self.nvars);
+        let mut square = base.clone();
+        let mut k = k;
+        while k > 0 {
+            if k & 1 == 1 {
+                result = self.product(&result, &square, at)?;
+            }
+            k >>= 1;
+            if k > 0 {
+                square = self.product(&square, &square, at)?;
+            }
+        }
+        Ok(result)
     }
 
     /// primary := number | variable | name '(' integers ')' | '(' expr ')'
@@ -733,6 +896,18 @@ impl Parser<'_> {
 /// Quasisymmetric atoms `M(α)` and `F(α)` are resolved here.
 fn named_atom(name: &str, args: &[usize], nvars: Option<usize>) -> MathResult<RatPoly> {
     crate::math::poly::quasisym::named_atom(name, args, nvars)
+}
+
+/// The decimal digits of the largest numerator or denominator of p (an estimate from its bits).
+fn largest_digits(p: &RatPoly) -> u64 {
+    p.terms()
+        .iter()
+        .map(|(_, c)| c.numer().bits().max(c.denom().bits()))
+        .max()
+        .unwrap_or(0)
+        * 3
+        / 10
+        + 1
 }
 
 fn constant_value(p: &RatPoly) -> Option<BigRational> {

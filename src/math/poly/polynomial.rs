@@ -391,7 +391,9 @@ impl<C: Coeff> Poly<C> {
         let mut b = PolyBuilder::new(nvars);
         for (m1, c1) in &self.terms {
             for (m2, c2) in &other.terms {
-                let m = m1.checked_mul(*m2).ok_or_else(exponent_overflow)?;
+                let m = m1
+                    .checked_mul(*m2)
+                    .ok_or_else(|| exponent_overflow(*m1, *m2))?;
                 let c = c1.clone() * c2;
                 b.add_term(m, &c);
             }
@@ -407,7 +409,7 @@ impl<C: Coeff> Poly<C> {
         let mut terms = Vec::with_capacity(self.terms.len());
         for (m1, c1) in &self.terms {
             terms.push((
-                m1.checked_mul(m).ok_or_else(exponent_overflow)?,
+                m1.checked_mul(m).ok_or_else(|| exponent_overflow(*m1, m))?,
                 c1.clone() * c,
             ));
         }
@@ -610,8 +612,18 @@ fn render_mono(m: Mono, nvars: usize, latex: bool) -> String {
     parts.join(" ")
 }
 
-fn exponent_overflow() -> MathError {
-    MathError::OutOfRange("an exponent would exceed 255".into())
+/// The product m1·m2 has an exponent above [`crate::math::poly::mono::MAX_EXP`]: name the variable.
+fn exponent_overflow(m1: Mono, m2: Mono) -> MathError {
+    let max = crate::math::poly::mono::MAX_EXP;
+    let over = (0..MAX_VARS).find(|&i| m1.exp(i) + m2.exp(i) > max);
+    match over {
+        Some(i) => MathError::OutOfRange(format!(
+            "x{} would have the exponent {}; exponents go up to {max}",
+            i + 1,
+            m1.exp(i) + m2.exp(i)
+        )),
+        None => MathError::OutOfRange(format!("an exponent would exceed {max}")),
+    }
 }
 
 fn too_large() -> MathError {

@@ -97,6 +97,15 @@ pub fn fundamental_qsym(alpha: &[u32], nvars: usize) -> MathResult<IntPoly> {
             join(alpha)
         )));
     }
+    // each weakly increasing word of length d gives a different monomial of degree d
+    let bound = crate::math::limits::monomials_of_degree(u64::from(d), nvars as u64);
+    if bound > crate::math::limits::TYPED_TERM_LIMIT {
+        return Err(MathError::OutOfRange(format!(
+            "F({}) in {nvars} variables may have up to {bound} terms (monomials of degree {d}); at most {} are accepted",
+            join(alpha),
+            crate::math::limits::TYPED_TERM_LIMIT
+        )));
+    }
     // strict[s] = whether the step from letter s to letter s+1 (0-based) must ascend strictly
     let mut strict = vec![false; d as usize];
     let mut acc = 0u32;

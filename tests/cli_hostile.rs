@@ -1,0 +1,435 @@
+//! Hostile input for the real binary: inputs far too large, nested far too
+//! deep, files that never end, and malformed arguments. Each case must be
+//! answered (or refused in one line naming the estimate and the limit) with
+//! the exit status promised: 2 for bad input, 1 for a failed write, 130 for
+//! an interrupt. Each child runs under a time limit (the test fails when it
+//! is exceeded) and, where `prlimit` is installed, under an address-space
+//! limit, so an unbounded allocation fails the test instead of the machine.
+#![allow(clippy::unwrap_used)]
+
+mod common;
+
+use std::io::Read;
+use std::process::{Command, Output, Stdio};
+use std::time::{Duration, Instant};
+
+/// How long one case may take in the debug build before the test fails.
+const TIME_LIMIT: Duration = Duration::from_secs(15);
+
+/// The address space a case may use (bytes): far below what the unbounded
+/// runs took (8 to 16 GB), above what a refusal or a small answer needs.
+const MEMORY_LIMIT: u64 = 2_000_000_000;
+
+/// w0 in S_16.
+const W0_16: &str = "16,15,14,13,12,11,10,9,8,7,6,5,4,3,2,1";
+
+/// A permutation of S_16 with 2^28 reduced pipe dreams (S_w(1) = 268 435 456).
+const WIDE_16: &str = "1,3,5,7,9,11,13,15,2,4,6,8,10,12,14,16";
+
+fn prlimit_available() -> bool {
+    Command::new("prlimit")
+        .arg("--version")
+        .stdout(Stdio::null())
+        .stderr(Stdio::null())
+        .status()
+        .is_ok_and(|s| s.success())
+}
+
+/// Runs the binary with `args` (stdout sent to `stdout` when given), under
+/// [`TIME_LIMIT`] and [`MEMORY_LIMIT`]; fails the test when time runs out.
+fn bounded_with(args: &[&str], stdout: Option<std::fs::File>) -> Output {
+    let bin = env!("CARGO_BIN_EXE_elbowroom");
+    let mut command = if prlimit_available() {
+        let mut c = Command::new("prlimit");
+        c.arg(format!("--as={MEMORY_LIMIT}")).arg("--").arg(bin);
+        c
+    } else {
+        Command::new(bin)
+    };
+    command
+        .args(args)
+        .stdin(Stdio::null())
+        .stderr(Stdio::piped());
+    let piped = stdout.is_none();
+    match stdout {
+        Some(f) => command.stdout(f),
+        None => command.stdout(Stdio::piped()),
+    };
+    let mut child = command.spawn().unwrap();
+    // both pipes are drained on threads, so a long output cannot stall the child
+    let mut out_pipe = child.stdout.take();
+    let mut err_pipe = child.stderr.take().unwrap();
+    let out_reader = std::thread::spawn(move || {
+        let mut v = Vec::new();
+        if let Some(p) = out_pipe.as_mut() {
+            let _ = p.read_to_end(&mut v);
+        }
+        v
+    });
+    let err_reader = std::thread::spawn(move || {
+        let mut v = Vec::new();
+        let _ = err_pipe.read_to_end(&mut v);
+        v
+    });
+    let start = Instant::now();
+    let status = loop {
+        if let Some(status) = child.try_wait().unwrap() {
+            break status;
+        }
+        if start.elapsed() > TIME_LIMIT {
+            let _ = child.kill();
+            let _ = child.wait();
+            panic!("{:?} did not finish within {TIME_LIMIT:?}", short(args));
+        }
+        std::thread::sleep(Duration::from_millis(10));
+    };
+    let stdout = out_reader.join().unwrap();
+    let stderr = err_reader.join().unwrap();
+    let _ = piped;
+    Output {
+        status,
+        stdout,
+        stderr,
+    }
+}
+
+fn bounded(args: &[&str]) -> Output {
+    bounded_with(args, None)
+}
+
+/// The arguments as shown in a failure: long ones cut short.
+fn short(args: &[&str]) -> Vec<String> {
+    args.iter()
+        .map(|a| a.chars().take(60).collect::<String>())
+        .collect()
+}
+
+/// The case is refused: exit status 2, nothing on stdout, one short line on
+/// stderr holding every one of `words`.
+fn refused(args: &[&str], words: &[&str]) -> String {
+    let out = bounded(args);
+    let err = String::from_utf8_lossy(&out.stderr).to_string();
+    assert_eq!(out.status.code(), Some(2), "{:?}: {err}", short(args));
+    assert!(
+        out.stdout.is_empty(),
+        "{:?}: no output on stdout",
+        short(args)
+    );
+    assert_eq!(
+        err.trim_end().lines().count(),
+        1,
+        "{:?}: one line: {err}",
+        short(args)
+    );
+    assert!(
+        err.len() < 600,
+        "{:?}: a short message: {} bytes",
+        short(args),
+        err.len()
+    );
+    for w in words {
+        assert!(err.contains(w), "{:?}: {w:?} missing in {err}", short(args));
+    }
+    err
+}
+
+#[test]
+fn mixed_eulerian_numbers_past_the_budget_are_refused_at_once() {
+    // C(21, 11) = 352 716 compositions at n = 12 (OEIS A001700 gives C(2n-1, n))
+    refused(
+        &["eulerian", "--n", "12"],
+        &["352716 compositions", "2000000000"],
+    );
+    refused(
+        &["eulerian", "--n", "16", "--json"],
+        &["compositions", "n <= 10"],
+    );
+}
+
+#[test]
+fn divided_symmetrization_past_the_budget_is_refused() {
+    // DS_6(x1^100) is symmetric of degree 95 in 6 variables: C(100, 5) = 75 287 520 monomials
+    refused(
+        &["divsym", "x1^100", "--n", "6"],
+        &["75287520 monomials", "200000"],
+    );
+    refused(
+        &["divsym", "(x1+x2+x3+x4)^100", "--n", "4"],
+        &["coefficient products", "400000"],
+    );
+    refused(
+        &["divsym", "x1^8", "--n", "9", "--h", "1,2,3,4,5,6,7,8,9"],
+        &["Q_h", "20000000"],
+    );
+}
+
+#[test]
+fn large_schubert_polynomials_and_bumpless_listings_are_refused() {
+    refused(&["schubert", WIDE_16], &["268435456 terms", "2000000"]);
+    refused(
+        &[
+            "figure", "bumpless", WIDE_16, "--index", "300000", "--out", "b.svg",
+        ],
+        &["268435456 bumpless pipe dreams", "200000"],
+    );
+}
+
+#[test]
+fn figure_indices_and_pixels_past_their_limits_are_refused() {
+    let dir = std::env::temp_dir().join(format!("elbowroom-hostile-{}", std::process::id()));
+    let svg = dir.join("w.svg");
+    let png = dir.join("w.png");
+    refused(
+        &[
+            "figure",
+            "wiring",
+            W0_16,
+            "--index",
+            "1000000000",
+            "--out",
+            svg.to_str().unwrap(),
+        ],
+        &["--index 1000000000", "1000000"],
+    );
+    // a scale inside (0, 64] that still makes too large an image is bad input too
+    refused(
+        &[
+            "figure",
+            "wiring",
+            W0_16,
+            "--scale",
+            "64",
+            "--out",
+            png.to_str().unwrap(),
+        ],
+        &["pixels", "16384"],
+    );
+    refused(
+        &[
+            "figure",
+            "dream",
+            "1432",
+            "--scale",
+            "64",
+            "--out",
+            png.to_str().unwrap(),
+        ],
+        &["104857600 pixels", "64000000"],
+    );
+    assert!(!png.exists(), "nothing written");
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
+fn volumes_with_huge_rationals_are_refused() {
+    let entry = |k: usize| format!("{}{k}/{}{k}", "7".repeat(2000), "3".repeat(1999));
+    let lambda: Vec<String> = (0..16).map(entry).collect();
+    refused(
+        &["volume", "--lambda", &lambda.join(",")],
+        &["digits", "1500"],
+    );
+}
+
+#[test]
+fn session_check_refuses_files_that_never_end() {
+    for dev in ["/dev/zero", "/dev/urandom"] {
+        if std::path::Path::new(dev).exists() {
+            refused(&["session", "check", dev], &[dev, "not a regular file"]);
+        }
+    }
+    refused(&["session", "check", "/"], &["directory"]);
+    // a sparse file just over 64 MB: refused by its size before it is read
+    let dir = std::env::temp_dir().join(format!("elbowroom-big-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let big = dir.join("big.ron");
+    std::fs::File::create(&big)
+        .unwrap()
+        .set_len(64 * 1024 * 1024 + 1)
+        .unwrap();
+    refused(
+        &["session", "check", big.to_str().unwrap()],
+        &["67108865 bytes", "64 MB"],
+    );
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+/// Writes `text` to a fresh file and runs `session check` on it.
+fn check_session(name: &str, text: &str, words: &[&str]) -> String {
+    let dir = std::env::temp_dir().join(format!("elbowroom-s-{}-{name}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join(format!("{name}.ron"));
+    std::fs::write(&path, text).unwrap();
+    let err = refused(&["session", "check", path.to_str().unwrap()], words);
+    for internal in ["ron::", "FileV1", "Header", "r#", "Options"] {
+        assert!(!err.contains(internal), "{name}: {internal:?} in {err}");
+    }
+    let _ = std::fs::remove_dir_all(&dir);
+    err
+}
+
+fn session_text(body: &str) -> String {
+    format!("(format: \"elbowroom-session\", version: 1, session: ({body}))")
+}
+
+#[test]
+fn session_files_nested_deep_or_with_impossible_fields_are_refused_in_our_words() {
+    check_session("open", &"(".repeat(100_000), &["open.ron"]);
+    check_session(
+        "deep",
+        &session_text(&format!("notes: {}", "[".repeat(100_000))),
+        &["nest more than 32 deep"],
+    );
+    check_session(
+        "zero",
+        "(format: \"elbowroom-session\", version: 0, session: ())",
+        &["format version is 0"],
+    );
+    check_session(
+        "divides",
+        &session_text("solid: (lambda: [\"1/0\", \"2\"])"),
+        &["solid.lambda[0]", "divides by zero"],
+    );
+    check_session(
+        "letter",
+        &session_text("solid: (lambda: [\"a\"])"),
+        &["solid.lambda[0]", "not a rational number"],
+    );
+    let many = vec!["\"1\""; 17].join(", ");
+    check_session(
+        "many",
+        &session_text(&format!("solid: (lambda: [{many}])")),
+        &["17 entries", "at most 16"],
+    );
+    check_session(
+        "sort",
+        &session_text("hessenberg: (sort_by: \"size\")"),
+        &["\"size\" is not known", "\"perm\", \"length\", \"value\""],
+    );
+    check_session("raw", &session_text("current: [1, 2, r#0]"), &["current"]);
+    check_session(
+        "class",
+        &session_text("browser: (class: Some(\"round\"))"),
+        &["browser.class", "dominant"],
+    );
+}
+
+#[test]
+fn deep_or_long_polynomials_are_refused_or_read_in_bounded_time() {
+    // one argument holds at most 128 KiB on Linux: 10^5 open parentheses fit
+    let deep = format!("{}x1", "(".repeat(100_000));
+    refused(&["divsym", &deep, "--n", "2"], &["more than 200 deep"]);
+    refused(&["expand", &deep, "--n", "2"], &["more than 200 deep"]);
+    refused(
+        &["divsym", &format!("{}x1", "-".repeat(100_000)), "--n", "2"],
+        &["more than 200 deep"],
+    );
+    refused(
+        &["divsym", &format!("x1{}", "^2".repeat(50_000)), "--n", "2"],
+        &["repeated powers"],
+    );
+    // products of linear forms are read without recursion: 99 999 signs are one minus
+    let out = bounded(&["expand", &format!("{}x1", "-".repeat(99_999)), "--n", "2"]);
+    assert_eq!(out.status.code(), Some(0));
+    assert!(String::from_utf8_lossy(&out.stdout).contains("= -S_21"));
+    // a 120 KB input with an error at its end is quoted as a short excerpt, once
+    let long = format!("{}*", "x1+".repeat(40_000));
+    let err = refused(&["divsym", &long, "--n", "2"], &["column 120001", "…"]);
+    assert!(err.len() < 400, "{} bytes", err.len());
+}
+
+#[test]
+fn exponents_name_the_variable_and_the_limit() {
+    refused(
+        &["divsym", "x1^200*x1^100", "--n", "2"],
+        &["column 7", "x1 would have the exponent 300", "up to 255"],
+    );
+    // decimals as the rational reader reads them: a digit after the point
+    refused(&["divsym", "1. x1", "--n", "2"], &["'1.' is not a number"]);
+}
+
+#[test]
+fn negative_numbers_reach_their_readers() {
+    refused(
+        &["divsym", "x1", "--n", "-1"],
+        &["--n must be a whole number from 1 to 16; got -1"],
+    );
+    refused(&["eulerian", "--n", "17"], &["from 1 to 16; got 17"]);
+    refused(
+        &["words", "321", "--limit", "-3"],
+        &["whole number", "got -3"],
+    );
+    // DS_2(x2 - x1) = (x2 - x1)/(x1 - x2) + (x1 - x2)/(x2 - x1) = -2, by the definition
+    let out = bounded(&["divsym", "-x1 + x2", "--n", "2"]);
+    assert_eq!(
+        out.status.code(),
+        Some(0),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    assert!(String::from_utf8_lossy(&out.stdout).contains("= -2"));
+}
+
+#[test]
+fn lists_with_empty_entries_and_degenerate_angles_are_refused() {
+    refused(&["perm", "1,,2"], &["empty entry"]);
+    refused(
+        &["hessenberg", "--n", "4", "--h", "2,,3,4,4"],
+        &["--h has an empty entry"],
+    );
+    refused(
+        &["volume", "--lambda", "1,2,"],
+        &["--lambda has an empty entry"],
+    );
+    refused(
+        &[
+            "figure",
+            "permutohedron",
+            "--lambda",
+            "3,2,1,0",
+            "--yaw",
+            "NaN",
+            "--out",
+            "p.svg",
+        ],
+        &["--yaw", "finite"],
+    );
+    refused(
+        &[
+            "figure",
+            "permutohedron",
+            "--lambda",
+            "3,2,1,0",
+            "--pitch",
+            "inf",
+            "--out",
+            "p.svg",
+        ],
+        &["--pitch", "finite"],
+    );
+}
+
+#[test]
+fn session_without_an_action_prints_its_usage_and_exits_2() {
+    refused(&["session"], &["usage: elbowroom session check FILE"]);
+}
+
+#[test]
+fn a_failed_write_to_standard_output_exits_1() {
+    let Ok(full) = std::fs::OpenOptions::new().write(true).open("/dev/full") else {
+        return;
+    };
+    let out = bounded_with(&["perm", "312"], Some(full));
+    assert_eq!(out.status.code(), Some(1));
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(err.contains("cannot write standard output"), "{err}");
+}
+
+#[test]
+fn ctrl_c_in_divided_symmetrization_is_answered_with_a_message() {
+    // Q_h = Δ for h = id in 8 variables: seconds of work in the debug build
+    let out = common::interrupted(&["divsym", "x1", "--n", "8", "--h", "1,2,3,4,5,6,7,8"]);
+    assert_eq!(out.status.code(), Some(130));
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(err.contains("canceled; no output written"), "{err}");
+    assert!(out.stdout.is_empty());
+}
