@@ -8,7 +8,8 @@ use super::requests::{self, JobKey, Output};
 use crate::math::{MathError, MathResult, Progress};
 use std::sync::atomic::{AtomicU64, Ordering};
 use std::sync::mpsc;
-use std::sync::{Arc, Mutex, OnceLock};
+use std::sync::{Arc, Mutex};
+use std::time::Instant;
 
 /// A job listed in the status line.
 #[derive(Clone)]
@@ -19,6 +20,8 @@ pub struct RunningJob {
     pub label: String,
     /// Its counters and cancel flag.
     pub progress: Arc<Progress>,
+    /// When it started.
+    pub started: Instant,
 }
 
 /// The shared computation service.
@@ -55,7 +58,10 @@ impl Engine {
         self.cache.get(key)
     }
 
-    /// Starts computing `key` (see [`requests::compute`]).
+    /// Starts computing `key` (see [`requests::compute`]). Every job has a
+    /// thread of its own, and a batch job a rayon pool of its own (one thread
+    /// fewer than the machine has cores), so no job waits for another: a slow
+    /// table and a fast survey share the cores by the system's scheduler.
     pub fn start(&self, key: JobKey) -> Job {
         let k = key.clone();
         if key.is_batch() {
@@ -81,6 +87,7 @@ impl Engine {
             id,
             label: key.label(),
             progress: progress.clone(),
+            started: Instant::now(),
         };
         lock(&self.running).push(entry);
         let cache = self.cache.clone();
@@ -123,19 +130,18 @@ impl Engine {
     }
 }
 
-/// The pool batch jobs run in: one thread fewer than the machine has cores
-/// (at least one), so that the window keeps a core while a table computes.
-fn batch_pool() -> Option<&'static rayon::ThreadPool> {
-    static POOL: OnceLock<Option<rayon::ThreadPool>> = OnceLock::new();
-    POOL.get_or_init(|| {
-        let cores = std::thread::available_parallelism().map_or(2, |c| c.get());
-        rayon::ThreadPoolBuilder::new()
-            .num_threads(cores.saturating_sub(1).max(1))
-            .thread_name(|i| format!("elbowroom-batch-{i}"))
-            .build()
-            .ok()
-    })
-    .as_ref()
+/// A rayon pool for one batch job: one thread fewer than the machine has
+/// cores (at least one), so that the window keeps a core while a table
+/// computes. Each batch job gets its own, dropped when the job ends: with one
+/// shared pool a long job held its threads and every later batch job queued
+/// behind it.
+fn batch_pool() -> Option<rayon::ThreadPool> {
+    let cores = std::thread::available_parallelism().map_or(2, |c| c.get());
+    rayon::ThreadPoolBuilder::new()
+        .num_threads(cores.saturating_sub(1).max(1))
+        .thread_name(|i| format!("elbowroom-batch-{i}"))
+        .build()
+        .ok()
 }
 
 fn lock<T>(m: &Mutex<T>) -> std::sync::MutexGuard<'_, T> {

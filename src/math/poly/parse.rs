@@ -11,6 +11,7 @@
 use crate::math::error::{MathError, MathResult};
 use crate::math::poly::mono::{MAX_EXP, MAX_VARS};
 use crate::math::poly::polynomial::RatPoly;
+use crate::math::progress::Progress;
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::{One, Zero};
@@ -25,6 +26,16 @@ use num_traits::{One, Zero};
 /// assert!(parse_poly("2x1 + * x3", Some(3)).is_err());
 /// ```
 pub fn parse_poly(text: &str, nvars: Option<usize>) -> MathResult<RatPoly> {
+    parse_poly_with(text, nvars, &Progress::default())
+}
+
+/// [`parse_poly`], stopping with `Canceled` soon after a cancel of `progress`
+/// (the products and powers of a typed polynomial can take long).
+pub fn parse_poly_with(
+    text: &str,
+    nvars: Option<usize>,
+    progress: &Progress,
+) -> MathResult<RatPoly> {
     let tokens = lex(text)?;
     let declared = nvars;
     let width = width_of(&tokens, nvars)?;
@@ -35,6 +46,7 @@ pub fn parse_poly(text: &str, nvars: Option<usize>) -> MathResult<RatPoly> {
         nvars: width,
         declared,
         depth: 0,
+        progress,
     };
     if p.tokens.len() == 1 {
         return Err(p.error_here("the input is empty; type a polynomial such as 2x1 x2 - 3/2 x3^2"));
@@ -91,9 +103,18 @@ impl LinearFactors {
 /// assert!(parse_linear_factors("x5", Some(4)).is_err());
 /// ```
 pub fn parse_linear_factors(text: &str, nvars: Option<usize>) -> MathResult<Option<LinearFactors>> {
+    parse_linear_factors_with(text, nvars, &Progress::default())
+}
+
+/// [`parse_linear_factors`], with `progress` polled when the text is read in full.
+pub fn parse_linear_factors_with(
+    text: &str,
+    nvars: Option<usize>,
+    progress: &Progress,
+) -> MathResult<Option<LinearFactors>> {
     let tokens = match lex(text) {
         Ok(t) => t,
-        Err(_) => return parse_poly(text, nvars).map(|_| None),
+        Err(_) => return parse_poly_with(text, nvars, progress).map(|_| None),
     };
     let width = width_of(&tokens, nvars)?;
     let mut p = Parser {
@@ -103,6 +124,7 @@ pub fn parse_linear_factors(text: &str, nvars: Option<usize>) -> MathResult<Opti
         nvars: width,
         declared: nvars,
         depth: 0,
+        progress: &Progress::default(),
     };
     if p.tokens.len() > 1
         && let Some((scalar, factors)) = p.factored_product(0)
@@ -115,7 +137,7 @@ pub fn parse_linear_factors(text: &str, nvars: Option<usize>) -> MathResult<Opti
         }));
     }
     // another shape, or an error that the full reader reports with its column
-    parse_poly(text, nvars).map(|_| None)
+    parse_poly_with(text, nvars, progress).map(|_| None)
 }
 
 /// How deep parentheses may nest in [`parse_linear_factors`] before the text is
@@ -338,6 +360,8 @@ struct Parser<'a> {
     declared: Option<usize>,
     /// How many parentheses and signs enclose the current position.
     depth: usize,
+    /// Polled in products and powers.
+    progress: &'a Progress,
 }
 
 impl Parser<'_> {
@@ -380,7 +404,7 @@ impl Parser<'_> {
 
     fn fail(&self, at: usize, e: MathError) -> MathError {
         match e {
-            MathError::Syntax { .. } => e,
+            MathError::Syntax { .. } | MathError::Canceled => e,
             other => syntax(self.text, at, &other.to_string()),
         }
     }
@@ -553,7 +577,9 @@ impl Parser<'_> {
                 Tok::Star => {
                     self.bump();
                     let f = self.factor()?;
-                    acc = acc.mul(&f).map_err(|e| self.fail(at, e))?;
+                    acc = acc
+                        .mul_with(&f, self.progress)
+                        .map_err(|e| self.fail(at, e))?;
                 }
                 Tok::Slash => {
                     self.bump();
@@ -570,7 +596,9 @@ impl Parser<'_> {
                 }
                 t if Self::starts_factor(&t) => {
                     let f = self.factor()?;
-                    acc = acc.mul(&f).map_err(|e| self.fail(at, e))?;
+                    acc = acc
+                        .mul_with(&f, self.progress)
+                        .map_err(|e| self.fail(at, e))?;
                 }
                 _ => return Ok(acc),
             }
@@ -630,7 +658,8 @@ impl Parser<'_> {
         if matches!(self.peek(), Tok::Caret) {
             return Err(self.error_here("write repeated powers with parentheses, as (x1^2)^3"));
         }
-        base.pow(k).map_err(|e| self.fail(caret_at, e))
+        base.pow_with(k, self.progress)
+            .map_err(|e| self.fail(caret_at, e))
     }
 
     /// primary := number | variable | name '(' integers ')' | '(' expr ')'
