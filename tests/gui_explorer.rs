@@ -190,7 +190,8 @@ fn cancelling_a_job_leaves_the_window_usable() {
     let mut h = harness();
     h.get_by_label("Hessenberg classes").click();
     h.step();
-    h.state_mut().session.hessenberg.h = vec![2, 3, 4, 5, 6, 7, 8, 9, 10, 10];
+    // n = 11, |h| = 27 (the middle length of S_11): a table that takes many seconds
+    h.state_mut().session.hessenberg.h = vec![3, 4, 5, 6, 7, 8, 9, 10, 11, 11, 11];
     h.step();
     h.get_by_label("compute the table").click();
     settle(&mut h, |h| !h.state().engine.running().is_empty());

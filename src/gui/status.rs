@@ -67,8 +67,10 @@ pub fn rows_ui(ui: &mut egui::Ui, engine: &Engine, message: &mut Option<String>)
     for job in running.iter().take(JOBS_LISTED) {
         ui.horizontal(|ui| {
             let canceled = job.progress.is_canceled();
-            if ui
-                .add_enabled(!canceled, egui::Button::new("cancel").small())
+            if canceled {
+                ui.weak("stopping");
+            } else if ui
+                .small_button("cancel")
                 .on_hover_text("stop this computation")
                 .clicked()
             {
@@ -80,10 +82,7 @@ pub fn rows_ui(ui: &mut egui::Ui, engine: &Engine, message: &mut Option<String>)
                     .show_percentage(),
             );
             let secs = job.started.elapsed().as_secs_f32();
-            let state = if canceled { ", stopping" } else { "" };
-            ui.add(
-                egui::Label::new(format!("{} ({secs:.1} s{state})", job.label)).truncate(),
-            );
+            ui.add(egui::Label::new(format!("{} ({secs:.1} s)", job.label)).truncate());
         });
     }
     if running.len() > JOBS_LISTED {

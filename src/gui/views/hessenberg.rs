@@ -4,12 +4,12 @@
 //! clicking a row makes w current everywhere.
 
 use super::fetch_ready;
+use crate::engine::requests::h_text;
 use crate::engine::{Engine, JobKey, Output, Slot};
 use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
 use crate::math::Perm;
 use crate::math::hessenberg::function::{default_values, set_value};
-use crate::engine::requests::h_text;
 use crate::math::hessenberg::table::{HessenbergTable, TABLE_MAX_N, TableEntry};
 use crate::session::model::{HessenbergPlace, SortColumn};
 use crate::tables::results::hessenberg_table;
@@ -227,7 +227,10 @@ impl HessenbergView {
         };
         self.export.note_shown(&wanted, &out);
         if self.summary.as_ref().is_none_or(|(k, _, _)| *k != wanted) {
-            let perm_chars = table.entries.first().map_or(1, |e| e.perm.to_string().len());
+            let perm_chars = table
+                .entries
+                .first()
+                .map_or(1, |e| e.perm.to_string().len());
             let value_chars = table
                 .entries
                 .iter()

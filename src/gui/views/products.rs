@@ -136,9 +136,18 @@ pub fn terms_list(ui: &mut egui::Ui, id: &str, terms: &Terms, ctx: &AppCtx) -> O
     let len_w = mono_width(ui, 5);
     let row_h = ui.spacing().interact_size.y;
     ui.horizontal(|ui| {
-        ui.add_sized([coef_w, row_h], egui::Label::new(egui::RichText::new("c_w").strong()));
-        ui.add_sized([perm_w, row_h], egui::Label::new(egui::RichText::new("w").strong()));
-        ui.add_sized([len_w, row_h], egui::Label::new(egui::RichText::new("ℓ(w)").strong()));
+        ui.add_sized(
+            [coef_w, row_h],
+            egui::Label::new(egui::RichText::new("c_w").strong()),
+        );
+        ui.add_sized(
+            [perm_w, row_h],
+            egui::Label::new(egui::RichText::new("w").strong()),
+        );
+        ui.add_sized(
+            [len_w, row_h],
+            egui::Label::new(egui::RichText::new("ℓ(w)").strong()),
+        );
     });
     let mut chosen = None;
     egui::ScrollArea::vertical()
@@ -245,7 +254,10 @@ impl ProductsView {
         let key = match self.product_key(ctx.session.n) {
             Ok(k) => k,
             Err(e) => {
-                ui.add(egui::Label::new(egui::RichText::new(e).color(crate::gui::theme::alert())).wrap());
+                ui.add(
+                    egui::Label::new(egui::RichText::new(e).color(crate::gui::theme::alert()))
+                        .wrap(),
+                );
                 return;
             }
         };

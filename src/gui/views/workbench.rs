@@ -137,13 +137,7 @@ fn show_result(
 }
 
 /// A Schubert expansion: the summary and the rows (a click makes w current).
-fn show_expansion(
-    ui: &mut egui::Ui,
-    slot: &mut Slot,
-    ctx: &mut AppCtx,
-    key: JobKey,
-    id: &str,
-) {
+fn show_expansion(ui: &mut egui::Ui, slot: &mut Slot, ctx: &mut AppCtx, key: JobKey, id: &str) {
     let out = match slot.fetch(ctx.engine, key) {
         Fetch::Ready(out) => out.clone(),
         Fetch::Running(f, _) => {
