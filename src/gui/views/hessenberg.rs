@@ -231,10 +231,12 @@ impl HessenbergView {
                 .entries
                 .first()
                 .map_or(1, |e| e.perm.to_string().len());
-            let value_chars = table
-                .entries
-                .iter()
-                .map(|e| e.value.to_string().len())
+            // the widest value is the largest or the most negative one
+            let least = table.entries.iter().map(|e| &e.value).min();
+            let value_chars = [Some(table.max()), least.cloned()]
+                .into_iter()
+                .flatten()
+                .map(|v| v.to_string().len())
                 .max()
                 .unwrap_or(1);
             let chars = [perm_chars, value_chars];

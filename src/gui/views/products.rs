@@ -105,6 +105,27 @@ fn mono_width(ui: &egui::Ui, chars: usize) -> f32 {
     w * chars as f32 + 2.0 * ui.spacing().button_padding.x
 }
 
+/// A cell of a row: `add` drawn in a box `width` wide, against its right
+/// edge (numbers) or its left edge.
+fn cell<R>(
+    ui: &mut egui::Ui,
+    width: f32,
+    height: f32,
+    right: bool,
+    add: impl FnOnce(&mut egui::Ui) -> R,
+) -> R {
+    let layout = if right {
+        egui::Layout::right_to_left(egui::Align::Center)
+    } else {
+        egui::Layout::left_to_right(egui::Align::Center)
+    };
+    ui.allocate_ui_with_layout(egui::vec2(width, height), layout, |ui| {
+        ui.set_min_size(egui::vec2(width, height));
+        add(ui)
+    })
+    .inner
+}
+
 /// The permutation a row stands for, in the current S_n when it fits there.
 fn as_current(w: &Perm, n: usize) -> Perm {
     let m = n.max(w.n()).min(MAX_N);
@@ -112,9 +133,12 @@ fn as_current(w: &Perm, n: usize) -> Perm {
 }
 
 /// The terms as rows (coefficient, w, ℓ(w)), drawn virtually, negative
-/// coefficients in the alert colour and marked "(negative)"; the w clicked
+/// coefficients in the alert colour and marked "negative"; the w clicked
 /// (written in the current S_n when it fits), if any.
 pub fn terms_list(ui: &mut egui::Ui, id: &str, terms: &Terms, ctx: &AppCtx) -> Option<Perm> {
+    if terms.terms.is_empty() {
+        return None;
+    }
     let current = ctx.perm();
     let n = ctx.session.n;
     let coef_chars = terms
@@ -131,23 +155,14 @@ pub fn terms_list(ui: &mut egui::Ui, id: &str, terms: &Terms, ctx: &AppCtx) -> O
         .max()
         .unwrap_or(1)
         .max(4);
-    let coef_w = mono_width(ui, coef_chars + 11);
+    let coef_w = mono_width(ui, coef_chars);
     let perm_w = mono_width(ui, perm_chars);
     let len_w = mono_width(ui, 5);
     let row_h = ui.spacing().interact_size.y;
     ui.horizontal(|ui| {
-        ui.add_sized(
-            [coef_w, row_h],
-            egui::Label::new(egui::RichText::new("c_w").strong()),
-        );
-        ui.add_sized(
-            [perm_w, row_h],
-            egui::Label::new(egui::RichText::new("w").strong()),
-        );
-        ui.add_sized(
-            [len_w, row_h],
-            egui::Label::new(egui::RichText::new("ℓ(w)").strong()),
-        );
+        cell(ui, coef_w, row_h, true, |ui| ui.strong("c_w"));
+        cell(ui, perm_w, row_h, false, |ui| ui.strong("w"));
+        cell(ui, len_w, row_h, true, |ui| ui.strong("ℓ(w)"));
     });
     let mut chosen = None;
     egui::ScrollArea::vertical()
@@ -160,25 +175,28 @@ pub fn terms_list(ui: &mut egui::Ui, id: &str, terms: &Terms, ctx: &AppCtx) -> O
                     continue;
                 };
                 ui.horizontal(|ui| {
-                    let text = if c.is_negative() {
-                        egui::RichText::new(format!("{c} (negative)"))
-                            .monospace()
-                            .color(crate::gui::theme::alert())
+                    let negative = c.is_negative();
+                    let text = egui::RichText::new(c.to_string()).monospace();
+                    let text = if negative {
+                        text.color(crate::gui::theme::alert())
                     } else {
-                        egui::RichText::new(c.to_string()).monospace()
+                        text
                     };
-                    ui.add_sized([coef_w, row_h], egui::Label::new(text));
+                    cell(ui, coef_w, row_h, true, |ui| ui.label(text));
                     let target = as_current(w, n);
-                    let b = ui
-                        .add_sized(
-                            [perm_w, row_h],
-                            egui::Button::selectable(
-                                target == current,
-                                egui::RichText::new(w.to_string()).monospace(),
-                            ),
-                        )
-                        .on_hover_text("make this permutation current");
-                    ui.add_sized([len_w, row_h], egui::Label::new(w.length().to_string()));
+                    let b = cell(ui, perm_w, row_h, false, |ui| {
+                        ui.add(egui::Button::selectable(
+                            target == current,
+                            egui::RichText::new(w.to_string()).monospace(),
+                        ))
+                    })
+                    .on_hover_text("make this permutation current");
+                    cell(ui, len_w, row_h, true, |ui| {
+                        ui.label(egui::RichText::new(w.length().to_string()).monospace())
+                    });
+                    if negative {
+                        ui.colored_label(crate::gui::theme::alert(), "negative");
+                    }
                     if b.clicked() {
                         chosen = Some(target);
                     }
