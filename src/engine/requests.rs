@@ -79,6 +79,8 @@ pub enum JobKey {
     /// The Schubert expansion of a typed polynomial (as typed) in x_1..x_n,
     /// stably (`true`) or in H*(Fl_n).
     Expansion(String, usize, bool),
+    /// The place (0-based) of a reduced word of w in the lexicographic list of them.
+    WordRank(Perm, Vec<usize>),
     /// A typed polynomial (as typed) in n variables, read and written back
     /// (the first [`TYPED_SHOWN`] characters) with its number of terms.
     Typed(String, usize),
@@ -162,6 +164,7 @@ impl JobKey {
             JobKey::Expansion(_, n, true) => format!("Schubert expansion in x1..x{n}, stably"),
             JobKey::Expansion(_, n, false) => format!("Schubert expansion in H*(Fl_{n})"),
             JobKey::Typed(_, n) => format!("reading a polynomial in x1..x{n}"),
+            JobKey::WordRank(w, _) => format!("finding a reduced word of {w} in the list"),
         }
     }
 }
@@ -331,7 +334,24 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
         JobKey::Expansion(text, n, stable) => expand_typed(text, *n, *stable, progress)
             .map(|e| Output::Terms(Terms { terms: e.terms })),
         JobKey::Typed(text, n) => typed(text, *n, progress).map(Output::Text),
+        JobKey::WordRank(w, word) => word_rank(w, word, progress).map(Output::Count),
     }
+}
+
+/// The place of `word` in the lexicographic list of the reduced words of w.
+fn word_rank(w: &Perm, word: &[usize], progress: &Progress) -> MathResult<BigUint> {
+    for (k, candidate) in reduced_words(w).enumerate() {
+        if k % 1024 == 0 {
+            progress.check()?;
+            progress.advance(1024);
+        }
+        if candidate == word {
+            return Ok(BigUint::from(k));
+        }
+    }
+    Err(MathError::InvalidInput(format!(
+        "{word:?} is not a reduced word of {w}"
+    )))
 }
 
 /// S_u · S_v by [`schubert_product`] (as the command `product`), each w written
