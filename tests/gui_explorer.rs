@@ -171,6 +171,11 @@ fn clicking_a_cell_applies_a_ladder_move() {
     assert_ne!(shown, dream);
     assert_eq!(shown, expected);
     assert_eq!(shown.permutation(), w);
+    assert!(h.state().dreams.click_note.is_some());
+    // another permutation: the note about the click goes
+    type_and_go(&mut h, "1432");
+    settle(&mut h, |h| has(h, "1 of 5"));
+    assert!(h.state().dreams.click_note.is_none());
 }
 
 #[test]
@@ -190,7 +195,8 @@ fn cancelling_a_job_leaves_the_window_usable() {
     let mut h = harness();
     h.get_by_label("Hessenberg classes").click();
     h.step();
-    h.state_mut().session.hessenberg.h = vec![2, 3, 4, 5, 6, 7, 8, 9, 10, 10];
+    // n = 11, |h| = 27 (the middle length of S_11): a table that takes many seconds
+    h.state_mut().session.hessenberg.h = vec![3, 4, 5, 6, 7, 8, 9, 10, 11, 11, 11];
     h.step();
     h.get_by_label("compute the table").click();
     settle(&mut h, |h| !h.state().engine.running().is_empty());
@@ -259,4 +265,9 @@ fn a_positivity_survey_runs_and_a_row_shows_its_normal_form() {
         !h.state().session.quotient.survey,
         "the survey's row was clicked"
     );
+    // the view says where the permutation came from, and leads back
+    assert!(has(&h, "picked from the survey of S_5"));
+    h.get_by_label("back to the survey").click();
+    h.step();
+    assert!(h.state().session.quotient.survey);
 }

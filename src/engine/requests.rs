@@ -13,14 +13,18 @@ use crate::math::permutohedra::permutohedron::Permutohedron;
 use crate::math::permutohedra::segment::volume_along_segment;
 use crate::math::pipes::bumpless::{BumplessDream, bumpless_dreams};
 use crate::math::pipes::dream::{PipeDream, count_pipe_dreams, pipe_dreams};
-use crate::math::poly::parse::parse_poly;
+use crate::math::poly::parse::parse_poly_with;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::normal_form::{NormalForm, groebner_basis, hilbert_series, normal_form};
 use crate::math::quotient::survey::{SurveyEntry, survey};
+use crate::math::schubert::expansion::expand_typed;
 use crate::math::schubert::polynomial::SchubertTable;
+use crate::math::schubert::product::schubert_product;
+use crate::math::schubert::vector::Space;
 use crate::math::{IntPoly, MathError, MathResult, Perm, Progress};
 use num_bigint::{BigInt, BigUint};
 use num_rational::BigRational;
+use num_traits::Signed;
 
 /// How the permutation browser filters and orders S_n.
 #[derive(Clone, Debug, PartialEq, Eq, Hash)]
@@ -70,6 +74,16 @@ pub enum JobKey {
     NormalForm(QuotientInput),
     /// The positivity survey: the normal form of S_w(x_n, ..., x_1) for every w in S_n.
     Survey(usize),
+    /// S_u · S_v = Σ c^w_{uv} S_w: stably (`None`) or in H*(Fl_n) (`Some(n)`).
+    Product(Perm, Perm, Option<usize>),
+    /// The Schubert expansion of a typed polynomial (as typed) in x_1..x_n,
+    /// stably (`true`) or in H*(Fl_n).
+    Expansion(String, usize, bool),
+    /// The place (0-based) of a reduced word of w in the lexicographic list of them.
+    WordRank(Perm, Vec<usize>),
+    /// A typed polynomial (as typed) in n variables, read and written back
+    /// (the first [`TYPED_SHOWN`] characters) with its number of terms.
+    Typed(String, usize),
 }
 
 /// What the quotient view reduces.
@@ -92,6 +106,24 @@ pub struct Reduced {
     pub normal: NormalForm,
     /// The graded dimensions of Q[x]/J_n.
     pub hilbert: Vec<usize>,
+}
+
+/// How much of a typed polynomial's expanded text the workbench shows.
+pub const TYPED_SHOWN: usize = 600;
+
+/// A Schubert expansion Σ c_w S_w as rows (w, c_w): by ℓ(w), then
+/// lexicographically, as the commands `product` and `expand` print them.
+#[derive(Clone, Debug, PartialEq, Eq)]
+pub struct Terms {
+    /// The nonzero terms.
+    pub terms: Vec<(Perm, BigRational)>,
+}
+
+impl Terms {
+    /// Whether some coefficient is negative.
+    pub fn has_negative(&self) -> bool {
+        self.terms.iter().any(|(_, c)| c.is_negative())
+    }
 }
 
 /// The most pipe dreams the explorer lists for one permutation.
@@ -119,16 +151,28 @@ impl JobKey {
             JobKey::Bumpless(w) => format!("bumpless pipe dreams of {w}"),
             JobKey::WordCount(w) => format!("counting reduced words of {w}"),
             JobKey::Words(w, p) => format!("reduced words of {w}, page {}", p + 1),
-            JobKey::Hessenberg(h) => format!("Hessenberg table of h = {h:?}"),
+            JobKey::Hessenberg(h) => format!("Hessenberg table of h = {}", h_text(h)),
             JobKey::Volume(_) => "volume of P_λ".to_string(),
             JobKey::VolumeSegment(..) => "volumes along a segment".to_string(),
             JobKey::Eulerian(n) => format!("mixed Eulerian numbers of {n}"),
             JobKey::Polytope(_) => "vertices of P_λ".to_string(),
-            JobKey::DivSym(_, h) => format!("divided symmetrization for h = {h:?}"),
+            JobKey::DivSym(_, h) => format!("divided symmetrization for h = {}", h_text(h)),
             JobKey::NormalForm(_) => "normal form modulo J_n".to_string(),
             JobKey::Survey(n) => format!("positivity survey of S_{n}"),
+            JobKey::Product(u, v, None) => format!("S_{u} · S_{v}, stably"),
+            JobKey::Product(u, v, Some(n)) => format!("S_{u} · S_{v} in H*(Fl_{n})"),
+            JobKey::Expansion(_, n, true) => format!("Schubert expansion in x1..x{n}, stably"),
+            JobKey::Expansion(_, n, false) => format!("Schubert expansion in H*(Fl_{n})"),
+            JobKey::Typed(_, n) => format!("reading a polynomial in x1..x{n}"),
+            JobKey::WordRank(w, _) => format!("finding a reduced word of {w} in the list"),
         }
     }
+}
+
+/// h written as the explorer writes it everywhere: `(2, 3, 3)`.
+pub fn h_text(h: &[usize]) -> String {
+    let parts: Vec<String> = h.iter().map(|v| v.to_string()).collect();
+    format!("({})", parts.join(", "))
 }
 
 /// A finished result.
@@ -166,6 +210,8 @@ pub enum Output {
     Reduced(Reduced),
     /// A positivity survey, one entry per permutation in lexicographic order.
     Survey(Vec<SurveyEntry>),
+    /// A Schubert expansion (of a product or of a typed polynomial).
+    Terms(Terms),
 }
 
 impl Output {
@@ -241,6 +287,14 @@ impl Output {
         }
     }
 
+    /// The Schubert expansion, if this is one.
+    pub fn terms(&self) -> Option<&Terms> {
+        match self {
+            Output::Terms(t) => Some(t),
+            _ => None,
+        }
+    }
+
     /// The text, if this is text.
     pub fn text(&self) -> Option<&str> {
         match self {
@@ -276,6 +330,94 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
         JobKey::DivSym(text, h) => divsym(text, h, progress).map(Output::DivSym),
         JobKey::Survey(n) => survey_of_all(*n, progress).map(Output::Survey),
         JobKey::NormalForm(input) => reduce(input, progress).map(Output::Reduced),
+        JobKey::Product(u, v, n) => product(u, v, *n, progress).map(Output::Terms),
+        JobKey::Expansion(text, n, stable) => expand_typed(text, *n, *stable, progress)
+            .map(|e| Output::Terms(Terms { terms: e.terms })),
+        JobKey::Typed(text, n) => typed(text, *n, progress).map(Output::Text),
+        JobKey::WordRank(w, word) => word_rank(w, word, progress).map(Output::Count),
+    }
+}
+
+/// The place of `word` in the lexicographic list of the reduced words of w.
+fn word_rank(w: &Perm, word: &[usize], progress: &Progress) -> MathResult<BigUint> {
+    for (k, candidate) in reduced_words(w).enumerate() {
+        if k % 1024 == 0 {
+            progress.check()?;
+            progress.advance(1024);
+        }
+        if candidate == word {
+            return Ok(BigUint::from(k));
+        }
+    }
+    Err(MathError::InvalidInput(format!(
+        "{word:?} is not a reduced word of {w}"
+    )))
+}
+
+/// S_u · S_v by [`schubert_product`] (as the command `product`), each w written
+/// as the command writes it: in the smallest S_m stably, with n entries in H*(Fl_n).
+fn product(u: &Perm, v: &Perm, n: Option<usize>, progress: &Progress) -> MathResult<Terms> {
+    let space = match n {
+        None => Space::Stable,
+        Some(n) => Space::flag(n)?,
+    };
+    let p = schubert_product(u, v, space, progress)?;
+    let terms = p
+        .sorted_terms()
+        .into_iter()
+        .map(|(w, c)| {
+            let w = match n {
+                Some(n) => w.embed(n).unwrap_or_else(|_| w.clone()),
+                None => w.restrict(w.support_size()).unwrap_or_else(|| w.clone()),
+            };
+            (w, BigRational::from_integer(c))
+        })
+        .collect();
+    Ok(Terms { terms })
+}
+
+/// A typed polynomial read in n variables, written back: its first
+/// [`TYPED_SHOWN`] characters, and its number of terms when cut.
+fn typed(text: &str, n: usize, progress: &Progress) -> MathResult<String> {
+    progress.set_total(1);
+    let f = parse_poly_with(text, Some(n), progress)?;
+    progress.advance(1);
+    let written = f.to_text();
+    if written.chars().count() <= TYPED_SHOWN {
+        return Ok(written);
+    }
+    let head: String = written.chars().take(TYPED_SHOWN).collect();
+    Ok(format!("{head} … ({} terms in all)", f.len()))
+}
+
+/// The Gröbner basis of J_n, waited for with the cancel flag polled every
+/// 20 ms. [`groebner_basis`] computes it once per n (about a second at n = 8)
+/// without a cancel flag, so it runs on a thread of its own; a cancel returns
+/// at once and leaves that thread to finish and keep the basis for later.
+fn groebner_basis_waiting(
+    n: usize,
+    progress: &Progress,
+) -> MathResult<std::sync::Arc<crate::math::quotient::groebner::QuasiGroebner>> {
+    let (tx, rx) = std::sync::mpsc::channel();
+    let spawned = std::thread::Builder::new()
+        .name(format!("elbowroom-groebner-{n}"))
+        .spawn(move || {
+            let _ = tx.send(groebner_basis(n));
+        });
+    if spawned.is_err() {
+        return groebner_basis(n);
+    }
+    loop {
+        progress.check()?;
+        match rx.recv_timeout(std::time::Duration::from_millis(20)) {
+            Ok(result) => return result,
+            Err(std::sync::mpsc::RecvTimeoutError::Timeout) => {}
+            Err(std::sync::mpsc::RecvTimeoutError::Disconnected) => {
+                return Err(MathError::InvalidInput(
+                    "the Gröbner basis computation stopped without a result".into(),
+                ));
+            }
+        }
     }
 }
 
@@ -350,7 +492,7 @@ fn volume(lambda: &[BigRational], progress: &Progress) -> MathResult<BigRational
 fn divsym(text: &str, h: &[usize], progress: &Progress) -> MathResult<DividedSymmetrization> {
     progress.set_total(1);
     let h = HessenbergFn::new(h)?;
-    let f = parse_poly(text, Some(h.n()))?;
+    let f = parse_poly_with(text, Some(h.n()), progress)?;
     let out = divided_symmetrize(&f, &h)?;
     progress.advance(1);
     Ok(out)
@@ -363,6 +505,7 @@ fn survey_of_all(n: usize, progress: &Progress) -> MathResult<Vec<SurveyEntry>> 
             "surveys run for n from 1 to {MAX_QUOTIENT_N}"
         )));
     }
+    groebner_basis_waiting(n, progress)?;
     let perms: Vec<Perm> = Perm::all(n).collect();
     progress.set_total(perms.len() as u64);
     survey(&perms, progress)
@@ -376,9 +519,9 @@ fn reduce(input: &QuotientInput, progress: &Progress) -> MathResult<Reduced> {
             let s = SchubertTable::new().get(w);
             (w.n(), s.reverse_vars().to_rational())
         }
-        QuotientInput::Typed(text, n) => (*n, parse_poly(text, Some(*n))?),
+        QuotientInput::Typed(text, n) => (*n, parse_poly_with(text, Some(*n), progress)?),
     };
-    let q = groebner_basis(n)?;
+    let q = groebner_basis_waiting(n, progress)?;
     progress.advance(1);
     progress.check()?;
     let normal = normal_form(&q, &f)?;

@@ -107,6 +107,18 @@ impl Slot {
         }
     }
 
+    /// Lets go of the request: a running job is dropped, which cancels it (a
+    /// view calls this when it no longer asks for what the slot holds).
+    pub fn clear(&mut self) {
+        self.state = State::Empty;
+        self.key = None;
+    }
+
+    /// The inputs of the request held, if any.
+    pub fn key(&self) -> Option<&JobKey> {
+        self.key.as_ref()
+    }
+
     /// Forgets a failure so that the next fetch starts again.
     pub fn retry(&mut self) {
         if matches!(self.state, State::Failed(_)) {

@@ -8,7 +8,8 @@ use super::requests::{self, JobKey, Output};
 use crate::math::{MathError, MathResult, Progress};
 use std::sync::atomic::{AtomicU64, Ordering};
 use std::sync::mpsc;
-use std::sync::{Arc, Mutex, OnceLock};
+use std::sync::{Arc, Mutex};
+use std::time::Instant;
 
 /// A job listed in the status line.
 #[derive(Clone)]
@@ -19,6 +20,8 @@ pub struct RunningJob {
     pub label: String,
     /// Its counters and cancel flag.
     pub progress: Arc<Progress>,
+    /// When it started.
+    pub started: Instant,
 }
 
 /// The shared computation service.
@@ -55,7 +58,10 @@ impl Engine {
         self.cache.get(key)
     }
 
-    /// Starts computing `key` (see [`requests::compute`]).
+    /// Starts computing `key` (see [`requests::compute`]). Every job has a
+    /// thread of its own, and a batch job a rayon pool of its own (one thread
+    /// fewer than the machine has cores), so no job waits for another: a slow
+    /// table and a fast survey share the cores by the system's scheduler.
     pub fn start(&self, key: JobKey) -> Job {
         let k = key.clone();
         if key.is_batch() {
@@ -81,6 +87,7 @@ impl Engine {
             id,
             label: key.label(),
             progress: progress.clone(),
+            started: Instant::now(),
         };
         lock(&self.running).push(entry);
         let cache = self.cache.clone();
@@ -123,19 +130,18 @@ impl Engine {
     }
 }
 
-/// The pool batch jobs run in: one thread fewer than the machine has cores
-/// (at least one), so that the window keeps a core while a table computes.
-fn batch_pool() -> Option<&'static rayon::ThreadPool> {
-    static POOL: OnceLock<Option<rayon::ThreadPool>> = OnceLock::new();
-    POOL.get_or_init(|| {
-        let cores = std::thread::available_parallelism().map_or(2, |c| c.get());
-        rayon::ThreadPoolBuilder::new()
-            .num_threads(cores.saturating_sub(1).max(1))
-            .thread_name(|i| format!("elbowroom-batch-{i}"))
-            .build()
-            .ok()
-    })
-    .as_ref()
+/// A rayon pool for one batch job: one thread fewer than the machine has
+/// cores (at least one), so that the window keeps a core while a table
+/// computes. Each batch job gets its own, dropped when the job ends: with one
+/// shared pool a long job held its threads and every later batch job queued
+/// behind it.
+fn batch_pool() -> Option<rayon::ThreadPool> {
+    let cores = std::thread::available_parallelism().map_or(2, |c| c.get());
+    rayon::ThreadPoolBuilder::new()
+        .num_threads(cores.saturating_sub(1).max(1))
+        .thread_name(|i| format!("elbowroom-batch-{i}"))
+        .build()
+        .ok()
 }
 
 fn lock<T>(m: &Mutex<T>) -> std::sync::MutexGuard<'_, T> {
@@ -145,6 +151,7 @@ fn lock<T>(m: &Mutex<T>) -> std::sync::MutexGuard<'_, T> {
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::engine::requests::Terms;
     use crate::engine::slot::{Fetch, Slot};
     use crate::math::Perm;
     use std::time::{Duration, Instant};
@@ -233,5 +240,114 @@ mod tests {
             result.is_some()
         }));
         assert!(matches!(result, Some(Err(MathError::Canceled))));
+    }
+
+    /// A Hessenberg table that takes many seconds: n = 11, h = (3, 4, ..., 11, 11, 11),
+    /// |h| = 27, the middle length of S_11 (about 17 s in a release build).
+    fn slow_table() -> JobKey {
+        JobKey::Hessenberg(vec![3, 4, 5, 6, 7, 8, 9, 10, 11, 11, 11])
+    }
+
+    fn wait_for_result(job: &Job) -> MathResult<Arc<Output>> {
+        let mut result = None;
+        assert!(wait_until(|| {
+            result = job.poll();
+            result.is_some()
+        }));
+        result.unwrap_or(Err(MathError::InvalidInput("no result".into())))
+    }
+
+    #[test]
+    fn a_cancel_stops_the_hessenberg_class_computation() {
+        let engine = Engine::quiet();
+        let job = engine.start(slow_table());
+        // the class Q_h is being multiplied out factor by factor
+        assert!(wait_until(|| job.progress().done() > 0));
+        let asked = Instant::now();
+        job.cancel();
+        let result = wait_for_result(&job);
+        eprintln!("the table stopped {:?} after the cancel", asked.elapsed());
+        assert!(matches!(result, Err(MathError::Canceled)));
+        assert!(wait_until(|| engine.running().is_empty()));
+    }
+
+    #[test]
+    fn a_cancel_stops_reading_a_huge_power() {
+        // (x1 + ... + x8)^30 has C(37, 7) = 10 295 472 terms (stars and bars); reading
+        // it multiplies for minutes before the size limit refuses it
+        let engine = Engine::quiet();
+        let text = "(x1+x2+x3+x4+x5+x6+x7+x8)^30".to_string();
+        let job = engine.start(JobKey::Typed(text, 8));
+        assert!(wait_until(|| !engine.running().is_empty()));
+        std::thread::sleep(Duration::from_millis(200));
+        let asked = Instant::now();
+        job.cancel();
+        let result = wait_for_result(&job);
+        eprintln!("reading stopped {:?} after the cancel", asked.elapsed());
+        assert!(matches!(result, Err(MathError::Canceled)), "{result:?}");
+    }
+
+    #[test]
+    fn a_second_request_of_a_slot_cancels_the_first_table() {
+        let engine = Engine::quiet();
+        let mut slot = Slot::default();
+        slot.fetch(&engine, slow_table());
+        let first = slot.progress().unwrap();
+        // h = (2, 3, 4, 4): the six permutations of length 3 in S_4 (OEIS A008302)
+        let small = JobKey::Hessenberg(vec![2, 3, 4, 4]);
+        assert!(wait_until(|| matches!(
+            slot.fetch(&engine, small.clone()),
+            Fetch::Ready(out) if out.hessenberg().is_some_and(|t| t.entries.len() == 6)
+        )));
+        assert!(first.is_canceled());
+        // the first job's thread has ended: nothing runs any more
+        assert!(wait_until(|| engine.running().is_empty()));
+    }
+
+    #[test]
+    fn a_fast_batch_job_finishes_while_a_slow_one_runs() {
+        let engine = Engine::quiet();
+        let slow = engine.start(slow_table());
+        assert!(wait_until(|| slow.progress().done() > 0));
+        // the survey of S_5 is batch work too; it must not wait for the table's pool
+        let survey = engine.start(JobKey::Survey(5));
+        let out = wait_for_result(&survey);
+        let Ok(out) = out else {
+            panic!("the survey failed: {out:?}");
+        };
+        let Output::Survey(entries) = out.as_ref() else {
+            panic!("not a survey");
+        };
+        assert_eq!(entries.len(), 120);
+        // the slow table is still computing (it was never asked to stop)
+        assert!(slow.poll().is_none());
+        assert!(!slow.progress().is_canceled());
+    }
+
+    #[test]
+    fn products_and_expansions_are_the_commands_values() -> MathResult<()> {
+        let engine = Engine::quiet();
+        let p = |s: &str| Perm::parse(s);
+        // S_132 · S_132 = (x1 + x2)^2 = S_231 + S_1423 (Monk's rule; by hand:
+        // S_231 = x1 x2, S_1423 = x1^2 + x1 x2 + x2^2)
+        let job = engine.start(JobKey::Product(p("132")?, p("132")?, None));
+        let out = wait_for_result(&job)?;
+        let terms: Vec<String> = out
+            .terms()
+            .map(|t| t.terms.iter().map(|(w, c)| format!("{c} {w}")).collect())
+            .unwrap_or_default();
+        assert_eq!(terms, ["1 1423", "1 231"]);
+        // in H*(Fl_3) S_1423 lies in I_3
+        let job = engine.start(JobKey::Product(p("132")?, p("132")?, Some(3)));
+        let out = wait_for_result(&job)?;
+        assert_eq!(out.terms().map(|t| t.terms.len()), Some(1));
+        // x2 = S_132 − S_21 (S_132 = x1 + x2, S_21 = x1; Macdonald's table): a negative term
+        let job = engine.start(JobKey::Expansion("x2".into(), 3, true));
+        let out = wait_for_result(&job)?;
+        let t = out.terms().cloned().unwrap_or(Terms { terms: vec![] });
+        assert!(t.has_negative());
+        let terms: Vec<String> = t.terms.iter().map(|(w, c)| format!("{c} {w}")).collect();
+        assert_eq!(terms, ["1 132", "-1 21"]);
+        Ok(())
     }
 }

@@ -9,7 +9,7 @@ use super::status::{self, FrameTimes};
 use super::theme;
 use super::views::{
     self, dreams::DreamsView, hessenberg::HessenbergView, permutohedra::PermutohedronView,
-    quotient::QuotientView, words::WordsView, workbench::WorkbenchView,
+    products::ProductsView, quotient::QuotientView, words::WordsView, workbench::WorkbenchView,
 };
 use crate::engine::Engine;
 use crate::session::Session;
@@ -41,6 +41,11 @@ pub struct Explorer {
     pub permutohedron: PermutohedronView,
     /// The polynomial workbench.
     pub workbench: WorkbenchView,
+    /// The products and expansions view.
+    pub products: ProductsView,
+    /// Whether the products tab is shown (it is not one of the session's
+    /// views, so a session file opens on the view it names).
+    pub products_shown: bool,
     /// The save / open / export window.
     pub files: FilePanel,
     /// The recovery-file timer and the offer of a recovered session.
@@ -105,6 +110,8 @@ impl Explorer {
             quotient: QuotientView::default(),
             permutohedron: PermutohedronView::default(),
             workbench: WorkbenchView::default(),
+            products: ProductsView::default(),
+            products_shown: false,
             files: FilePanel::default(),
             autosave: Autosave::default(),
             times: FrameTimes::default(),
@@ -178,8 +185,9 @@ impl Explorer {
                 }
                 ui.checkbox(&mut self.session.figure.labels, "figure labels");
                 ui.separator();
-                status::ui(ui, &self.engine, &mut self.message, &self.times);
+                status::ui(ui, &self.engine, &self.times);
             });
+            status::rows_ui(ui, &self.engine, &mut self.message);
         });
         file_action
     }
@@ -203,7 +211,17 @@ impl Explorer {
         egui::Panel::top("view_tabs").show(ui, |ui| {
             ui.horizontal(|ui| {
                 for v in views::ORDER {
-                    ui.selectable_value(&mut self.session.view, v, views::title(v));
+                    let chosen = !self.products_shown && self.session.view == v;
+                    if ui.selectable_label(chosen, views::title(v)).clicked() {
+                        self.session.view = v;
+                        self.products_shown = false;
+                    }
+                }
+                if ui
+                    .selectable_label(self.products_shown, views::PRODUCTS_TITLE)
+                    .clicked()
+                {
+                    self.products_shown = true;
                 }
             });
         });
@@ -219,6 +237,10 @@ impl Explorer {
             };
             if !views::ORDER.contains(&ctx.session.view) {
                 ctx.session.view = View::Dreams;
+            }
+            if self.products_shown {
+                self.products.ui(ui, &mut ctx);
+                return;
             }
             match ctx.session.view {
                 View::Words => self.words.ui(ui, &mut ctx),
@@ -251,6 +273,9 @@ impl Explorer {
     /// The current view's figures and tables, for the export window.
     fn exports(&mut self) -> Exports {
         let survey = self.session.quotient.survey;
+        if self.products_shown {
+            return Vec::new();
+        }
         let figures = match self.session.view {
             View::Dreams => self.dreams.figures(),
             View::Words => self.words.figures(),

@@ -31,6 +31,8 @@ pub struct DreamsView {
     hover_pipe: Option<usize>,
     /// What the last click on the canvas did.
     pub click_note: Option<String>,
+    /// The dream shown after that click: the note goes once another is shown.
+    note_for: Option<PipeDream>,
     /// The dream drawn in the last frame.
     pub shown: Option<PipeDream>,
     /// Where the canvas was drawn in the last frame: its rectangle and screen points per figure unit.
@@ -226,6 +228,10 @@ impl DreamsView {
             ui.weak(format!("only the first {DREAM_LIMIT} dreams are listed"));
         }
         let dream = self.moved_off_list.unwrap_or(dreams[place.index]);
+        if self.note_for != Some(dream) {
+            // another dream (a step, another permutation): the note was about an older one
+            self.click_note = None;
+        }
         let scene = self.scene_for(SceneKey::Dream(dream, look), || {
             dream_scene(&dream, &look, &move_hints(&dream))
         });
@@ -266,6 +272,7 @@ impl DreamsView {
         match move_at(dream, i, j, inverse) {
             Some((d, kind)) => {
                 self.click_note = Some(format!("{kind} move at ({i}, {j})"));
+                self.note_for = Some(d);
                 // find the new dream in the list so stepping continues from it
                 if let Some(k) = dreams.iter().position(|e| *e == d) {
                     *index = k;
@@ -274,7 +281,10 @@ impl DreamsView {
                     self.moved_off_list = Some(d);
                 }
             }
-            None => self.click_note = Some(format!("no move at ({i}, {j})")),
+            None => {
+                self.click_note = Some(format!("no move at ({i}, {j})"));
+                self.note_for = Some(*dream);
+            }
         }
     }
 

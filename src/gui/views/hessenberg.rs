@@ -4,12 +4,13 @@
 //! clicking a row makes w current everywhere.
 
 use super::fetch_ready;
+use crate::engine::requests::h_text;
 use crate::engine::{Engine, JobKey, Output, Slot};
 use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
 use crate::math::Perm;
 use crate::math::hessenberg::function::{default_values, set_value};
-use crate::math::hessenberg::table::{HessenbergTable, TableEntry};
+use crate::math::hessenberg::table::{HessenbergTable, TABLE_MAX_N, TableEntry};
 use crate::session::model::{HessenbergPlace, SortColumn};
 use crate::tables::results::hessenberg_table;
 use crate::tables::table::Table;
@@ -20,12 +21,28 @@ use std::sync::Arc;
 /// Tables up to this n start as soon as h changes; larger ones wait for the button.
 const AUTO_N: usize = 7;
 
-/// The table's columns: the session's key for sorting by it, its header, its width.
-const COLUMNS: [(&str, &str, f32); 3] = [
-    ("perm", "w", 120.0),
-    ("length", "ℓ(w)", 60.0),
-    ("value", "a^h_w", 140.0),
+/// The table's columns: the session's key for sorting by it, its header, and
+/// its least width in characters (the w and a^h_w columns widen to the longest
+/// entry, so that the columns stay aligned for n ≥ 10).
+const COLUMNS: [(&str, &str, usize); 3] = [
+    ("perm", "w", 12),
+    ("length", "ℓ(w)", 6),
+    ("value", "a^h_w", 14),
 ];
+
+/// The widths of the columns in points, for a table whose longest w and
+/// a^h_w are `perm_chars` and `value_chars` characters long.
+fn column_widths(ui: &egui::Ui, perm_chars: usize, value_chars: usize) -> [f32; 3] {
+    let font = egui::TextStyle::Monospace.resolve(ui.style());
+    let glyph = ui.fonts_mut(|f| f.glyph_width(&font, '0'));
+    let pad = 2.0 * ui.spacing().button_padding.x + 8.0;
+    let [(_, _, p), (_, _, l), (_, _, v)] = COLUMNS;
+    [
+        glyph * perm_chars.max(p) as f32 + pad,
+        glyph * l as f32 + pad,
+        glyph * value_chars.max(v) as f32 + pad,
+    ]
+}
 
 /// The Hessenberg view's UI state.
 #[derive(Default)]
@@ -35,8 +52,9 @@ pub struct HessenbergView {
     pub wanted: Option<Vec<usize>>,
     /// The rows in the order shown, for the h, column and direction they were sorted by.
     row_order: Option<RowOrder>,
-    /// The summary line of the result shown (totals over every row, so kept).
-    summary: Option<(Vec<usize>, String)>,
+    /// The summary line of the result shown (totals over every row, so kept),
+    /// with the longest w and a^h_w in characters.
+    summary: Option<(Vec<usize>, String, [usize; 2])>,
     /// The table shown (keyed by h), for export.
     export: TableSource<Vec<usize>>,
 }
@@ -71,8 +89,13 @@ fn summary_text(table: &HessenbergTable) -> String {
         .iter()
         .filter(|e| e.value.is_negative())
         .count();
+    let noun = if table.listed == 1 {
+        "permutation"
+    } else {
+        "permutations"
+    };
     format!(
-        "{} permutations of length {}; Σ a^h_w = {}; nonzero {}; largest {}; negative {}",
+        "{} {noun} of length {}; Σ a^h_w = {}; nonzero {}; largest {}; negative {}",
         table.listed,
         table.h.dimension(),
         table.total(),
@@ -83,9 +106,9 @@ fn summary_text(table: &HessenbergTable) -> String {
 }
 
 /// The header buttons: a click sorts by that column, a second click turns the order round.
-fn sort_headers(ui: &mut egui::Ui, place: &mut HessenbergPlace, column: &str) {
+fn sort_headers(ui: &mut egui::Ui, place: &mut HessenbergPlace, column: &str, widths: [f32; 3]) {
     ui.horizontal(|ui| {
-        for (key, name, width) in COLUMNS {
+        for ((key, name, _), width) in COLUMNS.into_iter().zip(widths) {
             let arrow = if column == key {
                 if place.descending {
                     " (desc)"
@@ -113,8 +136,14 @@ fn sort_headers(ui: &mut egui::Ui, place: &mut HessenbergPlace, column: &str) {
 
 /// One row of the table: w (a click picks it), ℓ(w), and a^h_w (negatives
 /// alerted, zeros weak); true if w was clicked.
-fn table_row(ui: &mut egui::Ui, entry: &TableEntry, current: &Perm, row_h: f32) -> bool {
-    let [perm_w, length_w, value_w] = COLUMNS.map(|(_, _, width)| width);
+fn table_row(
+    ui: &mut egui::Ui,
+    entry: &TableEntry,
+    current: &Perm,
+    row_h: f32,
+    widths: [f32; 3],
+) -> bool {
+    let [perm_w, length_w, value_w] = widths;
     ui.horizontal(|ui| {
         let sel = ui.add_sized(
             [perm_w, row_h],
@@ -155,14 +184,25 @@ impl HessenbergView {
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let place = &mut ctx.session.hessenberg;
         if place.h.is_empty() {
-            place.h = default_values(ctx.session.n.clamp(2, 12));
+            place.h = default_values(ctx.session.n.clamp(2, TABLE_MAX_N));
         }
-        h_controls(ui, place);
+        if h_controls(ui, place) {
+            // a new n: nothing of the old one stays asked for or shown
+            self.forget();
+        }
         ui.weak("Click a box (i, j) above the diagonal to set h(i) = j; click the last box of a row to shrink it. The class of the Hessenberg variety is Σ a^h_w σ_{w0 w}, a^h_w = DS_h(S_w) over ℓ(w) = |h|.");
         ui.horizontal_top(|ui| {
             h_grid(ui, &mut ctx.session.hessenberg.h);
             ui.vertical(|ui| self.coefficient_table(ui, ctx));
         });
+    }
+
+    /// Forgets the table asked for and shown (dropping a running job cancels it).
+    fn forget(&mut self) {
+        self.wanted = None;
+        self.table = Slot::default();
+        self.row_order = None;
+        self.summary = None;
     }
 
     /// The table of a^h_w for the h asked for: the button, the summary, the
@@ -175,7 +215,8 @@ impl HessenbergView {
         };
         if wanted != h {
             ui.weak(format!(
-                "showing h = {wanted:?}; press the button for the new h"
+                "showing h = {}; press the button for the new h",
+                h_text(&wanted)
             ));
         }
         let Some(out) = self.fetch_table(ui, ctx.engine, &wanted) else {
@@ -185,19 +226,35 @@ impl HessenbergView {
             return;
         };
         self.export.note_shown(&wanted, &out);
-        if self.summary.as_ref().is_none_or(|(k, _)| *k != wanted) {
-            self.summary = Some((wanted.clone(), summary_text(table)));
+        if self.summary.as_ref().is_none_or(|(k, _, _)| *k != wanted) {
+            let perm_chars = table
+                .entries
+                .first()
+                .map_or(1, |e| e.perm.to_string().len());
+            // the widest value is the largest or the most negative one
+            let least = table.entries.iter().map(|e| &e.value).min();
+            let value_chars = [Some(table.max()), least.cloned()]
+                .into_iter()
+                .flatten()
+                .map(|v| v.to_string().len())
+                .max()
+                .unwrap_or(1);
+            let chars = [perm_chars, value_chars];
+            self.summary = Some((wanted.clone(), summary_text(table), chars));
         }
-        if let Some((_, text)) = &self.summary {
-            ui.label(text.as_str());
+        let mut chars = [1, 1];
+        if let Some((_, text, c)) = &self.summary {
+            ui.add(egui::Label::new(text.as_str()).wrap());
+            chars = *c;
         }
         ui.weak("Ctrl+E exports this table as CSV or as a LaTeX tabular.");
         let current = ctx.perm();
         let place = &mut ctx.session.hessenberg;
         let column = place.sort_by.unwrap_or_default().key().to_string();
+        let widths = column_widths(ui, chars[0], chars[1]);
         let rows = self.rows_sorted(&wanted, &column, place.descending, table);
-        sort_headers(ui, place, &column);
-        if let Some(w) = rows_list(ui, table, rows, &current) {
+        sort_headers(ui, place, &column, widths);
+        if let Some(w) = rows_list(ui, table, rows, &current, widths) {
             ctx.go_to(w);
         }
     }
@@ -261,18 +318,29 @@ impl HessenbergView {
     }
 }
 
-/// The heading, n, h and |h|, and the buttons for the two extreme h.
-fn h_controls(ui: &mut egui::Ui, place: &mut HessenbergPlace) {
+/// The heading, n, h and |h|, and the buttons for the two extreme h; true
+/// when n changed. A typed n counts once it is committed (Enter or leaving
+/// the field), so typing "10" never asks for n = 1 on the way.
+fn h_controls(ui: &mut egui::Ui, place: &mut HessenbergPlace) -> bool {
     let mut n = place.h.len();
-    ui.horizontal(|ui| {
+    let mut n_changed = false;
+    ui.horizontal_wrapped(|ui| {
         ui.heading("Hessenberg classes");
         ui.separator();
         ui.label("n");
-        if ui.add(egui::DragValue::new(&mut n).range(2..=12)).changed() {
+        if ui
+            .add(
+                egui::DragValue::new(&mut n)
+                    .range(2..=TABLE_MAX_N)
+                    .update_while_editing(false),
+            )
+            .changed()
+            && n != place.h.len()
+        {
             place.h = default_values(n);
+            n_changed = true;
         }
-        let text: Vec<String> = place.h.iter().map(|v| v.to_string()).collect();
-        ui.label(format!("h = ({})", text.join(", ")));
+        ui.label(format!("h = {}", h_text(&place.h)));
         let dim: usize = place.h.iter().enumerate().map(|(k, v)| v - (k + 1)).sum();
         ui.label(format!("|h| = {dim}"));
         if ui.button("h(i) = i + 1").clicked() {
@@ -282,6 +350,7 @@ fn h_controls(ui: &mut egui::Ui, place: &mut HessenbergPlace) {
             place.h = vec![n; n];
         }
     });
+    n_changed
 }
 
 /// The n×n grid of boxes picking h: box (i, j) is filled when j <= h(i);
@@ -357,6 +426,7 @@ fn rows_list(
     table: &HessenbergTable,
     order: &[usize],
     current: &Perm,
+    widths: [f32; 3],
 ) -> Option<Perm> {
     let mut chosen: Option<Perm> = None;
     let row_h = ui.spacing().interact_size.y;
@@ -368,7 +438,7 @@ fn rows_list(
                 let Some(entry) = order.get(r).and_then(|&i| table.entries.get(i)) else {
                     continue;
                 };
-                if table_row(ui, entry, current, row_h) {
+                if table_row(ui, entry, current, row_h, widths) {
                     chosen = Some(entry.perm.clone());
                 }
             }

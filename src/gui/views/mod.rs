@@ -5,6 +5,7 @@
 pub mod dreams;
 pub mod hessenberg;
 pub mod permutohedra;
+pub mod products;
 pub mod quotient;
 pub mod survey;
 pub mod words;
@@ -29,6 +30,9 @@ pub fn title(v: View) -> &'static str {
         View::Workbench => "Polynomial workbench",
     }
 }
+
+/// The tab title of the products and expansions view (after the session's views).
+pub const PRODUCTS_TITLE: &str = "Products & expansions";
 
 /// The views in tab order.
 pub const ORDER: [View; 6] = [
@@ -74,14 +78,13 @@ pub fn show_progress(ui: &mut egui::Ui, what: &str, fraction: f32, slot: &Slot) 
     });
 }
 
-/// Shows a failure with a retry button; true if retry was clicked.
+/// Shows a failure (wrapped to the width there is) with a retry button; true
+/// if retry was clicked.
 pub fn show_failure_with_retry(ui: &mut egui::Ui, e: &MathError) -> bool {
-    let mut retry = false;
-    ui.horizontal(|ui| {
-        ui.colored_label(super::theme::alert(), e.to_string());
-        retry = ui.button("retry").clicked();
-    });
-    retry
+    ui.add(
+        egui::Label::new(egui::RichText::new(e.to_string()).color(super::theme::alert())).wrap(),
+    );
+    ui.button("retry").clicked()
 }
 
 /// The slot's result for `key` once it is ready. Until then `None`, after
@@ -128,7 +131,7 @@ pub fn show_math_error(ui: &mut egui::Ui, e: &MathError) {
             );
         }
         other => {
-            ui.colored_label(alert, other.to_string());
+            ui.add(egui::Label::new(egui::RichText::new(other.to_string()).color(alert)).wrap());
         }
     }
 }

@@ -29,6 +29,8 @@ pub struct QuotientView {
     paths_scene: Option<(JobKey, Look, Arc<Scene>)>,
     /// The survey over all of S_n.
     pub survey: SurveyPanel,
+    /// The permutation last picked from the survey's rows, while its normal form is shown.
+    picked_from_survey: Option<Perm>,
 }
 
 /// The lattice-path panels of a normal form in `n` variables: one per
@@ -174,6 +176,26 @@ impl QuotientView {
             .collect()
     }
 
+    /// After a click on a survey row: says so, with a way back to the survey
+    /// (until another permutation or source is chosen).
+    fn back_to_survey(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
+        let place = &ctx.session.quotient;
+        if place.use_typed || self.picked_from_survey.as_ref() != Some(w) {
+            self.picked_from_survey = None;
+            return;
+        }
+        ui.horizontal(|ui| {
+            ui.label(format!(
+                "the normal form of w = {w}, picked from the survey of S_{}",
+                w.n()
+            ));
+            if ui.button("back to the survey").clicked() {
+                ctx.session.quotient.survey = true;
+                self.picked_from_survey = None;
+            }
+        });
+    }
+
     /// Draws the view.
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
@@ -184,9 +206,11 @@ impl QuotientView {
             if self.survey.ui(ui, ctx, n) {
                 ctx.session.quotient.survey = false;
                 ctx.session.quotient.use_typed = false;
+                self.picked_from_survey = Some(ctx.perm());
             }
             return;
         }
+        self.back_to_survey(ui, ctx, &w);
         if n > MAX_QUOTIENT_N {
             ui.colored_label(
                 crate::gui::theme::alert(),

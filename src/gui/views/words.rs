@@ -24,6 +24,8 @@ pub struct WordsView {
     /// of the selected one).
     moved_off_page: Option<Vec<usize>>,
     hover_crossing: Option<usize>,
+    /// Finds the place of the word reached by a move, to select it there.
+    locating: Slot,
     /// The wiring diagram on screen, without the hover highlight, for export.
     wiring_shown: Option<Arc<Scene>>,
 }
@@ -113,6 +115,7 @@ impl WordsView {
         };
         let in_page = (*index - page.index_of(0)).min(words.len() - 1);
         *index = page.index_of(in_page);
+        self.locate_moved(ctx.engine, &w, index);
         let word = self
             .moved_off_page
             .clone()
@@ -130,6 +133,28 @@ impl WordsView {
                 self.moves(ui, &word, &page, index);
             });
         });
+    }
+
+    /// Once the place of the word reached by a move is found, selects it there
+    /// (the page follows).
+    fn locate_moved(&mut self, engine: &Engine, w: &Perm, index: &mut usize) {
+        let Some(word) = self.moved_off_page.clone() else {
+            self.locating.clear();
+            return;
+        };
+        match self
+            .locating
+            .fetch(engine, JobKey::WordRank(w.clone(), word))
+        {
+            Fetch::Ready(out) => {
+                if let Some(rank) = out.count().and_then(|c| usize::try_from(c).ok()) {
+                    self.select(index, rank);
+                }
+            }
+            // a word of another permutation (w changed meanwhile), or canceled
+            Fetch::Failed(_) => self.moved_off_page = None,
+            Fetch::Running(..) => {}
+        }
     }
 
     /// Selects the word at `to` in the whole list.
@@ -195,11 +220,15 @@ impl WordsView {
                 self.select(index, (page.number - 1) * WORD_PAGE);
             }
             let shown_to = page.index_of(page.words.len());
+            let selected = if self.moved_off_page.is_some() {
+                "the word the move reached (finding its place in the list)".to_string()
+            } else {
+                (*index + 1).to_string()
+            };
             ui.label(format!(
-                "words {}–{} (lexicographic); selected {}",
+                "words {}–{} (lexicographic); selected {selected}",
                 page.index_of(0) + 1,
                 shown_to,
-                *index + 1
             ));
             let more = page.words.len() == WORD_PAGE && total.is_none_or(|t| shown_to < t);
             if ui.add_enabled(more, egui::Button::new("page >")).clicked() {

@@ -1,14 +1,16 @@
 //! The polynomial workbench: type a polynomial, see parse errors marked at
-//! their column, and its divided symmetrization DS_n (or DS_h for the
-//! Hessenberg view's h), exactly, with its expansion in monomial symmetric
-//! functions.
+//! their column, its divided symmetrization DS_n (or DS_h for the Hessenberg
+//! view's h), exactly, with its expansion in monomial symmetric functions, its
+//! Schubert expansion in H*(Fl_n) and stably, and its normal form modulo J_n.
+//! The window's thread only checks the length of the text; reading and every
+//! computation run on the engine.
 
+use super::products::{TYPED_TEXT_LIMIT, terms_list, terms_summary};
 use super::{show_math_error, show_progress};
 use crate::engine::requests::{Output, QuotientInput};
 use crate::engine::{Engine, Fetch, JobKey, Slot};
 use crate::gui::AppCtx;
 use crate::math::MathError;
-use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::session::Session;
 use eframe::egui;
@@ -16,10 +18,11 @@ use eframe::egui;
 /// The workbench's UI state.
 #[derive(Default)]
 pub struct WorkbenchView {
+    typed: Slot,
     divsym: Slot,
     normal_form: Slot,
-    /// The text last parsed, the number of variables, and the polynomial read (as text) or the error.
-    parsed: Option<(String, usize, Result<String, MathError>)>,
+    flag_expansion: Slot,
+    stable_expansion: Slot,
 }
 
 /// The field for the polynomial (a first polynomial when it is empty).
@@ -49,7 +52,7 @@ fn symmetrization_choice(ui: &mut egui::Ui, session: &mut Session, n: usize) {
             } else {
                 format!(
                     "DS_h with h = ({}) from the Hessenberg view",
-                    htext.join(",")
+                    htext.join(", ")
                 )
             };
             ui.radio_value(use_h, true, label);
@@ -133,7 +136,67 @@ fn show_result(
     }
 }
 
+/// A Schubert expansion: the summary and the rows (a click makes w current).
+fn show_expansion(ui: &mut egui::Ui, slot: &mut Slot, ctx: &mut AppCtx, key: JobKey, id: &str) {
+    let out = match slot.fetch(ctx.engine, key) {
+        Fetch::Ready(out) => out.clone(),
+        Fetch::Running(f, _) => {
+            show_progress(ui, "Schubert expansion", f, slot);
+            return;
+        }
+        Fetch::Failed(e) => {
+            let e = e.clone();
+            show_math_error(ui, &e);
+            return;
+        }
+    };
+    let Some(terms) = out.terms() else {
+        return;
+    };
+    terms_summary(ui, terms);
+    if let Some(w) = terms_list(ui, id, terms, ctx) {
+        ctx.go_to(w);
+    }
+}
+
 impl WorkbenchView {
+    /// DS_n(f) (or DS_h(f)) and the normal form modulo J_m.
+    fn divided_symmetrization_and_normal_form(
+        &mut self,
+        ui: &mut egui::Ui,
+        ctx: &mut AppCtx,
+        text: &str,
+        h: &[usize],
+    ) {
+        let name = if ctx.session.workbench.use_h {
+            "DS_h(f)"
+        } else {
+            "DS_n(f)"
+        };
+        let key = JobKey::DivSym(text.to_string(), h.to_vec());
+        show_result(
+            ui,
+            &mut self.divsym,
+            ctx.engine,
+            key,
+            "divided symmetrization",
+            |ui, out| show_divsym(ui, out, name),
+        );
+        let m = h.len();
+        if m <= MAX_QUOTIENT_N {
+            ui.separator();
+            let key = JobKey::NormalForm(QuotientInput::Typed(text.to_string(), m));
+            show_result(
+                ui,
+                &mut self.normal_form,
+                ctx.engine,
+                key,
+                "normal form",
+                |ui, out| show_normal_form(ui, out, m),
+            );
+        }
+    }
+
     /// Draws the view.
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         ui.heading("Polynomial workbench");
@@ -143,59 +206,58 @@ impl WorkbenchView {
         symmetrization_choice(ui, ctx.session, n);
         let h = chosen_h(ctx.session, n);
         let text = ctx.session.workbench.poly.clone();
-        match self.parse(&text, h.len()) {
-            Err(e) => {
-                show_math_error(ui, e);
-                return;
-            }
-            Ok(p) => {
-                ui.label(egui::RichText::new(format!("f = {p}")).monospace());
-            }
-        }
-        ui.separator();
-        let name = if ctx.session.workbench.use_h {
-            "DS_h(f)"
-        } else {
-            "DS_n(f)"
-        };
-        let key = JobKey::DivSym(text.clone(), h.clone());
-        show_result(
-            ui,
-            &mut self.divsym,
-            ctx.engine,
-            key,
-            "divided symmetrization",
-            |ui, out| show_divsym(ui, out, name),
-        );
-        ui.separator();
-        let m = h.len();
-        if m > MAX_QUOTIENT_N {
+        // the one check on this thread: the length of the text
+        if text.len() > TYPED_TEXT_LIMIT {
+            show_math_error(
+                ui,
+                &MathError::OutOfRange(format!(
+                    "the polynomial is {} characters long; at most {TYPED_TEXT_LIMIT} are read",
+                    text.len()
+                )),
+            );
             return;
         }
-        let key = JobKey::NormalForm(QuotientInput::Typed(text, m));
-        show_result(
-            ui,
-            &mut self.normal_form,
-            ctx.engine,
-            key,
-            "normal form",
-            |ui, out| show_normal_form(ui, out, m),
-        );
-    }
-
-    /// The polynomial `text` in `n` variables, read again only when the text or n changed.
-    fn parse(&mut self, text: &str, n: usize) -> &Result<String, MathError> {
-        let stale = self
-            .parsed
-            .as_ref()
-            .is_none_or(|(t, m, _)| t != text || *m != n);
-        if stale {
-            self.parsed = None;
+        let m = h.len();
+        let read = match self.typed.fetch(ctx.engine, JobKey::Typed(text.clone(), m)) {
+            Fetch::Ready(out) => Some(out.clone()),
+            Fetch::Running(f, _) => {
+                show_progress(ui, "reading the polynomial", f, &self.typed);
+                None
+            }
+            Fetch::Failed(e) => {
+                let e = e.clone();
+                show_math_error(ui, &e);
+                None
+            }
+        };
+        // DS and the normal form need f multiplied out: they start once it was read
+        if let Some(t) = read.as_ref().and_then(|o| o.text().map(str::to_string)) {
+            ui.add(egui::Label::new(egui::RichText::new(format!("f = {t}")).monospace()).wrap());
+            ui.separator();
+            self.divided_symmetrization_and_normal_form(ui, ctx, &text, &h);
+        } else {
+            // asked for no more: a job for an older text stops
+            self.divsym.clear();
+            self.normal_form.clear();
         }
-        let (_, _, parsed) = self.parsed.get_or_insert_with(|| {
-            let r = parse_poly(text, Some(n)).map(|p| p.to_text());
-            (text.to_string(), n, r)
+        ui.separator();
+        ui.columns(2, |cols| {
+            cols[0].strong(format!("Schubert expansion in H*(Fl_{m})"));
+            show_expansion(
+                &mut cols[0],
+                &mut self.flag_expansion,
+                ctx,
+                JobKey::Expansion(text.clone(), m, false),
+                "workbench_flag_rows",
+            );
+            cols[1].strong(format!("stably, in Q[x1..x{m}] over S_∞"));
+            show_expansion(
+                &mut cols[1],
+                &mut self.stable_expansion,
+                ctx,
+                JobKey::Expansion(text, m, true),
+                "workbench_stable_rows",
+            );
         });
-        parsed
     }
 }

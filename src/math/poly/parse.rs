@@ -15,6 +15,7 @@ use crate::math::limits::{
 };
 use crate::math::poly::mono::{MAX_EXP, MAX_VARS};
 use crate::math::poly::polynomial::{PolyBuilder, RatPoly};
+use crate::math::progress::Progress;
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::{One, Zero};
@@ -29,6 +30,16 @@ use num_traits::{One, Zero};
 /// assert!(parse_poly("2x1 + * x3", Some(3)).is_err());
 /// ```
 pub fn parse_poly(text: &str, nvars: Option<usize>) -> MathResult<RatPoly> {
+    parse_poly_with(text, nvars, &Progress::default())
+}
+
+/// [`parse_poly`], stopping with `Canceled` soon after a cancel of `progress`
+/// (the products and powers of a typed polynomial can take long).
+pub fn parse_poly_with(
+    text: &str,
+    nvars: Option<usize>,
+    progress: &Progress,
+) -> MathResult<RatPoly> {
     check_length(text)?;
     let tokens = lex(text)?;
     let declared = nvars;
@@ -40,6 +51,7 @@ pub fn parse_poly(text: &str, nvars: Option<usize>) -> MathResult<RatPoly> {
         nvars: width,
         declared,
         depth: 0,
+        progress,
     };
     if p.tokens.len() == 1 {
         return Err(p.error_here("the input is empty; type a polynomial such as 2x1 x2 - 3/2 x3^2"));
@@ -96,10 +108,19 @@ impl LinearFactors {
 /// assert!(parse_linear_factors("x5", Some(4)).is_err());
 /// ```
 pub fn parse_linear_factors(text: &str, nvars: Option<usize>) -> MathResult<Option<LinearFactors>> {
+    parse_linear_factors_with(text, nvars, &Progress::default())
+}
+
+/// [`parse_linear_factors`], with `progress` polled when the text is read in full.
+pub fn parse_linear_factors_with(
+    text: &str,
+    nvars: Option<usize>,
+    progress: &Progress,
+) -> MathResult<Option<LinearFactors>> {
     check_length(text)?;
     let tokens = match lex(text) {
         Ok(t) => t,
-        Err(_) => return parse_poly(text, nvars).map(|_| None),
+        Err(_) => return parse_poly_with(text, nvars, progress).map(|_| None),
     };
     let width = width_of(&tokens, nvars)?;
     let mut p = Parser {
@@ -109,6 +130,7 @@ pub fn parse_linear_factors(text: &str, nvars: Option<usize>) -> MathResult<Opti
         nvars: width,
         declared: nvars,
         depth: 0,
+        progress: &Progress::default(),
     };
     if p.tokens.len() > 1
         && let Some((scalar, factors)) = p.factored_product(0)
@@ -121,7 +143,7 @@ pub fn parse_linear_factors(text: &str, nvars: Option<usize>) -> MathResult<Opti
         }));
     }
     // another shape, or an error that the full reader reports with its column
-    parse_poly(text, nvars).map(|_| None)
+    parse_poly_with(text, nvars, progress).map(|_| None)
 }
 
 /// Refuses a text longer than [`TYPED_TEXT_LIMIT`] characters before reading it.
@@ -375,6 +397,8 @@ struct Parser<'a> {
     declared: Option<usize>,
     /// How many parentheses and signs enclose the current position.
     depth: usize,
+    /// Polled in products and powers.
+    progress: &'a Progress,
 }
 
 impl Parser<'_> {
@@ -417,7 +441,7 @@ impl Parser<'_> {
 
     fn fail(&self, at: usize, e: MathError) -> MathError {
         match e {
-            MathError::Syntax { .. } => e,
+            MathError::Syntax { .. } | MathError::Canceled => e,
             other => syntax(self.text, at, &other.to_string()),
         }
     }
@@ -721,7 +745,7 @@ impl Parser<'_> {
                 ),
             ));
         }
-        a.mul(b).map_err(|e| self.fail(at, e))
+        a.mul_with(b, self.progress).map_err(|e| self.fail(at, e))
     }
 
     /// base^k by repeated squaring, each multiplication sized by [`Self::product`];

@@ -5,6 +5,7 @@
 
 use crate::math::error::{MathError, MathResult};
 use crate::math::poly::mono::{MAX_VARS, Mono};
+use crate::math::progress::Progress;
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::{One, Signed, Zero};
@@ -384,11 +385,18 @@ impl<C: Coeff> Poly<C> {
 
     /// p·q; fails if an exponent would exceed 255 or the product is too large to hold.
     pub fn mul(&self, other: &Self) -> MathResult<Self> {
+        self.mul_with(other, &Progress::default())
+    }
+
+    /// [`Poly::mul`], stopping with `Canceled` within a few thousand term
+    /// products of a cancel of `progress`.
+    pub fn mul_with(&self, other: &Self, progress: &Progress) -> MathResult<Self> {
         let nvars = self.nvars.max(other.nvars);
         if self.terms.len().saturating_mul(other.terms.len()) > TERM_LIMIT * 8 {
             return Err(too_large());
         }
         let mut b = PolyBuilder::new(nvars);
+        let mut since_check = 0usize;
         for (m1, c1) in &self.terms {
             for (m2, c2) in &other.terms {
                 let m = m1
@@ -397,10 +405,16 @@ impl<C: Coeff> Poly<C> {
                 let c = c1.clone() * c2;
                 b.add_term(m, &c);
             }
+            since_check += other.terms.len();
+            if since_check >= 4096 {
+                progress.check()?;
+                since_check = 0;
+            }
             if b.len() > TERM_LIMIT {
                 return Err(too_large());
             }
         }
+        progress.check()?;
         Ok(b.build())
     }
 
@@ -424,16 +438,21 @@ impl<C: Coeff> Poly<C> {
 
     /// p^k by repeated squaring.
     pub fn pow(&self, k: u32) -> MathResult<Self> {
+        self.pow_with(k, &Progress::default())
+    }
+
+    /// [`Poly::pow`], stopping with `Canceled` soon after a cancel of `progress`.
+    pub fn pow_with(&self, k: u32, progress: &Progress) -> MathResult<Self> {
         let mut result = Self::one(self.nvars);
         let mut base = self.clone();
         let mut k = k;
         while k > 0 {
             if k & 1 == 1 {
-                result = result.mul(&base)?;
+                result = result.mul_with(&base, progress)?;
             }
             k >>= 1;
             if k > 0 {
-                base = base.mul(&base)?;
+                base = base.mul_with(&base, progress)?;
             }
         }
         Ok(result)

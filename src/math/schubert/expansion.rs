@@ -24,7 +24,7 @@ use crate::math::error::{MathError, MathResult};
 use crate::math::perms::listing::mahonian_row;
 use crate::math::perms::perm::{MAX_N, Perm};
 use crate::math::poly::mono::Mono;
-use crate::math::poly::parse::{LinearFactors, parse_linear_factors, parse_poly};
+use crate::math::poly::parse::{LinearFactors, parse_linear_factors_with, parse_poly_with};
 use crate::math::poly::polynomial::RatPoly;
 use crate::math::progress::Progress;
 use crate::math::schubert::polynomial::SchubertTable;
@@ -569,8 +569,8 @@ pub fn expand_typed(
     } else {
         Space::flag(n)?
     };
-    match parse_linear_factors(text, Some(n))? {
+    match parse_linear_factors_with(text, Some(n), progress)? {
         Some(product) => expand_linear_factors(&product, space, progress),
-        None => schubert_expansion(&parse_poly(text, Some(n))?, space, progress),
+        None => schubert_expansion(&parse_poly_with(text, Some(n), progress)?, space, progress),
     }
 }

@@ -1,0 +1,200 @@
+//! The explorer's jobs driven headlessly (egui_kittest, no display): a cancel
+//! leaves the window idle, a second request replaces the first, a fast job
+//! finishes beside a slow one, a product's row makes w current, and a huge
+//! typed power does not hold up the frames.
+#![cfg(feature = "gui")]
+#![allow(clippy::unwrap_used)]
+
+use eframe::egui;
+use egui_kittest::Harness;
+use egui_kittest::kittest::Queryable;
+use elbowroom::engine::Engine;
+use elbowroom::gui::Explorer;
+use elbowroom::gui::app::demo_session;
+use std::time::{Duration, Instant};
+
+fn harness() -> Harness<'static, Explorer> {
+    Harness::builder()
+        .with_size(egui::vec2(1280.0, 800.0))
+        .with_accessibility_check(false)
+        .allow_missing_glyphs()
+        .build_ui_state(
+            |ui, app: &mut Explorer| app.show(ui),
+            Explorer::new(demo_session(), Engine::quiet()),
+        )
+}
+
+/// Steps frames until `done` holds (the engine works on other threads).
+fn settle(h: &mut Harness<'static, Explorer>, done: impl Fn(&Harness<'static, Explorer>) -> bool) {
+    let start = Instant::now();
+    while start.elapsed() < Duration::from_secs(60) {
+        h.step();
+        if done(h) {
+            return;
+        }
+        std::thread::sleep(Duration::from_millis(5));
+    }
+    panic!("the explorer did not reach the expected state in time");
+}
+
+fn has(h: &Harness<'static, Explorer>, text: &str) -> bool {
+    h.query_all_by_label_contains(text).next().is_some()
+}
+
+/// n = 11, h = (3, 4, ..., 11, 11, 11): |h| = 27, the middle length of S_11; its
+/// table takes many seconds, so it is still running whenever the tests look.
+const SLOW_H: [usize; 11] = [3, 4, 5, 6, 7, 8, 9, 10, 11, 11, 11];
+
+/// Opens the Hessenberg view on `h` and presses the button (n = 11 does not start by itself).
+fn start_table(h: &mut Harness<'static, Explorer>, values: &[usize]) {
+    h.get_by_label("Hessenberg classes").click();
+    h.step();
+    h.state_mut().session.hessenberg.h = values.to_vec();
+    h.step();
+    h.get_by_label("compute the table").click();
+    settle(h, |h| {
+        h.state()
+            .engine
+            .running()
+            .iter()
+            .any(|r| r.progress.done() > 0)
+    });
+    // the status line is drawn before the view that started the job: one more frame
+    h.step();
+}
+
+#[test]
+fn a_cancel_stops_the_table_and_the_status_line_shows_idle() {
+    let mut h = harness();
+    start_table(&mut h, &SLOW_H);
+    assert!(has(&h, "running"));
+    assert!(has(
+        &h,
+        "Hessenberg table of h = (3, 4, 5, 6, 7, 8, 9, 10, 11, 11, 11)"
+    ));
+    let asked = Instant::now();
+    // the view's cancel button (the status line has one too)
+    h.get_all_by_label("cancel").last().unwrap().click();
+    settle(&mut h, |h| h.state().engine.running().is_empty());
+    eprintln!("the job ended {:?} after the click", asked.elapsed());
+    h.step();
+    assert!(has(&h, "idle"));
+    assert!(has(&h, "canceled"));
+}
+
+#[test]
+fn a_second_table_request_replaces_the_first() {
+    let mut h = harness();
+    start_table(&mut h, &SLOW_H);
+    let first = h.state().engine.running()[0].progress.clone();
+    // another h of n = 11, asked for with the button: the first job is dropped
+    let other = [4, 5, 6, 7, 8, 9, 10, 11, 11, 11, 11];
+    h.state_mut().session.hessenberg.h = other.to_vec();
+    h.step();
+    h.get_by_label("compute the table").click();
+    h.step();
+    assert!(first.is_canceled());
+    settle(&mut h, |h| {
+        let running = h.state().engine.running();
+        running.len() == 1 && !running[0].progress.is_canceled()
+    });
+    assert!(has(
+        &h,
+        "Hessenberg table of h = (4, 5, 6, 7, 8, 9, 10, 11, 11, 11, 11)"
+    ));
+}
+
+#[test]
+fn the_survey_of_s5_finishes_while_a_slow_table_runs() {
+    let mut h = harness();
+    start_table(&mut h, &SLOW_H);
+    let slow = h.state().engine.running()[0].progress.clone();
+    h.get_by_label("Quotient by J_n").click();
+    h.step();
+    h.get_by_label("positivity survey of all of S_5").click();
+    // the 120 normal forms of S_5 (as in gui_explorer.rs: none has a negative coefficient)
+    settle(&mut h, |h| {
+        has(
+            h,
+            "120 permutations: every normal form has nonnegative coefficients",
+        )
+    });
+    // the table was neither stopped nor finished meanwhile
+    assert!(!slow.is_canceled());
+    assert!(
+        h.state()
+            .engine
+            .running()
+            .iter()
+            .any(|r| r.label.contains("Hessenberg"))
+    );
+}
+
+#[test]
+fn a_click_on_a_product_row_makes_w_current() {
+    let mut h = harness();
+    h.get_by_label("Products & expansions").click();
+    h.step();
+    h.state_mut().products.u_text = "132".into();
+    h.state_mut().products.v_text = "132".into();
+    h.state_mut().products.stable = true;
+    // S_132 · S_132 = (x1 + x2)^2 = S_1423 + S_231 (Monk's rule; by hand,
+    // S_231 = x1 x2 and S_1423 = x1^2 + x1 x2 + x2^2, Macdonald's table)
+    settle(&mut h, |h| {
+        has(h, "2 terms; every coefficient is nonnegative")
+    });
+    h.get_all_by_label("1423").last().unwrap().click();
+    h.step();
+    // the demo explores S_5, so 1423 is taken there
+    assert_eq!(h.state().session.current, vec![1, 4, 2, 3, 5]);
+}
+
+#[test]
+fn negative_coefficients_of_an_expansion_are_marked() {
+    let mut h = harness();
+    h.get_by_label("Products & expansions").click();
+    h.step();
+    // x2 = S_132 − S_21 stably (S_132 = x1 + x2, S_21 = x1); in H*(Fl_5) the same
+    // with five entries
+    h.state_mut().products.poly = "x2".into();
+    settle(&mut h, |h| has(h, "some coefficients are negative"));
+    assert!(has(&h, "negative"));
+    assert!(has(&h, "-1"));
+    assert!(has(&h, "21345"));
+}
+
+#[test]
+fn a_huge_power_in_the_workbench_keeps_frames_flowing() {
+    let mut h = harness();
+    h.state_mut().session.n = 8;
+    h.state_mut().session.current = (1..=8).collect();
+    h.get_by_label("Polynomial workbench").click();
+    h.step();
+    // (x1 + ... + x8)^30 has C(37, 7) = 10 295 472 terms: reading it multiplies for
+    // minutes; in H*(Fl_8) it is 0 (degree 30 > 28 = dim Fl_8), which Monk's rule
+    // finds at once without multiplying out
+    h.state_mut().session.workbench.poly = "(x1+x2+x3+x4+x5+x6+x7+x8)^30".into();
+    let mut longest = Duration::ZERO;
+    for _ in 0..40 {
+        let t = Instant::now();
+        h.step();
+        longest = longest.max(t.elapsed());
+        std::thread::sleep(Duration::from_millis(5));
+    }
+    eprintln!("longest of 40 frames while the power is read: {longest:?}");
+    // still reading (the frames did not wait for it) and the flag expansion is there
+    assert!(has(&h, "reading the polynomial"));
+    assert!(has(&h, "0 terms"));
+    // a shorter text replaces the request: the reading of the power is canceled
+    let reading = h
+        .state()
+        .engine
+        .running()
+        .into_iter()
+        .find(|r| r.label.starts_with("reading"))
+        .unwrap()
+        .progress;
+    h.state_mut().session.workbench.poly = "x1 x2".into();
+    settle(&mut h, |h| has(h, "f = x1 x2"));
+    assert!(reading.is_canceled());
+}
