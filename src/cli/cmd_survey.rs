@@ -2,6 +2,8 @@
 //! J_n of the reversed Schubert polynomial S_w(x_n, ..., x_1), whether its coefficients are
 //! all nonnegative, its number of terms and coefficient sum, and every counterexample.
 //!
+//! From n = 9 on only the w with ℓ(w) <= n − 1 are listed (the others reduce to 0).
+//!
 //! Ctrl-C stops the run: stderr says how far it got, the exit status is 130 and nothing
 //! is printed on stdout.
 
@@ -13,7 +15,7 @@ use super::json;
 use super::shard::Shard;
 use crate::math::Perm;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::survey::{SurveyEntry, survey};
+use crate::math::quotient::survey::{FULL_LISTING_MAX_N, SurveyEntry, survey, survey_listing};
 use crate::tables::results::survey_table;
 use serde_json::{Value, json};
 
@@ -44,7 +46,7 @@ pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
                     "--n {n} is out of range; surveys run for n from 1 to {MAX_QUOTIENT_N}"
                 )));
             }
-            (n, Perm::all(n).collect())
+            (n, survey_listing(n))
         }
         (None, None) => {
             return Err(CliError::Input(
@@ -52,6 +54,15 @@ pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
             ));
         }
     };
+    let listed_total = perms.len();
+    if shard.index > listed_total {
+        return Err(CliError::Input(format!(
+            "--shard {}/{} is beyond the listing: it has {listed_total} {}, so K can be at most {listed_total}",
+            shard.index,
+            shard.count,
+            if listed_total == 1 { "permutation" } else { "permutations" }
+        )));
+    }
     let perms: Vec<Perm> = perms
         .into_iter()
         .enumerate()
@@ -66,12 +77,15 @@ pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
     )?;
     let shard_text = format!("{}/{}", shard.index, shard.count);
     if args.output.json {
-        return Ok(json::render(&survey_json(
-            n,
-            &shard_text,
-            &entries,
-            args.summary,
-        )));
+        let mut v = survey_json(n, &shard_text, &entries, args.summary);
+        if n > FULL_LISTING_MAX_N
+            && let Some(obj) = v.as_object_mut()
+        {
+            obj.insert("version".into(), json!(env!("CARGO_PKG_VERSION")));
+            obj.insert("listed_total".into(), json!(listed_total));
+            obj.insert("listing".into(), json!(listing_name(n)));
+        }
+        return Ok(json::render(&v));
     }
     if let Some(out) = args
         .output
@@ -80,6 +94,15 @@ pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
         return Ok(out);
     }
     Ok(survey_text(n, &shard_text, &entries, args.summary))
+}
+
+/// Which permutations the survey of S_n lists (the `"listing"` of the JSON).
+fn listing_name(n: usize) -> &'static str {
+    if n <= FULL_LISTING_MAX_N {
+        "all of S_n"
+    } else {
+        "length at most n - 1 (the others reduce to 0)"
+    }
 }
 
 /// The survey as the JSON object of the command (`"kind": "quotient_survey"`).
@@ -127,6 +150,12 @@ fn survey_text(n: usize, shard: &str, entries: &[SurveyEntry], summary: bool) ->
             "permutations"
         },
     );
+    if n > FULL_LISTING_MAX_N {
+        out.push_str(&format!(
+            "(listed: the w with ℓ(w) <= {}; every S_w of degree >= {n} lies in J_{n})\n\n",
+            n - 1
+        ));
+    }
     out.push_str(&format!(
         "{:<10} {:>3} {:>6} {:>8} {:>6}{}\n",
         "w",

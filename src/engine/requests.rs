@@ -15,8 +15,10 @@ use crate::math::pipes::bumpless::{BumplessDream, bumpless_dreams};
 use crate::math::pipes::dream::{PipeDream, count_pipe_dreams, pipe_dreams};
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::{NormalForm, groebner_basis, hilbert_series, normal_form};
-use crate::math::quotient::survey::{SurveyEntry, survey};
+use crate::math::quotient::normal_form::{
+    NormalForm, groebner_basis_with, hilbert_series, normal_form,
+};
+use crate::math::quotient::survey::{SurveyEntry, survey, survey_listing};
 use crate::math::schubert::polynomial::SchubertTable;
 use crate::math::{IntPoly, MathError, MathResult, Perm, Progress};
 use num_bigint::{BigInt, BigUint};
@@ -363,7 +365,7 @@ fn survey_of_all(n: usize, progress: &Progress) -> MathResult<Vec<SurveyEntry>> 
             "surveys run for n from 1 to {MAX_QUOTIENT_N}"
         )));
     }
-    let perms: Vec<Perm> = Perm::all(n).collect();
+    let perms: Vec<Perm> = survey_listing(n);
     progress.set_total(perms.len() as u64);
     survey(&perms, progress)
 }
@@ -378,7 +380,7 @@ fn reduce(input: &QuotientInput, progress: &Progress) -> MathResult<Reduced> {
         }
         QuotientInput::Typed(text, n) => (*n, parse_poly(text, Some(*n))?),
     };
-    let q = groebner_basis(n)?;
+    let q = groebner_basis_with(n, progress)?;
     progress.advance(1);
     progress.check()?;
     let normal = normal_form(&q, &f)?;
