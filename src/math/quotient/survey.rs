@@ -78,6 +78,81 @@ impl SurveyEntry {
     }
 }
 
+/// What a survey reports of one permutation, full ([`SurveyEntry`]) or summarized
+/// ([`SurveySummary`]).
+pub trait SurveyRecord {
+    /// The permutation w.
+    fn perm(&self) -> &Perm;
+    /// The number of terms of the normal form.
+    fn terms(&self) -> usize;
+    /// The sum of the coefficients of the normal form.
+    fn sum(&self) -> BigRational;
+    /// The negative coefficients, with their standard monomials.
+    fn negatives(&self) -> Vec<(Mono, BigRational)>;
+    /// Whether every coefficient of the normal form is >= 0.
+    fn nonnegative(&self) -> bool {
+        self.negatives().is_empty()
+    }
+}
+
+impl SurveyRecord for SurveyEntry {
+    fn perm(&self) -> &Perm {
+        &self.perm
+    }
+    fn terms(&self) -> usize {
+        SurveyEntry::terms(self)
+    }
+    fn sum(&self) -> BigRational {
+        SurveyEntry::sum(self)
+    }
+    fn negatives(&self) -> Vec<(Mono, BigRational)> {
+        SurveyEntry::negatives(self)
+    }
+    fn nonnegative(&self) -> bool {
+        SurveyEntry::nonnegative(self)
+    }
+}
+
+/// The survey record of one permutation without its normal form: what `survey --summary`
+/// prints, in a few words of memory (a survey of S_11 holds 113,906 of them).
+#[derive(Clone, Debug, PartialEq)]
+pub struct SurveySummary {
+    /// The permutation w.
+    pub perm: Perm,
+    /// The number of terms of the normal form.
+    pub terms: usize,
+    /// The sum of its coefficients.
+    pub sum: BigRational,
+    /// Its negative coefficients, with their standard monomials.
+    pub negatives: Vec<(Mono, BigRational)>,
+}
+
+impl SurveySummary {
+    fn of(e: &SurveyEntry) -> SurveySummary {
+        SurveySummary {
+            perm: e.perm.clone(),
+            terms: e.terms(),
+            sum: e.sum(),
+            negatives: e.negatives(),
+        }
+    }
+}
+
+impl SurveyRecord for SurveySummary {
+    fn perm(&self) -> &Perm {
+        &self.perm
+    }
+    fn terms(&self) -> usize {
+        self.terms
+    }
+    fn sum(&self) -> BigRational {
+        self.sum.clone()
+    }
+    fn negatives(&self) -> Vec<(Mono, BigRational)> {
+        self.negatives.clone()
+    }
+}
+
 /// The permutations a survey of S_n lists, in lexicographic order: all of S_n for
 /// n <= [`FULL_LISTING_MAX_N`], otherwise those with ℓ(w) <= n − 1 (the normal form of
 /// every other one is 0). At n = 9, 10, 11 there are 8,095, 30,239 and 113,906 of them
@@ -284,6 +359,49 @@ fn to_normal_form(q: &QuasiGroebner, v: &[(u32, i128)]) -> NormalForm {
 /// assert_eq!(progress.done(), 6);
 /// ```
 pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry>> {
+    run(perms, progress, &|q, w, nf, table| match nf {
+        Some(v) => Ok(SurveyEntry {
+            perm: w.clone(),
+            normal_form: to_normal_form(q, v),
+        }),
+        None => entry_by_expansion(w, q, table),
+    })
+}
+
+/// [`survey`] keeping only the summary of each normal form (terms, sum, negatives).
+///
+/// ```
+/// use elbowroom::math::{Perm, Progress, quotient::survey::{SurveyRecord, survey_summaries}};
+/// let perms: Vec<Perm> = Perm::all(3).collect();
+/// let s = survey_summaries(&perms, &Progress::new(0)).unwrap();
+/// // S_{123} = 1, S_{132} = x1 + x2 reversed: x2 + x3, two terms
+/// assert_eq!((s[0].terms(), s[1].terms()), (1, 2));
+/// ```
+pub fn survey_summaries(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveySummary>> {
+    run(perms, progress, &|q, w, nf, table| match nf {
+        Some(v) => {
+            let basis = q.basis();
+            let int = |c: i128| BigRational::from_integer(BigInt::from(c));
+            Ok(SurveySummary {
+                perm: w.clone(),
+                terms: v.len(),
+                sum: v.iter().fold(BigRational::zero(), |acc, &(_, c)| acc + int(c)),
+                negatives: v
+                    .iter()
+                    .filter(|t| t.1 < 0)
+                    .map(|&(i, c)| (basis[i as usize], int(c)))
+                    .collect(),
+            })
+        }
+        None => entry_by_expansion(w, q, table).map(|e| SurveySummary::of(&e)),
+    })
+}
+
+/// Makes the record of w from its normal form (`None`: redo it by expansion).
+type Make<'a, E> =
+    dyn Fn(&QuasiGroebner, &Perm, Option<&[(u32, i128)]>, &mut SchubertTable) -> MathResult<E> + 'a;
+
+fn run<E: Clone>(perms: &[Perm], progress: &Progress, make: &Make<'_, E>) -> MathResult<Vec<E>> {
     let Some(first) = perms.first() else {
         return Ok(Vec::new());
     };
@@ -297,16 +415,14 @@ pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry
     let q = groebner_basis_with(n, progress)?;
     progress.set_total(progress.done() - before + perms.len() as u64);
     progress.check()?;
-    let mut out: Vec<Option<SurveyEntry>> = vec![None; perms.len()];
+    let mut table = SchubertTable::new();
+    let mut out: Vec<Option<E>> = vec![None; perms.len()];
     // by level: which of the requested permutations have each length
     let mut wanted: HashMap<Vec<u8>, Vec<usize>> = HashMap::new();
     let mut top = 0usize;
     for (i, w) in perms.iter().enumerate() {
         if w.length() >= n {
-            out[i] = Some(SurveyEntry {
-                perm: w.clone(),
-                normal_form: normal_form(&q, &IntPoly::zero(n))?,
-            });
+            out[i] = Some(make(&q, w, Some(&[]), &mut table)?);
             progress.advance(1);
         } else {
             top = top.max(w.length());
@@ -315,11 +431,10 @@ pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry
     }
     if !wanted.is_empty() && wanted.len() <= FEW {
         // a few permutations: expanding them is cheaper than walking every level below
-        let mut table = SchubertTable::new();
         for (i, w) in perms.iter().enumerate() {
             if out[i].is_none() {
                 progress.check()?;
-                out[i] = Some(entry_by_expansion(w, &q, &mut table)?);
+                out[i] = Some(make(&q, w, None, &mut table)?);
                 progress.advance(1);
             }
         }
@@ -333,7 +448,6 @@ pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry
             acc: vec![0; q.basis().len()],
             touched: Vec::new(),
         };
-        let mut table = SchubertTable::new();
         for level in 0..=top {
             walk.prev = std::mem::take(&mut walk.cur);
             walk.times_var.clear();
@@ -346,13 +460,7 @@ pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry
                 let Some(places) = wanted.get(key) else {
                     continue;
                 };
-                let e = match &nf {
-                    Some(v) => SurveyEntry {
-                        perm: w.clone(),
-                        normal_form: to_normal_form(&q, v),
-                    },
-                    None => entry_by_expansion(&w, &q, &mut table)?,
-                };
+                let e = make(&q, &w, nf.as_deref(), &mut table)?;
                 for &i in places {
                     out[i] = Some(e.clone());
                     progress.advance(1);
