@@ -37,7 +37,11 @@ fn check_dimensions(n: usize) {
     for (k, &hk) in h.iter().enumerate() {
         let k = k as u64;
         assert_eq!((nn - k) * binomial(nn + k, k) % (nn + k), 0);
-        assert_eq!(hk as u64, (nn - k) * binomial(nn + k, k) / (nn + k), "n = {n}, k = {k}");
+        assert_eq!(
+            hk as u64,
+            (nn - k) * binomial(nn + k, k) / (nn + k),
+            "n = {n}, k = {k}"
+        );
     }
 }
 
@@ -59,9 +63,13 @@ fn check_generators(n: usize) {
 /// n − 1 with coefficients in [−7, 7] (a 64-bit linear congruential generator).
 fn random_poly(n: usize, terms: usize, seed: u64) -> RatPoly {
     let monos = monomials_of_degree(n, (n - 1) as u32);
-    let mut x = seed.wrapping_mul(6364136223846793005).wrapping_add(1442695040888963407);
+    let mut x = seed
+        .wrapping_mul(6364136223846793005)
+        .wrapping_add(1442695040888963407);
     let mut next = || {
-        x = x.wrapping_mul(6364136223846793005).wrapping_add(1442695040888963407);
+        x = x
+            .wrapping_mul(6364136223846793005)
+            .wrapping_add(1442695040888963407);
         x >> 33
     };
     RatPoly::from_terms(
@@ -86,7 +94,11 @@ fn check_divsym(n: usize, samples: u64) {
             .iter()
             .map(|(m, c)| c * BigRational::from_integer(BigInt::from(ds.value(*m))))
             .sum();
-        assert_eq!(divsym_via_quotient(&f, n).unwrap(), expected, "n = {n}, seed {seed}");
+        assert_eq!(
+            divsym_via_quotient(&f, n).unwrap(),
+            expected,
+            "n = {n}, seed {seed}"
+        );
     }
 }
 
@@ -110,7 +122,11 @@ fn n9_divided_symmetrization_through_the_quotient() {
 #[test]
 fn n9_survey_walk_agrees_with_expansion() {
     let listing = survey_listing(9);
-    assert_eq!(listing.len(), 8095, "the sum over l < 9 of Mahonian(9, l), OEIS A008302");
+    assert_eq!(
+        listing.len(),
+        8095,
+        "the sum over l < 9 of Mahonian(9, l), OEIS A008302"
+    );
     let sample: Vec<Perm> = listing.iter().step_by(40).cloned().collect();
     let progress = Progress::new(0);
     let walked = survey(&sample, &progress).unwrap();

@@ -62,7 +62,11 @@ pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
             "--shard {}/{} is beyond the listing: it has {listed_total} {}, so K can be at most {listed_total}",
             shard.index,
             shard.count,
-            if listed_total == 1 { "permutation" } else { "permutations" }
+            if listed_total == 1 {
+                "permutation"
+            } else {
+                "permutations"
+            }
         )));
     }
     let perms: Vec<Perm> = perms
@@ -156,7 +160,9 @@ pub fn survey_json<E: SurveyRecord>(
     let counterexamples: Vec<Value> = entries
         .iter()
         .filter(|e| !e.nonnegative())
-        .map(|e| json!({"perm": e.perm().one_line(), "negative_coefficients": negatives_json(e, n)}))
+        .map(
+            |e| json!({"perm": e.perm().one_line(), "negative_coefficients": negatives_json(e, n)}),
+        )
         .collect();
     json!({
         "kind": SURVEY_KIND,

@@ -106,9 +106,7 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
             let (t, k, c) = (t as usize, parsed.index, parsed.count);
             if t >= k { (t - k) / c + 1 } else { 0 }
         });
-        if stated.is_some_and(|s| s as usize != r.len())
-            || expected.is_some_and(|e| e != r.len())
-        {
+        if stated.is_some_and(|s| s as usize != r.len()) || expected.is_some_and(|e| e != r.len()) {
             return Err(bad(format!(
                 "piece {} ({shard}) is cut short: it lists {} permutations, {} expected",
                 i + 1,

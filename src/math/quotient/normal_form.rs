@@ -13,12 +13,12 @@
 use crate::math::error::{MathError, MathResult};
 use crate::math::poly::mono::Mono;
 use crate::math::poly::polynomial::{Coeff, Poly, RatPoly};
+use crate::math::progress::Progress;
 use crate::math::quotient::groebner::{MAX_QUOTIENT_N, QuasiGroebner};
 use num_bigint::BigInt;
 use num_integer::Integer;
 use num_rational::BigRational;
 use num_traits::{One, Zero};
-use crate::math::progress::Progress;
 use std::sync::{Arc, Mutex, OnceLock, TryLockError};
 
 static CACHE: [OnceLock<Arc<QuasiGroebner>>; MAX_QUOTIENT_N + 1] =

@@ -385,7 +385,9 @@ pub fn survey_summaries(perms: &[Perm], progress: &Progress) -> MathResult<Vec<S
             Ok(SurveySummary {
                 perm: w.clone(),
                 terms: v.len(),
-                sum: v.iter().fold(BigRational::zero(), |acc, &(_, c)| acc + int(c)),
+                sum: v
+                    .iter()
+                    .fold(BigRational::zero(), |acc, &(_, c)| acc + int(c)),
                 negatives: v
                     .iter()
                     .filter(|t| t.1 < 0)
