@@ -8,6 +8,7 @@ use elbowroom::math::poly::compositions::monomials_of_degree;
 use elbowroom::math::quotient::groebner::QuasiGroebner;
 use elbowroom::math::quotient::normal_form::{groebner_basis, normal_form};
 use elbowroom::math::quotient::survey::survey;
+use elbowroom::math::schubert::polynomial::SchubertTable;
 use elbowroom::math::{Perm, Progress, RatPoly};
 use num_bigint::BigInt;
 use num_rational::BigRational;
@@ -55,6 +56,9 @@ fn bench_groebner(c: &mut Criterion) {
     g.bench_function("compute n=8", |b| {
         b.iter(|| QuasiGroebner::compute(black_box(8), None).unwrap())
     });
+    g.bench_function("compute n=9", |b| {
+        b.iter(|| QuasiGroebner::compute(black_box(9), None).unwrap())
+    });
     g.finish();
 }
 
@@ -93,5 +97,34 @@ fn bench_survey(c: &mut Criterion) {
     g.finish();
 }
 
-criterion_group!(benches, bench_groebner, bench_reduce, bench_survey);
+/// The survey's transition walk on normal forms against the baseline of expanding each
+/// Schubert polynomial and dividing it (S_8, the 40320 permutations, most of length >= 8).
+fn bench_survey_walk(c: &mut Criterion) {
+    groebner_basis(8).unwrap();
+    let q = groebner_basis(8).unwrap();
+    let perms: Vec<Perm> = Perm::all(8).filter(|w| w.length() < 8).collect();
+    let mut g = c.benchmark_group("survey walk");
+    g.sample_size(10);
+    g.bench_function("S_8, length < 8: transition on normal forms", |b| {
+        b.iter(|| survey(black_box(&perms), &Progress::new(0)).unwrap())
+    });
+    g.bench_function("S_8, length < 8: expand S_w and divide (baseline)", |b| {
+        b.iter(|| {
+            let mut table = SchubertTable::new();
+            for w in &perms {
+                let s = table.get(w).reverse_vars();
+                black_box(normal_form(&q, &s).unwrap());
+            }
+        })
+    });
+    g.finish();
+}
+
+criterion_group!(
+    benches,
+    bench_groebner,
+    bench_reduce,
+    bench_survey,
+    bench_survey_walk
+);
 criterion_main!(benches);

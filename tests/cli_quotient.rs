@@ -53,9 +53,15 @@ fn bad_input_is_one_line_and_status_2() {
     assert_input_error(&["reduce", "x1 +", "--n", "3", "--json"]);
     assert_input_error(&["reduce", "x5", "--n", "3"]);
     assert_input_error(&["reduce", "M(0,1)", "--n", "3"]);
-    assert_input_error(&["quotient", "--n", "9", "--json"]);
+    assert_input_error(&["quotient", "--n", "12", "--json"]);
     assert_input_error(&["quotient", "--n", "0"]);
-    assert_input_error(&["survey", "--n", "9", "--json"]);
+    assert_input_error(&["survey", "--n", "12", "--json"]);
+    assert_input_error(&["reduce", "x1", "--n", "12"]);
+    // a piece beyond the listing (S_2 lists 2 permutations)
+    rejects(
+        &["survey", "--n", "2", "--shard", "3/5"],
+        "beyond the listing",
+    );
     assert_input_error(&["survey", "--perm", "1123"]);
     assert_input_error(&["survey", "--n", "3", "--shard", "4/3"]);
     assert_input_error(&["survey"]);
@@ -122,7 +128,8 @@ fn sharded_survey_merges_to_the_whole() {
 #[cfg(unix)]
 #[test]
 fn interrupt_cancels_cleanly() {
-    let out = interrupted(&["survey", "--n", "8", "--json"]);
+    // n = 10: the basis alone takes about a minute, so the signal lands inside its construction
+    let out = interrupted(&["survey", "--n", "10", "--json"]);
     assert_eq!(out.status.code(), Some(130));
     assert!(out.stdout.is_empty());
     let err = String::from_utf8(out.stderr).unwrap();
@@ -130,4 +137,59 @@ fn interrupt_cancels_cleanly() {
         err.contains("the survey canceled after") && err.contains("permutations"),
         "{err}"
     );
+}
+
+/// n = 9 (the first n past the old limit): Catalan(9) = 4862 (OEIS A000108) and the
+/// graded dimensions (9 − k)/(9 + k)·C(9 + k, k) (Aval–Bergeron–Bergeron 2004; OEIS
+/// A009766, row 8: 1, 8, 35, 110, 275, 572, 1001, 1430, 1430); the survey lists the 8095
+/// permutations of length <= 8 and says so.
+#[test]
+fn quotient_and_survey_at_n9() {
+    let v = json_of(&["quotient", "--n", "9", "--json"]);
+    assert_eq!(v["dimension"], json!("4862"));
+    assert_eq!(
+        v["hilbert"],
+        json!([1, 8, 35, 110, 275, 572, 1001, 1430, 1430])
+    );
+    // corners: Catalan(0) + ... + Catalan(8) = 1 + 1 + 2 + 5 + 14 + 42 + 132 + 429 + 1430
+    assert_eq!(v["groebner_size"], json!(2056));
+    // M_(2,1,3) lies in J_9; x9^8 is standard (partial sums 0, ..., 0, 8 <= 8)
+    let r = json_of(&["reduce", "M(2,1,3) + x9^8", "--n", "9", "--json"]);
+    let c = r["coefficients"].as_array().unwrap();
+    assert_eq!(c.len(), 1);
+    assert_eq!(c[0]["monomial"], json!([0, 0, 0, 0, 0, 0, 0, 0, 8]));
+    assert_eq!(c[0]["value"], json!("1"));
+    let s = json_of(&[
+        "survey",
+        "--n",
+        "9",
+        "--json",
+        "--summary",
+        "--shard",
+        "3/4",
+    ]);
+    assert_eq!(s["listed_total"], json!(8095));
+    assert_eq!(s["count"], json!(2024));
+}
+
+/// Pieces that do not belong together are refused in one line naming the piece.
+#[test]
+fn merge_refuses_foreign_or_short_pieces() {
+    let a = json_of(&["survey", "--n", "3", "--json", "--shard", "1/2"]);
+    let b = json_of(&["survey", "--n", "3", "--json", "--shard", "2/2"]);
+    let other_n = json_of(&["survey", "--n", "4", "--json", "--shard", "2/2"]);
+    let err = |docs: &[Value]| {
+        merge_surveys(docs)
+            .err()
+            .map(|e| e.message().to_string())
+            .unwrap_or_default()
+    };
+    assert!(err(&[a.clone(), other_n]).contains("piece 2 (2/2) surveys n = 4"));
+    let mut short = b.clone();
+    short["results"].as_array_mut().unwrap().pop();
+    assert!(err(&[a.clone(), short]).contains("piece 2 (2/2) is cut short"));
+    let mut old = b.clone();
+    old["version"] = json!("0.0.1");
+    assert!(err(&[a.clone(), old]).contains("piece 2 (2/2) was written by version 0.0.1"));
+    assert!(merge_surveys(&[a, b]).is_ok());
 }

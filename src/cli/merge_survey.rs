@@ -28,6 +28,15 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
         ));
     };
     let n = first.get("n").and_then(Value::as_u64);
+    let version = first.get("version").and_then(Value::as_str);
+    // pieces of n <= 8 carry no "listed_total": they list all of S_n
+    let full = |d: &Value| {
+        d.get("listed_total").and_then(Value::as_u64).or_else(|| {
+            let m = d.get("n").and_then(Value::as_u64)?;
+            (m <= 8).then(|| (1..=m).product())
+        })
+    };
+    let listed_total = full(first);
     let mut seen: Vec<bool> = Vec::new();
     let mut count: Option<usize> = None;
     let mut results: Vec<Value> = Vec::new();
@@ -39,10 +48,31 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
                 i + 1
             )));
         }
-        if doc.get("n").and_then(Value::as_u64) != n {
-            return Err(bad(format!("piece {} surveys a different n", i + 1)));
-        }
         let shard = doc.get("shard").and_then(Value::as_str).unwrap_or("");
+        let its_n = doc.get("n").and_then(Value::as_u64);
+        if its_n != n {
+            return Err(bad(format!(
+                "piece {} ({shard}) surveys n = {}, the first piece n = {}; merge pieces of one run",
+                i + 1,
+                its_n.map_or("?".into(), |v| v.to_string()),
+                n.map_or("?".into(), |v| v.to_string())
+            )));
+        }
+        let its_version = doc.get("version").and_then(Value::as_str);
+        if its_version != version {
+            return Err(bad(format!(
+                "piece {} ({shard}) was written by version {}, the first piece by {}; rerun the pieces with one version",
+                i + 1,
+                its_version.unwrap_or("(none)"),
+                version.unwrap_or("(none)")
+            )));
+        }
+        if full(doc) != listed_total {
+            return Err(bad(format!(
+                "piece {} ({shard}) splits a listing of a different size; merge pieces of one run",
+                i + 1
+            )));
+        }
         let parsed = Shard::parse(shard)
             .map_err(|_| bad(format!("piece {} has no valid \"shard\": \"K/N\"", i + 1)))?;
         match count {
@@ -71,6 +101,19 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
                 i + 1
             )));
         };
+        let stated = doc.get("count").and_then(Value::as_u64);
+        let expected = listed_total.map(|t| {
+            let (t, k, c) = (t as usize, parsed.index, parsed.count);
+            if t >= k { (t - k) / c + 1 } else { 0 }
+        });
+        if stated.is_some_and(|s| s as usize != r.len()) || expected.is_some_and(|e| e != r.len()) {
+            return Err(bad(format!(
+                "piece {} ({shard}) is cut short: it lists {} permutations, {} expected",
+                i + 1,
+                r.len(),
+                expected.or(stated.map(|s| s as usize)).unwrap_or(0)
+            )));
+        }
         results.extend(r.iter().cloned());
         counterexamples.extend(c.iter().cloned());
     }
@@ -84,7 +127,7 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
     let by_perm = |a: &Value, b: &Value| -> Ordering { perm_key(a).cmp(&perm_key(b)) };
     results.sort_by(by_perm);
     counterexamples.sort_by(by_perm);
-    Ok(json!({
+    let mut merged = json!({
         "kind": SURVEY_KIND,
         "n": n,
         "shard": "1/1",
@@ -93,7 +136,15 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
         "all_nonnegative": counterexamples.is_empty(),
         "results": results,
         "counterexamples": counterexamples,
-    }))
+    });
+    if let Some(obj) = merged.as_object_mut() {
+        for key in ["version", "listed_total", "listing"] {
+            if let Some(v) = first.get(key) {
+                obj.insert(key.into(), v.clone());
+            }
+        }
+    }
+    Ok(merged)
 }
 
 #[cfg(test)]
@@ -115,5 +166,16 @@ mod tests {
         assert!(merge_surveys(std::slice::from_ref(&a)).is_err());
         assert!(merge_surveys(&[a.clone(), a]).is_err());
         assert!(merge_surveys(&[]).is_err());
+        // a piece cut short: it states a count its results do not reach
+        let mut short = shard(2, &[[2, 1]]);
+        short["count"] = json!(2);
+        assert!(merge_surveys(&[shard(1, &[[1, 2]]), short]).is_err());
+        // pieces of different versions or listings
+        let mut other = shard(2, &[[2, 1]]);
+        other["version"] = json!("0.0.0");
+        assert!(merge_surveys(&[shard(1, &[[1, 2]]), other]).is_err());
+        let mut wider = shard(2, &[[2, 1]]);
+        wider["listed_total"] = json!(5);
+        assert!(merge_surveys(&[shard(1, &[[1, 2]]), wider]).is_err());
     }
 }

@@ -15,8 +15,10 @@ use crate::math::pipes::bumpless::{BumplessDream, bumpless_dreams};
 use crate::math::pipes::dream::{PipeDream, count_pipe_dreams, pipe_dreams};
 use crate::math::poly::parse::parse_poly_with;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::{NormalForm, groebner_basis, hilbert_series, normal_form};
-use crate::math::quotient::survey::{SurveyEntry, survey};
+use crate::math::quotient::normal_form::{
+    NormalForm, groebner_basis_with, hilbert_series, normal_form,
+};
+use crate::math::quotient::survey::{SurveyEntry, survey, survey_listing};
 use crate::math::schubert::expansion::expand_typed;
 use crate::math::schubert::polynomial::SchubertTable;
 use crate::math::schubert::product::schubert_product;
@@ -390,37 +392,6 @@ fn typed(text: &str, n: usize, progress: &Progress) -> MathResult<String> {
     Ok(format!("{head} … ({} terms in all)", f.len()))
 }
 
-/// The Gröbner basis of J_n, waited for with the cancel flag polled every
-/// 20 ms. [`groebner_basis`] computes it once per n (about a second at n = 8)
-/// without a cancel flag, so it runs on a thread of its own; a cancel returns
-/// at once and leaves that thread to finish and keep the basis for later.
-fn groebner_basis_waiting(
-    n: usize,
-    progress: &Progress,
-) -> MathResult<std::sync::Arc<crate::math::quotient::groebner::QuasiGroebner>> {
-    let (tx, rx) = std::sync::mpsc::channel();
-    let spawned = std::thread::Builder::new()
-        .name(format!("elbowroom-groebner-{n}"))
-        .spawn(move || {
-            let _ = tx.send(groebner_basis(n));
-        });
-    if spawned.is_err() {
-        return groebner_basis(n);
-    }
-    loop {
-        progress.check()?;
-        match rx.recv_timeout(std::time::Duration::from_millis(20)) {
-            Ok(result) => return result,
-            Err(std::sync::mpsc::RecvTimeoutError::Timeout) => {}
-            Err(std::sync::mpsc::RecvTimeoutError::Disconnected) => {
-                return Err(MathError::InvalidInput(
-                    "the Gröbner basis computation stopped without a result".into(),
-                ));
-            }
-        }
-    }
-}
-
 fn schubert_polynomial(w: &Perm, progress: &Progress) -> MathResult<IntPoly> {
     progress.set_total(1);
     let p = SchubertTable::new().get(w);
@@ -505,8 +476,7 @@ fn survey_of_all(n: usize, progress: &Progress) -> MathResult<Vec<SurveyEntry>> 
             "surveys run for n from 1 to {MAX_QUOTIENT_N}"
         )));
     }
-    groebner_basis_waiting(n, progress)?;
-    let perms: Vec<Perm> = Perm::all(n).collect();
+    let perms: Vec<Perm> = survey_listing(n);
     progress.set_total(perms.len() as u64);
     survey(&perms, progress)
 }
@@ -521,7 +491,7 @@ fn reduce(input: &QuotientInput, progress: &Progress) -> MathResult<Reduced> {
         }
         QuotientInput::Typed(text, n) => (*n, parse_poly_with(text, Some(*n), progress)?),
     };
-    let q = groebner_basis_waiting(n, progress)?;
+    let q = groebner_basis_with(n, progress)?;
     progress.advance(1);
     progress.check()?;
     let normal = normal_form(&q, &f)?;

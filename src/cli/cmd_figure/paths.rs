@@ -20,9 +20,9 @@ pub fn panels(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
     let (f, n, name) = match &args.poly {
         Some(text) => {
             let Some(n) = args.n else {
-                return Err(CliError::Input(
-                    "figure paths --poly needs --n, the number of variables (1 to 8)".into(),
-                ));
+                return Err(CliError::Input(format!(
+                    "figure paths --poly needs --n, the number of variables (1 to {MAX_QUOTIENT_N})"
+                )));
             };
             (parse_poly(text, Some(n))?, n, format!("{kind}-poly"))
         }

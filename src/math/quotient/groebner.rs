@@ -17,16 +17,25 @@
 //! are not of that form (for example G_{x_3^2 x_5^3} has a coefficient -1 at n = 6), so
 //! the basis is computed rather than written down.
 //!
-//! # How it is computed (exact, degree by degree)
+//! # How it is computed (exact, degree by degree, sparse)
 //! Suppose G_c is known for every corner of degree < d. Every degree-d monomial that
 //! is neither standard nor a corner is divisible by a lower corner; dividing by the
-//! lower basis gives an exact linear map φ from degree-d polynomials onto the span V_d
-//! of the standard monomials and corners of degree d. We then push genuine elements
-//! of J_n through φ (first the M_α with |α| = d, then t·G_c for lower corners c and
-//! monomials t) and row-reduce their images in V_d, stopping as soon as every corner of
-//! degree d leads a row. Each row is an exact element of J_n, so every G_c we obtain lies
-//! in J_n. A row whose leading monomial were standard would contradict the theorem above;
-//! that is reported as an error rather than ignored.
+//! lower basis (term by term, largest first, by the first corner; see
+//! [`crate::math::quotient::division`]) gives an exact linear map φ from degree-d
+//! polynomials onto the span V_d of the standard monomials and corners of degree d. We
+//! then push genuine elements of J_n through φ (first the M_α with |α| = d, then t·G_c
+//! for lower corners c and monomials t) and row-reduce their images, stored sparse,
+//! stopping as soon as every corner of degree d leads a row. The row reduction runs
+//! modulo the prime p = 2^61 − 1 (exact integer elimination outgrows 128 bits at
+//! n = 10); the reduced rows are lifted to the integers of least absolute value and then
+//! checked exactly: every exact row r that made a pivot equals Σ_c r_c·G_c. Those rows
+//! are independent modulo p, hence over Q, one per corner, so they span the same space
+//! as the G_c, and every G_c is a rational combination of elements of J_n. A row whose
+//! leading monomial were standard would contradict the theorem above; that is reported as
+//! an error rather than ignored. In degree n there is no standard monomial, so G_c = c.
+//! Nothing of size (monomials × standard monomials) is stored: normal forms are computed
+//! on demand by division ([`QuasiGroebner::reduce_small`]), whose work is bounded by the
+//! number of monomials of the degree.
 //!
 //! # Why the result is the reduced basis of J_n
 //! (1) Each G_c lies in J_n (construction). (2) Every generator M_α, |α| <= n, reduces to
@@ -37,21 +46,28 @@
 //! Buchberger's criterion, which the tests check for n <= 6 (all S-pairs reduce to 0).
 //! The tests also recompute J_n's graded pieces by plain linear algebra for n <= 5.
 //!
-//! Arithmetic is in `i128` with every operation checked: an overflow (never seen for
-//! n <= 8) or a non-integral coefficient is reported as an error, never rounded.
+//! Arithmetic: φ and the checks in checked `i128`, the elimination modulo p; normal forms
+//! of user input in checked `i128`, redone over `BigInt` on an overflow. A tail that does
+//! not lift (a coefficient beyond 2^60 in absolute value) is reported, never rounded.
+//! Measured tail coefficients: [−2, 3] at n = 8, [−5, 4] at n = 9, [−9, 7] at n = 10.
 
 use crate::math::error::{MathError, MathResult};
 use crate::math::poly::compositions::{compositions, monomials_of_degree};
 use crate::math::poly::mono::Mono;
 use crate::math::poly::quasisym::monomial_qsym;
 use crate::math::progress::Progress;
+use crate::math::quotient::division::{Step, divide, first_corner};
 use crate::math::quotient::standard::{is_corner, is_standard};
 use num_bigint::BigInt;
-use num_traits::ToPrimitive;
+use num_traits::{ToPrimitive, Zero};
+use rayon::prelude::*;
 use std::collections::HashMap;
 
-/// The largest n for which the quotient is computed (the tables grow like C(2n, n)).
-pub const MAX_QUOTIENT_N: usize = 8;
+/// The largest n for which the quotient is computed.
+pub const MAX_QUOTIENT_N: usize = 11;
+
+/// The most memory the construction may plan to use (see [`construction_estimate`]).
+pub const MAX_CONSTRUCTION_BYTES: u64 = 8 << 30;
 
 /// One element G_c = c + Σ a_s·s of the reduced basis: its corner and its tail.
 #[derive(Clone, Debug, PartialEq, Eq)]
@@ -62,8 +78,8 @@ pub struct GroebnerElement {
     pub tail: Vec<(Mono, i128)>,
 }
 
-/// The reduced lex Gröbner basis of J_n together with the normal forms of all
-/// monomials of degree < n (the data of the quotient).
+/// The reduced lex Gröbner basis of J_n and its standard monomials: all a normal form
+/// needs (normal forms are computed on demand by division, see [`crate::math::quotient::division`]).
 #[derive(Clone, Debug)]
 pub struct QuasiGroebner {
     n: usize,
@@ -71,9 +87,8 @@ pub struct QuasiGroebner {
     /// Standard monomials, by degree, each degree in decreasing lex order.
     basis: Vec<Mono>,
     basis_index: HashMap<Mono, u32>,
-    /// For each degree d < n: the normal form of each non-standard monomial of degree d,
-    /// as (index into `basis`, coefficient).
-    nf: Vec<HashMap<Mono, Vec<(u32, i128)>>>,
+    /// The tail of G_c for every corner c (empty in degree n).
+    tails: HashMap<Mono, Vec<(Mono, i128)>>,
     rows_used: Vec<usize>,
 }
 
@@ -81,47 +96,147 @@ fn overflow() -> MathError {
     MathError::OutOfRange("a coefficient outgrew 128 bits in the Gröbner basis computation".into())
 }
 
-fn add_mul(acc: i128, a: i128, b: i128) -> MathResult<i128> {
-    a.checked_mul(b)
-        .and_then(|p| acc.checked_add(p))
-        .ok_or_else(overflow)
+fn binomial(n: u64, k: u64) -> u64 {
+    (0..k).fold(1u64, |acc, i| acc * (n - i) / (i + 1))
 }
 
-fn gcd128(a: i128, b: i128) -> i128 {
-    let (mut a, mut b) = (a.unsigned_abs(), b.unsigned_abs());
-    while b != 0 {
-        (a, b) = (b, a % b);
+/// Catalan(m) = C(2m, m)/(m + 1) (OEIS A000108).
+fn catalan(m: u64) -> u64 {
+    binomial(2 * m, m) / (m + 1)
+}
+
+/// The number of standard monomials of degree d in n variables, (n−d)/(n+d)·C(n+d, d)
+/// (Aval–Bergeron–Bergeron 2004); 0 for d >= n.
+pub fn standard_count(n: usize, d: usize) -> u64 {
+    if d >= n {
+        return 0;
     }
-    a.min(i128::MAX as u128) as i128
+    let (n, d) = (n as u64, d as u64);
+    (n - d) * binomial(n + d, d) / (n + d)
 }
 
-/// A sparse vector over the indices of V_d.
-type Sparse = Vec<(u32, i128)>;
+/// The number of corners of degree d (1 <= d <= n): Catalan(d − 1), since a corner of
+/// degree d is a standard exponent sequence of length d − 1 closed by the entry that
+/// brings the partial sum to d.
+pub fn corner_count(d: usize) -> u64 {
+    if d == 0 { 0 } else { catalan(d as u64 - 1) }
+}
 
-/// A basis element of one degree: its corner and its tail.
+/// The memory the construction plans to use, in bytes, before it starts: per degree d,
+/// the monomials of degree d (one lookup entry each, 48 bytes) and the pivot rows, one
+/// per corner of degree d with room for a tenth of the standard monomials and corners of
+/// that degree (24 bytes a term; the rows measured at n <= 10 fill less than that).
+///
+/// ```
+/// use elbowroom::math::quotient::groebner::{MAX_CONSTRUCTION_BYTES, construction_estimate};
+/// assert!(construction_estimate(11) < MAX_CONSTRUCTION_BYTES);
+/// ```
+pub fn construction_estimate(n: usize) -> u64 {
+    let mut peak = 0u64;
+    for d in 1..n {
+        let monos = binomial((n + d - 1) as u64, d as u64);
+        let v = standard_count(n, d) + corner_count(d);
+        let rows = corner_count(d) * (v / 10 + 1) * 24;
+        peak = peak.max(monos * 48 + rows + v * 48);
+    }
+    peak
+}
+
+/// A sparse row over the positions of V_d, sorted by position (position 0 = the largest monomial).
+type Row = Vec<(u32, i128)>;
+
+/// A sparse row with entries modulo [`PRIME`].
+type ModRow = Vec<(u32, u64)>;
+
+/// The basis elements of one degree: (corner, tail).
 type CornerTail = (Mono, Vec<(Mono, i128)>);
 
-/// The basis elements of the degrees done so far: their corners in the order
-/// found, and the tail of each.
-#[derive(Default)]
-struct LowerBasis {
-    corners: Vec<Mono>,
-    tails: HashMap<Mono, Vec<(Mono, i128)>>,
+/// The prime 2^61 − 1: the row reduction runs modulo it, and its answer is then lifted
+/// and checked exactly (see [`DegreeSpace::reduced_tails`]).
+const PRIME: u64 = (1 << 61) - 1;
+
+fn mul_mod(a: u64, b: u64) -> u64 {
+    ((a as u128 * b as u128) % PRIME as u128) as u64
 }
 
-impl LowerBasis {
-    fn tail(&self, c: &Mono) -> &[(Mono, i128)] {
-        self.tails.get(c).map_or(&[][..], |v| v)
+fn inv_mod(a: u64) -> u64 {
+    let (mut base, mut e, mut acc) = (a, PRIME - 2, 1u64);
+    while e > 0 {
+        if e & 1 == 1 {
+            acc = mul_mod(acc, base);
+        }
+        base = mul_mod(base, base);
+        e >>= 1;
+    }
+    acc
+}
+
+fn to_mod(x: i128) -> u64 {
+    x.rem_euclid(PRIME as i128) as u64
+}
+
+/// The integer in (−p/2, p/2) congruent to x.
+fn lift(x: u64) -> i128 {
+    if x > PRIME / 2 {
+        x as i128 - PRIME as i128
+    } else {
+        x as i128
     }
 }
 
-/// The monomials of one degree d and the space V_d spanned by its standard
-/// monomials and corners (decreasing lex order, with positions).
+/// row − c·p modulo the prime, merged by position; entries that cancel are dropped.
+fn sub_scaled(row: &ModRow, c: u64, p: &ModRow) -> ModRow {
+    let mut out = Vec::with_capacity(row.len() + p.len());
+    let (mut i, mut j) = (0, 0);
+    let neg = |y: u64| (PRIME - mul_mod(c, y)) % PRIME;
+    while i < row.len() || j < p.len() {
+        let (col, v) = match (row.get(i), p.get(j)) {
+            (Some(&(a, x)), Some(&(b, y))) if a == b => {
+                i += 1;
+                j += 1;
+                (a, (x + neg(y)) % PRIME)
+            }
+            (Some(&(a, x)), Some(&(b, _))) if a < b => {
+                i += 1;
+                (a, x)
+            }
+            (Some(&(a, x)), None) => {
+                i += 1;
+                (a, x)
+            }
+            (_, Some(&(b, y))) => {
+                j += 1;
+                (b, neg(y))
+            }
+            (None, None) => break,
+        };
+        if v != 0 {
+            out.push((col, v));
+        }
+    }
+    out
+}
+
+/// Clears the entry at column k of `row` with the pivot `p` (entry 1 at k).
+fn clear(row: &ModRow, p: &ModRow, k: u32) -> ModRow {
+    match row.binary_search_by_key(&k, |t| t.0) {
+        Ok(i) => sub_scaled(row, row[i].1, p),
+        Err(_) => row.clone(),
+    }
+}
+
+/// The pivot rows of one degree: modulo the prime, each with entry 1 at its leading
+/// column, beside the exact element of J_n (its image in V_d) that created it.
+struct Pivots {
+    rows: HashMap<u32, ModRow>,
+    exact: HashMap<u32, Row>,
+}
+
+/// The monomials of one degree d and the space V_d spanned by its standard monomials and
+/// corners (decreasing lex order, with positions).
 struct DegreeSpace {
     n: usize,
     d: u32,
-    /// Every monomial of degree d, increasing lex order.
-    monos: Vec<Mono>,
     /// The standard monomials of degree d, increasing lex order.
     standard: Vec<Mono>,
     /// The corners of degree d, increasing lex order.
@@ -130,63 +245,15 @@ struct DegreeSpace {
     v: Vec<Mono>,
     /// Positions in `v`.
     vidx: HashMap<Mono, u32>,
-}
-
-/// The echelon rows being collected in one degree: pivots by leading column,
-/// and how many corners still lead no row.
-struct CornerRows<'a> {
-    space: &'a DegreeSpace,
-    phi: &'a HashMap<Mono, Sparse>,
+    /// Whether the position is a corner.
     is_corner_col: Vec<bool>,
-    pivots: Vec<Option<Vec<i128>>>,
-    missing: usize,
-    used: usize,
-}
-
-impl CornerRows<'_> {
-    /// The image under φ of Σ a·m, as a dense row over V_d.
-    fn image(&self, terms: impl Iterator<Item = (Mono, i128)>) -> MathResult<Vec<i128>> {
-        let mut row = vec![0i128; self.space.v.len()];
-        for (m, a) in terms {
-            let Some(pm) = self.phi.get(&m) else {
-                return Err(MathError::InvalidInput(format!(
-                    "internal: no reduction of {m:?}"
-                )));
-            };
-            for &(i, b) in pm {
-                row[i as usize] = add_mul(row[i as usize], a, b)?;
-            }
-        }
-        Ok(row)
-    }
-
-    /// Row-reduces the image of one element of J_n into the pivots; `true`
-    /// once every corner leads a row. A standard monomial leading a row is an
-    /// error (it would contradict the basis theorem).
-    fn absorb(&mut self, terms: impl Iterator<Item = (Mono, i128)>) -> MathResult<bool> {
-        let row = self.image(terms)?;
-        self.used += 1;
-        let lead = insert_row(row, &mut self.pivots)?;
-        if let Some(j) = lead {
-            if !self.is_corner_col[j] {
-                return Err(MathError::InvalidInput(format!(
-                    "the standard monomial {:?} leads an element of J_{}; \
-                     this contradicts the expected basis",
-                    self.space.v[j], self.space.n
-                )));
-            }
-            self.missing -= 1;
-        }
-        Ok(self.missing == 0)
-    }
 }
 
 impl DegreeSpace {
     fn new(n: usize, d: u32) -> DegreeSpace {
-        let monos = monomials_of_degree(n, d);
         let mut standard = Vec::new();
         let mut corners = Vec::new();
-        for &m in &monos {
+        for m in monomials_of_degree(n, d) {
             let e = m.exps(n);
             if is_standard(&e) {
                 standard.push(m);
@@ -196,89 +263,92 @@ impl DegreeSpace {
         }
         let mut v: Vec<Mono> = standard.iter().chain(&corners).copied().collect();
         v.sort_unstable_by(|a, b| b.cmp(a));
-        let vidx = v.iter().enumerate().map(|(i, &m)| (m, i as u32)).collect();
+        let vidx: HashMap<Mono, u32> = v.iter().enumerate().map(|(i, &m)| (m, i as u32)).collect();
+        let is_corner_col = v.iter().map(|m| is_corner(&m.exps(n))).collect();
         DegreeSpace {
             n,
             d,
-            monos,
             standard,
             corners,
             v,
             vidx,
+            is_corner_col,
         }
     }
 
-    /// φ: reduction modulo the lower basis, for every monomial of degree d. A
-    /// monomial of V_d maps to itself; any other is divisible by a lower
-    /// corner c (the one with the shortest tail is used), and x^m = t·c maps to
-    /// −Σ a_s φ(t·s) over the tail of G_c.
-    fn reduction_map(&self, lower: &LowerBasis) -> MathResult<HashMap<Mono, Sparse>> {
-        let mut phi: HashMap<Mono, Sparse> = HashMap::with_capacity(self.monos.len());
-        let mut scratch = vec![0i128; self.v.len()];
-        for &m in &self.monos {
+    /// φ: the image in V_d of Σ a·m under division by the basis elements of lower degree.
+    fn image(
+        &self,
+        terms: impl IntoIterator<Item = (Mono, i128)>,
+        tails: &HashMap<Mono, Vec<(Mono, i128)>>,
+        check: &dyn Fn() -> MathResult<()>,
+    ) -> MathResult<Row> {
+        let n = self.n;
+        let step = |m: Mono| -> MathResult<Step<'_>> {
             if let Some(&i) = self.vidx.get(&m) {
-                phi.insert(m, vec![(i, 1)]);
-                continue;
+                return Ok(Step::Keep(i));
             }
-            let Some(c) = lower
-                .corners
-                .iter()
-                .filter(|c| c.divides(m))
-                .min_by_key(|c| lower.tail(c).len())
-                .copied()
-            else {
+            let tail = first_corner(m, n).and_then(|c| tails.get(&c).map(|t| (c, t)));
+            let Some((c, tail)) = tail else {
                 return Err(MathError::InvalidInput(format!(
-                    "internal: {m:?} is neither standard, a corner, nor divisible by a corner"
+                    "internal: {m:?} is neither standard, a corner, nor divisible by a lower corner"
                 )));
             };
-            let t = m.divided_by(c);
-            let mut touched = Vec::new();
-            for (s, a) in lower.tail(&c) {
-                let sm = Mono(s.0 + t.0);
-                let Some(ps) = phi.get(&sm) else {
-                    return Err(MathError::InvalidInput(format!(
-                        "internal: reduction order broken at {sm:?}"
-                    )));
-                };
-                for &(i, b) in ps {
-                    let slot = &mut scratch[i as usize];
-                    if *slot == 0 {
-                        touched.push(i);
-                    }
-                    *slot = add_mul(*slot, -a, b)?;
-                }
-            }
-            touched.sort_unstable();
-            let mut out = Vec::with_capacity(touched.len());
-            for i in touched {
-                let x = std::mem::take(&mut scratch[i as usize]);
-                if x != 0 {
-                    out.push((i, x));
-                }
-            }
-            phi.insert(m, out);
-        }
-        Ok(phi)
+            Ok(Step::Divide(m.divided_by(c), tail))
+        };
+        divide(terms, &step, check)?.ok_or_else(overflow)
     }
 
-    /// Pushes genuine elements of J_n of degree d through φ (first the M_α
-    /// with |α| = d, then t·G_c for lower corners c, higher degrees of c
-    /// first) until every corner of degree d leads a row; returns the pivot
-    /// rows and how many elements were used.
+    /// Pushes genuine elements of J_n of degree d through φ (first the M_α with |α| = d,
+    /// then t·G_c for lower corners c, higher degrees of c first) and row-reduces them,
+    /// sparse and modulo the prime, until every corner of degree d leads a row; returns the
+    /// pivots and how many elements were used.
     fn corner_rows(
         &self,
-        phi: &HashMap<Mono, Sparse>,
-        lower: &LowerBasis,
-        check: &dyn Fn() -> MathResult<()>,
-    ) -> MathResult<(Vec<Option<Vec<i128>>>, usize)> {
+        lower: &[Mono],
+        tails: &HashMap<Mono, Vec<(Mono, i128)>>,
+        progress: &Progress,
+    ) -> MathResult<(Pivots, usize)> {
         let (n, d) = (self.n, self.d);
-        let mut rows = CornerRows {
-            space: self,
-            phi,
-            is_corner_col: self.v.iter().map(|m| self.corners.contains(m)).collect(),
-            pivots: vec![None; self.v.len()],
-            missing: self.corners.len(),
-            used: 0,
+        let check = || progress.check();
+        let mut pivots = Pivots {
+            rows: HashMap::new(),
+            exact: HashMap::new(),
+        };
+        let mut missing = self.corners.len();
+        let mut used = 0usize;
+        let mut absorb = |exact: Row, pivots: &mut Pivots| -> MathResult<bool> {
+            used += 1;
+            let mut row: ModRow = exact
+                .iter()
+                .map(|&(c, x)| (c, to_mod(x)))
+                .filter(|t| t.1 != 0)
+                .collect();
+            loop {
+                let Some(&(lead, x)) = row.first() else {
+                    return Ok(missing == 0);
+                };
+                if let Some(p) = pivots.rows.get(&lead) {
+                    row = sub_scaled(&row, x, p);
+                    continue;
+                }
+                if !self.is_corner_col[lead as usize] {
+                    return Err(MathError::InvalidInput(format!(
+                        "the standard monomial {:?} leads an element of J_{n}; \
+                         this contradicts the expected basis",
+                        self.v[lead as usize]
+                    )));
+                }
+                let inv = inv_mod(x);
+                for t in row.iter_mut() {
+                    t.1 = mul_mod(t.1, inv);
+                }
+                pivots.rows.insert(lead, row);
+                pivots.exact.insert(lead, exact);
+                missing -= 1;
+                progress.advance(1);
+                return Ok(missing == 0);
+            }
         };
         let mut done = self.corners.is_empty();
         if !done {
@@ -286,12 +356,14 @@ impl DegreeSpace {
                 if alpha.len() > n {
                     continue;
                 }
+                check()?;
                 let m_alpha = monomial_qsym(&alpha, n)?;
                 let terms = m_alpha
                     .terms()
                     .iter()
                     .map(|(m, c)| (*m, c.to_i128().unwrap_or(0)));
-                if rows.absorb(terms)? {
+                let row = self.image(terms, tails, &check)?;
+                if absorb(row, &mut pivots)? {
                     done = true;
                     break;
                 }
@@ -299,14 +371,15 @@ impl DegreeSpace {
         }
         if !done {
             'outer: for dd in (1..d).rev() {
-                check()?;
                 let shifts = monomials_of_degree(n, d - dd);
-                for &c in lower.corners.iter().filter(|c| c.degree() == dd) {
-                    let tail = lower.tail(&c);
+                for &c in lower.iter().filter(|c| c.degree() == dd) {
+                    let tail = tails.get(&c).map_or(&[][..], |t| t);
                     for &t in &shifts {
+                        check()?;
                         let terms = std::iter::once((Mono(c.0 + t.0), 1i128))
                             .chain(tail.iter().map(|&(s, a)| (Mono(s.0 + t.0), a)));
-                        if rows.absorb(terms)? {
+                        let row = self.image(terms, tails, &check)?;
+                        if absorb(row, &mut pivots)? {
                             done = true;
                             break 'outer;
                         }
@@ -320,52 +393,78 @@ impl DegreeSpace {
                  this contradicts the expected basis"
             )));
         }
-        Ok((rows.pivots, rows.used))
+        Ok((pivots, used))
     }
 
-    /// The reduced echelon form of the pivot rows (the corner columns right of
-    /// each pivot cleared, each row made primitive with a positive lead), read
-    /// as basis elements: (corner, tail over standard monomials). A tail
-    /// coefficient that is not a multiple of the lead is an error.
-    fn reduced_tails(&self, mut pivots: Vec<Option<Vec<i128>>>) -> MathResult<Vec<CornerTail>> {
-        let v = &self.v;
-        let pivot_cols: Vec<usize> = (0..v.len()).filter(|&j| pivots[j].is_some()).collect();
-        for &j in pivot_cols.iter().rev() {
-            let Some(mut row) = pivots[j].take() else {
+    /// The reduced echelon form of the pivot rows (every other corner column cleared), read
+    /// as basis elements (corner, tail over standard monomials) with the tail coefficients
+    /// lifted from the prime to the integers of least absolute value, and then checked
+    /// exactly: each exact row r that made a pivot must equal Σ_c r_c·G_c over the corners c.
+    /// Those rows are independent modulo the prime, hence over Q, one per corner; so they
+    /// span exactly the span of the G_c, and every G_c is a rational combination of
+    /// elements of J_n. A failed check (a tail too large to lift) is an error.
+    fn reduced_tails(&self, pivots: Pivots, progress: &Progress) -> MathResult<Vec<CornerTail>> {
+        let Pivots { mut rows, exact } = pivots;
+        let mut cols: Vec<u32> = rows.keys().copied().collect();
+        cols.sort_unstable();
+        for &j in cols.iter().rev() {
+            progress.check()?;
+            let Some(mut row) = rows.remove(&j) else {
                 continue;
             };
-            for &k in pivot_cols.iter().filter(|&&k| k > j) {
-                if row[k] == 0 {
-                    continue;
-                }
-                let Some(pk) = pivots[k].as_ref() else {
-                    continue;
-                };
-                combine(&mut row, pk, k)?;
-            }
-            normalize(&mut row, j);
-            pivots[j] = Some(row);
-        }
-        let mut new_tails = Vec::new();
-        for &j in &pivot_cols {
-            let Some(row) = pivots[j].as_ref() else {
-                continue;
-            };
-            let lead = row[j];
-            let mut tail = Vec::new();
-            for (k, &x) in row.iter().enumerate() {
-                if k == j || x == 0 {
-                    continue;
-                }
-                if x % lead != 0 {
+            while let Some(&(k, _)) = row
+                .iter()
+                .find(|&&(k, _)| k > j && self.is_corner_col[k as usize])
+            {
+                let Some(p) = rows.get(&k) else {
                     return Err(MathError::InvalidInput(format!(
-                        "the basis element led by {:?} has a non-integral coefficient",
-                        v[j]
+                        "internal: the corner {:?} leads no row",
+                        self.v[k as usize]
                     )));
-                }
-                tail.push((v[k], x / lead));
+                };
+                row = clear(&row, p, k);
             }
-            new_tails.push((v[j], tail));
+            rows.insert(j, row);
+        }
+        let lifted: HashMap<u32, Row> = rows
+            .iter()
+            .map(|(&j, row)| {
+                let tail = row
+                    .iter()
+                    .filter(|t| t.0 != j)
+                    .map(|&(k, x)| (k, lift(x)))
+                    .collect();
+                (j, tail)
+            })
+            .collect();
+        for (&j, r) in &exact {
+            progress.check()?;
+            let mut acc: HashMap<u32, i128> = r.iter().copied().collect();
+            for &(c, rc) in r.iter().filter(|t| self.is_corner_col[t.0 as usize]) {
+                acc.remove(&c);
+                for &(k, a) in lifted.get(&c).map_or(&[][..], |t| t) {
+                    let e = acc.entry(k).or_insert(0);
+                    *e = rc
+                        .checked_mul(a)
+                        .and_then(|p| e.checked_sub(p))
+                        .ok_or_else(overflow)?;
+                }
+            }
+            if acc.values().any(|&x| x != 0) {
+                return Err(MathError::OutOfRange(format!(
+                    "the basis element led by {:?} could not be recovered exactly \
+                     (a coefficient beyond 2^60)",
+                    self.v[j as usize]
+                )));
+            }
+        }
+        let mut new_tails = Vec::with_capacity(cols.len());
+        for &j in &cols {
+            let tail = lifted.get(&j).map_or(&[][..], |t| t);
+            new_tails.push((
+                self.v[j as usize],
+                tail.iter().map(|&(k, a)| (self.v[k as usize], a)).collect(),
+            ));
         }
         Ok(new_tails)
     }
@@ -373,7 +472,9 @@ impl DegreeSpace {
 
 impl QuasiGroebner {
     /// Computes the basis for n variables (1 <= n <= [`MAX_QUOTIENT_N`]), polling `progress`
-    /// for cancellation between steps.
+    /// for cancellation inside every long loop and counting the basis elements found and the
+    /// generators checked. Refused before it starts when [`construction_estimate`] exceeds
+    /// [`MAX_CONSTRUCTION_BYTES`].
     ///
     /// ```
     /// use elbowroom::math::quotient::groebner::QuasiGroebner;
@@ -388,42 +489,58 @@ impl QuasiGroebner {
                 "the quotient is computed for 1 <= n <= {MAX_QUOTIENT_N}, not n = {n}"
             )));
         }
-        let check = || progress.map_or(Ok(()), |p| p.check());
+        let estimate = construction_estimate(n);
+        if estimate > MAX_CONSTRUCTION_BYTES {
+            return Err(MathError::OutOfRange(format!(
+                "the quotient at n = {n} would need about {} MiB, more than the limit of {} MiB",
+                estimate >> 20,
+                MAX_CONSTRUCTION_BYTES >> 20
+            )));
+        }
+        let own = Progress::new(0);
+        let progress = progress.unwrap_or(&own);
+        let found: u64 = (1..n).map(corner_count).sum();
+        progress.set_total(found + generator_count(n));
         let mut g = QuasiGroebner {
             n,
             elements: Vec::new(),
             basis: vec![Mono::ONE],
             basis_index: HashMap::from([(Mono::ONE, 0)]),
-            nf: vec![HashMap::new()],
+            tails: HashMap::new(),
             rows_used: vec![0],
         };
-        let mut lower = LowerBasis::default();
-        for d in 1..=n as u32 {
-            check()?;
+        let mut lower: Vec<Mono> = Vec::new();
+        for d in 1..n as u32 {
+            progress.check()?;
             let space = DegreeSpace::new(n, d);
-            let phi = space.reduction_map(&lower)?;
-            check()?;
-            let (pivots, used) = space.corner_rows(&phi, &lower, &check)?;
+            let (pivots, used) = space.corner_rows(&lower, &g.tails, progress)?;
             g.rows_used.push(used);
-            let new_tails = space.reduced_tails(pivots)?;
+            let new_tails = space.reduced_tails(pivots, progress)?;
             g.add_standard_monomials(&space);
-            let nf_d = if (d as usize) < n {
-                g.normal_forms_of_degree(&space, &phi, &new_tails)?
-            } else {
-                HashMap::new()
-            };
-            g.nf.push(nf_d);
             for (c, tail) in new_tails {
-                lower.corners.push(c);
+                lower.push(c);
                 g.elements.push(GroebnerElement {
                     corner: c,
                     tail: tail.clone(),
                 });
-                lower.tails.insert(c, tail);
+                g.tails.insert(c, tail);
             }
         }
+        // degree n: no standard monomials remain (the Hilbert series of
+        // Aval–Bergeron–Bergeron stops at degree n − 1), so G_c = c
+        progress.check()?;
+        for c in monomials_of_degree(n, n as u32) {
+            if is_corner(&c.exps(n)) {
+                g.elements.push(GroebnerElement {
+                    corner: c,
+                    tail: Vec::new(),
+                });
+                g.tails.insert(c, Vec::new());
+            }
+        }
+        g.rows_used.push(0);
         g.elements.sort_by_key(|e| std::cmp::Reverse(e.corner));
-        g.check_generators_reduce_to_zero()?;
+        g.check_generators_reduce_to_zero(progress)?;
         Ok(g)
     }
 
@@ -438,78 +555,26 @@ impl QuasiGroebner {
         }
     }
 
-    /// The normal form of every non-standard monomial of degree d (needed only
-    /// below degree n): its image under φ, with each corner replaced by minus
-    /// the tail of its basis element.
-    fn normal_forms_of_degree(
-        &self,
-        space: &DegreeSpace,
-        phi: &HashMap<Mono, Sparse>,
-        new_tails: &[CornerTail],
-    ) -> MathResult<HashMap<Mono, Vec<(u32, i128)>>> {
-        let std_global: Vec<Option<u32>> = space
-            .v
-            .iter()
-            .map(|m| self.basis_index.get(m).copied())
-            .collect();
-        let corner_nf: HashMap<u32, Vec<(u32, i128)>> = new_tails
-            .iter()
-            .map(|(c, tail)| {
-                let ci = space.vidx.get(c).copied().unwrap_or(0);
-                let nf = tail
-                    .iter()
-                    .filter_map(|(s, a)| self.basis_index.get(s).map(|&i| (i, -a)))
-                    .collect();
-                (ci, nf)
-            })
-            .collect();
-        let mut nf_d = HashMap::new();
-        let mut acc: HashMap<u32, i128> = HashMap::new();
-        for &m in &space.monos {
-            if self.basis_index.contains_key(&m) {
-                continue;
-            }
-            acc.clear();
-            for &(i, b) in phi.get(&m).map_or(&[][..], |v| v) {
-                if let Some(s) = std_global[i as usize] {
-                    let e = acc.entry(s).or_insert(0);
-                    *e = e.checked_add(b).ok_or_else(overflow)?;
-                } else if let Some(nf) = corner_nf.get(&i) {
-                    for &(s, a) in nf {
-                        let e = acc.entry(s).or_insert(0);
-                        *e = add_mul(*e, a, b)?;
-                    }
-                }
-            }
-            let mut out: Vec<(u32, i128)> = acc
-                .iter()
-                .filter(|(_, x)| **x != 0)
-                .map(|(&i, &x)| (i, x))
-                .collect();
-            out.sort_unstable();
-            nf_d.insert(m, out);
-        }
-        Ok(nf_d)
-    }
-
-    /// (2) of the module doc: every generator M_α with |α| <= n reduces to zero.
-    fn check_generators_reduce_to_zero(&self) -> MathResult<()> {
+    /// (2) of the module doc: every generator M_α with |α| <= n reduces to zero
+    /// (in parallel on rayon's pool).
+    fn check_generators_reduce_to_zero(&self, progress: &Progress) -> MathResult<()> {
         let n = self.n;
-        for d in 1..=n as u32 {
-            for alpha in compositions(d) {
-                if alpha.len() > n {
-                    continue;
-                }
-                let m = monomial_qsym(&alpha, n)?;
-                let nf = self.normal_form_int(m.terms())?;
-                if nf.iter().any(|(_, c)| *c != BigInt::from(0)) {
-                    return Err(MathError::InvalidInput(format!(
-                        "M{alpha:?} does not reduce to zero; the computed basis is wrong"
-                    )));
-                }
+        let alphas: Vec<Vec<u32>> = (1..=n as u32)
+            .flat_map(compositions)
+            .filter(|a| a.len() <= n)
+            .collect();
+        alphas.par_iter().try_for_each(|alpha| {
+            progress.check()?;
+            let m = monomial_qsym(alpha, n)?;
+            let nf = self.normal_form_checked(m.terms(), progress)?;
+            progress.advance(1);
+            if nf.iter().any(|(_, c)| !c.is_zero()) {
+                return Err(MathError::InvalidInput(format!(
+                    "M{alpha:?} does not reduce to zero; the computed basis is wrong"
+                )));
             }
-        }
-        Ok(())
+            Ok(())
+        })
     }
 
     /// The number of variables.
@@ -551,24 +616,83 @@ impl QuasiGroebner {
         &self.rows_used
     }
 
-    /// The normal form of one monomial as (basis position, coefficient); empty when m ∈ J_n.
-    pub fn monomial_normal_form(&self, m: Mono) -> Vec<(u32, i128)> {
-        if (m.degree() as usize) >= self.n {
-            return Vec::new();
+    /// One division step with the whole basis: keep a standard monomial (at its basis
+    /// position), drop a monomial of degree >= n, divide any other by its first corner.
+    fn step(&self, m: Mono) -> MathResult<Step<'_>> {
+        if m.degree() as usize >= self.n {
+            return Ok(Step::Drop);
         }
         if let Some(&i) = self.basis_index.get(&m) {
-            return vec![(i, 1)];
+            return Ok(Step::Keep(i));
         }
-        self.nf
-            .get(m.degree() as usize)
-            .and_then(|t| t.get(&m))
-            .cloned()
-            .unwrap_or_default()
+        let tail = first_corner(m, self.n).and_then(|c| self.tails.get(&c).map(|t| (c, t)));
+        let Some((c, tail)) = tail else {
+            return Err(MathError::InvalidInput(format!(
+                "internal: no basis element divides {m:?}"
+            )));
+        };
+        Ok(Step::Divide(m.divided_by(c), tail))
+    }
+
+    /// The normal form of Σ c·m with `i128` coefficients, as (basis position, coefficient)
+    /// sorted by position; `None` when a coefficient would outgrow `i128`. Polls `check`.
+    pub fn reduce_small(
+        &self,
+        terms: impl IntoIterator<Item = (Mono, i128)>,
+        check: &dyn Fn() -> MathResult<()>,
+    ) -> MathResult<Option<Vec<(u32, i128)>>> {
+        let step = |m: Mono| self.step(m);
+        divide(terms, &step, check)
+    }
+
+    /// The normal form of one monomial as (basis position, coefficient); empty when m ∈ J_n.
+    pub fn monomial_normal_form(&self, m: Mono) -> MathResult<Vec<(u32, i128)>> {
+        self.reduce_small([(m, 1i128)], &|| Ok(()))?
+            .ok_or_else(overflow)
+    }
+
+    fn normal_form_checked(
+        &self,
+        terms: &[(Mono, BigInt)],
+        progress: &Progress,
+    ) -> MathResult<Vec<(usize, BigInt)>> {
+        let check = || progress.check();
+        let n = self.n;
+        let live = || terms.iter().filter(|(m, _)| (m.degree() as usize) < n);
+        let small: Option<Vec<(Mono, i128)>> =
+            live().map(|(m, c)| c.to_i128().map(|c| (*m, c))).collect();
+        if let Some(small) = small
+            && let Some(out) = self.reduce_small(small, &check)?
+        {
+            return Ok(out
+                .into_iter()
+                .filter(|(_, x)| *x != 0)
+                .map(|(i, x)| (i as usize, BigInt::from(x)))
+                .collect());
+        }
+        let step = |m: Mono| self.step(m);
+        let big =
+            divide(live().map(|(m, c)| (*m, c.clone())), &step, &check)?.ok_or_else(overflow)?;
+        Ok(big
+            .into_iter()
+            .filter(|(_, x)| !x.is_zero())
+            .map(|(i, x)| (i as usize, x))
+            .collect())
     }
 
     /// The normal form of Σ c_m m with integer coefficients, as (basis position, coefficient)
-    /// pairs with nonzero coefficients. Monomials in variables beyond x_n are an error.
+    /// pairs with nonzero coefficients, in basis order. Monomials in variables beyond x_n are
+    /// an error. Coefficients are checked `i128`, redone over `BigInt` on an overflow.
     pub fn normal_form_int(&self, terms: &[(Mono, BigInt)]) -> MathResult<Vec<(usize, BigInt)>> {
+        self.normal_form_with(terms, &Progress::new(0))
+    }
+
+    /// [`Self::normal_form_int`], cancellable through `progress`.
+    pub fn normal_form_with(
+        &self,
+        terms: &[(Mono, BigInt)],
+        progress: &Progress,
+    ) -> MathResult<Vec<(usize, BigInt)>> {
         let beyond = self.n..crate::math::poly::mono::MAX_VARS;
         if let Some((m, _)) = terms
             .iter()
@@ -579,108 +703,11 @@ impl QuasiGroebner {
                 self.n
             )));
         }
-        if let Some(small) = self.normal_form_small(terms) {
-            return Ok(small
-                .into_iter()
-                .enumerate()
-                .filter(|(_, x)| *x != 0)
-                .map(|(i, x)| (i, BigInt::from(x)))
-                .collect());
-        }
-        let mut big = vec![BigInt::from(0); self.basis.len()];
-        for (m, c) in terms {
-            for (i, a) in self.monomial_normal_form(*m) {
-                big[i as usize] += c * BigInt::from(a);
-            }
-        }
-        Ok(big
-            .into_iter()
-            .enumerate()
-            .filter(|(_, x)| *x != BigInt::from(0))
-            .collect())
-    }
-
-    /// The same with machine integers; `None` on overflow.
-    fn normal_form_small(&self, terms: &[(Mono, BigInt)]) -> Option<Vec<i128>> {
-        let mut small = vec![0i128; self.basis.len()];
-        for (m, c) in terms {
-            if (m.degree() as usize) >= self.n {
-                continue;
-            }
-            let c = c.to_i64()? as i128;
-            if let Some(&i) = self.basis_index.get(m) {
-                small[i as usize] = small[i as usize].checked_add(c)?;
-                continue;
-            }
-            let Some(nf) = self.nf.get(m.degree() as usize).and_then(|t| t.get(m)) else {
-                continue;
-            };
-            for &(i, a) in nf {
-                small[i as usize] = small[i as usize].checked_add(a.checked_mul(c)?)?;
-            }
-        }
-        Some(small)
+        self.normal_form_checked(terms, progress)
     }
 }
 
-/// Reduces `row` by the pivot rows, then stores it as a new pivot; returns the new
-/// pivot column, or `None` if the row reduced to zero.
-fn insert_row(mut row: Vec<i128>, pivots: &mut [Option<Vec<i128>>]) -> MathResult<Option<usize>> {
-    let mut j = 0;
-    while j < row.len() {
-        if row[j] != 0 {
-            match pivots[j].as_ref() {
-                Some(p) => combine(&mut row, p, j)?,
-                None => {
-                    normalize(&mut row, j);
-                    pivots[j] = Some(row);
-                    return Ok(Some(j));
-                }
-            }
-        }
-        j += 1;
-    }
-    Ok(None)
-}
-
-/// row <- p[k]·row - row[k]·p (so that row[k] = 0), divided by the gcd of its entries.
-fn combine(row: &mut [i128], p: &[i128], k: usize) -> MathResult<()> {
-    let (a, b) = (p[k], row[k]);
-    let g = gcd128(a, b);
-    let (a, b) = (a / g, b / g);
-    if a == 1 {
-        for (x, &y) in row.iter_mut().zip(p) {
-            if y != 0 {
-                *x = y
-                    .checked_mul(b)
-                    .and_then(|t| x.checked_sub(t))
-                    .ok_or_else(overflow)?;
-            }
-        }
-    } else {
-        for (x, &y) in row.iter_mut().zip(p) {
-            *x = x
-                .checked_mul(a)
-                .and_then(|s| y.checked_mul(b).and_then(|t| s.checked_sub(t)))
-                .ok_or_else(overflow)?;
-        }
-        let g = row.iter().fold(0i128, |g, &x| gcd128(g, x));
-        if g > 1 {
-            for x in row.iter_mut() {
-                *x /= g;
-            }
-        }
-    }
-    Ok(())
-}
-
-/// Divides a row by the gcd of its entries and makes the entry at `lead` positive.
-fn normalize(row: &mut [i128], lead: usize) {
-    let g = row.iter().fold(0i128, |g, &x| gcd128(g, x));
-    let g = if row[lead] < 0 { -g } else { g };
-    if g != 0 && g != 1 {
-        for x in row.iter_mut() {
-            *x /= g;
-        }
-    }
+/// The number of generators M_α, |α| <= n, with at most n parts: 2^n − 1.
+fn generator_count(n: usize) -> u64 {
+    (1u64 << n) - 1
 }

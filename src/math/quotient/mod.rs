@@ -1,9 +1,10 @@
 //! The quotient Q[x_1..x_n]/J_n by the quasisymmetric ideal: its standard
-//! monomials, its lex Gröbner basis, normal forms on the standard monomials, their lattice paths, and
-//! positivity surveys of Schubert polynomials modulo J_n.
+//! monomials, its lex Gröbner basis, division by it, normal forms on the standard
+//! monomials, their lattice paths, and positivity surveys of Schubert polynomials modulo J_n.
 
 pub mod standard;
 
+pub mod division;
 pub mod groebner;
 pub mod lattice_path;
 

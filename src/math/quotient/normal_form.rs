@@ -6,22 +6,24 @@
 //! monomials: x^e with e_1 + ... + e_i <= i - 1 for all i; there are Catalan(n).
 //!
 //! Caching: the Gröbner data of each n is computed once per process and kept in a
-//! `std::sync::OnceLock` per n ([`quotient`]); it holds no thread and no file, only
-//! the tables, so the mathematics stays pure. [`QuasiGroebner::compute`] builds a fresh
+//! `std::sync::OnceLock` per n ([`groebner_basis`], [`groebner_basis_with`]); it holds no
+//! thread and no file, only the basis, so the mathematics stays pure. [`QuasiGroebner::compute`] builds a fresh
 //! copy for callers who want no sharing (benchmarks).
 
 use crate::math::error::{MathError, MathResult};
 use crate::math::poly::mono::Mono;
 use crate::math::poly::polynomial::{Coeff, Poly, RatPoly};
+use crate::math::progress::Progress;
 use crate::math::quotient::groebner::{MAX_QUOTIENT_N, QuasiGroebner};
 use num_bigint::BigInt;
 use num_integer::Integer;
 use num_rational::BigRational;
 use num_traits::{One, Zero};
-use std::sync::{Arc, OnceLock};
+use std::sync::{Arc, Mutex, OnceLock, TryLockError};
 
-type CachedBasis = OnceLock<MathResult<Arc<QuasiGroebner>>>;
-static CACHE: [CachedBasis; MAX_QUOTIENT_N + 1] = [const { OnceLock::new() }; MAX_QUOTIENT_N + 1];
+static CACHE: [OnceLock<Arc<QuasiGroebner>>; MAX_QUOTIENT_N + 1] =
+    [const { OnceLock::new() }; MAX_QUOTIENT_N + 1];
+static BUILDING: [Mutex<()>; MAX_QUOTIENT_N + 1] = [const { Mutex::new(()) }; MAX_QUOTIENT_N + 1];
 
 /// The Gröbner data of J_n, computed on first use and shared afterwards.
 ///
@@ -31,14 +33,42 @@ static CACHE: [CachedBasis; MAX_QUOTIENT_N + 1] = [const { OnceLock::new() }; MA
 /// assert_eq!(groebner_basis(4).unwrap().basis().len(), 14);
 /// ```
 pub fn groebner_basis(n: usize) -> MathResult<Arc<QuasiGroebner>> {
+    groebner_basis_with(n, &Progress::new(0))
+}
+
+/// [`groebner_basis`] with progress and cancellation: the construction counts on `progress`
+/// and stops with [`MathError::Canceled`] within a few milliseconds of a cancel. Only a
+/// finished basis is cached, so a cancelled construction leaves the cache as it was; a
+/// caller that finds another thread building the same n waits for it (still polling the
+/// cancel flag) and shares its result.
+pub fn groebner_basis_with(n: usize, progress: &Progress) -> MathResult<Arc<QuasiGroebner>> {
     if n == 0 || n > MAX_QUOTIENT_N {
         return Err(MathError::OutOfRange(format!(
             "the quotient is computed for 1 <= n <= {MAX_QUOTIENT_N}, not n = {n}"
         )));
     }
-    CACHE[n]
-        .get_or_init(|| QuasiGroebner::compute(n, None).map(Arc::new))
-        .clone()
+    if let Some(q) = CACHE[n].get() {
+        return Ok(q.clone());
+    }
+    let _building = loop {
+        match BUILDING[n].try_lock() {
+            Ok(guard) => break guard,
+            Err(TryLockError::Poisoned(p)) => break p.into_inner(),
+            Err(TryLockError::WouldBlock) => {
+                progress.check()?;
+                if let Some(q) = CACHE[n].get() {
+                    return Ok(q.clone());
+                }
+                std::thread::sleep(std::time::Duration::from_millis(20));
+            }
+        }
+    };
+    if let Some(q) = CACHE[n].get() {
+        return Ok(q.clone());
+    }
+    let q = Arc::new(QuasiGroebner::compute(n, Some(progress))?);
+    let _ = CACHE[n].set(q.clone());
+    Ok(q)
 }
 
 /// A normal form: the reduced polynomial and its coefficients on the standard monomials.

@@ -4,20 +4,43 @@
 //!
 //! S_w is homogeneous of degree ℓ(w), and every monomial of degree >= n lies in J_n
 //! (it is divisible by a corner, and no standard monomial has degree >= n), so for
-//! ℓ(w) >= n the normal form is 0 and S_w is not expanded at all.
+//! ℓ(w) >= n the normal form is 0 and S_w is not expanded at all. For n <= 8 a survey
+//! lists all of S_n; from n = 9 on it lists only the w with ℓ(w) <= n − 1
+//! ([`survey_listing`]), the others being 0.
 //!
-//! Runs on rayon's pool, one [`SchubertTable`] per worker; `progress` counts the
-//! permutations done and a cancel request ends the run with [`MathError::Canceled`].
+//! # By transition on normal forms
+//! No Schubert polynomial is expanded. With r the last descent of w, v = w·t_{rs} and the
+//! Lascoux–Schützenberger transition S_w = x_r S_v + Σ_q S_{v t_{qr}}
+//! ([`crate::math::schubert::transition`]), reversing the variables turns x_r into
+//! x_{n+1−r}, and reduction modulo J_n is linear, so
+//! NF(S_w^rev) = NF(x_{n+1−r}·NF(S_v^rev)) + Σ_q NF(S_{v t_{qr}}^rev).
+//! The walk goes up by length: level ℓ needs level ℓ − 1 (for v) and its own level (the
+//! terms of the sum have the length of w), so only two levels are kept. Multiplication by
+//! a variable on a standard monomial, NF(x_k·s), is computed once by division and kept
+//! for the current degree. Coefficients are checked `i128`; an entry whose arithmetic
+//! would overflow is redone over big integers by expanding S_w and dividing.
+//!
+//! `progress` counts the permutations done (after the basis, if it was built on the way)
+//! and a cancel request ends the run with [`MathError::Canceled`].
 
 use crate::math::error::{MathError, MathResult};
+use crate::math::perms::listing::perms_of_length;
 use crate::math::perms::perm::Perm;
 use crate::math::poly::mono::Mono;
+use crate::math::poly::polynomial::IntPoly;
 use crate::math::progress::Progress;
-use crate::math::quotient::normal_form::{NormalForm, groebner_basis, normal_form};
+use crate::math::quotient::groebner::QuasiGroebner;
+use crate::math::quotient::normal_form::{NormalForm, groebner_basis_with, normal_form};
 use crate::math::schubert::polynomial::SchubertTable;
+use crate::math::schubert::transition::{partners, pivot};
+use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::Zero;
-use rayon::prelude::*;
+use std::collections::HashMap;
+use std::sync::Arc;
+
+/// Surveys of S_n for n up to this list every permutation; beyond, those of length < n.
+pub const FULL_LISTING_MAX_N: usize = 8;
 
 /// The survey record of one permutation.
 #[derive(Clone, Debug, PartialEq)]
@@ -55,7 +78,101 @@ impl SurveyEntry {
     }
 }
 
-/// The survey record of one permutation (computes J_n's data on first use).
+/// What a survey reports of one permutation, full ([`SurveyEntry`]) or summarized
+/// ([`SurveySummary`]).
+pub trait SurveyRecord {
+    /// The permutation w.
+    fn perm(&self) -> &Perm;
+    /// The number of terms of the normal form.
+    fn terms(&self) -> usize;
+    /// The sum of the coefficients of the normal form.
+    fn sum(&self) -> BigRational;
+    /// The negative coefficients, with their standard monomials.
+    fn negatives(&self) -> Vec<(Mono, BigRational)>;
+    /// Whether every coefficient of the normal form is >= 0.
+    fn nonnegative(&self) -> bool {
+        self.negatives().is_empty()
+    }
+}
+
+impl SurveyRecord for SurveyEntry {
+    fn perm(&self) -> &Perm {
+        &self.perm
+    }
+    fn terms(&self) -> usize {
+        SurveyEntry::terms(self)
+    }
+    fn sum(&self) -> BigRational {
+        SurveyEntry::sum(self)
+    }
+    fn negatives(&self) -> Vec<(Mono, BigRational)> {
+        SurveyEntry::negatives(self)
+    }
+    fn nonnegative(&self) -> bool {
+        SurveyEntry::nonnegative(self)
+    }
+}
+
+/// The survey record of one permutation without its normal form: what `survey --summary`
+/// prints, in a few words of memory (a survey of S_11 holds 113,906 of them).
+#[derive(Clone, Debug, PartialEq)]
+pub struct SurveySummary {
+    /// The permutation w.
+    pub perm: Perm,
+    /// The number of terms of the normal form.
+    pub terms: usize,
+    /// The sum of its coefficients.
+    pub sum: BigRational,
+    /// Its negative coefficients, with their standard monomials.
+    pub negatives: Vec<(Mono, BigRational)>,
+}
+
+impl SurveySummary {
+    fn of(e: &SurveyEntry) -> SurveySummary {
+        SurveySummary {
+            perm: e.perm.clone(),
+            terms: e.terms(),
+            sum: e.sum(),
+            negatives: e.negatives(),
+        }
+    }
+}
+
+impl SurveyRecord for SurveySummary {
+    fn perm(&self) -> &Perm {
+        &self.perm
+    }
+    fn terms(&self) -> usize {
+        self.terms
+    }
+    fn sum(&self) -> BigRational {
+        self.sum.clone()
+    }
+    fn negatives(&self) -> Vec<(Mono, BigRational)> {
+        self.negatives.clone()
+    }
+}
+
+/// The permutations a survey of S_n lists, in lexicographic order: all of S_n for
+/// n <= [`FULL_LISTING_MAX_N`], otherwise those with ℓ(w) <= n − 1 (the normal form of
+/// every other one is 0). At n = 9, 10, 11 there are 8,095, 30,239 and 113,906 of them
+/// (sums of Mahonian numbers, OEIS A008302).
+///
+/// ```
+/// use elbowroom::math::quotient::survey::survey_listing;
+/// assert_eq!(survey_listing(3).len(), 6);
+/// assert_eq!(survey_listing(9).len(), 8095);
+/// ```
+pub fn survey_listing(n: usize) -> Vec<Perm> {
+    if n <= FULL_LISTING_MAX_N {
+        return Perm::all(n).collect();
+    }
+    let mut out: Vec<Perm> = (0..n).flat_map(|l| perms_of_length(n, l)).collect();
+    out.sort_by(|a, b| a.as_bytes().cmp(b.as_bytes()));
+    out
+}
+
+/// The survey record of one permutation, by expanding S_w and dividing.
 ///
 /// ```
 /// use elbowroom::math::{Perm, quotient::survey::survey_one};
@@ -65,18 +182,22 @@ impl SurveyEntry {
 /// assert!(e.nonnegative());
 /// ```
 pub fn survey_one(w: &Perm) -> MathResult<SurveyEntry> {
+    let q = groebner_basis_with(w.n(), &Progress::new(0))?;
     let mut table = SchubertTable::new();
-    entry(w, &mut table)
+    entry_by_expansion(w, &q, &mut table)
 }
 
-fn entry(w: &Perm, table: &mut SchubertTable) -> MathResult<SurveyEntry> {
+fn entry_by_expansion(
+    w: &Perm,
+    q: &QuasiGroebner,
+    table: &mut SchubertTable,
+) -> MathResult<SurveyEntry> {
     let n = w.n();
-    let q = groebner_basis(n)?;
     let normal_form = if w.length() >= n {
-        normal_form(&q, &crate::math::poly::polynomial::IntPoly::zero(n))?
+        normal_form(q, &IntPoly::zero(n))?
     } else {
         let s = table.get(w);
-        normal_form(&q, &s.reverse_vars())?
+        normal_form(q, &s.reverse_vars())?
     };
     Ok(SurveyEntry {
         perm: w.clone(),
@@ -84,7 +205,150 @@ fn entry(w: &Perm, table: &mut SchubertTable) -> MathResult<SurveyEntry> {
     })
 }
 
-/// Surveys the given permutations (all of the same size n <= 8), in parallel, in order.
+/// Up to this many permutations are surveyed by expansion instead of the transition walk.
+const FEW: usize = 16;
+
+/// A normal form as (basis position, coefficient), sorted; `None` after an overflow.
+type Sparse = Option<Arc<[(u32, i128)]>>;
+
+/// The transition walk of one survey: two levels of normal forms and the products x_k·s.
+struct Walk<'q> {
+    q: &'q QuasiGroebner,
+    n: usize,
+    /// NF(x_k·s) by (k, basis position of s), for s of the degree below the current level.
+    times_var: HashMap<(u8, u32), Sparse>,
+    prev: HashMap<Vec<u8>, Sparse>,
+    cur: HashMap<Vec<u8>, Sparse>,
+    acc: Vec<i128>,
+    touched: Vec<u32>,
+}
+
+impl Walk<'_> {
+    /// NF(x_k·s) for the standard monomial at basis position s.
+    fn times(&mut self, k: u8, s: u32, progress: &Progress) -> MathResult<Sparse> {
+        if let Some(x) = self.times_var.get(&(k, s)) {
+            return Ok(x.clone());
+        }
+        let m = Mono(self.q.basis()[s as usize].0 + Mono::var_index(k as usize).0);
+        let nf = self
+            .q
+            .reduce_small([(m, 1i128)], &|| progress.check())?
+            .map(|v| Arc::from(v.into_boxed_slice()));
+        self.times_var.insert((k, s), nf.clone());
+        Ok(nf)
+    }
+
+    /// NF(S_w^rev) for w of the current level (ℓ(w) >= 1), its dependencies first.
+    fn normal_form(&mut self, w: &[u8], progress: &Progress) -> MathResult<Sparse> {
+        if let Some(x) = self.cur.get(w) {
+            return Ok(x.clone());
+        }
+        progress.check()?;
+        let Some((r, s)) = pivot(w) else {
+            return Ok(Some(Arc::from(vec![(0u32, 1i128)].into_boxed_slice())));
+        };
+        let mut v = w.to_vec();
+        v.swap(r, s);
+        let others: Vec<Vec<u8>> = partners(&v, r)
+            .map(|q| {
+                let mut u = v.clone();
+                u.swap(q, r);
+                u
+            })
+            .collect();
+        let mut parts = Vec::with_capacity(others.len());
+        for u in &others {
+            parts.push(self.normal_form(u, progress)?);
+        }
+        let Some(base) = self.prev.get(&v).cloned() else {
+            return Err(MathError::InvalidInput(format!(
+                "internal: the transition left the levels at {v:?}"
+            )));
+        };
+        let k = (self.n - 1 - r) as u8;
+        let out = self.combine(base, k, &parts, progress)?;
+        self.cur.insert(w.to_vec(), out.clone());
+        Ok(out)
+    }
+
+    /// NF(x_k·base) + Σ parts, in the dense accumulator.
+    fn combine(
+        &mut self,
+        base: Sparse,
+        k: u8,
+        parts: &[Sparse],
+        progress: &Progress,
+    ) -> MathResult<Sparse> {
+        let Some(base) = base else {
+            return Ok(None);
+        };
+        let mut ok = true;
+        for &(s, b) in base.iter() {
+            let Some(xs) = self.times(k, s, progress)? else {
+                ok = false;
+                break;
+            };
+            for &(i, a) in xs.iter() {
+                let slot = &mut self.acc[i as usize];
+                if *slot == 0 {
+                    self.touched.push(i);
+                }
+                match a.checked_mul(b).and_then(|p| slot.checked_add(p)) {
+                    Some(x) => *slot = x,
+                    None => ok = false,
+                }
+            }
+        }
+        for p in parts {
+            let Some(p) = p else {
+                ok = false;
+                break;
+            };
+            for &(i, a) in p.iter() {
+                let slot = &mut self.acc[i as usize];
+                if *slot == 0 {
+                    self.touched.push(i);
+                }
+                match slot.checked_add(a) {
+                    Some(x) => *slot = x,
+                    None => ok = false,
+                }
+            }
+        }
+        self.touched.sort_unstable();
+        self.touched.dedup();
+        let mut out = Vec::with_capacity(self.touched.len());
+        for &i in &self.touched {
+            let x = std::mem::take(&mut self.acc[i as usize]);
+            if x != 0 {
+                out.push((i, x));
+            }
+        }
+        self.touched.clear();
+        Ok(ok.then(|| Arc::from(out.into_boxed_slice())))
+    }
+}
+
+fn to_normal_form(q: &QuasiGroebner, v: &[(u32, i128)]) -> NormalForm {
+    let basis = q.basis();
+    let coefficients: Vec<(usize, Mono, BigRational)> = v
+        .iter()
+        .map(|&(i, c)| {
+            (
+                i as usize,
+                basis[i as usize],
+                BigRational::from_integer(BigInt::from(c)),
+            )
+        })
+        .collect();
+    let poly = crate::math::poly::polynomial::RatPoly::from_terms(
+        q.n(),
+        coefficients.iter().map(|(_, m, c)| (*m, c.clone())),
+    );
+    NormalForm { poly, coefficients }
+}
+
+/// Surveys the given permutations (all of the same size n <= 11), in order.
 ///
 /// ```
 /// use elbowroom::math::{Perm, Progress, quotient::survey::survey};
@@ -95,6 +359,51 @@ fn entry(w: &Perm, table: &mut SchubertTable) -> MathResult<SurveyEntry> {
 /// assert_eq!(progress.done(), 6);
 /// ```
 pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry>> {
+    run(perms, progress, &|q, w, nf, table| match nf {
+        Some(v) => Ok(SurveyEntry {
+            perm: w.clone(),
+            normal_form: to_normal_form(q, v),
+        }),
+        None => entry_by_expansion(w, q, table),
+    })
+}
+
+/// [`survey`] keeping only the summary of each normal form (terms, sum, negatives).
+///
+/// ```
+/// use elbowroom::math::{Perm, Progress, quotient::survey::{SurveyRecord, survey_summaries}};
+/// let perms: Vec<Perm> = Perm::all(3).collect();
+/// let s = survey_summaries(&perms, &Progress::new(0)).unwrap();
+/// // S_{123} = 1, S_{132} = x1 + x2 reversed: x2 + x3, two terms
+/// assert_eq!((s[0].terms(), s[1].terms()), (1, 2));
+/// ```
+pub fn survey_summaries(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveySummary>> {
+    run(perms, progress, &|q, w, nf, table| match nf {
+        Some(v) => {
+            let basis = q.basis();
+            let int = |c: i128| BigRational::from_integer(BigInt::from(c));
+            Ok(SurveySummary {
+                perm: w.clone(),
+                terms: v.len(),
+                sum: v
+                    .iter()
+                    .fold(BigRational::zero(), |acc, &(_, c)| acc + int(c)),
+                negatives: v
+                    .iter()
+                    .filter(|t| t.1 < 0)
+                    .map(|&(i, c)| (basis[i as usize], int(c)))
+                    .collect(),
+            })
+        }
+        None => entry_by_expansion(w, q, table).map(|e| SurveySummary::of(&e)),
+    })
+}
+
+/// Makes the record of w from its normal form (`None`: redo it by expansion).
+type Make<'a, E> =
+    dyn Fn(&QuasiGroebner, &Perm, Option<&[(u32, i128)]>, &mut SchubertTable) -> MathResult<E> + 'a;
+
+fn run<E: Clone>(perms: &[Perm], progress: &Progress, make: &Make<'_, E>) -> MathResult<Vec<E>> {
     let Some(first) = perms.first() else {
         return Ok(Vec::new());
     };
@@ -104,15 +413,69 @@ pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry
             "a survey takes permutations of one size; {w} is not in S_{n}"
         )));
     }
-    groebner_basis(n)?;
+    let before = progress.done();
+    let q = groebner_basis_with(n, progress)?;
+    progress.set_total(progress.done() - before + perms.len() as u64);
     progress.check()?;
-    perms
-        .par_iter()
-        .map_init(SchubertTable::new, |table, w| {
-            progress.check()?;
-            let e = entry(w, table);
+    let mut table = SchubertTable::new();
+    let mut out: Vec<Option<E>> = vec![None; perms.len()];
+    // by level: which of the requested permutations have each length
+    let mut wanted: HashMap<Vec<u8>, Vec<usize>> = HashMap::new();
+    let mut top = 0usize;
+    for (i, w) in perms.iter().enumerate() {
+        if w.length() >= n {
+            out[i] = Some(make(&q, w, Some(&[]), &mut table)?);
             progress.advance(1);
-            e
+        } else {
+            top = top.max(w.length());
+            wanted.entry(w.as_bytes().to_vec()).or_default().push(i);
+        }
+    }
+    if !wanted.is_empty() && wanted.len() <= FEW {
+        // a few permutations: expanding them is cheaper than walking every level below
+        for (i, w) in perms.iter().enumerate() {
+            if out[i].is_none() {
+                progress.check()?;
+                out[i] = Some(make(&q, w, None, &mut table)?);
+                progress.advance(1);
+            }
+        }
+    } else if !wanted.is_empty() {
+        let mut walk = Walk {
+            q: &q,
+            n,
+            times_var: HashMap::new(),
+            prev: HashMap::new(),
+            cur: HashMap::new(),
+            acc: vec![0; q.basis().len()],
+            touched: Vec::new(),
+        };
+        for level in 0..=top {
+            walk.prev = std::mem::take(&mut walk.cur);
+            walk.times_var.clear();
+            for w in perms_of_length(n, level) {
+                let key = w.as_bytes();
+                let nf = walk.normal_form(key, progress)?;
+                if level == 0 {
+                    walk.cur.insert(key.to_vec(), nf.clone());
+                }
+                let Some(places) = wanted.get(key) else {
+                    continue;
+                };
+                let e = make(&q, &w, nf.as_deref(), &mut table)?;
+                for &i in places {
+                    out[i] = Some(e.clone());
+                    progress.advance(1);
+                }
+            }
+        }
+    }
+    out.into_iter()
+        .enumerate()
+        .map(|(i, e)| {
+            e.ok_or_else(|| {
+                MathError::InvalidInput(format!("internal: {} was not surveyed", perms[i]))
+            })
         })
         .collect()
 }
