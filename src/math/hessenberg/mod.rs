@@ -11,6 +11,8 @@ pub mod table;
 
 pub mod class;
 
+pub mod rows;
+
 pub mod coefficients;
 
 pub mod sweep;
