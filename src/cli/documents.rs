@@ -15,6 +15,9 @@ use serde_json::{Value, json};
 /// The `"kind"` of `elbowroom hessenberg --json`.
 pub const HESSENBERG_KIND: &str = "hessenberg_table";
 
+/// The version a piece of a sharded table names (`"version"`).
+pub const VERSION: &str = env!("CARGO_PKG_VERSION");
+
 /// The `"kind"` of `elbowroom survey --json`.
 pub const SURVEY_KIND: &str = "quotient_survey";
 
@@ -46,6 +49,7 @@ pub fn hessenberg_table_json(table: &HessenbergTable, shard: Shard) -> Value {
             "shard".into(),
             Value::String(format!("{}/{}", shard.index, shard.count)),
         );
+        obj.insert("version".into(), Value::String(VERSION.into()));
     }
     v
 }
@@ -125,6 +129,8 @@ impl HessenbergJsonStream {
                 "shard".into(),
                 Value::String(format!("{}/{}", shard.index, shard.count)),
             );
+            // a piece names the version that made it; merge takes pieces of one version
+            obj.insert("version".into(), Value::String(VERSION.into()));
         }
         let text = json::render(&tail);
         sink.text("],")?;

@@ -35,6 +35,7 @@ pub mod expansion_text;
 pub mod inputs;
 pub mod interrupt;
 pub mod json;
+pub mod json_reader;
 pub mod merge_survey;
 pub mod open_file;
 pub mod output;
@@ -90,7 +91,7 @@ pub fn execute(command: &Command, sink: &mut Sink<'_>) -> Result<(), CliError> {
         Command::Eulerian(a) => cmd_eulerian::run(a),
         Command::Expand(a) => cmd_expand::run(a),
         Command::Product(a) => cmd_product::run(a),
-        Command::Merge(a) => cmd_merge::run(a),
+        Command::Merge(a) => return cmd_merge::run(a, sink),
         Command::Quotient(a) => cmd_quotient::run(a),
         Command::Reduce(a) => cmd_reduce::run(a),
         Command::Survey(a) => cmd_survey::run(a),

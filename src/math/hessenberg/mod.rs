@@ -13,6 +13,8 @@ pub mod class;
 
 pub mod rows;
 
+pub mod word;
+
 pub mod coefficients;
 
 pub mod sweep;

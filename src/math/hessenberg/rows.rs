@@ -15,9 +15,9 @@
 //! last product, and the largest vector held is P, not Q_h.
 //!
 //! Sizing before the start: the listing (the Mahonian number M(n, |h|)) against
-//! [`CLASS_TABLE_LIMIT`], and the terms the expansion may hold at once (two
-//! consecutive partial products, each bounded by the Mahonian number of its degree
-//! and by 4n times the previous one) against [`CLASS_HELD_LIMIT`].
+//! [`CLASS_TABLE_LIMIT`], and the estimate of the terms the expansion holds at once
+//! ([`held_terms_bound`]) against [`CLASS_HELD_LIMIT`]; each step is also refused
+//! on its own before it starts if it could pass its limit.
 
 use crate::math::error::{MathError, MathResult};
 use crate::math::hessenberg::class::{class_factors, product_of_differences};
@@ -28,7 +28,7 @@ use crate::math::perms::perm::MAX_N;
 use crate::math::perms::perm::Perm;
 use crate::math::progress::Progress;
 use crate::math::schubert::vector::{
-    Coefficient, PackedPerm, SchubertVector, StepResult, TermMap, exactly,
+    Coefficient, PackedPerm, SchubertVector, StepError, StepResult, TermMap, exactly,
 };
 use num_bigint::BigInt;
 use num_traits::{Signed, Zero};
@@ -38,41 +38,37 @@ use num_traits::{Signed, Zero};
 pub const CLASS_TABLE_LIMIT: u128 = 50_000_000;
 
 /// The most Schubert terms the expansion of Q_h may hold at once, as bounded
-/// before it starts ([`held_terms_bound`]). The default h of n = 16 is bounded
-/// by 207 595 673 (M(16, 16) + M(16, 17)); measured, it holds about a fifth of
-/// that (README, "Performance").
+/// before it starts ([`held_terms_bound`]). The default h of n = 16 is estimated
+/// at 207 595 673 (M(16, 16) + M(16, 17)) and accepted; measured, it holds far
+/// fewer (README, "Performance").
 pub const CLASS_HELD_LIMIT: u128 = 220_000_000;
 
 /// How many rows are listed between two checks of the cancel flag.
 const CHECK_EVERY: usize = 1 << 12;
 
-/// The most terms two consecutive partial products of Q_h (without its last factor)
-/// can hold: each is at most the Mahonian number of its degree and at most 4n times
-/// the previous one (the fan-out of Monk's rule for x_i − x_j).
+/// The estimate of the terms the expansion of Q_h holds at once: the Mahonian
+/// numbers M(n, d − 1) + M(n, d − 2), d = deg Q_h, the most terms its last two
+/// partial products (the last one built and the one before it) can have. The
+/// partial products grow towards the end (measured for the default h up to
+/// n = 16: each of the last twenty steps is larger than the one before), so these
+/// two are the largest held; every other step is refused on its own by
+/// [`crate::math::hessenberg::class::CLASS_TERM_LIMIT`] if it could pass it.
 ///
 /// ```
 /// use elbowroom::math::hessenberg::function::HessenbergFn;
 /// use elbowroom::math::hessenberg::rows::held_terms_bound;
 /// // h = (2,3,3): Q_h = x_1 − x_3 has one factor; only S_id = 1 is ever held
 /// assert_eq!(held_terms_bound(&HessenbergFn::new(&[2, 3, 3]).unwrap()), 1);
+/// // the default h of n = 16: M(16, 16) + M(16, 17)
+/// let h = HessenbergFn::default_for(16).unwrap();
+/// assert_eq!(held_terms_bound(&h), 76_893_687 + 130_701_986);
 /// ```
 pub fn held_terms_bound(h: &HessenbergFn) -> u128 {
-    let n = h.n();
-    let mahonian = mahonian_row(n);
-    let steps = class_factors(h).len();
-    let mut previous = 1u128;
-    let mut most = 1u128;
-    // partial products of degree 1 ..= steps − 1; the last one is read row by row
-    for t in 1..steps {
-        let bound = mahonian
-            .get(t)
-            .copied()
-            .unwrap_or(0)
-            .min(previous.saturating_mul(4 * n as u128));
-        most = most.max(bound.saturating_add(previous));
-        previous = bound;
-    }
-    most
+    let mahonian = mahonian_row(h.n());
+    let d = class_factors(h).len();
+    let at = |k: Option<usize>| k.and_then(|k| mahonian.get(k).copied()).unwrap_or(0);
+    // the partial product without the last factor, and the one before it
+    (at(d.checked_sub(1)) + at(d.checked_sub(2))).max(1)
 }
 
 /// Refuses a table whose listing or expansion is too large; returns M(n, |h|).
@@ -89,8 +85,8 @@ pub fn size_class_table(h: &HessenbergFn) -> MathResult<u128> {
     let held = held_terms_bound(h);
     if held > CLASS_HELD_LIMIT {
         return Err(MathError::OutOfRange(format!(
-            "the class of h = {h} in H*(Fl_{n}) may hold up to {held} Schubert terms at once \
-             (about {} GB), more than the {CLASS_HELD_LIMIT} accepted",
+            "the class of h = {h} in H*(Fl_{n}) is estimated to hold up to {held} Schubert \
+             terms at once (about {} GB), more than the {CLASS_HELD_LIMIT} accepted",
             held * 48 / 1_000_000_000
         )));
     }
@@ -148,6 +144,7 @@ impl RowSummary {
 
 /// The partial product of Q_h without its last factor, in whichever integers it fit.
 enum Partial {
+    Word(SchubertVector<i64>),
     Small(SchubertVector<i128>),
     Big(SchubertVector<BigInt>),
 }
@@ -251,13 +248,20 @@ pub fn for_each_class_row<E: From<MathError>>(
     let mut factors = class_factors(h);
     progress.set_total(factors.len() as u64 + listed as u64);
     let last = factors.pop();
-    let partial = exactly(
-        || product_of_differences::<i128>(h.n(), &factors, progress).map(Partial::Small),
-        || product_of_differences::<BigInt>(h.n(), &factors, progress).map(Partial::Big),
-    )?;
+    // i64 first (half the memory), then i128, then big integers
+    let partial = match product_of_differences::<i64>(h.n(), &factors, progress) {
+        Ok(v) => Partial::Word(v),
+        Err(StepError::Math(e)) => return Err(e.into()),
+        Err(StepError::Overflow) => exactly(
+            || product_of_differences::<i128>(h.n(), &factors, progress).map(Partial::Small),
+            || product_of_differences::<BigInt>(h.n(), &factors, progress).map(Partial::Big),
+        )?,
+    };
     let n = h.n();
     let value_of = |u: &[u8; MAX_N + 1]| -> BigInt {
         match (&partial, last) {
+            (Partial::Word(p), Some(pair)) => last_product_coefficient(p.term_map(), pair, u, n),
+            (Partial::Word(p), None) => p.coefficient(PackedPerm::from_values(&u[1..=n])).into(),
             (Partial::Small(p), Some(pair)) => last_product_coefficient(p.term_map(), pair, u, n),
             (Partial::Big(p), Some(pair)) => last_product_coefficient(p.term_map(), pair, u, n),
             (Partial::Small(p), None) => p.coefficient(PackedPerm::from_values(&u[1..=n])).into(),
