@@ -220,6 +220,11 @@ fn labels_at_end(path: &Path) -> Result<(Shard, Option<String>), CliError> {
     file.read_to_end(&mut tail)
         .map_err(|e| CliError::Input(format!("cannot read {name}: {e}")))?;
     let tail = String::from_utf8_lossy(&tail);
+    if !tail.trim_end().ends_with('}') {
+        return Err(CliError::Input(format!(
+            "{name}: cut short: the file ends before its JSON object does (rerun that piece)"
+        )));
+    }
     let after = |key: &str| -> Option<String> {
         let at = tail.rfind(&format!("\"{key}\":\""))? + key.len() + 4;
         let end = tail[at..].find('"')?;
