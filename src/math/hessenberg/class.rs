@@ -16,8 +16,8 @@
 //! = n S_{n 1 2 ⋯ n−1} in H*(Fl_n).
 //!
 //! Sizes: a vector of degree t in H*(Fl_n) has at most M(n, t) terms (the Mahonian
-//! number); each step is refused before it starts when that bound and the fan-out of
-//! Monk's rule both exceed [`CLASS_TERM_LIMIT`]; tables are sized and read off row by
+//! number); a step whose bound (that, or the fan-out of Monk's rule) exceeds
+//! [`CLASS_TERM_LIMIT`] counts its terms and stops as soon as they pass it; tables are sized and read off row by
 //! row in [`crate::math::hessenberg::rows`]. Coefficients are checked `i128`, and the whole run is
 //! repeated in big integers if one overflows.
 
@@ -27,8 +27,12 @@ use crate::math::perms::listing::mahonian_row;
 use crate::math::perms::perm::MAX_N;
 use crate::math::progress::Progress;
 use crate::math::schubert::vector::{
-    Coefficient, LinearForm, SchubertVector, Space, StepError, StepResult, exactly,
+    Coefficient, LinearForm, Monk, PackedPerm, SchubertVector, Space, StepError, StepResult,
+    TermMap, add_into, exactly,
 };
+
+/// How many terms are multiplied between two checks of the cancel flag and the size.
+const CHECK_EVERY: usize = 1 << 12;
 use num_bigint::BigInt;
 
 /// The most terms a vector may reach on the way to Q_h.
@@ -61,9 +65,10 @@ fn fan_out(n: usize) -> u128 {
     4 * n as u128
 }
 
-/// v · (x_i − x_j) in H*(Fl_n), refused before it starts when the result could pass
-/// [`CLASS_TERM_LIMIT`] terms (the Mahonian bound of its degree and the fan-out bound
-/// both above the limit).
+/// v · (x_i − x_j) in H*(Fl_n), never holding more than [`CLASS_TERM_LIMIT`] terms:
+/// when the bound of the result (the Mahonian number of its degree, and the fan-out
+/// 4n times the terms of v) is within the limit the step runs at once; otherwise it
+/// runs counting its terms and stops with `OutOfRange` as soon as they pass the limit.
 pub(crate) fn times_difference<C: Coefficient>(
     v: &SchubertVector<C>,
     (i, j): (usize, usize),
@@ -78,13 +83,80 @@ pub(crate) fn times_difference<C: Coefficient>(
     let by_degree = mahonian.get(degree).copied().unwrap_or(0);
     let by_fan = (v.len() as u128).saturating_mul(fan_out(n));
     let bound = by_degree.min(by_fan);
-    if bound > CLASS_TERM_LIMIT {
-        return Err(StepError::Math(MathError::OutOfRange(format!(
-            "the Hessenberg class in H*(Fl_{n}) may pass through {bound} Schubert terms in \
-             degree {degree}, more than the {CLASS_TERM_LIMIT} accepted"
-        ))));
+    let form = LinearForm::difference(i, j)?;
+    if bound <= CLASS_TERM_LIMIT {
+        return v.times_linear(&form, progress);
     }
-    v.times_linear(&LinearForm::difference(i, j)?, progress)
+    let out = guarded_product(v.term_map(), &form, n, degree, bound, progress)?;
+    SchubertVector::from_terms(v.space(), out)
+}
+
+/// λ · Σ c_w S_w in H*(Fl_n) by Monk's rule on a bare map of terms, stopping with
+/// `OutOfRange` as soon as the result passes [`CLASS_TERM_LIMIT`] terms.
+fn guarded_product<C: Coefficient>(
+    v: &TermMap<C>,
+    form: &LinearForm<C>,
+    n: usize,
+    degree: usize,
+    bound: u128,
+    progress: &Progress,
+) -> StepResult<TermMap<C>> {
+    let too_many = || {
+        StepError::Math(MathError::OutOfRange(format!(
+            "the Hessenberg class in H*(Fl_{n}) passes {CLASS_TERM_LIMIT} Schubert terms in \
+             degree {degree} (bounded by {bound} before the step), more than the \
+             {CLASS_TERM_LIMIT} accepted"
+        )))
+    };
+    let monk = Monk::new(form, Space::flag(n)?);
+    let mut out = TermMap::<C>::default();
+    // near the end of the product each step is at most about twice the one before
+    out.reserve(((v.len() as u128 * 2).min(bound)) as usize);
+    for (count, (w, c)) in v.iter().enumerate() {
+        if count % CHECK_EVERY == 0 {
+            progress.check()?;
+            if out.len() as u128 > CLASS_TERM_LIMIT {
+                return Err(too_many());
+            }
+        }
+        monk.apply(*w, |target, mult| {
+            let t = c.mul_checked(mult)?;
+            add_into(&mut out, target, &t)
+        })?;
+    }
+    if out.len() as u128 > CLASS_TERM_LIMIT {
+        return Err(too_many());
+    }
+    progress.check()?;
+    Ok(out)
+}
+
+/// Π (x_i − x_j) over `factors`, in this order, in H*(Fl_n) in coefficients C, as a
+/// bare map of terms (no copy at any step); each step guarded as in
+/// [`times_difference`] and counted on `progress`.
+pub(crate) fn product_of_differences<C: Coefficient>(
+    n: usize,
+    factors: &[(usize, usize)],
+    progress: &Progress,
+) -> StepResult<TermMap<C>> {
+    let mahonian = mahonian_row(n);
+    Space::flag(n)?;
+    let mut v = TermMap::<C>::default();
+    v.insert(PackedPerm::IDENTITY, C::from_i64(1));
+    for (t, &(i, j)) in factors.iter().enumerate() {
+        let degree = t + 1;
+        let bound = mahonian
+            .get(degree)
+            .copied()
+            .unwrap_or(0)
+            .min((v.len() as u128).saturating_mul(fan_out(n)));
+        let form = LinearForm::difference(i, j)?;
+        let next = guarded_product(&v, &form, n, degree, bound, progress)?;
+        // the previous product goes before the next step starts
+        v = next;
+        progress.advance(1);
+    }
+    Ok(v)
 }
 
 /// Q_h in H*(Fl_n) in coefficients C, factor by factor.
@@ -92,23 +164,8 @@ fn class_in<C: Coefficient>(
     h: &HessenbergFn,
     progress: &Progress,
 ) -> StepResult<SchubertVector<C>> {
-    product_of_differences(h.n(), &class_factors(h), progress)
-}
-
-/// Π (x_i − x_j) over `factors`, in this order, in H*(Fl_n) in coefficients C; each
-/// step sized by [`times_difference`] and counted on `progress`.
-pub(crate) fn product_of_differences<C: Coefficient>(
-    n: usize,
-    factors: &[(usize, usize)],
-    progress: &Progress,
-) -> StepResult<SchubertVector<C>> {
-    let mahonian = mahonian_row(n);
-    let mut v = SchubertVector::<C>::one(Space::flag(n)?);
-    for (t, &pair) in factors.iter().enumerate() {
-        v = times_difference(&v, pair, t + 1, &mahonian, progress)?;
-        progress.advance(1);
-    }
-    Ok(v)
+    let terms = product_of_differences::<C>(h.n(), &class_factors(h), progress)?;
+    SchubertVector::from_terms(Space::flag(h.n())?, terms)
 }
 
 /// The class [Hess(h)] = Q_h = Π_{i<j, j>h(i)} (x_i − x_j) in H*(Fl_n), in the Schubert basis.

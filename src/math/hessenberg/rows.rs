@@ -28,7 +28,7 @@ use crate::math::perms::perm::MAX_N;
 use crate::math::perms::perm::Perm;
 use crate::math::progress::Progress;
 use crate::math::schubert::vector::{
-    Coefficient, PackedPerm, SchubertVector, StepError, StepResult, TermMap, exactly,
+    Coefficient, PackedPerm, StepError, StepResult, TermMap, exactly,
 };
 use num_bigint::BigInt;
 use num_traits::{Signed, Zero};
@@ -144,9 +144,15 @@ impl RowSummary {
 
 /// The partial product of Q_h without its last factor, in whichever integers it fit.
 enum Partial {
-    Word(SchubertVector<i64>),
-    Small(SchubertVector<i128>),
-    Big(SchubertVector<BigInt>),
+    Word(TermMap<i64>),
+    Small(TermMap<i128>),
+    Big(TermMap<BigInt>),
+}
+
+/// [S_u] P, for a class with no factor at all (P = Q_h = 1).
+fn lookup<C: Coefficient>(p: &TermMap<C>, u: &[u8; MAX_N + 1], n: usize) -> BigInt {
+    p.get(&PackedPerm::from_values(&u[1..=n]))
+        .map_or_else(BigInt::default, Coefficient::to_big)
 }
 
 /// [S_u] (x_i − x_j)·P from P (module notes); `u` holds u(1..=n) at indices 1..=n.
@@ -260,12 +266,12 @@ pub fn for_each_class_row<E: From<MathError>>(
     let n = h.n();
     let value_of = |u: &[u8; MAX_N + 1]| -> BigInt {
         match (&partial, last) {
-            (Partial::Word(p), Some(pair)) => last_product_coefficient(p.term_map(), pair, u, n),
-            (Partial::Word(p), None) => p.coefficient(PackedPerm::from_values(&u[1..=n])).into(),
-            (Partial::Small(p), Some(pair)) => last_product_coefficient(p.term_map(), pair, u, n),
-            (Partial::Big(p), Some(pair)) => last_product_coefficient(p.term_map(), pair, u, n),
-            (Partial::Small(p), None) => p.coefficient(PackedPerm::from_values(&u[1..=n])).into(),
-            (Partial::Big(p), None) => p.coefficient(PackedPerm::from_values(&u[1..=n])),
+            (Partial::Word(p), Some(pair)) => last_product_coefficient(p, pair, u, n),
+            (Partial::Small(p), Some(pair)) => last_product_coefficient(p, pair, u, n),
+            (Partial::Big(p), Some(pair)) => last_product_coefficient(p, pair, u, n),
+            (Partial::Word(p), None) => lookup(p, u, n),
+            (Partial::Small(p), None) => lookup(p, u, n),
+            (Partial::Big(p), None) => lookup(p, u, n),
         }
     };
     if last.is_some() {
