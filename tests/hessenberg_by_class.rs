@@ -2,10 +2,9 @@
 //! every h up to n = 7, facts of the trade, the sweep over every h, sizing and cancel.
 #![allow(clippy::unwrap_used)]
 
-use elbowroom::math::hessenberg::class::{
-    CLASS_TABLE_LIMIT, class_factors, coefficient_table_by_class, hessenberg_class,
-};
+use elbowroom::math::hessenberg::class::{class_factors, hessenberg_class};
 use elbowroom::math::hessenberg::function::HessenbergFn;
+use elbowroom::math::hessenberg::rows::{CLASS_TABLE_LIMIT, coefficient_table_by_class};
 use elbowroom::math::hessenberg::sweep::{SWEEP_MAX_N, sweep_every_h};
 use elbowroom::math::hessenberg::table::coefficient_table_by_divsym;
 use elbowroom::math::perms::listing::perms_of_length;

@@ -1,52 +1,94 @@
 //! `elbowroom dreams W`: the reduced pipe dreams of w (or, with `--bumpless`,
-//! its bumpless pipe dreams), drawn as small pictures or listed as JSON.
+//! its bumpless pipe dreams), drawn as small pictures or listed as JSON, written
+//! one by one as they are found (at most `--limit`); Ctrl-C stops the listing with
+//! a "canceled after ..." line and exit status 130.
 
 use super::args::DreamsArgs;
 use super::error::CliError;
+use super::interrupt;
 use super::json;
-use crate::math::Perm;
+use super::output::Sink;
 use crate::math::pipes::bumpless::bumpless_dreams;
 use crate::math::pipes::dream::{count_pipe_dreams, pipe_dreams};
 use crate::math::poly::mono::exponents_text;
+use crate::math::{Perm, Progress};
 use num_bigint::BigUint;
-use serde_json::{Value, json};
+use serde_json::json;
+use std::sync::Arc;
 
 /// The most bumpless pipe dreams the command will generate (they are found all at
 /// once by a search with a set of the dreams seen).
 pub const BUMPLESS_LIMIT: u64 = 200_000;
 
 /// Runs the command.
-pub fn run(args: &DreamsArgs) -> Result<String, CliError> {
+pub fn run(args: &DreamsArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let w = Perm::parse(&args.perm)?;
     // the number of reduced pipe dreams, S_w(1, ..., 1); by Lam–Lee–Shimozono it
     // is also the number of bumpless pipe dreams
     let count = count_pipe_dreams(&w);
     let shown = if args.count { 0 } else { args.limit };
-    if args.bumpless {
-        return bumpless(args, &w, &count, shown);
-    }
-    let dreams: Vec<_> = pipe_dreams(&w).take(shown).collect();
+    let progress = Arc::new(Progress::new(0));
+    let _watch = interrupt::watch(progress.clone());
+    let mut written = 0u64;
+    let result = if args.bumpless {
+        bumpless(args, sink, &w, &count, shown, &progress, &mut written)
+    } else {
+        reduced(args, sink, &w, &count, shown, &progress, &mut written)
+    };
+    result.map_err(|e| {
+        interrupt::or_canceled(
+            e,
+            "the listing",
+            "pipe dreams",
+            &progress,
+            written,
+            "pipe dreams",
+        )
+    })
+}
+
+/// The reduced pipe dreams, written one by one as the walk finds them.
+fn reduced(
+    args: &DreamsArgs,
+    sink: &mut Sink<'_>,
+    w: &Perm,
+    count: &BigUint,
+    shown: usize,
+    progress: &Progress,
+    written: &mut u64,
+) -> Result<(), CliError> {
+    // the number listed is known before the first: min(limit, count)
+    let listed = if *count < BigUint::from(shown) {
+        usize::try_from(count).unwrap_or(shown)
+    } else {
+        shown
+    };
+    progress.set_total(listed as u64);
+    let dreams = pipe_dreams(w).take(listed);
     if args.json {
-        let listed: Vec<Value> = dreams
-            .iter()
-            .map(|d| {
-                json!({
-                    "crosses": d.crosses().iter().map(|&(i, j)| [i, j]).collect::<Vec<_>>(),
-                    "word": d.reading_word(),
-                    "monomial": d.monomial(),
-                })
-            })
-            .collect();
-        return Ok(json::render(&json!({
-            "perm": w.one_line(),
-            "count": json::exact(&count),
-            "dreams": listed,
-        })));
+        let head = json::render(&json!({"perm": w.one_line(), "count": json::exact(count)}));
+        sink.text(&head[..head.len() - 1])?;
+        sink.text(",\"dreams\":[")?;
+        for (k, d) in dreams.enumerate() {
+            progress.check()?;
+            if k > 0 {
+                sink.text(",")?;
+            }
+            sink.json(&json!({
+                "crosses": d.crosses().iter().map(|&(i, j)| [i, j]).collect::<Vec<_>>(),
+                "word": d.reading_word(),
+                "monomial": d.monomial(),
+            }))?;
+            progress.advance(1);
+            *written += 1;
+        }
+        return sink.text("]}\n");
     }
-    let mut out = heading(&count, &w, "reduced pipe dream", dreams.len());
-    for (k, d) in dreams.iter().enumerate() {
+    sink.text(&heading(count, w, "reduced pipe dream", listed))?;
+    for (k, d) in dreams.enumerate() {
+        progress.check()?;
         let word: Vec<String> = d.reading_word().iter().map(|a| a.to_string()).collect();
-        out.push_str(&format!(
+        sink.text(&format!(
             "\n\n#{}  {}  word {}\n{d}",
             k + 1,
             exponents_text(&d.monomial()),
@@ -55,17 +97,24 @@ pub fn run(args: &DreamsArgs) -> Result<String, CliError> {
             } else {
                 word.join(" ")
             }
-        ));
+        ))?;
+        progress.advance(1);
+        *written += 1;
     }
-    Ok(out)
+    sink.end_line()
 }
 
+/// The bumpless pipe dreams: found all at once (at most [`BUMPLESS_LIMIT`]),
+/// then written one by one.
 fn bumpless(
     args: &DreamsArgs,
+    sink: &mut Sink<'_>,
     w: &Perm,
     count: &BigUint,
     shown: usize,
-) -> Result<String, CliError> {
+    progress: &Progress,
+    written: &mut u64,
+) -> Result<(), CliError> {
     let mut dreams = Vec::new();
     if shown > 0 {
         if *count > BigUint::from(BUMPLESS_LIMIT) {
@@ -76,33 +125,39 @@ fn bumpless(
         dreams = bumpless_dreams(w);
         dreams.truncate(shown);
     }
+    progress.set_total(dreams.len() as u64);
     if args.json {
-        let listed: Vec<Value> = dreams
-            .iter()
-            .map(|d| {
-                let rows: Vec<String> = d.to_string().lines().map(str::to_string).collect();
-                json!({
-                    "blanks": d.blanks().iter().map(|&(i, j)| [i, j]).collect::<Vec<_>>(),
-                    "monomial": d.monomial(),
-                    "tiles": rows,
-                })
-            })
-            .collect();
-        return Ok(json::render(&json!({
-            "perm": w.one_line(),
-            "count": json::exact(count),
-            "dreams": listed,
-        })));
+        let head = json::render(&json!({"perm": w.one_line(), "count": json::exact(count)}));
+        sink.text(&head[..head.len() - 1])?;
+        sink.text(",\"dreams\":[")?;
+        for (k, d) in dreams.iter().enumerate() {
+            progress.check()?;
+            if k > 0 {
+                sink.text(",")?;
+            }
+            let rows: Vec<String> = d.to_string().lines().map(str::to_string).collect();
+            sink.json(&json!({
+                "blanks": d.blanks().iter().map(|&(i, j)| [i, j]).collect::<Vec<_>>(),
+                "monomial": d.monomial(),
+                "tiles": rows,
+            }))?;
+            progress.advance(1);
+            *written += 1;
+        }
+        return sink.text("]}\n");
     }
-    let mut out = heading(count, w, "bumpless pipe dream", dreams.len());
+    sink.text(&heading(count, w, "bumpless pipe dream", dreams.len()))?;
     for (k, d) in dreams.iter().enumerate() {
-        out.push_str(&format!(
+        progress.check()?;
+        sink.text(&format!(
             "\n\n#{}  {}\n{d}",
             k + 1,
             exponents_text(&d.monomial())
-        ));
+        ))?;
+        progress.advance(1);
+        *written += 1;
     }
-    Ok(out)
+    sink.end_line()
 }
 
 fn heading(count: &BigUint, w: &Perm, what: &str, listed: usize) -> String {

@@ -2,83 +2,205 @@
 //! `elbowroom hessenberg --n N --every-h`: one summary line per Hessenberg function.
 //!
 //! Rows list every w in S_n with ℓ(w) = Σ (h(i) - i), zeros included, in
-//! lexicographic order of one-line notation. Ctrl-C stops the run cleanly
-//! (exit status 130, nothing on stdout).
+//! lexicographic order of one-line notation, written as they are read off the
+//! class (text, CSV and JSON; LaTeX, which names its totals first, is collected).
+//! The summary (total, nonzero, max, negative) is accumulated on the way. Ctrl-C
+//! stops the run within a few milliseconds in every phase (exit status 130, with
+//! the rows written so far named in the message).
 
 use super::args::HessenbergArgs;
-use super::documents::hessenberg_table_json;
+use super::documents::HessenbergJsonStream;
 use super::error::CliError;
 use super::inputs::hessenberg_from_args;
 use super::interrupt;
 use super::json;
+use super::output::Sink;
 use super::shard::Shard;
 use crate::math::hessenberg::coefficients::coefficient_table;
+use crate::math::hessenberg::function::HessenbergFn;
+use crate::math::hessenberg::rows::{self, RowSummary};
 use crate::math::hessenberg::sweep::{SweepRow, sweep_every_h};
-use crate::math::hessenberg::table::HessenbergTable;
+use crate::math::{Perm, Progress};
 use crate::tables::results::{every_h_table, hessenberg_table};
+use crate::tables::table::csv_field;
+use num_bigint::BigInt;
 use serde_json::json;
+use std::sync::Arc;
 
-/// Runs the command.
-pub fn run(args: &HessenbergArgs) -> Result<String, CliError> {
+/// Runs the command, writing the rows as they are read off the class.
+pub fn run(args: &HessenbergArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     if args.every_h {
-        return every_h(args);
+        return sink.whole(&every_h(args)?);
     }
     let h = hessenberg_from_args(args.n, args.h.as_deref())?;
     let shard = Shard::of_arg(args.shard.as_deref())?;
-    let table = interrupt::run_interruptible("the table", "permutations", 0, |progress| {
-        coefficient_table(&h, &|i| shard.selects(i), progress)
+    if args.output.latex {
+        // a LaTeX table names its totals above the rows: collected (sized like the rest)
+        let table = interrupt::run_interruptible("the table", "permutations", 0, |progress| {
+            coefficient_table(&h, &|i| shard.selects(i), progress)
+        })?;
+        return sink.whole(&hessenberg_table(&table).to_latex());
+    }
+    let format = if args.output.json {
+        Format::Json
+    } else if args.output.csv {
+        Format::Csv
+    } else {
+        Format::Text
+    };
+    let progress = Arc::new(Progress::new(0));
+    let _watch = interrupt::watch(progress.clone());
+    let mut stream = RowStream {
+        format,
+        h: &h,
+        shard,
+        listed: rows::size_class_table(&h)? as usize,
+        summary: RowSummary::default(),
+        json: None,
+        started: false,
+    };
+    let walked = rows::for_each_class_row(&h, &|i| shard.selects(i), &progress, &mut |row| {
+        stream.row(sink, row.line, &row.value)
+    });
+    let rows_written = stream.summary.rows as u64;
+    walked.map_err(|e| {
+        interrupt::or_canceled(
+            e,
+            "the table",
+            "permutations",
+            &progress,
+            rows_written,
+            "rows",
+        )
     })?;
-    if args.output.json {
-        return Ok(json::render(&hessenberg_table_json(&table, shard)));
-    }
-    if let Some(out) = args.output.table(|| hessenberg_table(&table)) {
-        return Ok(out);
-    }
-    Ok(text(&table, shard))
+    stream.finish(sink)
 }
 
-fn text(table: &HessenbergTable, shard: Shard) -> String {
-    let len = table.h.dimension();
-    let mut out = format!(
-        "h = {}  n = {}  dimension = {len}  permutations = {}{}\n",
-        table.h,
-        table.h.n(),
-        table.listed,
-        if shard.is_whole() {
-            String::new()
+#[derive(Clone, Copy, PartialEq, Eq)]
+enum Format {
+    Text,
+    Csv,
+    Json,
+}
+
+/// The rows of one table on their way out, in one of the streamed formats; the
+/// head is written with the first row (or at the end), so a refusal or a cancel
+/// before any row leaves the output empty.
+struct RowStream<'h> {
+    format: Format,
+    h: &'h HessenbergFn,
+    shard: Shard,
+    listed: usize,
+    summary: RowSummary,
+    json: Option<HessenbergJsonStream>,
+    started: bool,
+}
+
+impl RowStream<'_> {
+    /// How many rows this piece holds: the listing positions i < listed with
+    /// i mod N = K − 1.
+    fn selected(&self) -> usize {
+        let skip = self.shard.index - 1;
+        if self.listed > skip {
+            (self.listed - skip - 1) / self.shard.count + 1
         } else {
-            format!(
-                "  (piece {}/{}: {} of them)",
-                shard.index,
-                shard.count,
-                table.entries.len()
-            )
+            0
         }
-    );
-    let width = table
-        .entries
-        .iter()
-        .map(|e| e.perm.to_string().len())
-        .max()
-        .unwrap_or(1)
-        .max(1);
-    out.push_str(&format!("{:<width$}  {:>6}  a^h_w\n", "w", "ℓ(w)"));
-    for e in &table.entries {
-        out.push_str(&format!(
-            "{:<width$}  {:>6}  {}\n",
-            e.perm.to_string(),
-            len,
-            e.value
-        ));
     }
-    out.push_str(&format!(
-        "total = {}  nonzero = {}  max = {}  negative = {}\n",
-        table.total(),
-        table.nonzero(),
-        table.max(),
-        table.negative().len()
-    ));
-    out
+
+    fn start(&mut self, sink: &mut Sink<'_>) -> Result<(), CliError> {
+        self.started = true;
+        match self.format {
+            Format::Json => {
+                self.json = Some(HessenbergJsonStream::start(sink, self.h, self.listed)?);
+                Ok(())
+            }
+            Format::Csv => sink.text("perm,length,value\n"),
+            Format::Text => {
+                let piece = if self.shard.is_whole() {
+                    String::new()
+                } else {
+                    format!(
+                        "  (piece {}/{}: {} of them)",
+                        self.shard.index,
+                        self.shard.count,
+                        self.selected()
+                    )
+                };
+                sink.text(&format!(
+                    "h = {}  n = {}  dimension = {}  permutations = {}{piece}\n",
+                    self.h,
+                    self.h.n(),
+                    self.h.dimension(),
+                    self.listed
+                ))?;
+                let width = self.width();
+                sink.text(&format!("{:<width$}  {:>6}  a^h_w\n", "w", "ℓ(w)"))
+            }
+        }
+    }
+
+    /// The width of the w column: that of every w in S_n, or 1 for no rows.
+    fn width(&self) -> usize {
+        if self.selected() == 0 {
+            1
+        } else {
+            Perm::identity(self.h.n()).to_string().len()
+        }
+    }
+
+    fn row(&mut self, sink: &mut Sink<'_>, line: &[u8], value: &BigInt) -> Result<(), CliError> {
+        if !self.started {
+            self.start(sink)?;
+        }
+        self.summary.add(value);
+        let len = self.h.dimension();
+        match self.format {
+            Format::Json => match self.json.as_mut() {
+                Some(j) => j.row(sink, line, value),
+                None => Ok(()),
+            },
+            Format::Csv => {
+                let perm = joined(line, ",");
+                sink.text(&format!("{},{len},{value}\n", csv_field(&perm)))
+            }
+            Format::Text => {
+                let perm = if line.len() <= 9 {
+                    joined(line, "")
+                } else {
+                    joined(line, ",")
+                };
+                let width = self.width();
+                sink.text(&format!("{perm:<width$}  {len:>6}  {value}\n"))
+            }
+        }
+    }
+
+    fn finish(mut self, sink: &mut Sink<'_>) -> Result<(), CliError> {
+        if !self.started {
+            self.start(sink)?;
+        }
+        match self.format {
+            Format::Json => match self.json.take() {
+                Some(j) => j.finish(sink, &self.summary, self.shard),
+                None => Ok(()),
+            },
+            Format::Csv => Ok(()),
+            Format::Text => sink.text(&format!(
+                "total = {}  nonzero = {}  max = {}  negative = {}\n",
+                self.summary.total,
+                self.summary.nonzero,
+                self.summary.max(),
+                self.summary.negative
+            )),
+        }
+    }
+}
+
+/// One-line values joined by `sep`.
+fn joined(line: &[u8], sep: &str) -> String {
+    let parts: Vec<String> = line.iter().map(|v| v.to_string()).collect();
+    parts.join(sep)
 }
 
 /// `--every-h`: the sweep over every Hessenberg function of n.

@@ -5,57 +5,67 @@
 //! shards must agree on their parameters, carry distinct `"shard": "K/N"` labels
 //! with one N, and together cover the listing exactly once. (The messages call
 //! a shard a "piece", as they always have.)
+//!
+//! Hessenberg pieces are read side by side, a coefficient at a time, never held:
+//! a first pass re-checks every piece (its n, h, dimension, listing size and
+//! version against the first file; each coefficient's w against the position of
+//! the listing it must hold; its own total, nonzero count, maximum and negative
+//! count against its rows; no piece cut short or too long), and only then a
+//! second pass writes the merged table. Only regular files up to
+//! [`MERGE_FILE_LIMIT`] bytes are read.
 
 use super::args::MergeArgs;
-use super::documents::{HESSENBERG_KIND, SURVEY_KIND, hessenberg_table_json};
+use super::documents::{HESSENBERG_KIND, HessenbergJsonStream, SURVEY_KIND, VERSION};
 use super::error::CliError;
 use super::json;
+use super::json_reader::JsonReader;
 use super::merge_survey::merge_surveys;
+use super::output::Sink;
 use super::shard::Shard;
-use crate::math::Perm;
+use crate::math::MathError;
 use crate::math::hessenberg::function::HessenbergFn;
-use crate::math::hessenberg::table::{HessenbergTable, TableEntry};
-use crate::math::perms::listing::perms_of_length;
+use crate::math::hessenberg::rows::RowSummary;
+use crate::math::perms::listing::{for_each_of_length, mahonian_row};
 use num_bigint::BigInt;
 use serde_json::Value;
 use std::collections::BTreeSet;
+use std::fs::File;
+use std::io::{BufReader, Read, Seek, SeekFrom};
+use std::path::{Path, PathBuf};
+
+/// The largest piece read: a whole table of n = 16 (43 874 857 rows of about
+/// 66 bytes) is about 2.9 GB; 4 GB leaves room and refuses anything larger.
+pub const MERGE_FILE_LIMIT: u64 = 4_000_000_000;
+
+/// The largest survey piece read (surveys are read whole).
+pub const SURVEY_FILE_LIMIT: u64 = 256_000_000;
 
 /// Runs the command.
-pub fn run(args: &MergeArgs) -> Result<String, CliError> {
-    let mut docs = Vec::new();
+pub fn run(args: &MergeArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
+    let mut kinds = Vec::new();
     for path in &args.files {
-        let text = std::fs::read_to_string(path)
-            .map_err(|e| CliError::Input(format!("cannot read {}: {e}", path.display())))?;
-        let v: Value = serde_json::from_str(&text).map_err(|e| {
-            CliError::Input(format!(
-                "{} is not a JSON output of elbowroom: {e}",
-                path.display()
-            ))
-        })?;
-        docs.push((path.display().to_string(), v));
+        check_file(path)?;
+        kinds.push(kind_of(path)?);
     }
-    merge_documents(&docs).map(|v| json::render(&v))
-}
-
-/// Merges parsed documents (name, JSON) of one kind.
-pub fn merge_documents(docs: &[(String, Value)]) -> Result<Value, CliError> {
-    let Some((_, first)) = docs.first() else {
+    let Some(kind) = kinds.first().cloned() else {
         return Err(CliError::Input("give at least one file to merge".into()));
     };
-    let kind = first.get("kind").and_then(Value::as_str).unwrap_or("");
-    for (name, d) in docs {
-        let k = d.get("kind").and_then(Value::as_str).unwrap_or("");
-        if k != kind {
+    for (path, k) in args.files.iter().zip(&kinds) {
+        if *k != kind {
             return Err(CliError::Input(format!(
-                "{name} has kind '{k}' but the first file has kind '{kind}'; merge pieces of one run"
+                "{} has kind '{k}' but the first file has kind '{kind}'; merge pieces of one run",
+                path.display()
             )));
         }
     }
-    match kind {
-        HESSENBERG_KIND => merge_hessenberg(docs),
+    match kind.as_str() {
+        HESSENBERG_KIND => merge_hessenberg(&args.files, sink),
         SURVEY_KIND => {
-            let values: Vec<Value> = docs.iter().map(|(_, v)| v.clone()).collect();
-            merge_surveys(&values)
+            let mut values = Vec::new();
+            for path in &args.files {
+                values.push(read_whole(path)?);
+            }
+            sink.whole(&json::render(&merge_surveys(&values)?))
         }
         other => Err(CliError::Input(format!(
             "cannot merge files of kind '{other}'; accepted kinds: {HESSENBERG_KIND}, {SURVEY_KIND}"
@@ -63,63 +73,102 @@ pub fn merge_documents(docs: &[(String, Value)]) -> Result<Value, CliError> {
     }
 }
 
-fn shard_of(name: &str, d: &Value) -> Result<Shard, CliError> {
-    match d.get("shard").and_then(Value::as_str) {
-        Some(s) => Shard::parse(s),
-        None => Ok(Shard::WHOLE),
+/// Refuses what is not a regular file (a device, a pipe, a directory) or is
+/// larger than [`MERGE_FILE_LIMIT`].
+fn check_file(path: &Path) -> Result<(), CliError> {
+    let meta = std::fs::metadata(path)
+        .map_err(|e| CliError::Input(format!("cannot read {}: {e}", path.display())))?;
+    if !meta.is_file() {
+        return Err(CliError::Input(format!(
+            "{} is not a regular file; merge reads the JSON files of the pieces",
+            path.display()
+        )));
     }
-    .map_err(|e| CliError::Input(format!("{name}: {}", e.message())))
+    if meta.len() > MERGE_FILE_LIMIT {
+        return Err(CliError::Input(format!(
+            "{} has {} bytes, more than the {MERGE_FILE_LIMIT} accepted for a piece",
+            path.display(),
+            meta.len()
+        )));
+    }
+    Ok(())
 }
 
-/// Merges shards of `elbowroom hessenberg --shard K/N --json`.
-pub fn merge_hessenberg(docs: &[(String, Value)]) -> Result<Value, CliError> {
-    let mut h_seen: Option<HessenbergFn> = None;
-    let mut count_seen: Option<usize> = None;
-    let mut shards = BTreeSet::new();
-    let mut entries: Vec<(Perm, BigInt)> = Vec::new();
-    for (name, d) in docs {
-        let bad = |what: &str| CliError::Input(format!("{name}: {what}"));
-        let h = hessenberg_of(name, d)?;
-        if let Some(prev) = &h_seen
-            && *prev != h
-        {
-            return Err(bad(&format!(
-                "h = {h} (n = {}) differs from h = {prev} (n = {}) in the first file; merge pieces of one run",
-                h.n(),
-                prev.n()
-            )));
-        }
-        h_seen = Some(h);
-        let shard = shard_of(name, d)?;
-        if let Some(c) = count_seen
-            && c != shard.count
-        {
-            return Err(bad(&format!(
-                "piece {}/{} belongs to a split into {} pieces, the first file to one into {c}",
-                shard.index, shard.count, shard.count
-            )));
-        }
-        count_seen = Some(shard.count);
-        if !shards.insert(shard.index) {
-            return Err(bad(&format!(
-                "piece {}/{} appears twice",
-                shard.index, shard.count
-            )));
-        }
-        entries.extend(coefficients_of(name, d)?);
-    }
-    let (Some(h), Some(count)) = (h_seen, count_seen) else {
-        return Err(CliError::Input("nothing to merge".into()));
-    };
-    check_every_shard_given(&shards, count)?;
-    let table = assemble_table(h, entries)?;
-    Ok(hessenberg_table_json(&table, Shard::WHOLE))
+fn open(path: &Path) -> Result<JsonReader<BufReader<File>>, CliError> {
+    let file = File::open(path)
+        .map_err(|e| CliError::Input(format!("cannot read {}: {e}", path.display())))?;
+    JsonReader::new(BufReader::with_capacity(1 << 16, file)).map_err(|e| not_json(path, &e))
 }
 
-/// The `"h"` of one file.
-fn hessenberg_of(name: &str, d: &Value) -> Result<HessenbergFn, CliError> {
+fn not_json(path: &Path, why: &str) -> CliError {
+    CliError::Input(format!(
+        "{} is not a JSON output of elbowroom: {why}",
+        path.display()
+    ))
+}
+
+/// The `"kind"` of a file: its fields are read up to the kind or to a list.
+fn kind_of(path: &Path) -> Result<String, CliError> {
+    let mut r = open(path)?;
+    while let Some(key) = r.next_key().map_err(|e| not_json(path, &e))? {
+        if key == "kind" {
+            let v = r.value().map_err(|e| not_json(path, &e))?;
+            return Ok(v.as_str().unwrap_or("").to_string());
+        }
+        r.value().map_err(|e| not_json(path, &e))?;
+    }
+    Ok(String::new())
+}
+
+fn read_whole(path: &Path) -> Result<Value, CliError> {
+    let len = std::fs::metadata(path).map(|m| m.len()).unwrap_or(0);
+    if len > SURVEY_FILE_LIMIT {
+        return Err(CliError::Input(format!(
+            "{} has {len} bytes, more than the {SURVEY_FILE_LIMIT} accepted for a survey piece",
+            path.display()
+        )));
+    }
+    let mut text = String::new();
+    File::open(path)
+        .and_then(|f| f.take(SURVEY_FILE_LIMIT + 1).read_to_string(&mut text))
+        .map_err(|e| CliError::Input(format!("cannot read {}: {e}", path.display())))?;
+    serde_json::from_str(&text).map_err(|e| not_json(path, &e.to_string()))
+}
+
+/// One Hessenberg piece as read from its head and the end of its file.
+struct Piece {
+    path: PathBuf,
+    name: String,
+    h: HessenbergFn,
+    listed: usize,
+    shard: Shard,
+}
+
+impl Piece {
+    fn bad(&self, what: &str) -> CliError {
+        CliError::Input(format!("{}: {what}", self.name))
+    }
+}
+
+/// The fields before `"coefficients"`, checked; the reader is left at the list.
+fn read_head(
+    path: &Path,
+    r: &mut JsonReader<BufReader<File>>,
+) -> Result<(HessenbergFn, usize), CliError> {
+    let name = path.display().to_string();
     let bad = |what: &str| CliError::Input(format!("{name}: {what}"));
-    let h_values: Vec<usize> = d
+    let mut head = serde_json::Map::new();
+    loop {
+        let Some(key) = r.next_key().map_err(|e| bad(&e))? else {
+            return Err(bad("no \"coefficients\" list (cut short?)"));
+        };
+        if key == "coefficients" {
+            break;
+        }
+        let v = r.value().map_err(|e| bad(&e))?;
+        head.insert(key, v);
+    }
+    let h_values: Vec<usize> = head
         .get("h")
         .and_then(Value::as_array)
         .ok_or_else(|| bad("no Hessenberg function \"h\""))?
@@ -127,84 +176,277 @@ fn hessenberg_of(name: &str, d: &Value) -> Result<HessenbergFn, CliError> {
         .map(|v| v.as_u64().map(|x| x as usize))
         .collect::<Option<Vec<_>>>()
         .ok_or_else(|| bad("\"h\" is not a list of positive integers"))?;
-    HessenbergFn::new(&h_values).map_err(|e| bad(&e.to_string()))
-}
-
-/// The `"coefficients"` of one file: (w, a^h_w) pairs.
-fn coefficients_of(name: &str, d: &Value) -> Result<Vec<(Perm, BigInt)>, CliError> {
-    let bad = |what: &str| CliError::Input(format!("{name}: {what}"));
-    let coeffs = d
-        .get("coefficients")
-        .and_then(Value::as_array)
-        .ok_or_else(|| bad("no \"coefficients\" list"))?;
-    let mut entries = Vec::with_capacity(coeffs.len());
-    for c in coeffs {
-        let perm: Vec<usize> = c
-            .get("perm")
-            .and_then(Value::as_array)
-            .and_then(|a| {
-                a.iter()
-                    .map(|v| v.as_u64().map(|x| x as usize))
-                    .collect::<Option<Vec<_>>>()
-            })
-            .ok_or_else(|| bad("a coefficient without a \"perm\" list"))?;
-        let w = Perm::from_one_line(&perm).map_err(|e| bad(&e.to_string()))?;
-        let value: BigInt = c
-            .get("value")
-            .and_then(Value::as_str)
-            .and_then(|s| s.parse().ok())
-            .ok_or_else(|| bad("a coefficient whose \"value\" is not an integer string"))?;
-        entries.push((w, value));
+    let h = HessenbergFn::new(&h_values).map_err(|e| bad(&e.to_string()))?;
+    let field = |key: &str| head.get(key).and_then(Value::as_u64);
+    if field("n") != Some(h.n() as u64) {
+        return Err(bad(&format!(
+            "\"n\" is not {}, the n of its h = {h}",
+            h.n()
+        )));
     }
-    Ok(entries)
+    if field("dimension") != Some(h.dimension() as u64) {
+        return Err(bad(&format!(
+            "\"dimension\" is not {}, the |h| of h = {h}",
+            h.dimension()
+        )));
+    }
+    let listed = mahonian_row(h.n()).get(h.dimension()).copied().unwrap_or(0) as usize;
+    if field("listed") != Some(listed as u64) {
+        return Err(bad(&format!(
+            "\"listed\" is not {listed}, the number of w of length {} in S_{}",
+            h.dimension(),
+            h.n()
+        )));
+    }
+    if head.get("order").and_then(Value::as_str) != Some("lexicographic in one-line notation") {
+        return Err(bad(
+            "\"order\" is not \"lexicographic in one-line notation\"",
+        ));
+    }
+    r.begin_list().map_err(|e| bad(&e))?;
+    Ok((h, listed))
 }
 
-/// Refuses a merge that lacks some of the shards 1..count.
-fn check_every_shard_given(shards: &BTreeSet<usize>, count: usize) -> Result<(), CliError> {
+/// The `"shard"` and `"version"` labels, found near the end of the file (they
+/// follow the coefficients); the full read checks them again.
+fn labels_at_end(path: &Path) -> Result<(Shard, Option<String>), CliError> {
+    let name = path.display().to_string();
+    let mut file =
+        File::open(path).map_err(|e| CliError::Input(format!("cannot read {name}: {e}")))?;
+    let len = file.metadata().map(|m| m.len()).unwrap_or(0);
+    file.seek(SeekFrom::Start(len.saturating_sub(4096)))
+        .map_err(|e| CliError::Input(format!("cannot read {name}: {e}")))?;
+    let mut tail = Vec::new();
+    file.read_to_end(&mut tail)
+        .map_err(|e| CliError::Input(format!("cannot read {name}: {e}")))?;
+    let tail = String::from_utf8_lossy(&tail);
+    if !tail.trim_end().ends_with('}') {
+        return Err(CliError::Input(format!(
+            "{name}: cut short: the file ends before its JSON object does (rerun that piece)"
+        )));
+    }
+    let after = |key: &str| -> Option<String> {
+        let at = tail.rfind(&format!("\"{key}\":\""))? + key.len() + 4;
+        let end = tail[at..].find('"')?;
+        Some(tail[at..at + end].to_string())
+    };
+    let shard = match after("shard") {
+        Some(s) => {
+            Shard::parse(&s).map_err(|e| CliError::Input(format!("{name}: {}", e.message())))?
+        }
+        None => Shard::WHOLE,
+    };
+    Ok((shard, after("version")))
+}
+
+/// Merges the pieces of `elbowroom hessenberg --shard K/N --json`.
+fn merge_hessenberg(files: &[PathBuf], sink: &mut Sink<'_>) -> Result<(), CliError> {
+    let mut pieces: Vec<Piece> = Vec::new();
+    let mut shards = BTreeSet::new();
+    for path in files {
+        let name = path.display().to_string();
+        let (h, listed) = read_head(path, &mut open(path)?)?;
+        let (shard, version) = labels_at_end(path)?;
+        let piece = Piece {
+            path: path.clone(),
+            name,
+            h,
+            listed,
+            shard,
+        };
+        if let Some(first) = pieces.first() {
+            if first.h != piece.h {
+                return Err(piece.bad(&format!(
+                    "h = {} (n = {}) differs from h = {} (n = {}) in the first file; merge pieces of one run",
+                    piece.h,
+                    piece.h.n(),
+                    first.h,
+                    first.h.n()
+                )));
+            }
+            if first.shard.count != shard.count {
+                return Err(piece.bad(&format!(
+                    "piece {}/{} belongs to a split into {} pieces, the first file to one into {}",
+                    shard.index, shard.count, shard.count, first.shard.count
+                )));
+            }
+        }
+        if !shard.is_whole() && version.as_deref() != Some(VERSION) {
+            return Err(piece.bad(&format!(
+                "\"version\" is {}, but this is elbowroom {VERSION}; merge pieces made by one version",
+                version.map_or("missing".to_string(), |v| format!("\"{v}\""))
+            )));
+        }
+        if !shards.insert(shard.index) {
+            return Err(piece.bad(&format!(
+                "piece {}/{} appears twice",
+                shard.index, shard.count
+            )));
+        }
+        pieces.push(piece);
+    }
+    let Some(first) = pieces.first() else {
+        return Err(CliError::Input("nothing to merge".into()));
+    };
+    let count = first.shard.count;
     let missing: Vec<String> = (1..=count)
         .filter(|k| !shards.contains(k))
         .map(|k| format!("{k}/{count}"))
         .collect();
     if !missing.is_empty() {
         return Err(CliError::Input(format!(
-            "pieces {} are missing; give all {count} pieces of the run",
+            "pieces {} are missing; give all {count} pieces of the run (rerun the missing ones)",
             missing.join(", ")
         )));
+    }
+    pieces.sort_by_key(|p| p.shard.index);
+    // first pass: every check; nothing is written unless all pieces pass
+    walk(&pieces, &mut |_, _| Ok(()))?;
+    let (h, listed) = (pieces[0].h.clone(), pieces[0].listed);
+    let mut out = HessenbergJsonStream::start(sink, &h, listed)?;
+    let mut summary = RowSummary::default();
+    walk(&pieces, &mut |line, value| {
+        summary.add(value);
+        out.row(sink, line, value)
+    })?;
+    out.finish(sink, &summary, Shard::WHOLE)
+}
+
+/// Walks the listing of the w of length |h| with every piece open, taking row i
+/// from piece (i mod N) + 1, and hands each (w, a^h_w) to `row` in listing order;
+/// checks everything the module notes list.
+fn walk(
+    pieces: &[Piece],
+    row: &mut dyn FnMut(&[u8], &BigInt) -> Result<(), CliError>,
+) -> Result<(), CliError> {
+    let mut readers = Vec::with_capacity(pieces.len());
+    for p in pieces {
+        let mut r = open(&p.path)?;
+        read_head(&p.path, &mut r)?;
+        readers.push(r);
+    }
+    let mut sums = vec![RowSummary::default(); pieces.len()];
+    let count = pieces.len();
+    let h = &pieces[0].h;
+    let mut failure: Option<CliError> = None;
+    let walked = for_each_of_length(h.n(), h.dimension(), &mut |i, line| {
+        let k = i % count;
+        let p = &pieces[k];
+        let mut step = || -> Result<(), CliError> {
+            let item = readers[k]
+                .next_item()
+                .map_err(|e| p.bad(&format!("coefficient {}: {e}", sums[k].rows + 1)))?;
+            let Some(item) = item else {
+                return Err(p.bad(&format!(
+                    "the \"coefficients\" end after {} rows, but piece {}/{} of this table holds {} (cut short)",
+                    sums[k].rows,
+                    p.shard.index,
+                    p.shard.count,
+                    rows_of(p)
+                )));
+            };
+            let perm: Option<Vec<u8>> = item.get("perm").and_then(Value::as_array).and_then(|a| {
+                a.iter()
+                    .map(|v| v.as_u64().and_then(|x| u8::try_from(x).ok()))
+                    .collect()
+            });
+            if perm.as_deref() != Some(line) {
+                return Err(p.bad(&format!(
+                    "coefficient {} has \"perm\" {}, but position {i} of the listing is {:?}; \
+                     the piece does not follow the listing",
+                    sums[k].rows + 1,
+                    item.get("perm").map_or("missing".into(), |v| v.to_string()),
+                    line
+                )));
+            }
+            let value: BigInt = item
+                .get("value")
+                .and_then(Value::as_str)
+                .and_then(|s| s.parse().ok())
+                .ok_or_else(|| {
+                    p.bad(&format!(
+                        "coefficient {} has a \"value\" that is not an integer string",
+                        sums[k].rows + 1
+                    ))
+                })?;
+            sums[k].add(&value);
+            row(line, &value)
+        };
+        match step() {
+            Ok(()) => Ok(()),
+            Err(e) => {
+                failure = Some(e);
+                // stops the walk; the reason is returned below
+                Err(MathError::Canceled)
+            }
+        }
+    });
+    if let Some(e) = failure {
+        return Err(e);
+    }
+    walked?;
+    for ((p, r), sum) in pieces.iter().zip(&mut readers).zip(&sums) {
+        check_end(p, r, sum)?;
     }
     Ok(())
 }
 
-/// The whole table from the entries of all shards, which must cover the
-/// listing of the permutations of length |h| exactly once.
-fn assemble_table(
-    h: HessenbergFn,
-    mut entries: Vec<(Perm, BigInt)>,
-) -> Result<HessenbergTable, CliError> {
-    let listing = perms_of_length(h.n(), h.dimension());
-    entries.sort_by(|a, b| a.0.cmp(&b.0));
-    for pair in entries.windows(2) {
-        if pair[0].0 == pair[1].0 {
-            return Err(CliError::Input(format!(
-                "w = {} appears in two pieces; the pieces are not disjoint",
-                pair[0].0
+/// How many rows a piece holds.
+fn rows_of(p: &Piece) -> usize {
+    let skip = p.shard.index - 1;
+    if p.listed > skip {
+        (p.listed - skip - 1) / p.shard.count + 1
+    } else {
+        0
+    }
+}
+
+/// After a piece's rows: no more coefficients, and its summary fields agree
+/// with its rows.
+fn check_end(
+    p: &Piece,
+    r: &mut JsonReader<BufReader<File>>,
+    sum: &RowSummary,
+) -> Result<(), CliError> {
+    match r.next_item().map_err(|e| p.bad(&e))? {
+        None => {}
+        Some(_) => {
+            return Err(p.bad(&format!(
+                "more than the {} coefficients piece {}/{} of this table holds",
+                rows_of(p),
+                p.shard.index,
+                p.shard.count
             )));
         }
     }
-    if entries.len() != listing.len() || entries.iter().zip(&listing).any(|(e, w)| e.0 != *w) {
-        return Err(CliError::Input(format!(
-            "the pieces hold {} permutations but the table for h = {h} lists {} of length {}; they do not cover it exactly",
-            entries.len(),
-            listing.len(),
-            h.dimension()
-        )));
+    let mut tail = serde_json::Map::new();
+    while let Some(key) = r.next_key().map_err(|e| p.bad(&e))? {
+        let v = r.value().map_err(|e| p.bad(&e))?;
+        tail.insert(key, v);
     }
-    Ok(HessenbergTable {
-        h,
-        listed: listing.len(),
-        entries: entries
-            .into_iter()
-            .enumerate()
-            .map(|(index, (perm, value))| TableEntry { index, perm, value })
-            .collect(),
-    })
+    r.finish().map_err(|e| p.bad(&e))?;
+    let expect = [
+        ("total", json::exact(&sum.total)),
+        ("nonzero", Value::from(sum.nonzero)),
+        ("max", json::exact(&sum.max())),
+        ("negative", Value::from(sum.negative)),
+        ("all_nonnegative_integers", Value::from(sum.negative == 0)),
+    ];
+    for (key, want) in expect {
+        match tail.get(key) {
+            None => return Err(p.bad(&format!("no \"{key}\" after the coefficients (cut short?)"))),
+            Some(v) if *v != want => {
+                return Err(p.bad(&format!(
+                    "\"{key}\" is {v}, but its rows give {want}; the piece is not consistent"
+                )));
+            }
+            Some(_) => {}
+        }
+    }
+    let label = tail.get("shard").and_then(Value::as_str);
+    let want = (!p.shard.is_whole()).then(|| format!("{}/{}", p.shard.index, p.shard.count));
+    if label.map(str::to_string) != want {
+        return Err(p.bad("its \"shard\" label changed while it was read"));
+    }
+    Ok(())
 }

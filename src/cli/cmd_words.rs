@@ -1,44 +1,94 @@
 //! `elbowroom words W`: the reduced words of w in lexicographic order, and their number.
+//!
+//! The words are written as they are listed (at most `--limit` of them), text or
+//! JSON, through the command's buffered output; Ctrl-C stops the count or the
+//! listing with a "canceled after ..." line and exit status 130.
 
 use super::args::WordsArgs;
 use super::error::CliError;
+use super::interrupt;
 use super::json;
+use super::output::Sink;
 use crate::math::perms::words::{count_reduced_words_with, reduced_words};
-use crate::math::{Perm, Progress};
+use crate::math::{MathError, Perm, Progress};
+use num_bigint::BigUint;
 use serde_json::json;
+use std::sync::Arc;
 
 /// Runs the command.
-pub fn run(args: &WordsArgs) -> Result<String, CliError> {
+pub fn run(args: &WordsArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let w = Perm::parse(&args.perm)?;
-    let count = count_reduced_words_with(&w, &Progress::default())?;
+    let progress = Arc::new(Progress::new(0));
+    let _watch = interrupt::watch(progress.clone());
+    let count = count_reduced_words_with(&w, &progress).map_err(|e| match e {
+        MathError::Canceled => {
+            CliError::Canceled("the count of reduced words canceled; no output written".into())
+        }
+        other => other.into(),
+    })?;
     let shown = if args.count { 0 } else { args.limit };
-    let words: Vec<Vec<usize>> = reduced_words(&w).take(shown).collect();
+    // the number listed is known before the first: min(limit, count)
+    let listed = if count < BigUint::from(shown) {
+        usize::try_from(&count).unwrap_or(shown)
+    } else {
+        shown
+    };
+    progress.set_total(listed as u64);
+    let mut written = 0u64;
+    let result = list(args, sink, &w, &count, listed, &progress, &mut written);
+    result
+        .map_err(|e| interrupt::or_canceled(e, "the listing", "words", &progress, written, "words"))
+}
+
+fn list(
+    args: &WordsArgs,
+    sink: &mut Sink<'_>,
+    w: &Perm,
+    count: &BigUint,
+    listed: usize,
+    progress: &Progress,
+    written: &mut u64,
+) -> Result<(), CliError> {
+    let words = reduced_words(w).take(listed);
     if args.json {
-        return Ok(json::render(&json!({
+        let head = json::render(&json!({
             "perm": w.one_line(),
             "length": w.length(),
-            "count": json::exact(&count),
-            "words": words,
-        })));
+            "count": json::exact(count),
+        }));
+        sink.text(&head[..head.len() - 1])?;
+        sink.text(",\"words\":[")?;
+        for (k, a) in words.enumerate() {
+            progress.check()?;
+            if k > 0 {
+                sink.text(",")?;
+            }
+            sink.json(&json!(a))?;
+            progress.advance(1);
+            *written += 1;
+        }
+        return sink.text("]}\n");
     }
-    let mut out = format!(
+    sink.text(&format!(
         "{count} reduced word{} of {w} (length {})",
-        if count == 1u8.into() { "" } else { "s" },
+        if *count == 1u8.into() { "" } else { "s" },
         w.length()
-    );
-    if !words.is_empty() {
-        let listed = words.len();
-        out.push_str(&if count > listed.into() {
+    ))?;
+    if listed > 0 {
+        sink.text(&if *count > listed.into() {
             format!("; the first {listed}:")
         } else {
             ":".to_string()
-        });
-        for a in &words {
+        })?;
+        for a in words {
+            progress.check()?;
             let text: Vec<String> = a.iter().map(|x| x.to_string()).collect();
-            out.push('\n');
-            out.push_str(if text.is_empty() { "(empty word)" } else { "" });
-            out.push_str(&text.join(" "));
+            sink.text("\n")?;
+            sink.text(if text.is_empty() { "(empty word)" } else { "" })?;
+            sink.text(&text.join(" "))?;
+            progress.advance(1);
+            *written += 1;
         }
     }
-    Ok(out)
+    sink.text("\n")
 }

@@ -79,3 +79,34 @@ pub fn run_interruptible<T>(
         Err(e) => Err(e.into()),
     }
 }
+
+/// The error of a streamed run stopped by Ctrl-C: "`what` canceled after X of Y
+/// `unit`", then "; no output written" or "; output cut short after R `rows`".
+pub fn canceled(what: &str, unit: &str, progress: &Progress, rows: u64, row: &str) -> CliError {
+    let tail = if rows == 0 {
+        "no output written".to_string()
+    } else {
+        format!("output cut short after {rows} {row}")
+    };
+    CliError::Canceled(format!(
+        "{what} canceled after {} of {} {unit}; {tail}",
+        progress.done(),
+        progress.total()
+    ))
+}
+
+/// A streamed run's error: a cancel becomes [`canceled`]'s message, anything else
+/// passes through.
+pub fn or_canceled(
+    e: CliError,
+    what: &str,
+    unit: &str,
+    progress: &Progress,
+    rows: u64,
+    row: &str,
+) -> CliError {
+    match e {
+        CliError::Canceled(_) => canceled(what, unit, progress, rows, row),
+        other => other,
+    }
+}

@@ -9,7 +9,8 @@
 //! no command; each `cmd_*` module runs one command and imports no other
 //! command module. What several commands share lives beside them:
 //! [`inputs`] (reading `--n`/`--h` and λ), [`documents`] (the JSON kinds that
-//! `merge` reads back), [`shard`], [`interrupt`], [`json`] and [`error`].
+//! `merge` reads back), [`shard`], [`interrupt`], [`json`], [`output`] (the buffered sink
+//! the output goes through) and [`error`].
 
 pub mod args;
 pub mod cmd_divsym;
@@ -34,16 +35,18 @@ pub mod expansion_text;
 pub mod inputs;
 pub mod interrupt;
 pub mod json;
+pub mod json_reader;
 pub mod merge_survey;
 pub mod open_file;
+pub mod output;
 pub mod shard;
 
 pub use args::{Cli, Command};
 pub use error::CliError;
+pub use output::Sink;
 
 use clap::Parser;
 use std::ffi::OsString;
-use std::io::Write;
 use std::process::ExitCode;
 
 /// Runs one headless command and prints its output; returns the exit status.
@@ -56,54 +59,46 @@ pub fn run(argv: Vec<OsString>) -> ExitCode {
         eprintln!("elbowroom: no command given; see 'elbowroom --help'");
         return ExitCode::from(2);
     };
-    match execute(&command) {
-        Ok(out) => match write_stdout(&out) {
-            Ok(()) => ExitCode::SUCCESS,
-            // a closed pipe (for example `| head`) means the reader has what it wanted
-            Err(e) if e.kind() == std::io::ErrorKind::BrokenPipe => ExitCode::SUCCESS,
-            Err(e) => {
-                eprintln!("elbowroom: cannot write standard output: {e}");
-                ExitCode::from(1)
-            }
-        },
+    let stdout = std::io::stdout();
+    let mut buffered = std::io::BufWriter::with_capacity(output::BUFFER, stdout.lock());
+    let mut sink = Sink::new(&mut buffered, "standard output");
+    let result = execute(&command, &mut sink).and_then(|()| sink.flush());
+    match result {
+        Ok(()) => ExitCode::SUCCESS,
+        // a closed pipe (for example `| head`) means the reader has what it wanted
+        Err(_) if sink.closed_pipe() => ExitCode::SUCCESS,
         Err(e) => {
+            // what was produced before the failure still goes out, then the reason
+            let _ = sink.flush();
             eprintln!("elbowroom: {}", e.message());
             ExitCode::from(e.exit_code())
         }
     }
 }
 
-/// Writes the command's output, ending in a newline, and flushes it: a
-/// failed write (a full disk, /dev/full) is an error, never a success.
-fn write_stdout(out: &str) -> std::io::Result<()> {
-    let mut stdout = std::io::stdout().lock();
-    stdout.write_all(out.as_bytes())?;
-    if !out.ends_with('\n') {
-        stdout.write_all(b"\n")?;
-    }
-    stdout.flush()
-}
-
-/// Runs a parsed command and returns what it prints.
-pub fn execute(command: &Command) -> Result<String, CliError> {
-    match command {
+/// Runs a parsed command, writing what it prints to `sink`. Commands with long
+/// listings (`hessenberg`, `words`, `dreams`) write their rows as they come; the
+/// others return one string, written whole and ended with a newline.
+pub fn execute(command: &Command, sink: &mut Sink<'_>) -> Result<(), CliError> {
+    let whole = match command {
+        Command::Words(a) => return cmd_words::run(a, sink),
+        Command::Dreams(a) => return cmd_dreams::run(a, sink),
+        Command::Hessenberg(a) => return cmd_hessenberg::run(a, sink),
         Command::Perm(a) => cmd_perm::run(a),
         Command::Schubert(a) => cmd_schubert::run(a),
-        Command::Words(a) => cmd_words::run(a),
-        Command::Dreams(a) => cmd_dreams::run(a),
         Command::Divsym(a) => cmd_divsym::run(a),
-        Command::Hessenberg(a) => cmd_hessenberg::run(a),
         Command::Volume(a) => cmd_volume::run(a),
         Command::Eulerian(a) => cmd_eulerian::run(a),
         Command::Expand(a) => cmd_expand::run(a),
         Command::Product(a) => cmd_product::run(a),
-        Command::Merge(a) => cmd_merge::run(a),
+        Command::Merge(a) => return cmd_merge::run(a, sink),
         Command::Quotient(a) => cmd_quotient::run(a),
         Command::Reduce(a) => cmd_reduce::run(a),
         Command::Survey(a) => cmd_survey::run(a),
         Command::Session(a) => cmd_session::run(a),
         Command::Figure(a) => cmd_figure::run(a),
-    }
+    }?;
+    sink.whole(&whole)
 }
 
 fn report_usage_error(e: clap::Error) -> ExitCode {

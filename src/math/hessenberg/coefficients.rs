@@ -8,8 +8,8 @@
 //! 1.35 GB.
 
 use crate::math::error::MathResult;
-use crate::math::hessenberg::class::coefficient_table_by_class;
 use crate::math::hessenberg::function::HessenbergFn;
+use crate::math::hessenberg::rows::coefficient_table_by_class;
 use crate::math::hessenberg::table::HessenbergTable;
 use crate::math::progress::Progress;
 

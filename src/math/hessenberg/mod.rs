@@ -11,6 +11,10 @@ pub mod table;
 
 pub mod class;
 
+pub mod rows;
+
+pub mod word;
+
 pub mod coefficients;
 
 pub mod sweep;
