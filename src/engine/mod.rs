@@ -5,6 +5,7 @@
 //! - [`job`]: a handle on one running computation (progress, cancel, result channel).
 //! - [`cache`]: finished results, shared as `Arc`s, keyed by their inputs.
 //! - [`worker`]: the [`Engine`] that starts jobs on background threads and lists the running ones.
+//! - [`layout`]: a Hessenberg table's summary and row order, for the view.
 //! - [`slot`]: one view's standing request; a new key cancels the stale job.
 //!
 //! The engine knows nothing of the GUI: it is told how to wake the window by a
@@ -12,6 +13,7 @@
 
 pub mod cache;
 pub mod job;
+pub mod layout;
 pub mod requests;
 pub mod slot;
 pub mod worker;

@@ -1,6 +1,7 @@
 //! What the explorer can ask for, keyed by its inputs, and how each answer is
 //! computed (always by the same `math` functions the command line uses).
 
+use super::layout::{TableLayout, table_layout};
 use crate::math::hessenberg::coefficients::coefficient_table;
 use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize};
 use crate::math::hessenberg::function::HessenbergFn;
@@ -81,6 +82,9 @@ pub enum JobKey {
     /// The Schubert expansion of a typed polynomial (as typed) in x_1..x_n,
     /// stably (`true`) or in H*(Fl_n).
     Expansion(String, usize, bool),
+    /// The Hessenberg table of h arranged for the view: sorted by a column
+    /// (`perm`, `length` or `value`), descending or not.
+    HessenbergLayout(Vec<usize>, String, bool),
     /// The place (0-based) of a reduced word of w in the lexicographic list of them.
     WordRank(Perm, Vec<usize>),
     /// A typed polynomial (as typed) in n variables, read and written back
@@ -166,6 +170,9 @@ impl JobKey {
             JobKey::Expansion(_, n, true) => format!("Schubert expansion in x1..x{n}, stably"),
             JobKey::Expansion(_, n, false) => format!("Schubert expansion in H*(Fl_{n})"),
             JobKey::Typed(_, n) => format!("reading a polynomial in x1..x{n}"),
+            JobKey::HessenbergLayout(h, ..) => {
+                format!("arranging the table of h = {}", h_text(h))
+            }
             JobKey::WordRank(w, _) => format!("finding a reduced word of {w} in the list"),
         }
     }
@@ -214,6 +221,8 @@ pub enum Output {
     Survey(Vec<SurveyEntry>),
     /// A Schubert expansion (of a product or of a typed polynomial).
     Terms(Terms),
+    /// A Hessenberg table's summary and row order.
+    Layout(TableLayout),
 }
 
 impl Output {
@@ -337,6 +346,11 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
             .map(|e| Output::Terms(Terms { terms: e.terms })),
         JobKey::Typed(text, n) => typed(text, *n, progress).map(Output::Text),
         JobKey::WordRank(w, word) => word_rank(w, word, progress).map(Output::Count),
+        JobKey::HessenbergLayout(h, column, descending) => {
+            // the view passes the table it has; from the key alone it is computed again
+            let table = coefficient_table(&HessenbergFn::new(h)?, &|_| true, progress)?;
+            table_layout(&table, column, *descending, progress).map(Output::Layout)
+        }
     }
 }
 

@@ -4,8 +4,9 @@
 //! clicking a row makes w current everywhere.
 
 use super::fetch_ready;
+use crate::engine::layout::table_layout;
 use crate::engine::requests::h_text;
-use crate::engine::{Engine, JobKey, Output, Slot};
+use crate::engine::{Engine, Fetch, JobKey, Output, Slot};
 use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
 use crate::math::Perm;
@@ -50,59 +51,10 @@ pub struct HessenbergView {
     table: Slot,
     /// The h whose table was asked for.
     pub wanted: Option<Vec<usize>>,
-    /// The rows in the order shown, for the h, column and direction they were sorted by.
-    row_order: Option<RowOrder>,
-    /// The summary line of the result shown (totals over every row, so kept),
-    /// with the longest w and a^h_w in characters.
-    summary: Option<(Vec<usize>, String, [usize; 2])>,
+    /// The summary and row order of the table shown, arranged on the engine.
+    layout: Slot,
     /// The table shown (keyed by h), for export.
     export: TableSource<Vec<usize>>,
-}
-
-/// The table's rows sorted by a column: indices into the entries.
-struct RowOrder {
-    h: Vec<usize>,
-    column: String,
-    descending: bool,
-    rows: Vec<usize>,
-}
-
-/// The indices of `entries` sorted by `column` (`value`, `length`, otherwise the permutation).
-fn sorted_rows(entries: &[TableEntry], column: &str, descending: bool) -> Vec<usize> {
-    let mut idx: Vec<usize> = (0..entries.len()).collect();
-    let e = entries;
-    match column {
-        "value" => idx.sort_by(|&a, &b| e[a].value.cmp(&e[b].value).then(a.cmp(&b))),
-        "length" => idx.sort_by_key(|&a| (e[a].perm.length(), a)),
-        _ => idx.sort_by(|&a, &b| e[a].perm.cmp(&e[b].perm)),
-    }
-    if descending {
-        idx.reverse();
-    }
-    idx
-}
-
-/// The summary of a table: its size, Σ a^h_w, and how many entries are nonzero or negative.
-fn summary_text(table: &HessenbergTable) -> String {
-    let negatives = table
-        .entries
-        .iter()
-        .filter(|e| e.value.is_negative())
-        .count();
-    let noun = if table.listed == 1 {
-        "permutation"
-    } else {
-        "permutations"
-    };
-    format!(
-        "{} {noun} of length {}; Σ a^h_w = {}; nonzero {}; largest {}; negative {}",
-        table.listed,
-        table.h.dimension(),
-        table.total(),
-        table.nonzero(),
-        table.max(),
-        negatives
-    )
 }
 
 /// The header buttons: a click sorts by that column, a second click turns the order round.
@@ -201,8 +153,7 @@ impl HessenbergView {
     fn forget(&mut self) {
         self.wanted = None;
         self.table = Slot::default();
-        self.row_order = None;
-        self.summary = None;
+        self.layout = Slot::default();
     }
 
     /// The table of a^h_w for the h asked for: the button, the summary, the
@@ -226,35 +177,45 @@ impl HessenbergView {
             return;
         };
         self.export.note_shown(&wanted, &out);
-        if self.summary.as_ref().is_none_or(|(k, _, _)| *k != wanted) {
-            let perm_chars = table
-                .entries
-                .first()
-                .map_or(1, |e| e.perm.to_string().len());
-            // the widest value is the largest or the most negative one
-            let least = table.entries.iter().map(|e| &e.value).min();
-            let value_chars = [Some(table.max()), least.cloned()]
-                .into_iter()
-                .flatten()
-                .map(|v| v.to_string().len())
-                .max()
-                .unwrap_or(1);
-            let chars = [perm_chars, value_chars];
-            self.summary = Some((wanted.clone(), summary_text(table), chars));
-        }
-        let mut chars = [1, 1];
-        if let Some((_, text, c)) = &self.summary {
-            ui.add(egui::Label::new(text.as_str()).wrap());
-            chars = *c;
-        }
+        let place = &mut ctx.session.hessenberg;
+        let column = place.sort_by.unwrap_or_default().key().to_string();
+        let descending = place.descending;
+        let key = JobKey::HessenbergLayout(wanted.clone(), column.clone(), descending);
+        let shared = out.clone();
+        let sort_by = column.clone();
+        let arranged = self.layout.fetch_with(ctx.engine, key, move |p| {
+            let Some(table) = shared.hessenberg() else {
+                return Err(crate::math::MathError::InvalidInput(
+                    "not a Hessenberg table".into(),
+                ));
+            };
+            table_layout(table, &sort_by, descending, p).map(Output::Layout)
+        });
+        let layout = match arranged {
+            Fetch::Ready(out) => out.clone(),
+            Fetch::Running(..) => {
+                ui.horizontal(|ui| {
+                    ui.spinner();
+                    ui.label("arranging the rows");
+                });
+                return;
+            }
+            Fetch::Failed(e) => {
+                let e = e.clone();
+                super::show_math_error(ui, &e);
+                return;
+            }
+        };
+        let Output::Layout(layout) = layout.as_ref() else {
+            return;
+        };
+        ui.add(egui::Label::new(layout.summary.as_str()).wrap());
         ui.weak("Ctrl+E exports this table as CSV or as a LaTeX tabular.");
         let current = ctx.perm();
         let place = &mut ctx.session.hessenberg;
-        let column = place.sort_by.unwrap_or_default().key().to_string();
-        let widths = column_widths(ui, chars[0], chars[1]);
-        let rows = self.rows_sorted(&wanted, &column, place.descending, table);
+        let widths = column_widths(ui, layout.perm_chars, layout.value_chars);
         sort_headers(ui, place, &column, widths);
-        if let Some(w) = rows_list(ui, table, rows, &current, widths) {
+        if let Some(w) = rows_list(ui, table, &layout.rows, &current, widths) {
             ctx.go_to(w);
         }
     }
@@ -292,29 +253,6 @@ impl HessenbergView {
             JobKey::Hessenberg(h.to_vec()),
             |secs| format!("computing a^h_w ({secs:.0} s)"),
         )
-    }
-
-    /// The rows in sorted order, sorted again only when h, the column or the direction changed.
-    fn rows_sorted(
-        &mut self,
-        h: &[usize],
-        column: &str,
-        descending: bool,
-        table: &HessenbergTable,
-    ) -> &[usize] {
-        let stale = self
-            .row_order
-            .as_ref()
-            .is_none_or(|o| o.h != h || o.column != column || o.descending != descending);
-        if stale {
-            self.row_order = Some(RowOrder {
-                h: h.to_vec(),
-                column: column.to_string(),
-                descending,
-                rows: sorted_rows(&table.entries, column, descending),
-            });
-        }
-        self.row_order.as_ref().map_or(&[], |o| &o.rows)
     }
 }
 
