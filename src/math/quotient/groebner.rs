@@ -324,12 +324,17 @@ impl DegreeSpace {
                 .map(|&(c, x)| (c, to_mod(x)))
                 .filter(|t| t.1 != 0)
                 .collect();
+            let mut steps = 0u32;
             loop {
                 let Some(&(lead, x)) = row.first() else {
                     return Ok(missing == 0);
                 };
                 if let Some(p) = pivots.rows.get(&lead) {
                     row = sub_scaled(&row, x, p);
+                    steps += 1;
+                    if steps.is_multiple_of(64) {
+                        progress.check()?;
+                    }
                     continue;
                 }
                 if !self.is_corner_col[lead as usize] {
