@@ -5,8 +5,8 @@
 #![allow(missing_docs, clippy::unwrap_used)]
 
 use criterion::{Criterion, criterion_group, criterion_main};
-use elbowroom::math::hessenberg::class::coefficient_table_by_class;
 use elbowroom::math::hessenberg::function::HessenbergFn;
+use elbowroom::math::hessenberg::rows::coefficient_table_by_class;
 use elbowroom::math::hessenberg::sweep::sweep_every_h;
 use elbowroom::math::hessenberg::table::coefficient_table_by_divsym;
 use elbowroom::math::poly::parse::{parse_linear_factors, parse_poly};

@@ -312,13 +312,13 @@ fn merge_hessenberg(files: &[PathBuf], sink: &mut Sink<'_>) -> Result<(), CliErr
     out.finish(sink, &summary, Shard::WHOLE)
 }
 
+/// What the walk hands each merged row (w, a^h_w) to.
+type RowVisitor<'a> = dyn FnMut(&[u8], &BigInt) -> Result<(), CliError> + 'a;
+
 /// Walks the listing of the w of length |h| with every piece open, taking row i
 /// from piece (i mod N) + 1, and hands each (w, a^h_w) to `row` in listing order;
 /// checks everything the module notes list.
-fn walk(
-    pieces: &[Piece],
-    row: &mut dyn FnMut(&[u8], &BigInt) -> Result<(), CliError>,
-) -> Result<(), CliError> {
+fn walk(pieces: &[Piece], row: &mut RowVisitor<'_>) -> Result<(), CliError> {
     let mut readers = Vec::with_capacity(pieces.len());
     for p in pieces {
         let mut r = open(&p.path)?;
