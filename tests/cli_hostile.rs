@@ -353,7 +353,12 @@ fn negative_numbers_reach_their_readers() {
         &["divsym", "x1", "--n", "-1"],
         &["--n must be a whole number from 1 to 16; got -1"],
     );
-    refused(&["eulerian", "--n", "17"], &["from 1 to 16; got 17"]);
+    refused(&["eulerian", "--n", "17"], &["--n 17", "2 <= n <= 16"]);
+    refused(&["divsym", "x1", "--n", "0"], &["--n 0", "1 <= n <= 16"]);
+    refused(
+        &["divsym", "x1", "--n", "x"],
+        &["--n must be a whole number from 1 to 16; got x"],
+    );
     refused(
         &["words", "321", "--limit", "-3"],
         &["whole number", "got -3"],

@@ -438,17 +438,17 @@ pub struct FigureArgs {
     pub json: bool,
 }
 
-/// `--n`: a whole number from 1 to [`crate::math::MAX_N`], with a message
-/// that says so for anything else (`-1`, `x`, `17`).
+/// `--n`: a whole number. Negative numbers and other text are refused here,
+/// saying what is accepted (a whole number from 1 to [`crate::math::MAX_N`]);
+/// each command then checks the range it supports and names it.
 pub fn whole_n(text: &str) -> Result<usize, String> {
-    let max = crate::math::MAX_N;
-    match text.trim().parse::<usize>() {
-        Ok(n) if (1..=max).contains(&n) => Ok(n),
-        _ => Err(format!(
-            "--n must be a whole number from 1 to {max}; got {}",
+    text.trim().parse::<usize>().map_err(|_| {
+        format!(
+            "--n must be a whole number from 1 to {}; got {}",
+            crate::math::MAX_N,
             quoted(text)
-        )),
-    }
+        )
+    })
 }
 
 /// A count or a position (`--limit`, `--index`, `--columns`, `--samples`):
@@ -508,7 +508,9 @@ mod tests {
             whole_n("-1"),
             Err("--n must be a whole number from 1 to 16; got -1".into())
         );
-        assert!(whole_n("17").is_err() && whole_n("0").is_err() && whole_n("x").is_err());
+        assert!(whole_n("x").is_err() && whole_n("1.5").is_err());
+        // the range is the command's to check and to name
+        assert_eq!(whole_n("17"), Ok(17));
         assert_eq!(whole_count("0"), Ok(0));
         assert!(whole_count("-3").is_err());
         assert!(finite_angle("NaN").is_err() && finite_angle("inf").is_err());

@@ -3,18 +3,19 @@
 //! produce or hold before it starts and is refused, in one line naming the
 //! estimate and the limit, when the estimate is over.
 //!
-//! The limits defined elsewhere in `math` are re-exported here, so that this
-//! module lists every limit of the mathematics. Also (defined where they are
-//! used, listed in the README's Limits table, to be gathered here later):
-//! `hessenberg::class::CLASS_TERM_LIMIT` (40 000 000 terms of a class by
-//! Monk's rule), `hessenberg::class::CLASS_TABLE_LIMIT` (30 000 000 listed
-//! permutations), `hessenberg::table::TABLE_MAX_N` (14),
-//! `hessenberg::sweep::SWEEP_MAX_N` (10), `hessenberg::divsym::PAIR_LIMIT`
-//! (2·10^9 pairs), `hessenberg::function::COMPLEMENT_TERM_BOUND` (5·10^7
-//! terms of Q_h), `quotient::groebner::MAX_QUOTIENT_N` (8), the engine's
-//! `DREAM_LIMIT` (200 000 dreams listed in the explorer) and the
-//! `dreams --bumpless` listing cap `cli::cmd_dreams::BUMPLESS_LIMIT` (200 000).
+//! The limits defined elsewhere in `math`, beside the computation they
+//! guard, are re-exported here, so that this module lists every limit of the
+//! mathematics. Outside `math`: the engine's `DREAM_LIMIT` (200 000 dreams
+//! listed in the explorer), the `dreams --bumpless` listing cap
+//! `cli::cmd_dreams::BUMPLESS_LIMIT` (200 000), and the piece sizes `merge`
+//! reads (`cli::cmd_merge::{MERGE_FILE_LIMIT, SURVEY_FILE_LIMIT}`).
 
+pub use crate::math::hessenberg::class::CLASS_TERM_LIMIT;
+pub use crate::math::hessenberg::divsym::PAIR_LIMIT;
+pub use crate::math::hessenberg::function::COMPLEMENT_TERM_BOUND;
+pub use crate::math::hessenberg::rows::{CLASS_HELD_LIMIT, CLASS_TABLE_LIMIT};
+pub use crate::math::hessenberg::sweep::SWEEP_MAX_N;
+pub use crate::math::hessenberg::table::TABLE_MAX_N;
 pub use crate::math::perms::perm::MAX_N;
 pub use crate::math::perms::words::{LAYER_LIMIT, RANK_LIMIT};
 pub use crate::math::permutohedra::drawing::MAX_DRAWN_N;
@@ -22,6 +23,8 @@ pub use crate::math::permutohedra::permutohedron::POLYNOMIAL_MAX_N;
 pub use crate::math::poly::mono::{MAX_EXP, MAX_VARS};
 pub use crate::math::poly::parse::MAX_NESTING;
 pub use crate::math::poly::polynomial::TERM_LIMIT;
+pub use crate::math::quotient::groebner::{MAX_CONSTRUCTION_BYTES, MAX_QUOTIENT_N};
+pub use crate::math::quotient::survey::FULL_LISTING_MAX_N;
 pub use crate::math::schubert::expansion::{EXPANSION_MONOMIAL_LIMIT, VECTOR_TERM_LIMIT};
 pub use crate::math::schubert::product::{PRODUCT_TERM_LIMIT, TRANSITION_NODE_LIMIT};
 

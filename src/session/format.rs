@@ -176,7 +176,7 @@ fn explain(code: &ron::Error) -> String {
         }
         E::IntegerOutOfBounds => "this number is too large for its field".into(),
         E::ExpectedDifferentStructName { .. } | E::ExpectedNamedStructLike(_) => {
-            "expected `(` here: a session file is `(format: \"elbowroom-session\", version: 1, session: (...))`".into()
+            "expected an elbowroom session `(format: \"elbowroom-session\", version: 1, session: (...))` here".into()
         }
         E::TrailingCharacters => "there is more text after the end of the session".into(),
         E::Message(m) => format!("{} here", lower_first(&plain(m)).trim_end_matches('.')),

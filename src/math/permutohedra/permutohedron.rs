@@ -281,6 +281,13 @@ pub fn factorial(n: usize) -> BigUint {
     (1..=n).fold(BigUint::one(), |acc, k| acc * BigUint::from(k))
 }
 
+/// The least common multiple of the denominators of `values`.
+fn common_denominator(values: &[BigRational]) -> BigInt {
+    values.iter().fold(BigInt::one(), |acc, v| {
+        num_integer::Integer::lcm(&acc, v.denom())
+    })
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -311,11 +318,4 @@ mod tests {
         let poly = volume_polynomial(5).unwrap();
         assert_eq!(poly.eval(&lambda), p.volume());
     }
-}
-
-/// The least common multiple of the denominators of `values`.
-fn common_denominator(values: &[BigRational]) -> BigInt {
-    values.iter().fold(BigInt::one(), |acc, v| {
-        num_integer::Integer::lcm(&acc, v.denom())
-    })
 }

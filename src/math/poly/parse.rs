@@ -996,11 +996,48 @@ mod tests {
     fn deep_nesting_is_refused_not_followed() {
         let deep = |k: usize| format!("{}x1{}", "(".repeat(k), ")".repeat(k));
         assert_eq!(parse_poly(&deep(150), None).unwrap().to_text(), "x1");
-        for text in [deep(100_000), format!("{}x1", "-".repeat(60_000))] {
+        for text in [deep(99_999), format!("{}x1", "-".repeat(60_000))] {
             let e = parse_poly(&text, None).unwrap_err().to_string();
             assert!(e.contains("more than 200 deep"), "{}", &e[..80]);
         }
         // the recognizer of products of linear forms falls back on the same parser
-        assert!(parse_linear_factors(&deep(100_000), Some(3)).is_err());
+        assert!(parse_linear_factors(&deep(99_999), Some(3)).is_err());
+        // and reads a long run of signs in a loop: 99 999 minus signs are one minus
+        let signs = format!("{}(x1 - x2)", "-".repeat(99_999));
+        let f = parse_linear_factors(&signs, Some(3)).unwrap().unwrap();
+        assert_eq!(f.scalar.to_string(), "-1");
+    }
+
+    #[test]
+    fn sizes_are_refused_before_the_work() {
+        let e = parse_poly(&"x1+".repeat(70_000), None)
+            .unwrap_err()
+            .to_string();
+        assert!(e.contains("at most 200000 are accepted"), "{e}");
+        // (x1 + ... + x4)^20 has C(23, 3) = 1771 terms
+        assert_eq!(parse_poly("(x1+x2+x3+x4)^20", None).unwrap().len(), 1771);
+        let e = parse_poly("(x1+x2+x3+x4)^100", None)
+            .unwrap_err()
+            .to_string();
+        assert!(
+            e.contains("coefficient products; a typed polynomial may take at most 400000"),
+            "{e}"
+        );
+        let e = parse_poly("123456789^255^1", None).unwrap_err().to_string();
+        assert!(e.contains("column"), "{e}");
+        let e = parse_poly(&format!("{}^255", "9".repeat(2_000)), None)
+            .unwrap_err()
+            .to_string();
+        assert!(
+            e.contains("digits; a typed polynomial may have at most 100000"),
+            "{e}"
+        );
+        // an error in a long input is quoted as an excerpt around its column
+        let long = format!("{}$", "x1 + ".repeat(10_000));
+        let e = parse_poly(&long, None).unwrap_err().to_string();
+        assert!(
+            e.len() < 400 && e.contains("column 50001") && e.contains('…'),
+            "{e}"
+        );
     }
 }
