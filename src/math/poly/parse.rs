@@ -51,6 +51,7 @@ pub fn parse_poly_with(
         nvars: width,
         declared,
         depth: 0,
+        spent: std::cell::Cell::new(0),
         progress,
     };
     if p.tokens.len() == 1 {
@@ -130,6 +131,7 @@ pub fn parse_linear_factors_with(
         nvars: width,
         declared: nvars,
         depth: 0,
+        spent: std::cell::Cell::new(0),
         progress: &Progress::default(),
     };
     if p.tokens.len() > 1
@@ -399,6 +401,9 @@ struct Parser<'a> {
     depth: usize,
     /// Polled in products and powers.
     progress: &'a Progress,
+    /// Coefficient products spent so far on this text (bounded in all by
+    /// [`TYPED_PRODUCT_LIMIT`]).
+    spent: std::cell::Cell<u128>,
 }
 
 impl Parser<'_> {
@@ -722,18 +727,21 @@ impl Parser<'_> {
     /// [`TYPED_TERM_LIMIT`] terms.
     fn product(&self, a: &RatPoly, b: &RatPoly, at: usize) -> MathResult<RatPoly> {
         let products = a.len() as u128 * b.len() as u128;
-        if products > TYPED_PRODUCT_LIMIT {
+        let spent = self.spent.get().saturating_add(products);
+        if spent > TYPED_PRODUCT_LIMIT {
             return Err(syntax(
                 self.text,
                 at,
                 &format!(
-                    "multiplying polynomials of {} and {} terms takes {products} coefficient products; \
-                     a typed polynomial may take at most {TYPED_PRODUCT_LIMIT}",
+                    "multiplying polynomials of {} and {} terms brings the work of reading \
+                     this text to {spent} coefficient products; a typed polynomial may take \
+                     at most {TYPED_PRODUCT_LIMIT} in all",
                     a.len(),
                     b.len()
                 ),
             ));
         }
+        self.spent.set(spent);
         let degree = u64::from(a.degree()) + u64::from(b.degree());
         let bound = products.min(monomials_up_to_degree(degree, self.nvars as u64));
         if bound > TYPED_TERM_LIMIT {
@@ -776,12 +784,14 @@ impl Parser<'_> {
                     j *= 2;
                 }
             }
+            let work = work.saturating_add(self.spent.get());
             if work > TYPED_PRODUCT_LIMIT {
                 return Err(syntax(
                     self.text,
                     at,
                     &format!(
-                        "the power takes about {work} coefficient products; a typed polynomial may take at most {TYPED_PRODUCT_LIMIT}"
+                        "the power brings the work of reading this text to about {work} coefficient \
+                         products; a typed polynomial may take at most {TYPED_PRODUCT_LIMIT} in all"
                     ),
                 ));
             }
