@@ -37,6 +37,7 @@ fn view() -> impl Strategy<Value = View> {
         Just(View::Permutohedron),
         Just(View::Hessenberg),
         Just(View::Workbench),
+        Just(View::Products),
     ]
 }
 

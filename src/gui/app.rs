@@ -43,9 +43,6 @@ pub struct Explorer {
     pub workbench: WorkbenchView,
     /// The products and expansions view.
     pub products: ProductsView,
-    /// Whether the products tab is shown (it is not one of the session's
-    /// views, so a session file opens on the view it names).
-    pub products_shown: bool,
     /// The save / open / export window.
     pub files: FilePanel,
     /// The recovery-file timer and the offer of a recovered session.
@@ -111,7 +108,6 @@ impl Explorer {
             permutohedron: PermutohedronView::default(),
             workbench: WorkbenchView::default(),
             products: ProductsView::default(),
-            products_shown: false,
             files: FilePanel::default(),
             autosave: Autosave::default(),
             times: FrameTimes::default(),
@@ -211,17 +207,10 @@ impl Explorer {
         egui::Panel::top("view_tabs").show(ui, |ui| {
             ui.horizontal(|ui| {
                 for v in views::ORDER {
-                    let chosen = !self.products_shown && self.session.view == v;
+                    let chosen = self.session.view == v;
                     if ui.selectable_label(chosen, views::title(v)).clicked() {
                         self.session.view = v;
-                        self.products_shown = false;
                     }
-                }
-                if ui
-                    .selectable_label(self.products_shown, views::PRODUCTS_TITLE)
-                    .clicked()
-                {
-                    self.products_shown = true;
                 }
             });
         });
@@ -238,16 +227,13 @@ impl Explorer {
             if !views::ORDER.contains(&ctx.session.view) {
                 ctx.session.view = View::Dreams;
             }
-            if self.products_shown {
-                self.products.ui(ui, &mut ctx);
-                return;
-            }
             match ctx.session.view {
                 View::Words => self.words.ui(ui, &mut ctx),
                 View::Hessenberg => self.hessenberg.ui(ui, &mut ctx),
                 View::Quotient => self.quotient.ui(ui, &mut ctx),
                 View::Permutohedron => self.permutohedron.ui(ui, &mut ctx),
                 View::Workbench => self.workbench.ui(ui, &mut ctx),
+                View::Products => self.products.ui(ui, &mut ctx),
                 _ => self.dreams.ui(ui, &mut ctx),
             }
         });
@@ -273,9 +259,6 @@ impl Explorer {
     /// The current view's figures and tables, for the export window.
     fn exports(&mut self) -> Exports {
         let survey = self.session.quotient.survey;
-        if self.products_shown {
-            return Vec::new();
-        }
         let figures = match self.session.view {
             View::Dreams => self.dreams.figures(),
             View::Words => self.words.figures(),

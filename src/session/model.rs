@@ -86,6 +86,8 @@ pub enum View {
     Hessenberg,
     /// A typed polynomial: divided symmetrization and normal form.
     Workbench,
+    /// Products of Schubert classes and Schubert expansions.
+    Products,
 }
 
 /// How the permutation browser filters and sorts S_n.

@@ -28,20 +28,19 @@ pub fn title(v: View) -> &'static str {
         View::Quotient => "Quotient by J_n",
         View::Permutohedron => "Permutohedra",
         View::Workbench => "Polynomial workbench",
+        View::Products => "Products & expansions",
     }
 }
 
-/// The tab title of the products and expansions view (after the session's views).
-pub const PRODUCTS_TITLE: &str = "Products & expansions";
-
 /// The views in tab order.
-pub const ORDER: [View; 6] = [
+pub const ORDER: [View; 7] = [
     View::Dreams,
     View::Words,
     View::Hessenberg,
     View::Quotient,
     View::Permutohedron,
     View::Workbench,
+    View::Products,
 ];
 
 /// Whether arrow keys belong to the view (no text field has the keyboard).
