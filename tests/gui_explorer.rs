@@ -271,3 +271,63 @@ fn a_positivity_survey_runs_and_a_row_shows_its_normal_form() {
     h.step();
     assert!(h.state().session.quotient.survey);
 }
+
+#[test]
+fn closing_with_unsaved_changes_asks_first() {
+    let mut h = harness();
+    h.step();
+    // nothing changed: a close goes through without a question
+    h.state_mut().close_asked = true;
+    h.step();
+    assert!(!h.state().closing.asking);
+    assert!(h.query_by_label("close without saving").is_none());
+    // a change to the exploration: the close is held back and the question shown
+    h.state_mut().session.dark = !h.state().session.dark;
+    h.state_mut().close_asked = true;
+    h.step();
+    h.step();
+    assert!(h.state().closing.asking);
+    assert!(h.state().closing.unsaved(&h.state().session));
+    h.get_by_label("keep working").click();
+    h.step();
+    assert!(!h.state().closing.asking);
+    // asked again, and this time closed without saving: no further question
+    h.state_mut().close_asked = true;
+    h.step();
+    h.step();
+    h.get_by_label("close without saving").click();
+    h.step();
+    assert!(!h.state().closing.asking);
+    h.state_mut().close_asked = true;
+    h.step();
+    assert!(!h.state().closing.asking);
+}
+
+#[test]
+fn a_session_saved_through_the_file_window_counts_as_saved() {
+    let mut h = harness();
+    h.step();
+    let dir = std::env::temp_dir().join(format!("elbowroom-close-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let path = dir.join("kept.ron");
+    h.state_mut().session.dark = !h.state().session.dark;
+    assert!(h.state().closing.unsaved(&h.state().session));
+    // the same save the window's Ctrl+S does
+    let session = h.state().session.clone();
+    let mut message = None;
+    h.state_mut().files.session_path = Some(path.clone());
+    assert!(
+        h.state_mut()
+            .files
+            .save_to_known_file(&session, &mut message)
+    );
+    h.step();
+    assert!(
+        !h.state().closing.unsaved(&h.state().session),
+        "{message:?}"
+    );
+    h.state_mut().close_asked = true;
+    h.step();
+    assert!(!h.state().closing.asking);
+    let _ = std::fs::remove_dir_all(&dir);
+}

@@ -3,6 +3,7 @@
 
 use super::app_ctx::AppCtx;
 use super::autosave::Autosave;
+use super::closing::CloseGuard;
 use super::files::{Exportable, Exports, FileAction, FilePanel};
 use super::picker::Picker;
 use super::status::{self, FrameTimes};
@@ -47,6 +48,10 @@ pub struct Explorer {
     pub files: FilePanel,
     /// The recovery-file timer and the offer of a recovered session.
     pub autosave: Autosave,
+    /// Asks before a close would lose unsaved changes.
+    pub closing: CloseGuard,
+    /// A close asked by other means than the window's own button (tests).
+    pub close_asked: bool,
     times: FrameTimes,
     frame_log: FrameLog,
 }
@@ -96,6 +101,7 @@ pub fn demo_session() -> Session {
 impl Explorer {
     /// An explorer over `session`, computing with `engine`.
     pub fn new(session: Session, engine: Engine) -> Self {
+        let closing = CloseGuard::new(&session);
         Explorer {
             session,
             engine,
@@ -110,6 +116,8 @@ impl Explorer {
             products: ProductsView::default(),
             files: FilePanel::default(),
             autosave: Autosave::default(),
+            closing,
+            close_asked: false,
             times: FrameTimes::default(),
             frame_log: FrameLog::from_env(),
         }
@@ -134,6 +142,18 @@ impl Explorer {
         };
         self.files
             .ui(ui.ctx(), &mut self.session, &exports, &mut self.message);
+        if let Some(s) = self.files.stored.take() {
+            self.closing.stored(s);
+        }
+        let requested = std::mem::take(&mut self.close_asked)
+            || ui.ctx().input(|i| i.viewport().close_requested());
+        self.closing.ui(
+            ui.ctx(),
+            requested,
+            &self.session,
+            &mut self.files,
+            &mut self.message,
+        );
         self.autosave.offer_ui(ui.ctx(), &mut self.session);
         if let Some(m) = self.autosave.tick(&self.session, ui.ctx()) {
             self.message = Some(m);

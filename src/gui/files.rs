@@ -60,6 +60,8 @@ pub struct FilePanel {
     pub action: Option<FileAction>,
     /// The typed path.
     pub path: String,
+    /// The session just saved or opened, for the close guard to take.
+    pub stored: Option<Session>,
     /// The file the session was last saved to or opened from.
     pub session_path: Option<PathBuf>,
     /// Which of the view's figures or tables to export (an index into the list).
@@ -100,6 +102,7 @@ impl FilePanel {
         *message = Some(match store::save(&path, session) {
             Ok(()) => {
                 let _ = recent::push(&path);
+                self.stored = Some(session.clone());
                 format!("saved {}", path.display())
             }
             Err(e) => e.to_string(),
@@ -242,6 +245,7 @@ impl FilePanel {
             FileAction::Save => match store::save(&path, session) {
                 Ok(()) => {
                     let _ = recent::push(&path);
+                    self.stored = Some(session.clone());
                     *message = Some(format!("saved {}", path.display()));
                     self.session_path = Some(path);
                     true
@@ -253,6 +257,7 @@ impl FilePanel {
             },
             FileAction::Open => match store::load(&path) {
                 Ok(s) => {
+                    self.stored = Some(s.clone());
                     *session = s;
                     let _ = recent::push(&path);
                     *message = Some(format!("opened {}", path.display()));

@@ -8,6 +8,7 @@ pub mod app;
 pub mod app_ctx;
 pub mod autosave;
 pub mod browser;
+pub mod closing;
 pub mod files;
 pub mod picker;
 pub mod scene_painter;
