@@ -331,3 +331,34 @@ fn a_session_saved_through_the_file_window_counts_as_saved() {
     assert!(!h.state().closing.asking);
     let _ = std::fs::remove_dir_all(&dir);
 }
+
+#[test]
+fn an_export_is_named_after_its_table_and_asks_before_replacing_a_file() {
+    let mut h = harness();
+    h.get_by_label("Hessenberg classes").click();
+    h.step();
+    h.state_mut().session.hessenberg.h = vec![2, 3, 4, 4];
+    settle(&mut h, |h| has(h, "6 permutations of length 3"));
+    let dir = std::env::temp_dir().join(format!("elbowroom-gui-replace-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    h.state_mut().session.figure.last_dir = dir.display().to_string();
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::E);
+    h.step();
+    h.step();
+    // the proposal is the table's own name, not a name every view shares
+    let proposed = h.state().files.path.clone();
+    assert!(proposed.ends_with("table-of-a-h_w.csv"), "{proposed}");
+    let path = dir.join("table-of-a-h_w.csv");
+    std::fs::write(&path, "kept\n").unwrap();
+    h.get_by_label("export").click();
+    h.step();
+    // the file exists: nothing is written until the user agrees
+    assert!(h.state().files.replacing.is_some());
+    assert!(has(&h, "exists already"));
+    assert_eq!(std::fs::read_to_string(&path).unwrap(), "kept\n");
+    h.get_by_label("replace it").click();
+    settle(&mut h, |_| {
+        std::fs::read_to_string(&path).is_ok_and(|t| t.starts_with("perm,length,value"))
+    });
+    std::fs::remove_dir_all(&dir).ok();
+}

@@ -62,6 +62,12 @@ pub struct FilePanel {
     pub path: String,
     /// The session just saved or opened, for the close guard to take.
     pub stored: Option<Session>,
+    /// A file that an export or save would replace, waiting for a yes.
+    pub replacing: Option<PathBuf>,
+    /// The file the user agreed to replace.
+    replace_ok: Option<PathBuf>,
+    /// The last path the window proposed (renamed with the item while untouched).
+    proposed: String,
     /// The file the session was last saved to or opened from.
     pub session_path: Option<PathBuf>,
     /// Which of the view's figures or tables to export (an index into the list).
@@ -90,6 +96,8 @@ impl FilePanel {
         };
         self.chosen = 0;
         self.fitted = false;
+        self.replacing = None;
+        self.replace_ok = None;
         self.action = Some(action);
     }
 
@@ -138,6 +146,22 @@ impl FilePanel {
                 if self.path_row(ui, action, exports, message) {
                     done = self.perform(action, session, exports, message);
                 }
+                if let Some(path) = self.replacing.clone() {
+                    ui.colored_label(
+                        crate::gui::theme::alert(),
+                        format!("{} exists already.", path.display()),
+                    );
+                    ui.horizontal(|ui| {
+                        if ui.button("replace it").clicked() {
+                            self.replace_ok = Some(path.clone());
+                            self.replacing = None;
+                            done = self.perform(action, session, exports, message);
+                        }
+                        if ui.button("choose another name").clicked() {
+                            self.replacing = None;
+                        }
+                    });
+                }
                 if action == FileAction::Open
                     && let Some(p) = session_to_open(ui)
                 {
@@ -148,6 +172,22 @@ impl FilePanel {
         if !open || done {
             self.action = None;
         }
+    }
+
+    /// Names the file after `item` while the path is still the one proposed
+    /// (a typed path whose extension fits `item` is the user's and stays).
+    fn propose(&mut self, name: &str, item: &Exportable) {
+        let untouched = self.path == self.proposed;
+        self.path = if untouched {
+            with_name_of(&self.path, name, item)
+        } else {
+            with_fitting_extension(&self.path, item)
+        };
+        self.proposed = if untouched {
+            self.path.clone()
+        } else {
+            String::new()
+        };
     }
 
     /// The list of the view's figures and tables to choose from (the path's
@@ -165,12 +205,15 @@ impl FilePanel {
         }
         for (k, (name, _)) in exports.iter().enumerate() {
             if ui.radio_value(&mut self.chosen, k, name).changed() {
-                self.path = with_fitting_extension(&self.path, &exports[k].1);
+                self.propose(name, &exports[k].1);
+                self.replacing = None;
             }
         }
         let chosen = &exports[self.chosen.min(exports.len() - 1)].1;
         if !self.fitted {
-            self.path = with_fitting_extension(&self.path, chosen);
+            let name = &exports[self.chosen.min(exports.len() - 1)].0;
+            self.proposed = self.path.clone();
+            self.propose(name, chosen);
             self.fitted = true;
         }
         if matches!(chosen, Exportable::Figure(_)) {
@@ -241,6 +284,18 @@ impl FilePanel {
         message: &mut Option<String>,
     ) -> bool {
         let path = PathBuf::from(self.path.trim());
+        let replaces = action != FileAction::Open
+            && path.exists()
+            && self
+                .session_path
+                .as_ref()
+                .filter(|_| action == FileAction::Save)
+                != Some(&path)
+            && self.replace_ok.as_ref() != Some(&path);
+        if replaces {
+            self.replacing = Some(path);
+            return false;
+        }
         match action {
             FileAction::Save => match store::save(&path, session) {
                 Ok(()) => {
@@ -350,6 +405,47 @@ fn native_dialog(action: FileAction, current: &str, extensions: &[&str]) -> Opti
 
 /// The typed path with its extension changed to one the item can be written
 /// as, when it has none of those (`figure.svg` becomes `table.csv` for a table).
+/// A file name of its own for each item a view exports, made from its name
+/// ("the positivity survey of S_5" -> `positivity-survey-of-S_5`), so two
+/// views never propose the same file.
+pub fn file_stem_of(name: &str) -> String {
+    let mut stem = String::new();
+    for c in name.trim_start_matches("the ").chars() {
+        if c.is_ascii_alphanumeric() || c == '_' {
+            stem.push(c);
+        } else if !stem.ends_with('-') && !stem.is_empty() {
+            stem.push('-');
+        }
+    }
+    let stem = stem.trim_end_matches('-');
+    if stem.is_empty() {
+        "export".to_string()
+    } else {
+        stem.to_string()
+    }
+}
+
+/// The path's directory with the item's own file name, keeping the path's
+/// extension when it fits the item (SVG for a figure, CSV for a table
+/// otherwise).
+fn with_name_of(path: &str, name: &str, item: &Exportable) -> String {
+    let p = Path::new(path);
+    let ext = p
+        .extension()
+        .and_then(|e| e.to_str())
+        .map(|e| e.to_ascii_lowercase())
+        .filter(|e| item.extensions().contains(&e.as_str()))
+        .unwrap_or_else(|| match item {
+            Exportable::Figure(_) => "svg".into(),
+            Exportable::Table(_) => "csv".into(),
+        });
+    let file = format!("{}.{ext}", file_stem_of(name));
+    match p.parent().filter(|d| !d.as_os_str().is_empty()) {
+        Some(dir) => dir.join(file).display().to_string(),
+        None => file,
+    }
+}
+
 fn with_fitting_extension(path: &str, item: &Exportable) -> String {
     let p = Path::new(path);
     let ext = p
