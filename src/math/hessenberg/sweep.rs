@@ -58,10 +58,17 @@ pub struct SweepRow {
 /// assert_eq!(text, vec!["(1,2,3) 0 6", "(1,3,3) 1 3", "(2,2,3) 1 3", "(2,3,3) 2 2", "(3,3,3) 3 1"]);
 /// ```
 pub fn sweep_every_h(n: usize, progress: &Progress) -> MathResult<Vec<SweepRow>> {
-    if n == 0 || n > SWEEP_MAX_N {
+    if n == 0 {
         return Err(MathError::OutOfRange(format!(
-            "n = {n}: the sweep over every Hessenberg function runs for 1 <= n <= {SWEEP_MAX_N} \
-             (Catalan({n}) functions)"
+            "n = 0: the sweep over every Hessenberg function runs for 1 <= n <= {SWEEP_MAX_N}"
+        )));
+    }
+    if n > SWEEP_MAX_N {
+        // Catalan(n) = C(2n, n)/(n + 1) (OEIS A000108), exact in u128 for n <= 16
+        let catalan = (0..n as u128).fold(1u128, |c, k| c * 2 * (2 * k + 1) / (k + 2));
+        return Err(MathError::OutOfRange(format!(
+            "n = {n}: the sweep over every Hessenberg function would meet Catalan({n}) = \
+             {catalan} functions; it runs for 1 <= n <= {SWEEP_MAX_N}"
         )));
     }
     let count = HessenbergFn::all(n).len();
