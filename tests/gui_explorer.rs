@@ -4,45 +4,16 @@
 #![cfg(feature = "gui")]
 #![allow(clippy::unwrap_used)]
 
+mod window_harness;
 use eframe::egui;
 use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
-use elbowroom::engine::Engine;
 use elbowroom::figure::dream::{CELL, cell_origin};
 use elbowroom::gui::Explorer;
-use elbowroom::gui::app::demo_session;
 use elbowroom::math::Perm;
 use elbowroom::math::pipes::dream::count_pipe_dreams;
 use elbowroom::session::model::View;
-use std::time::{Duration, Instant};
-
-fn harness() -> Harness<'static, Explorer> {
-    Harness::builder()
-        .with_size(egui::vec2(1280.0, 800.0))
-        .with_accessibility_check(false)
-        .allow_missing_glyphs()
-        .build_ui_state(
-            |ui, app: &mut Explorer| app.show(ui),
-            Explorer::new(demo_session(), Engine::quiet()),
-        )
-}
-
-/// Steps frames until `done` holds (the engine works on other threads).
-fn settle(h: &mut Harness<'static, Explorer>, done: impl Fn(&Harness<'static, Explorer>) -> bool) {
-    let start = Instant::now();
-    while start.elapsed() < Duration::from_secs(60) {
-        h.step();
-        if done(h) {
-            return;
-        }
-        std::thread::sleep(Duration::from_millis(5));
-    }
-    panic!("the explorer did not reach the expected state in time");
-}
-
-fn has(h: &Harness<'static, Explorer>, text: &str) -> bool {
-    h.query_all_by_label_contains(text).next().is_some()
-}
+use window_harness::{harness, has, settle};
 
 fn type_and_go(h: &mut Harness<'static, Explorer>, text: &str) {
     h.state_mut().picker.text = text.to_string();

@@ -66,23 +66,21 @@ fn reduced(
     progress.set_total(listed as u64);
     let dreams = pipe_dreams(w).take(listed);
     if args.json {
-        let head = json::render(&json!({"perm": w.one_line(), "count": json::exact(count)}));
-        sink.text(&head[..head.len() - 1])?;
-        sink.text(",\"dreams\":[")?;
-        for (k, d) in dreams.enumerate() {
-            progress.check()?;
-            if k > 0 {
-                sink.text(",")?;
-            }
-            sink.json(&json!({
-                "crosses": d.crosses().iter().map(|&(i, j)| [i, j]).collect::<Vec<_>>(),
-                "word": d.reading_word(),
-                "monomial": d.monomial(),
-            }))?;
-            progress.advance(1);
-            *written += 1;
-        }
-        return sink.text("]}\n");
+        let head = json!({"perm": w.one_line(), "count": json::exact(count)});
+        return sink.json_listing(
+            &head,
+            "dreams",
+            dreams,
+            |d| {
+                json!({
+                    "crosses": d.crosses().iter().map(|&(i, j)| [i, j]).collect::<Vec<_>>(),
+                    "word": d.reading_word(),
+                    "monomial": d.monomial(),
+                })
+            },
+            progress,
+            written,
+        );
     }
     sink.text(&heading(count, w, "reduced pipe dream", listed))?;
     for (k, d) in dreams.enumerate() {
@@ -127,24 +125,22 @@ fn bumpless(
     }
     progress.set_total(dreams.len() as u64);
     if args.json {
-        let head = json::render(&json!({"perm": w.one_line(), "count": json::exact(count)}));
-        sink.text(&head[..head.len() - 1])?;
-        sink.text(",\"dreams\":[")?;
-        for (k, d) in dreams.iter().enumerate() {
-            progress.check()?;
-            if k > 0 {
-                sink.text(",")?;
-            }
-            let rows: Vec<String> = d.to_string().lines().map(str::to_string).collect();
-            sink.json(&json!({
-                "blanks": d.blanks().iter().map(|&(i, j)| [i, j]).collect::<Vec<_>>(),
-                "monomial": d.monomial(),
-                "tiles": rows,
-            }))?;
-            progress.advance(1);
-            *written += 1;
-        }
-        return sink.text("]}\n");
+        let head = json!({"perm": w.one_line(), "count": json::exact(count)});
+        return sink.json_listing(
+            &head,
+            "dreams",
+            &dreams,
+            |d| {
+                let rows: Vec<String> = d.to_string().lines().map(str::to_string).collect();
+                json!({
+                    "blanks": d.blanks().iter().map(|&(i, j)| [i, j]).collect::<Vec<_>>(),
+                    "monomial": d.monomial(),
+                    "tiles": rows,
+                })
+            },
+            progress,
+            written,
+        );
     }
     sink.text(&heading(count, w, "bumpless pipe dream", dreams.len()))?;
     for (k, d) in dreams.iter().enumerate() {

@@ -51,23 +51,12 @@ fn list(
 ) -> Result<(), CliError> {
     let words = reduced_words(w).take(listed);
     if args.json {
-        let head = json::render(&json!({
+        let head = json!({
             "perm": w.one_line(),
             "length": w.length(),
             "count": json::exact(count),
-        }));
-        sink.text(&head[..head.len() - 1])?;
-        sink.text(",\"words\":[")?;
-        for (k, a) in words.enumerate() {
-            progress.check()?;
-            if k > 0 {
-                sink.text(",")?;
-            }
-            sink.json(&json!(a))?;
-            progress.advance(1);
-            *written += 1;
-        }
-        return sink.text("]}\n");
+        });
+        return sink.json_listing(&head, "words", words, |a| json!(a), progress, written);
     }
     sink.text(&format!(
         "{count} reduced word{} of {w} (length {})",

@@ -60,6 +60,34 @@ impl<'a> Sink<'a> {
         self.text(&text)
     }
 
+    /// Writes the JSON object `head` with one more field, `key`, last: an array
+    /// of `items` streamed one by one (each one polled for a cancel and counted
+    /// on `progress` and `written`), then a newline: the same text as the whole
+    /// object with `key` inserted last (serde_json keeps insertion order here).
+    pub fn json_listing<T>(
+        &mut self,
+        head: &Value,
+        key: &str,
+        items: impl IntoIterator<Item = T>,
+        item: impl Fn(T) -> Value,
+        progress: &crate::math::Progress,
+        written: &mut u64,
+    ) -> Result<(), CliError> {
+        let head = super::json::render(head);
+        self.text(&head[..head.len() - 1])?;
+        self.text(&format!(",\"{key}\":["))?;
+        for (k, x) in items.into_iter().enumerate() {
+            progress.check()?;
+            if k > 0 {
+                self.text(",")?;
+            }
+            self.json(&item(x))?;
+            progress.advance(1);
+            *written += 1;
+        }
+        self.text("]}\n")
+    }
+
     /// Writes a whole output collected as one string, ending it with a newline.
     pub fn whole(&mut self, s: &str) -> Result<(), CliError> {
         self.text(s)?;

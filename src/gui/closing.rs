@@ -6,7 +6,7 @@
 //! background is a safety net, not a save, so it does not count.
 
 use crate::gui::files::{FileAction, FilePanel};
-use crate::session::{Session, recent, store};
+use crate::session::Session;
 use eframe::egui;
 
 /// What the close guard remembers between frames.
@@ -96,19 +96,17 @@ impl CloseGuard {
         message: &mut Option<String>,
     ) {
         self.asking = false;
-        let Some(path) = files.session_path.clone() else {
+        if !files.save_to_known_file(session, message) {
             files.start(FileAction::Save, session);
             *message = Some("choose where to save; then close the window again".into());
             return;
-        };
-        match store::save(&path, session) {
-            Ok(()) => {
-                let _ = recent::push(&path);
-                self.saved = session.clone();
-                self.confirmed = true;
-                ctx.send_viewport_cmd(egui::ViewportCommand::Close);
-            }
-            Err(e) => *message = Some(format!("not closed: {e}")),
+        }
+        // the file window's save reports its outcome in `message`, and hands the
+        // saved session over only when it succeeded
+        if let Some(saved) = files.stored.take() {
+            self.saved = saved;
+            self.confirmed = true;
+            ctx.send_viewport_cmd(egui::ViewportCommand::Close);
         }
     }
 }

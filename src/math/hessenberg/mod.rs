@@ -13,8 +13,6 @@ pub mod class;
 
 pub mod rows;
 
-pub mod word;
-
 pub mod coefficients;
 
 pub mod sweep;

@@ -252,44 +252,57 @@ pub trait Coefficient: Clone + Ord + fmt::Debug + Send + Sync + 'static {
     fn is_negative_value(&self) -> bool;
 }
 
-impl Coefficient for i128 {
-    fn zero_value() -> Self {
-        0
-    }
-    #[inline]
-    fn is_zero_value(&self) -> bool {
-        *self == 0
-    }
-    fn from_big(v: &BigInt) -> Option<Self> {
-        v.to_i128()
-    }
-    fn from_i64(v: i64) -> Self {
-        i128::from(v)
-    }
-    fn to_big(&self) -> BigInt {
-        BigInt::from(*self)
-    }
-    #[inline]
-    fn add_assign_checked(&mut self, other: &Self) -> StepResult<()> {
-        *self = self.checked_add(*other).ok_or(StepError::Overflow)?;
-        Ok(())
-    }
-    #[inline]
-    fn mul_checked(&self, other: &Self) -> StepResult<Self> {
-        self.checked_mul(*other).ok_or(StepError::Overflow)
-    }
-    #[inline]
-    fn sub_checked(&self, other: &Self) -> StepResult<Self> {
-        self.checked_sub(*other).ok_or(StepError::Overflow)
-    }
-    #[inline]
-    fn neg_checked(&self) -> StepResult<Self> {
-        self.checked_neg().ok_or(StepError::Overflow)
-    }
-    fn is_negative_value(&self) -> bool {
-        *self < 0
-    }
+/// Checked machine integers as coefficients: `i128` for most computations, and
+/// `i64` for the partial products of Hessenberg classes, half the memory a term
+/// (a hash-map slot of 16 bytes instead of 32), which the expansion at n = 16
+/// needs to stay within a few GB. Leaving the range stops with
+/// [`StepError::Overflow`]; [`exactly`] (or the caller) then runs the computation
+/// again in a wider type.
+macro_rules! machine_coefficient {
+    ($t:ty, $to:ident) => {
+        impl Coefficient for $t {
+            fn zero_value() -> Self {
+                0
+            }
+            #[inline]
+            fn is_zero_value(&self) -> bool {
+                *self == 0
+            }
+            fn from_big(v: &BigInt) -> Option<Self> {
+                v.$to()
+            }
+            fn from_i64(v: i64) -> Self {
+                <$t>::from(v)
+            }
+            fn to_big(&self) -> BigInt {
+                BigInt::from(*self)
+            }
+            #[inline]
+            fn add_assign_checked(&mut self, other: &Self) -> StepResult<()> {
+                *self = self.checked_add(*other).ok_or(StepError::Overflow)?;
+                Ok(())
+            }
+            #[inline]
+            fn mul_checked(&self, other: &Self) -> StepResult<Self> {
+                self.checked_mul(*other).ok_or(StepError::Overflow)
+            }
+            #[inline]
+            fn sub_checked(&self, other: &Self) -> StepResult<Self> {
+                self.checked_sub(*other).ok_or(StepError::Overflow)
+            }
+            #[inline]
+            fn neg_checked(&self) -> StepResult<Self> {
+                self.checked_neg().ok_or(StepError::Overflow)
+            }
+            fn is_negative_value(&self) -> bool {
+                *self < 0
+            }
+        }
+    };
 }
+
+machine_coefficient!(i64, to_i64);
+machine_coefficient!(i128, to_i128);
 
 impl Coefficient for BigInt {
     fn zero_value() -> Self {
@@ -775,6 +788,14 @@ impl<C: Coefficient> Monk<C> {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn leaving_the_word_is_an_overflow_not_a_wrap() {
+        let mut x = i64::MAX;
+        assert_eq!(x.add_assign_checked(&1), Err(StepError::Overflow));
+        assert_eq!(i64::MIN.neg_checked(), Err(StepError::Overflow));
+        assert_eq!(3i64.mul_checked(&-4), Ok(-12));
+    }
 
     #[test]
     fn packing_round_trips() {
