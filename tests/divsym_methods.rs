@@ -180,3 +180,40 @@ proptest! {
         prop_assert!(fast.value.is_symmetric());
     }
 }
+
+#[test]
+fn a_canceled_divided_symmetrization_stops() {
+    use elbowroom::math::hessenberg::divsym::divided_symmetrize_with;
+    use elbowroom::math::{MathError, Progress};
+    use std::sync::Arc;
+    use std::time::{Duration, Instant};
+    // DS_8 of (x1 + … + x8)^9 goes through f·Q_h: 11 440 terms of f (C(16, 7)) times
+    // the terms of Q_h, a product of 21 linear factors; cancelled mid-run it stops
+    // with `Canceled`. The bound is loose (debug build on a shared machine).
+    let h = HessenbergFn::default_for(8).unwrap();
+    let f =
+        elbowroom::math::poly::parse::parse_poly("(x1+x2+x3+x4+x5+x6+x7+x8)^9", Some(8)).unwrap();
+    let progress = Arc::new(Progress::default());
+    let p = progress.clone();
+    let work = std::thread::spawn(move || divided_symmetrize_with(&f, &h, &p).map(|_| ()));
+    std::thread::sleep(Duration::from_millis(300));
+    let asked = Instant::now();
+    progress.cancel();
+    let result = work.join().unwrap();
+    let took = asked.elapsed();
+    assert_eq!(result, Err(MathError::Canceled));
+    assert!(took < Duration::from_millis(1000), "stopped after {took:?}");
+    // cancelled before the start, a non-default h: nothing is computed
+    let p = Progress::default();
+    p.cancel();
+    let h = HessenbergFn::parse("3,3,4,5,5", None).unwrap();
+    let f = RatPoly::monomial(
+        5,
+        Mono::from_exps(&[3, 2, 1, 0, 0]).unwrap(),
+        BigRational::one(),
+    );
+    assert_eq!(
+        divided_symmetrize_with(&f, &h, &p).unwrap_err(),
+        MathError::Canceled
+    );
+}

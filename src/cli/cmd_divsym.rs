@@ -10,12 +10,12 @@ use super::error::CliError;
 use super::inputs::hessenberg_from_args;
 use super::interrupt;
 use super::json;
-use crate::math::Progress;
 use crate::math::RatPoly;
-use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize};
+use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize_with};
 use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::limits::{DIVSYM_PRODUCT_LIMIT, DIVSYM_TERM_LIMIT, binomial, monomials_of_degree};
 use crate::math::poly::parse::parse_poly;
+use crate::math::{MathError, Progress};
 use serde_json::{Value, json};
 use std::sync::Arc;
 use std::time::Duration;
@@ -108,17 +108,16 @@ fn interruptible(f: &RatPoly, h: &HessenbergFn) -> Result<DividedSymmetrization,
     let progress = Arc::new(Progress::new(1));
     let _watch = interrupt::watch(progress.clone());
     let (send, receive) = std::sync::mpsc::channel();
-    let (f, h) = (f.clone(), h.clone());
+    let (f, h, stop) = (f.clone(), h.clone(), progress.clone());
     std::thread::spawn(move || {
-        let _ = send.send(divided_symmetrize(&f, &h));
+        let _ = send.send(divided_symmetrize_with(&f, &h, &stop));
     });
     loop {
         match receive.recv_timeout(Duration::from_millis(20)) {
+            Ok(Err(MathError::Canceled)) => return Err(canceled()),
             Ok(result) => return Ok(result?),
             Err(std::sync::mpsc::RecvTimeoutError::Timeout) if progress.is_canceled() => {
-                return Err(CliError::Canceled(
-                    "divided symmetrization canceled; no output written".into(),
-                ));
+                return Err(canceled());
             }
             Err(std::sync::mpsc::RecvTimeoutError::Timeout) => {}
             Err(std::sync::mpsc::RecvTimeoutError::Disconnected) => {
@@ -128,4 +127,9 @@ fn interruptible(f: &RatPoly, h: &HessenbergFn) -> Result<DividedSymmetrization,
             }
         }
     }
+}
+
+/// The one-line answer to a Ctrl-C.
+fn canceled() -> CliError {
+    CliError::Canceled("divided symmetrization canceled; no output written".into())
 }

@@ -3,7 +3,7 @@
 
 use super::layout::{TableLayout, table_layout};
 use crate::math::hessenberg::coefficients::coefficient_table;
-use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize};
+use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize_with};
 use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::hessenberg::table::HessenbergTable;
 use crate::math::perms::class::PermClass;
@@ -478,7 +478,7 @@ fn divsym(text: &str, h: &[usize], progress: &Progress) -> MathResult<DividedSym
     progress.set_total(1);
     let h = HessenbergFn::new(h)?;
     let f = parse_poly_with(text, Some(h.n()), progress)?;
-    let out = divided_symmetrize(&f, &h)?;
+    let out = divided_symmetrize_with(&f, &h, progress)?;
     progress.advance(1);
     Ok(out)
 }

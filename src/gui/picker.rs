@@ -198,7 +198,7 @@ impl Picker {
     }
 }
 
-/// n (a new n keeps w when it fits, else goes to the identity), back and forward.
+/// n (a new n keeps w when it fits, else goes to the identity and says so), back and forward.
 fn size_and_history(ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
     ui.horizontal(|ui| {
         ui.label("n");
@@ -213,7 +213,16 @@ fn size_and_history(ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
             } else {
                 None
             };
-            ctx.go_to(next.unwrap_or_else(|| Perm::identity(n)));
+            match next {
+                Some(v) => ctx.go_to(v),
+                None => {
+                    ctx.report(format!(
+                        "{w} does not fix {}, so it is not in S_{n}; the identity of S_{n} is shown (< back returns to {w})",
+                        w.support_size()
+                    ));
+                    ctx.go_to(Perm::identity(n));
+                }
+            }
         }
         if ui
             .add_enabled(ctx.session.history_pos > 0, egui::Button::new("< back"))

@@ -21,6 +21,7 @@ use crate::math::perms::perm::Perm;
 use crate::math::poly::mono::Mono;
 use crate::math::poly::polynomial::{IntPoly, RatPoly};
 use crate::math::poly::symmetric::{Partition, bialternant, monomial_expansion, schur_to_monomial};
+use crate::math::progress::Progress;
 use num_bigint::BigInt;
 use num_rational::BigRational;
 use num_traits::Zero;
@@ -179,15 +180,36 @@ impl HessenbergFunctional {
 
     /// DS_h(x^a) for a monomial of degree |h| (0 for any other degree).
     pub fn value(&self, a: Mono) -> BigInt {
+        match self.value_checked(a, || Ok::<(), std::convert::Infallible>(())) {
+            Ok(v) => v,
+            Err(never) => match never {},
+        }
+    }
+
+    /// [`HessenbergFunctional::value`], stopping with `Canceled` within a few
+    /// thousand terms of Q_h of a cancel of `progress`.
+    pub fn value_with(&self, a: Mono, progress: &Progress) -> MathResult<BigInt> {
+        self.value_checked(a, || progress.check())
+    }
+
+    /// The value, calling `check` every 4096 terms of Q_h (and stopping at its error).
+    fn value_checked<E>(
+        &self,
+        a: Mono,
+        mut check: impl FnMut() -> Result<(), E>,
+    ) -> Result<BigInt, E> {
         match self {
-            HessenbergFunctional::Postnikov(p) => BigInt::from(p.value(a)),
+            HessenbergFunctional::Postnikov(p) => Ok(BigInt::from(p.value(a))),
             HessenbergFunctional::Complement { n, degree, terms } => {
                 if a.degree() != *degree {
-                    return BigInt::zero();
+                    return Ok(BigInt::zero());
                 }
                 let mut total: i128 = 0;
                 let mut exps = vec![0u32; *n];
-                for (b, q) in terms {
+                for (k, (b, q)) in terms.iter().enumerate() {
+                    if k % 4096 == 4095 {
+                        check()?;
+                    }
                     let Some(m) = a.checked_mul(*b) else {
                         continue;
                     };
@@ -198,7 +220,7 @@ impl HessenbergFunctional {
                         total += i128::from(sign) * i128::from(*q);
                     }
                 }
-                BigInt::from(total)
+                Ok(BigInt::from(total))
             }
         }
     }
@@ -241,6 +263,17 @@ pub struct DividedSymmetrization {
 /// assert_eq!(divided_symmetrize(&g, &h).unwrap().value.to_text(), "x1 + x2 + x3");
 /// ```
 pub fn divided_symmetrize(f: &RatPoly, h: &HessenbergFn) -> MathResult<DividedSymmetrization> {
+    divided_symmetrize_with(f, h, &Progress::default())
+}
+
+/// [`divided_symmetrize`], stopping with `Canceled` within a few thousand
+/// coefficient products of a cancel of `progress` (in the expansion of Q_h, the
+/// pairing with it and the Schur terms above degree |h|).
+pub fn divided_symmetrize_with(
+    f: &RatPoly,
+    h: &HessenbergFn,
+    progress: &Progress,
+) -> MathResult<DividedSymmetrization> {
     let n = h.n();
     let f = f.with_nvars(n)?;
     let d0 = h.dimension() as u32;
@@ -251,13 +284,13 @@ pub fn divided_symmetrize(f: &RatPoly, h: &HessenbergFn) -> MathResult<DividedSy
     // Q_h is expanded once, and only when some part of f needs it
     let needs_q = !above.is_empty() || (!at_degree.is_empty() && !h.is_default());
     let q = if needs_q {
-        Some(h.complement_product()?)
+        Some(h.complement_product_with(progress)?)
     } else {
         None
     };
     let mut schur: BTreeMap<Partition, BigRational> = BTreeMap::new();
     if !at_degree.is_empty() {
-        let constant = constant_part(&at_degree, h, q.as_ref())?;
+        let constant = constant_part(&at_degree, h, q.as_ref(), progress)?;
         if !constant.is_zero() {
             schur.insert(vec![0; n], constant);
         }
@@ -265,10 +298,12 @@ pub fn divided_symmetrize(f: &RatPoly, h: &HessenbergFn) -> MathResult<DividedSy
     if let Some(q) = &q
         && !above.is_empty()
     {
-        add_schur_terms_above(&above, q, n, &mut schur)?;
+        add_schur_terms_above(&above, q, n, &mut schur, progress)?;
     }
     schur.retain(|_, c| !c.is_zero());
+    progress.check()?;
     let symmetric = schur_to_monomial(&schur, n);
+    progress.check()?;
     let value = monomial_expansion(&symmetric, n)?;
     Ok(DividedSymmetrization { value, symmetric })
 }
@@ -279,6 +314,7 @@ fn constant_part(
     at_degree: &[&(Mono, BigRational)],
     h: &HessenbergFn,
     q: Option<&IntPoly>,
+    progress: &Progress,
 ) -> MathResult<BigRational> {
     let mut constant = BigRational::zero();
     match q {
@@ -286,7 +322,7 @@ fn constant_part(
             check_pairs(at_degree.len(), q.len())?;
             let functional = HessenbergFunctional::pairing_with(h, q)?;
             for (m, c) in at_degree {
-                let v = functional.value(*m);
+                let v = functional.value_with(*m, progress)?;
                 if !v.is_zero() {
                     constant += c * BigRational::from_integer(v);
                 }
@@ -294,7 +330,10 @@ fn constant_part(
         }
         _ => {
             let p = PostnikovFunctional::new(h.n());
-            for (m, c) in at_degree {
+            for (k, (m, c)) in at_degree.iter().enumerate() {
+                if k % 4096 == 4095 {
+                    progress.check()?;
+                }
                 let v = p.value(*m);
                 if v != 0 {
                     constant += c * BigRational::from_integer(BigInt::from(v));
@@ -313,11 +352,15 @@ fn add_schur_terms_above(
     q: &IntPoly,
     n: usize,
     schur: &mut BTreeMap<Partition, BigRational>,
+    progress: &Progress,
 ) -> MathResult<()> {
     check_pairs(above.len(), q.len())?;
     let mut exps = vec![0u32; n];
     for (m, c) in above {
-        for (b, qc) in q.terms() {
+        for (k, (b, qc)) in q.terms().iter().enumerate() {
+            if k % 4096 == 4095 {
+                progress.check()?;
+            }
             let Some(mm) = m.checked_mul(*b) else {
                 return Err(MathError::OutOfRange("an exponent would exceed 255".into()));
             };

@@ -9,6 +9,7 @@
 use crate::math::error::{MathError, MathResult};
 use crate::math::perms::perm::MAX_N;
 use crate::math::poly::polynomial::{IntPoly, RatPoly};
+use crate::math::progress::Progress;
 use num_rational::BigRational;
 use num_traits::One;
 use std::fmt;
@@ -174,6 +175,12 @@ impl HessenbergFn {
     /// Q_h = Π_{i < j, j > h(i)} (x_i - x_j) as a polynomial (the class of the
     /// regular Hessenberg variety in Anderson–Tymoczko's description).
     pub fn complement_product(&self) -> MathResult<IntPoly> {
+        self.complement_product_with(&Progress::default())
+    }
+
+    /// [`HessenbergFn::complement_product`], stopping with `Canceled` within a
+    /// few thousand term products of a cancel of `progress`.
+    pub fn complement_product_with(&self, progress: &Progress) -> MathResult<IntPoly> {
         let n = self.n();
         let k = self.complement_pairs().len();
         // a product of k linear forms has at most min(2^k, C(k+n-1, n-1)) terms
@@ -187,7 +194,7 @@ impl HessenbergFn {
         let mut q = IntPoly::one(n);
         for (i, j) in self.complement_pairs() {
             let factor = IntPoly::var_index(n, i - 1).sub(&IntPoly::var_index(n, j - 1));
-            q = q.mul(&factor)?;
+            q = q.mul_with(&factor, progress)?;
         }
         Ok(q)
     }
