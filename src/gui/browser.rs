@@ -134,8 +134,9 @@ impl Browser {
         };
         let Some(perms) = perms.perms() else { return };
         ui.weak(format!(
-            "{} permutations; w, ℓ(w), number of pipe dreams",
-            perms.len()
+            "{} permutation{}; w, ℓ(w), number of pipe dreams",
+            perms.len(),
+            if perms.len() == 1 { "" } else { "s" }
         ));
         if let Some(w) = self.rows(ui, ctx.engine, perms, current) {
             ctx.go_to(w);
