@@ -208,21 +208,11 @@ fn size_and_history(ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
             .on_hover_text("the size of S_n")
             .changed();
         if changed && n != w.n() {
-            let next = if w.support_size() <= n {
-                w.restrict(n).or_else(|| w.embed(n).ok())
-            } else {
-                None
-            };
-            match next {
-                Some(v) => ctx.go_to(v),
-                None => {
-                    ctx.report(format!(
-                        "{w} does not fix {}, so it is not in S_{n}; the identity of S_{n} is shown (< back returns to {w})",
-                        w.support_size()
-                    ));
-                    ctx.go_to(Perm::identity(n));
-                }
+            let (next, note) = resized(w, n);
+            if let Some(note) = note {
+                ctx.report(note);
             }
+            ctx.go_to(next);
         }
         if ui
             .add_enabled(ctx.session.history_pos > 0, egui::Button::new("< back"))
@@ -238,6 +228,26 @@ fn size_and_history(ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
             step_history(ctx.session, 1);
         }
     });
+}
+
+/// What a new n makes current: w itself in S_n when it fixes every number above
+/// n, else the identity of S_n, with a note saying why w was left.
+fn resized(w: &Perm, n: usize) -> (Perm, Option<String>) {
+    let kept = if w.support_size() <= n {
+        w.restrict(n).or_else(|| w.embed(n).ok())
+    } else {
+        None
+    };
+    match kept {
+        Some(v) => (v, None),
+        None => (
+            Perm::identity(n),
+            Some(format!(
+                "{w} does not fix {}, so it is not in S_{n}; the identity of S_{n} is shown (< back returns to {w})",
+                w.support_size()
+            )),
+        ),
+    }
 }
 
 #[cfg(test)]
@@ -256,5 +266,20 @@ mod tests {
         assert_eq!(parse_entry("213", 5).unwrap().to_string(), "21345");
         assert!(parse_entry("3124 x", 4).is_err());
         assert!(parse_entry("1224", 4).is_err());
+    }
+
+    #[test]
+    fn a_new_n_keeps_w_when_it_fits_and_says_so_when_not() {
+        // 2143 fixes nothing above 4: it lives in S_4, S_5, ... (as 2143, 21435)
+        let w = Perm::from_one_line(&[2, 1, 4, 3]).unwrap();
+        assert_eq!(resized(&w, 5).0.to_string(), "21435");
+        assert!(resized(&w, 5).1.is_none());
+        let v = Perm::from_one_line(&[2, 1, 3, 4]).unwrap();
+        assert_eq!(resized(&v, 2).0.to_string(), "21");
+        // 1432 moves 4, so it is not in S_3
+        let u = Perm::from_one_line(&[1, 4, 3, 2]).unwrap();
+        let (next, note) = resized(&u, 3);
+        assert_eq!(next, Perm::identity(3));
+        assert!(note.unwrap().contains("1432 does not fix 4"));
     }
 }
