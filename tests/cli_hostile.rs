@@ -438,3 +438,13 @@ fn ctrl_c_in_divided_symmetrization_is_answered_with_a_message() {
     assert!(err.contains("canceled; no output written"), "{err}");
     assert!(out.stdout.is_empty());
 }
+
+#[test]
+fn ctrl_c_while_the_basis_of_the_quotient_is_built_is_answered_with_a_message() {
+    // the Gröbner basis of J_10 takes about a minute in a release build
+    let out = common::interrupted(&["quotient", "--n", "10"]);
+    assert_eq!(out.status.code(), Some(130));
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(err.contains("the basis of J_10 canceled after"), "{err}");
+    assert!(out.stdout.is_empty());
+}

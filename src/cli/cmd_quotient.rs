@@ -3,10 +3,11 @@
 
 use super::args::QuotientArgs;
 use super::error::CliError;
+use super::interrupt;
 use super::json;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::lattice_path::{LatticePath, Step};
-use crate::math::quotient::normal_form::{groebner_basis, hilbert_series};
+use crate::math::quotient::normal_form::{groebner_basis_with, hilbert_series};
 use serde_json::{Value, json};
 
 /// The steps of a path as JSON: the word and, per step, the variable it carries (or null).
@@ -30,7 +31,9 @@ pub fn run(args: &QuotientArgs) -> Result<String, CliError> {
             "--n {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
         )));
     }
-    let q = groebner_basis(n)?;
+    let q = interrupt::run_interruptible(&format!("the basis of J_{n}"), "steps", 0, |progress| {
+        groebner_basis_with(n, progress)
+    })?;
     let hilbert = hilbert_series(&q);
     let basis: Vec<Vec<u32>> = q.basis().iter().map(|m| m.exps(n)).collect();
     let mut paths = Vec::with_capacity(basis.len());

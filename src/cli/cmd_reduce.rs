@@ -3,10 +3,11 @@
 
 use super::args::ReduceArgs;
 use super::error::CliError;
+use super::interrupt;
 use super::json;
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::{groebner_basis, normal_form};
+use crate::math::quotient::normal_form::{groebner_basis_with, normal_form};
 use serde_json::json;
 
 /// Runs the command.
@@ -18,7 +19,9 @@ pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
         )));
     }
     let f = parse_poly(&args.poly, Some(n))?;
-    let q = groebner_basis(n)?;
+    let q = interrupt::run_interruptible(&format!("the basis of J_{n}"), "steps", 0, |progress| {
+        groebner_basis_with(n, progress)
+    })?;
     let nf = normal_form(&q, &f)?;
     if args.json {
         let coefficients: Vec<_> = nf

@@ -4,6 +4,12 @@
 //! The handler is installed once per process; each long run registers its
 //! [`Progress`] for as long as the returned guard lives.
 //!
+//! While a run is watched and standard error is a terminal, a line on standard
+//! error says how far it has got (after the first two seconds, refreshed every
+//! second, erased when the run ends): "elbowroom: 37% (1 min 12 s); Ctrl-C stops
+//! it". It is shown only where it cannot mix with the output: for a run whose
+//! output is printed after it ends, or when standard output is not a terminal.
+//!
 //! With `ELBOWROOM_ANNOUNCE_WATCH=1` in the environment, the moment a run is
 //! registered (so that Ctrl-C now cancels it) is announced on stderr with the
 //! line [`ANNOUNCEMENT`]: tests wait for it before sending SIGINT, instead of
@@ -11,7 +17,10 @@
 
 use super::error::CliError;
 use crate::math::{MathError, MathResult, Progress};
+use std::io::{IsTerminal, Write};
+use std::sync::atomic::{AtomicBool, Ordering};
 use std::sync::{Arc, Mutex, OnceLock};
+use std::time::{Duration, Instant};
 
 /// The environment variable that turns the announcement on (value `1`).
 pub const ANNOUNCE_ENV: &str = "ELBOWROOM_ANNOUNCE_WATCH";
@@ -36,26 +45,112 @@ fn slot() -> &'static Mutex<Option<Arc<Progress>>> {
     })
 }
 
-/// Keeps a computation registered with the Ctrl-C handler while it lives.
-pub struct Watch;
+/// Keeps a computation registered with the Ctrl-C handler while it lives (and
+/// its progress line, if one is shown).
+pub struct Watch {
+    ticker: Option<Ticker>,
+}
 
 impl Drop for Watch {
     fn drop(&mut self) {
         if let Ok(mut g) = slot().lock() {
             *g = None;
         }
+        if let Some(t) = self.ticker.take() {
+            t.stop();
+        }
     }
 }
 
-/// Routes Ctrl-C to `progress.cancel()` until the returned guard is dropped.
+/// Routes Ctrl-C to `progress.cancel()` until the returned guard is dropped; for
+/// a run that writes its output while it is watched (the progress line is shown
+/// only when standard output is not a terminal).
 pub fn watch(progress: Arc<Progress>) -> Watch {
+    watch_with(progress, !std::io::stdout().is_terminal())
+}
+
+/// [`watch`] for a run whose output is printed after the guard is dropped: the
+/// progress line may be shown whatever standard output is.
+pub fn watch_before_output(progress: Arc<Progress>) -> Watch {
+    watch_with(progress, true)
+}
+
+fn watch_with(progress: Arc<Progress>, line_allowed: bool) -> Watch {
     if let Ok(mut g) = slot().lock() {
-        *g = Some(progress);
+        *g = Some(progress.clone());
     }
     if std::env::var(ANNOUNCE_ENV).is_ok_and(|v| v == "1") {
         eprintln!("{ANNOUNCEMENT}");
     }
-    Watch
+    let ticker = (line_allowed && std::io::stderr().is_terminal()).then(|| Ticker::start(progress));
+    Watch { ticker }
+}
+
+/// The thread that keeps the progress line up to date.
+struct Ticker {
+    stop: Arc<AtomicBool>,
+    thread: std::thread::JoinHandle<()>,
+}
+
+/// How long a run goes before its progress line appears.
+const LINE_AFTER: Duration = Duration::from_secs(2);
+
+impl Ticker {
+    fn start(progress: Arc<Progress>) -> Ticker {
+        let stop = Arc::new(AtomicBool::new(false));
+        let flag = stop.clone();
+        let thread = std::thread::spawn(move || {
+            let start = Instant::now();
+            let mut shown = false;
+            let mut last = Instant::now();
+            while !flag.load(Ordering::Relaxed) {
+                std::thread::sleep(Duration::from_millis(50));
+                let elapsed = start.elapsed();
+                if elapsed < LINE_AFTER || (shown && last.elapsed() < Duration::from_secs(1)) {
+                    continue;
+                }
+                let line = progress_line(progress.done(), progress.total(), elapsed);
+                let mut err = std::io::stderr().lock();
+                let _ = write!(err, "\r\x1b[K{line}");
+                let _ = err.flush();
+                shown = true;
+                last = Instant::now();
+            }
+            if shown {
+                let mut err = std::io::stderr().lock();
+                let _ = write!(err, "\r\x1b[K");
+                let _ = err.flush();
+            }
+        });
+        Ticker { stop, thread }
+    }
+
+    /// Stops the thread and erases its line.
+    fn stop(self) {
+        self.stop.store(true, Ordering::Relaxed);
+        let _ = self.thread.join();
+    }
+}
+
+/// The progress line: the share done when the total is known, else the count.
+fn progress_line(done: u64, total: u64, elapsed: Duration) -> String {
+    let secs = elapsed.as_secs();
+    let time = if secs < 60 {
+        format!("{secs} s")
+    } else if secs < 3600 {
+        format!("{} min {} s", secs / 60, secs % 60)
+    } else {
+        format!("{} h {} min", secs / 3600, secs / 60 % 60)
+    };
+    let share = if total > 0 {
+        format!(
+            "{}%",
+            (u128::from(done.min(total)) * 100 / u128::from(total))
+        )
+    } else {
+        format!("{done} done")
+    };
+    format!("elbowroom: {share} ({time}); Ctrl-C stops it")
 }
 
 /// Runs a long computation with Ctrl-C routed to its [`Progress`] (created with
@@ -68,8 +163,10 @@ pub fn run_interruptible<T>(
     compute: impl FnOnce(&Progress) -> MathResult<T>,
 ) -> Result<T, CliError> {
     let progress = Arc::new(Progress::new(total));
-    let _watch = watch(progress.clone());
-    match compute(&progress) {
+    let watching = watch_before_output(progress.clone());
+    let result = compute(&progress);
+    drop(watching);
+    match result {
         Ok(v) => Ok(v),
         Err(MathError::Canceled) => Err(CliError::Canceled(format!(
             "{what} canceled after {} of {} {unit}; no output written",
@@ -108,5 +205,25 @@ pub fn or_canceled(
     match e {
         CliError::Canceled(_) => canceled(what, unit, progress, rows, row),
         other => other,
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn the_progress_line_gives_the_share_and_the_time() {
+        let line = progress_line(37, 100, Duration::from_secs(72));
+        assert_eq!(line, "elbowroom: 37% (1 min 12 s); Ctrl-C stops it");
+        // no total known: the count; past the total: 100%
+        assert_eq!(
+            progress_line(5, 0, Duration::from_secs(3)),
+            "elbowroom: 5 done (3 s); Ctrl-C stops it"
+        );
+        assert!(
+            progress_line(7, 5, Duration::from_secs(3725))
+                .starts_with("elbowroom: 100% (1 h 2 min)")
+        );
     }
 }

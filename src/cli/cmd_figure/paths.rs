@@ -5,13 +5,14 @@ use super::Figure;
 use super::pick::{compact, perm_arg};
 use crate::cli::args::FigureArgs;
 use crate::cli::error::CliError;
+use crate::cli::interrupt;
 use crate::figure::Scene;
 use crate::figure::look::Look;
 use crate::figure::paths::{panels_of_normal_form, path_grid_scene};
 use crate::math::RatPoly;
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::{groebner_basis, normal_form};
+use crate::math::quotient::normal_form::{groebner_basis_with, normal_form};
 use crate::math::schubert::polynomial::schubert;
 
 /// The one figure of panels, named `paths-W` or `paths-poly`.
@@ -46,7 +47,9 @@ fn paths_scene(
             "n = {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
         )));
     }
-    let q = groebner_basis(n)?;
+    let q = interrupt::run_interruptible(&format!("the basis of J_{n}"), "steps", 0, |progress| {
+        groebner_basis_with(n, progress)
+    })?;
     let nf = normal_form(&q, f)?;
     let panels = panels_of_normal_form(&nf, n).map_err(|e| CliError::Failed(e.to_string()))?;
     let columns = columns.unwrap_or_else(|| (panels.len() as f64).sqrt().ceil().max(1.0) as usize);
