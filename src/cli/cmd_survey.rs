@@ -612,3 +612,69 @@ pub fn survey_text<E: SurveyRecord>(
     }
     out
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::math::poly::mono::Mono;
+    use crate::math::quotient::survey::SurveySummary;
+    use num_bigint::BigInt;
+    use num_rational::BigRational;
+
+    /// The layout of the counterexamples, which no survey up to n = 11 has (see
+    /// the README): records handed out in reverse order, two of them with a
+    /// negative coefficient (made up for the layout, not mathematics), written
+    /// as the collected text and JSON write them.
+    #[test]
+    fn counterexamples_are_laid_out_as_when_collected() {
+        let int = |c: i64| BigRational::from_integer(BigInt::from(c));
+        let record = |w: &str, negatives: Vec<(Mono, BigRational)>| SurveySummary {
+            perm: Perm::parse(w).unwrap_or_else(|_| Perm::identity(3)),
+            terms: 2,
+            sum: int(1),
+            negatives,
+        };
+        let x3 = Mono::from_exps(&[0, 0, 1]).unwrap_or(Mono(0));
+        let records = vec![
+            record("123", vec![]),
+            record("132", vec![(x3, int(-1))]),
+            record("213", vec![]),
+            record("231", vec![(x3, int(-2)), (Mono(0), int(-3))]),
+        ];
+        let walk = |_: &[Perm],
+                    _: &Progress,
+                    each: &mut dyn FnMut(usize, SurveySummary) -> Result<(), CliError>|
+         -> Result<(), CliError> {
+            for (i, r) in records.iter().enumerate().rev() {
+                each(i, r.clone())?;
+            }
+            Ok(())
+        };
+        let perms: Vec<Perm> = records.iter().map(|r| r.perm.clone()).collect();
+        for format in [Format::Text, Format::Json] {
+            let job = Job {
+                n: 3,
+                shard: "1/1".into(),
+                listed_total: 4,
+                summary: true,
+                format,
+            };
+            let mut buf = Vec::new();
+            let mut sink = Sink::new(&mut buf, "a buffer");
+            let wrote = stream(&job, &perms, &mut sink, &walk, &|_| None, &|_| None);
+            assert!(wrote.is_ok());
+            let expected = match format {
+                Format::Json => {
+                    json::render(&survey_document(3, "1/1", 4, &records, &|_| None)) + "\n"
+                }
+                _ => survey_text(3, "1/1", &records, true, &|_| None),
+            };
+            let got = String::from_utf8(buf).unwrap_or_default();
+            assert_eq!(got, expected);
+            assert!(
+                got.contains("2 with a negative coefficient")
+                    || got.contains("\"all_nonnegative\":false")
+            );
+        }
+    }
+}
