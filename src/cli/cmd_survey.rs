@@ -4,22 +4,34 @@
 //!
 //! From n = 9 on only the w with ℓ(w) <= n − 1 are listed (the others reduce to 0).
 //!
+//! The walk finds the records level by level (by length), the listing is in
+//! lexicographic order, and the heading names totals known only at the end: so
+//! each record's row is rendered as soon as it is found, kept by listing position
+//! in an [`output::Reorder`] (memory, then a temporary file) and the record
+//! dropped; then the heading, the rows in listing order and the counterexamples
+//! are written through the [`Sink`]. The output is byte for byte that of the
+//! collected [`survey_json`], [`survey_text`] and [`survey_table`].
+//!
 //! Ctrl-C stops the run: stderr says how far it got, the exit status is 130 and nothing
-//! is printed on stdout.
+//! is printed on stdout (or, once writing has begun, the output is cut short).
 
 use super::args::SurveyArgs;
 use super::documents::SURVEY_KIND;
 use super::error::CliError;
 use super::interrupt;
 use super::json;
+use super::output::{Reorder, Sink};
 use super::shard::Shard;
-use crate::math::Perm;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::survey::{
-    FULL_LISTING_MAX_N, SurveyEntry, SurveyRecord, survey, survey_listing, survey_summaries,
+    FULL_LISTING_MAX_N, SurveyEntry, SurveyRecord, survey_each, survey_listing,
+    survey_summaries_each,
 };
+use crate::math::{Perm, Progress};
 use crate::tables::results::survey_table;
+use crate::tables::table::Table;
 use serde_json::{Value, json};
+use std::sync::Arc;
 
 fn negatives_json<E: SurveyRecord>(e: &E, n: usize) -> Vec<Value> {
     e.negatives()
@@ -28,8 +40,28 @@ fn negatives_json<E: SurveyRecord>(e: &E, n: usize) -> Vec<Value> {
         .collect()
 }
 
-/// Runs the command.
-pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
+/// The end of every LaTeX table, after its rows.
+const LATEX_END: &str = "\\hline\n\\end{tabular}\n";
+
+/// What one run writes: n, the piece, the listing's size and the format.
+struct Job {
+    n: usize,
+    shard: String,
+    listed_total: usize,
+    summary: bool,
+    format: Format,
+}
+
+#[derive(Clone, Copy, PartialEq, Eq)]
+enum Format {
+    Text,
+    Json,
+    Csv,
+    Latex,
+}
+
+/// Runs the command, writing the survey through `sink`.
+pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let shard = Shard::of_arg(args.shard.as_deref())?;
     let (n, perms): (usize, Vec<Perm>) = match (&args.perm, args.n) {
         (Some(text), _) => {
@@ -75,53 +107,398 @@ pub fn run(args: &SurveyArgs) -> Result<String, CliError> {
         .filter(|(i, _)| shard.selects(*i))
         .map(|(_, w)| w)
         .collect();
-    let shard_text = format!("{}/{}", shard.index, shard.count);
-    let extra = |v: &mut Value| {
-        if n > FULL_LISTING_MAX_N
-            && let Some(obj) = v.as_object_mut()
-        {
-            obj.insert("version".into(), json!(env!("CARGO_PKG_VERSION")));
-            obj.insert("listed_total".into(), json!(listed_total));
-            obj.insert("listing".into(), json!(listing_name(n)));
+    let format = if args.output.json {
+        Format::Json
+    } else if args.output.csv {
+        Format::Csv
+    } else if args.output.latex {
+        Format::Latex
+    } else {
+        Format::Text
+    };
+    let job = Job {
+        n,
+        shard: format!("{}/{}", shard.index, shard.count),
+        listed_total,
+        summary: args.summary,
+        format,
+    };
+    let summary = args.summary;
+    match format {
+        // the summary needs no normal form kept: the compact records
+        Format::Text | Format::Json if summary => stream(
+            &job,
+            &perms,
+            sink,
+            &|p, progress, each| survey_summaries_each(p, progress, each),
+            &|_| None,
+            &|_| None,
+        ),
+        Format::Text | Format::Json => stream(
+            &job,
+            &perms,
+            sink,
+            &|p, progress, each| survey_each(p, progress, each),
+            &|e: &SurveyEntry| Some(e.normal_form.poly.to_string()),
+            &|e: &SurveyEntry| Some(json::poly(&e.normal_form.poly)),
+        ),
+        Format::Csv | Format::Latex => {
+            let row = TableRow::new(n, summary, format == Format::Latex);
+            stream_table(&job, &perms, sink, &row)
+        }
+    }
+}
+
+/// Walks the survey, handing each record to `each` with its listing position.
+type WalkFn<'a, E> = dyn Fn(&[Perm], &Progress, &mut dyn FnMut(usize, E) -> Result<(), CliError>) -> Result<(), CliError>
+    + 'a;
+
+/// The survey as text or JSON: rows rendered as the walk finds them, then written.
+fn stream<E: SurveyRecord>(
+    job: &Job,
+    perms: &[Perm],
+    sink: &mut Sink<'_>,
+    walk: &WalkFn<'_, E>,
+    text_nf: &dyn Fn(&E) -> Option<String>,
+    json_nf: &dyn Fn(&E) -> Option<Value>,
+) -> Result<(), CliError> {
+    let n = job.n;
+    let json_out = job.format == Format::Json;
+    let row = |e: &E| {
+        if json_out {
+            json::render(&result_json(e, json_nf))
+        } else {
+            text_row(e, text_nf)
         }
     };
-    let table_asked = args.output.csv || args.output.latex;
-    if args.summary && !table_asked {
-        // the summary needs no normal form kept: the compact records
-        let entries = interrupt::run_interruptible(
+    let counterexample = |e: &E| {
+        if json_out {
+            json::render(&counterexample_json(e, n))
+        } else {
+            counterexample_text(e, n)
+        }
+    };
+    let progress = Arc::new(Progress::new(perms.len() as u64));
+    let _watch = interrupt::watch(progress.clone());
+    let mut store = collect_rows(perms, walk, &row, &counterexample, &progress)?;
+    let bad = store.extras();
+    let count = perms.len();
+    if json_out {
+        let (head, tail) = json_frame(job, count, bad);
+        let frame = Frame {
+            head: &head,
+            sep: ",",
+            between: "],\"counterexamples\":[",
+            extra_sep: ",",
+            tail: &tail,
+        };
+        write_out(sink, &mut store, &progress, &frame)
+    } else {
+        let head = text_head(job, count, bad);
+        let frame = Frame {
+            head: &head,
+            sep: "",
+            between: if bad > 0 {
+                "\ncounterexamples (negative coefficients):\n"
+            } else {
+                ""
+            },
+            extra_sep: "",
+            tail: "",
+        };
+        write_out(sink, &mut store, &progress, &frame)
+    }
+}
+
+/// The survey as CSV or LaTeX (full records: the table's rows), rendered as the
+/// walk finds them, then written.
+fn stream_table(
+    job: &Job,
+    perms: &[Perm],
+    sink: &mut Sink<'_>,
+    row: &TableRow,
+) -> Result<(), CliError> {
+    let walk = |p: &[Perm],
+                progress: &Progress,
+                each: &mut dyn FnMut(usize, SurveyEntry) -> Result<(), CliError>| {
+        survey_each(p, progress, each)
+    };
+    let render = |e: &SurveyEntry| row.of(e);
+    let progress = Arc::new(Progress::new(perms.len() as u64));
+    let _watch = interrupt::watch(progress.clone());
+    let mut store = collect_rows(perms, &walk, &render, &|_| String::new(), &progress)?;
+    let head = row.head(perms.len());
+    let frame = Frame {
+        head: &head,
+        sep: "",
+        between: "",
+        extra_sep: "",
+        tail: if job.format == Format::Latex {
+            LATEX_END
+        } else {
+            ""
+        },
+    };
+    write_out(sink, &mut store, &progress, &frame)
+}
+
+/// Runs the walk, keeping each record's row (and, for a counterexample, its
+/// line) by listing position; nothing is written yet.
+fn collect_rows<E: SurveyRecord>(
+    perms: &[Perm],
+    walk: &WalkFn<'_, E>,
+    row: &dyn Fn(&E) -> String,
+    counterexample: &dyn Fn(&E) -> String,
+    progress: &Progress,
+) -> Result<Reorder, CliError> {
+    let mut store = Reorder::new(perms.len());
+    let walked = walk(perms, progress, &mut |i, e| {
+        store.row(i, &row(&e))?;
+        if !e.nonnegative() {
+            store.extra(i, &counterexample(&e))?;
+        }
+        Ok(())
+    });
+    walked.map_err(|e| {
+        interrupt::or_canceled(e, "the survey", "permutations", progress, 0, "rows")
+    })?;
+    Ok(store)
+}
+
+/// The text around the rows: before them, between two rows, between the rows
+/// and the counterexamples, between two counterexamples, after them.
+struct Frame<'a> {
+    head: &'a str,
+    sep: &'a str,
+    between: &'a str,
+    extra_sep: &'a str,
+    tail: &'a str,
+}
+
+/// Writes the frame's head, the rows, the counterexamples and its tail, then
+/// ends the line; a cancel stops it between two rows.
+fn write_out(
+    sink: &mut Sink<'_>,
+    store: &mut Reorder,
+    progress: &Progress,
+    frame: &Frame<'_>,
+) -> Result<(), CliError> {
+    let written = std::cell::Cell::new(0u64);
+    let mut check = |k: u64| -> Result<(), CliError> {
+        written.set(k);
+        if k > 0 {
+            progress.check()?;
+        }
+        Ok(())
+    };
+    let mut wrote = progress.check().map_err(CliError::from);
+    if wrote.is_ok() {
+        wrote = (|| {
+            sink.text(frame.head)?;
+            store.write_rows(sink, frame.sep, &mut check)?;
+            sink.text(frame.between)?;
+            store.write_extras(sink, frame.extra_sep)?;
+            sink.text(frame.tail)?;
+            sink.end_line()
+        })();
+    }
+    wrote.map_err(|e| {
+        interrupt::or_canceled(
+            e,
             "the survey",
             "permutations",
-            perms.len() as u64,
-            |progress| survey_summaries(&perms, progress),
-        )?;
-        if args.output.json {
-            let mut v = survey_json(n, &shard_text, &entries, &|_| None);
-            extra(&mut v);
-            return Ok(json::render(&v));
-        }
-        return Ok(survey_text(n, &shard_text, &entries, true, &|_| None));
+            progress,
+            written.get(),
+            "rows",
+        )
+    })
+}
+
+/// One result of the JSON, `"normal_form"` last when `normal_form` gives one.
+fn result_json<E: SurveyRecord>(e: &E, normal_form: &dyn Fn(&E) -> Option<Value>) -> Value {
+    let mut v = json!({
+        "perm": e.perm().one_line(),
+        "length": e.perm().length(),
+        "nonnegative": e.nonnegative(),
+        "terms": e.terms(),
+        "sum": e.sum().to_string(),
+    });
+    if let Some(p) = normal_form(e) {
+        v["normal_form"] = p;
     }
-    let entries = interrupt::run_interruptible(
-        "the survey",
-        "permutations",
-        perms.len() as u64,
-        |progress| survey(&perms, progress),
-    )?;
-    let summary = args.summary;
-    if args.output.json {
-        let nf = |e: &SurveyEntry| (!summary).then(|| json::poly(&e.normal_form.poly));
-        let mut v = survey_json(n, &shard_text, &entries, &nf);
-        extra(&mut v);
-        return Ok(json::render(&v));
+    v
+}
+
+/// One counterexample of the JSON.
+fn counterexample_json<E: SurveyRecord>(e: &E, n: usize) -> Value {
+    json!({"perm": e.perm().one_line(), "negative_coefficients": negatives_json(e, n)})
+}
+
+/// The JSON object without its results and counterexamples, rendered and cut
+/// where they go: the text before the first result and after the last counterexample.
+fn json_frame(job: &Job, count: usize, bad: usize) -> (String, String) {
+    let mut v = json!({
+        "kind": SURVEY_KIND,
+        "n": job.n,
+        "shard": job.shard,
+        "count": count,
+        "all_nonnegative": bad == 0,
+        "results": [],
+        "counterexamples": [],
+    });
+    add_listing(&mut v, job.n, job.listed_total);
+    let whole = json::render(&v);
+    let gap = "\"results\":[],\"counterexamples\":[]";
+    match whole.find(gap) {
+        Some(at) => (
+            format!("{}\"results\":[", &whole[..at]),
+            whole[at + gap.len() - 1..].to_string(),
+        ),
+        None => (whole, String::new()),
     }
-    if let Some(out) = args
-        .output
-        .table(|| survey_table(n, &entries, args.summary))
+}
+
+/// From n = 9 on, the JSON names the listing, its size and the version.
+fn add_listing(v: &mut Value, n: usize, listed_total: usize) {
+    if n > FULL_LISTING_MAX_N
+        && let Some(obj) = v.as_object_mut()
     {
-        return Ok(out);
+        obj.insert("version".into(), json!(env!("CARGO_PKG_VERSION")));
+        obj.insert("listed_total".into(), json!(listed_total));
+        obj.insert("listing".into(), json!(listing_name(n)));
     }
-    let nf = |e: &SurveyEntry| (!summary).then(|| e.normal_form.poly.to_string());
-    Ok(survey_text(n, &shard_text, &entries, summary, &nf))
+}
+
+/// The text output's heading and column names.
+fn text_head(job: &Job, count: usize, bad: usize) -> String {
+    let n = job.n;
+    let mut out = format!(
+        "normal forms of S_w(x{n}, ..., x1) modulo J_{n} (piece {}): {count} {}, {bad} with a negative coefficient\n\n",
+        job.shard,
+        if count == 1 {
+            "permutation"
+        } else {
+            "permutations"
+        },
+    );
+    if n > FULL_LISTING_MAX_N {
+        out.push_str(&format!(
+            "(listed: the w with ℓ(w) <= {}; every S_w of degree >= {n} lies in J_{n})\n\n",
+            n - 1
+        ));
+    }
+    out.push_str(&format!(
+        "{:<10} {:>3} {:>6} {:>8} {:>6}{}\n",
+        "w",
+        "ℓ",
+        "terms",
+        "sum",
+        "≥ 0",
+        if job.summary { "" } else { "  normal form" }
+    ));
+    out
+}
+
+/// One row of the text output.
+fn text_row<E: SurveyRecord>(e: &E, normal_form: &dyn Fn(&E) -> Option<String>) -> String {
+    let mut out = format!(
+        "{:<10} {:>3} {:>6} {:>8} {:>6}",
+        e.perm().to_string(),
+        e.perm().length(),
+        e.terms(),
+        e.sum().to_string(),
+        if e.nonnegative() { "yes" } else { "NO" }
+    );
+    if let Some(p) = normal_form(e) {
+        out.push_str(&format!("  {p}"));
+    }
+    out.push('\n');
+    out
+}
+
+/// One counterexample line of the text output.
+fn counterexample_text<E: SurveyRecord>(e: &E, n: usize) -> String {
+    let negs: Vec<String> = e
+        .negatives()
+        .iter()
+        .map(|(m, c)| format!("{c}·{}", m.text(n)))
+        .collect();
+    format!("  {}: {}\n", e.perm(), negs.join(", "))
+}
+
+/// The rows of [`survey_table`] one at a time, as its CSV or LaTeX renders them.
+struct TableRow {
+    n: usize,
+    summary: bool,
+    latex: bool,
+    /// Where the rows go in the rendering of the table without rows or comments,
+    /// and how much follows them.
+    at: usize,
+    after: usize,
+}
+
+impl TableRow {
+    fn new(n: usize, summary: bool, latex: bool) -> TableRow {
+        let mut row = TableRow {
+            n,
+            summary,
+            latex,
+            at: 0,
+            after: 0,
+        };
+        let empty = row.render(&row.bare(&[]));
+        row.after = if latex && empty.ends_with(LATEX_END) {
+            LATEX_END.len()
+        } else {
+            0
+        };
+        row.at = empty.len() - row.after;
+        row
+    }
+
+    fn bare(&self, entries: &[SurveyEntry]) -> Table {
+        let mut t = survey_table(self.n, entries, self.summary);
+        t.comments.clear();
+        t
+    }
+
+    fn render(&self, t: &Table) -> String {
+        if self.latex { t.to_latex() } else { t.to_csv() }
+    }
+
+    /// The text of the row of e.
+    fn of(&self, e: &SurveyEntry) -> String {
+        let whole = self.render(&self.bare(std::slice::from_ref(e)));
+        let end = whole.len().saturating_sub(self.after);
+        whole.get(self.at..end).unwrap_or("").to_string()
+    }
+
+    /// The table's text before its rows, its comment naming `count` permutations.
+    fn head(&self, count: usize) -> String {
+        let mut t = survey_table(self.n, &[], self.summary);
+        for c in &mut t.comments {
+            if let Some(stem) = c.strip_suffix(" 0 permutations") {
+                *c = format!("{stem} {count} permutations");
+            }
+        }
+        let whole = self.render(&t);
+        whole[..whole.len() - self.after].to_string()
+    }
+}
+
+/// The collected JSON document of a survey of S_n whose listing has `listed_total`
+/// permutations: [`survey_json`] with, from n = 9 on, the listing's name, size and
+/// the version. The command writes the same text as it goes.
+pub fn survey_document<E: SurveyRecord>(
+    n: usize,
+    shard: &str,
+    listed_total: usize,
+    entries: &[E],
+    normal_form: &dyn Fn(&E) -> Option<Value>,
+) -> Value {
+    let mut v = survey_json(n, shard, entries, normal_form);
+    add_listing(&mut v, n, listed_total);
+    v
 }
 
 /// Which permutations the survey of S_n lists (the `"listing"` of the JSON).
@@ -175,7 +552,8 @@ pub fn survey_json<E: SurveyRecord>(
     })
 }
 
-fn survey_text<E: SurveyRecord>(
+/// The collected text output of a survey (the command writes the same text as it goes).
+pub fn survey_text<E: SurveyRecord>(
     n: usize,
     shard: &str,
     entries: &[E],
@@ -233,4 +611,70 @@ fn survey_text<E: SurveyRecord>(
         }
     }
     out
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::math::poly::mono::Mono;
+    use crate::math::quotient::survey::SurveySummary;
+    use num_bigint::BigInt;
+    use num_rational::BigRational;
+
+    /// The layout of the counterexamples, which no survey up to n = 11 has (see
+    /// the README): records handed out in reverse order, two of them with a
+    /// negative coefficient (made up for the layout, not mathematics), written
+    /// as the collected text and JSON write them.
+    #[test]
+    fn counterexamples_are_laid_out_as_when_collected() {
+        let int = |c: i64| BigRational::from_integer(BigInt::from(c));
+        let record = |w: &str, negatives: Vec<(Mono, BigRational)>| SurveySummary {
+            perm: Perm::parse(w).unwrap_or_else(|_| Perm::identity(3)),
+            terms: 2,
+            sum: int(1),
+            negatives,
+        };
+        let x3 = Mono::from_exps(&[0, 0, 1]).unwrap_or(Mono(0));
+        let records = vec![
+            record("123", vec![]),
+            record("132", vec![(x3, int(-1))]),
+            record("213", vec![]),
+            record("231", vec![(x3, int(-2)), (Mono(0), int(-3))]),
+        ];
+        let walk = |_: &[Perm],
+                    _: &Progress,
+                    each: &mut dyn FnMut(usize, SurveySummary) -> Result<(), CliError>|
+         -> Result<(), CliError> {
+            for (i, r) in records.iter().enumerate().rev() {
+                each(i, r.clone())?;
+            }
+            Ok(())
+        };
+        let perms: Vec<Perm> = records.iter().map(|r| r.perm.clone()).collect();
+        for format in [Format::Text, Format::Json] {
+            let job = Job {
+                n: 3,
+                shard: "1/1".into(),
+                listed_total: 4,
+                summary: true,
+                format,
+            };
+            let mut buf = Vec::new();
+            let mut sink = Sink::new(&mut buf, "a buffer");
+            let wrote = stream(&job, &perms, &mut sink, &walk, &|_| None, &|_| None);
+            assert!(wrote.is_ok());
+            let expected = match format {
+                Format::Json => {
+                    json::render(&survey_document(3, "1/1", 4, &records, &|_| None)) + "\n"
+                }
+                _ => survey_text(3, "1/1", &records, true, &|_| None),
+            };
+            let got = String::from_utf8(buf).unwrap_or_default();
+            assert_eq!(got, expected);
+            assert!(
+                got.contains("2 with a negative coefficient")
+                    || got.contains("\"all_nonnegative\":false")
+            );
+        }
+    }
 }

@@ -77,7 +77,7 @@ pub fn run(argv: Vec<OsString>) -> ExitCode {
 }
 
 /// Runs a parsed command, writing what it prints to `sink`. Commands with long
-/// listings (`hessenberg`, `words`, `dreams`) write their rows as they come; the
+/// listings (`hessenberg`, `words`, `dreams`, `survey`) write their rows as they come; the
 /// others return one string, written whole and ended with a newline.
 pub fn execute(command: &Command, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let whole = match command {
@@ -94,7 +94,7 @@ pub fn execute(command: &Command, sink: &mut Sink<'_>) -> Result<(), CliError> {
         Command::Merge(a) => return cmd_merge::run(a, sink),
         Command::Quotient(a) => cmd_quotient::run(a),
         Command::Reduce(a) => cmd_reduce::run(a),
-        Command::Survey(a) => cmd_survey::run(a),
+        Command::Survey(a) => return cmd_survey::run(a, sink),
         Command::Session(a) => cmd_session::run(a),
         Command::Figure(a) => cmd_figure::run(a),
     }?;

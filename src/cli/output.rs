@@ -121,6 +121,223 @@ impl<'a> Sink<'a> {
     }
 }
 
+/// Rendered rows kept in memory up to this many bytes; beyond, they go to a
+/// temporary file.
+pub const KEPT_IN_MEMORY: usize = 8 << 20;
+
+/// The environment variable that sets another [`KEPT_IN_MEMORY`] (bytes; `0`:
+/// every row goes to the temporary file), so that tests reach the file with
+/// small listings.
+pub const KEPT_IN_MEMORY_ENV: &str = "ELBOWROOM_ROWS_IN_MEMORY";
+
+/// Rows produced out of order (each one's text rendered at once), written back
+/// in listing order: kept in memory up to [`KEPT_IN_MEMORY`] bytes, then in a
+/// temporary file in [`std::env::temp_dir`] (removed when done), so what is held
+/// is 16 bytes a listing position, whatever the rows' length. Besides the rows,
+/// a few positions may carry a second text (a survey's counterexamples), written
+/// after all the rows, in listing order too.
+pub struct Reorder {
+    limit: usize,
+    memory: Vec<u8>,
+    file: Option<Spill>,
+    /// Where the store ends (memory, then the file).
+    end: u64,
+    /// (offset, length) of each position's row; `u64::MAX` while it has none.
+    rows: Vec<(u64, u64)>,
+    /// (position, offset, length) of the second texts, in the order given.
+    extras: Vec<(usize, u64, u64)>,
+    read: Vec<u8>,
+}
+
+/// The temporary file of a [`Reorder`].
+struct Spill {
+    path: std::path::PathBuf,
+    file: std::io::BufWriter<std::fs::File>,
+}
+
+impl Drop for Spill {
+    fn drop(&mut self) {
+        // on Unix it was unlinked at once; elsewhere it goes now
+        #[cfg(not(unix))]
+        let _ = std::fs::remove_file(&self.path);
+    }
+}
+
+impl Reorder {
+    /// A store for the rows of `positions` listing positions, keeping
+    /// [`KEPT_IN_MEMORY`] bytes (or what [`KEPT_IN_MEMORY_ENV`] says) in memory.
+    pub fn new(positions: usize) -> Reorder {
+        let limit = std::env::var(KEPT_IN_MEMORY_ENV)
+            .ok()
+            .and_then(|v| v.parse().ok())
+            .unwrap_or(KEPT_IN_MEMORY);
+        Reorder::with_limit(positions, limit)
+    }
+
+    /// A store keeping up to `limit` bytes in memory.
+    pub fn with_limit(positions: usize, limit: usize) -> Reorder {
+        Reorder {
+            limit,
+            memory: Vec::new(),
+            file: None,
+            end: 0,
+            rows: vec![(u64::MAX, 0); positions],
+            extras: Vec::new(),
+            read: Vec::new(),
+        }
+    }
+
+    /// Whether the rows went to a temporary file.
+    pub fn spilled(&self) -> bool {
+        self.file.is_some()
+    }
+
+    fn spill_error(path: &std::path::Path, e: std::io::Error) -> CliError {
+        CliError::Failed(format!(
+            "cannot write the temporary file {}: {e}",
+            path.display()
+        ))
+    }
+
+    /// Appends text to the store; where it starts.
+    fn append(&mut self, text: &str) -> Result<u64, CliError> {
+        let at = self.end;
+        if self.file.is_none() && self.memory.len() + text.len() > self.limit {
+            let path = std::env::temp_dir().join(format!(
+                "elbowroom-rows-{}-{}.tmp",
+                std::process::id(),
+                std::time::SystemTime::now()
+                    .duration_since(std::time::UNIX_EPOCH)
+                    .map_or(0, |d| d.as_nanos())
+            ));
+            let file = std::fs::OpenOptions::new()
+                .read(true)
+                .write(true)
+                .create_new(true)
+                .open(&path)
+                .map_err(|e| Reorder::spill_error(&path, e))?;
+            #[cfg(unix)]
+            let _ = std::fs::remove_file(&path);
+            let mut spill = Spill {
+                path,
+                file: std::io::BufWriter::with_capacity(BUFFER, file),
+            };
+            if let Err(e) = spill.file.write_all(&self.memory) {
+                return Err(Reorder::spill_error(&spill.path, e));
+            }
+            self.memory = Vec::new();
+            self.file = Some(spill);
+        }
+        match self.file.as_mut() {
+            Some(spill) => {
+                if let Err(e) = spill.file.write_all(text.as_bytes()) {
+                    return Err(Reorder::spill_error(&spill.path, e));
+                }
+            }
+            None => self.memory.extend_from_slice(text.as_bytes()),
+        }
+        self.end += text.len() as u64;
+        Ok(at)
+    }
+
+    /// Keeps the row of listing position `i`.
+    pub fn row(&mut self, i: usize, text: &str) -> Result<(), CliError> {
+        if i >= self.rows.len() {
+            return Err(CliError::Failed(format!(
+                "internal: row {i} of a listing of {}",
+                self.rows.len()
+            )));
+        }
+        let at = self.append(text)?;
+        self.rows[i] = (at, text.len() as u64);
+        Ok(())
+    }
+
+    /// Keeps a second text for listing position `i`.
+    pub fn extra(&mut self, i: usize, text: &str) -> Result<(), CliError> {
+        let at = self.append(text)?;
+        self.extras.push((i, at, text.len() as u64));
+        Ok(())
+    }
+
+    /// The number of second texts kept.
+    pub fn extras(&self) -> usize {
+        self.extras.len()
+    }
+
+    fn fetch(&mut self, at: u64, len: u64) -> Result<&str, CliError> {
+        let bytes: &[u8] = match self.file.as_mut() {
+            None => self
+                .memory
+                .get(at as usize..(at + len) as usize)
+                .unwrap_or(&[]),
+            Some(spill) => {
+                use std::io::{Read, Seek, SeekFrom};
+                let failed = |path: &std::path::Path, e: std::io::Error| {
+                    CliError::Failed(format!(
+                        "cannot read the temporary file {}: {e}",
+                        path.display()
+                    ))
+                };
+                if let Err(e) = spill.file.flush() {
+                    return Err(Reorder::spill_error(&spill.path, e));
+                }
+                let file = spill.file.get_mut();
+                self.read.resize(len as usize, 0);
+                if let Err(e) = file
+                    .seek(SeekFrom::Start(at))
+                    .and_then(|_| file.read_exact(&mut self.read))
+                {
+                    return Err(failed(&spill.path, e));
+                }
+                &self.read
+            }
+        };
+        std::str::from_utf8(bytes)
+            .map_err(|_| CliError::Failed("internal: a kept row is not text".into()))
+    }
+
+    /// Writes the rows in listing order to `sink`, `sep` between two, each one
+    /// after `before(k)` (k rows written so far: a cancel check); every position
+    /// must have its row.
+    pub fn write_rows(
+        &mut self,
+        sink: &mut Sink<'_>,
+        sep: &str,
+        before: &mut dyn FnMut(u64) -> Result<(), CliError>,
+    ) -> Result<(), CliError> {
+        for i in 0..self.rows.len() {
+            let (at, len) = self.rows[i];
+            if at == u64::MAX {
+                return Err(CliError::Failed(format!(
+                    "internal: listing position {i} has no row"
+                )));
+            }
+            before(i as u64)?;
+            if i > 0 {
+                sink.text(sep)?;
+            }
+            let text = self.fetch(at, len)?;
+            sink.text(text)?;
+        }
+        Ok(())
+    }
+
+    /// Writes the second texts in listing order, `sep` between two.
+    pub fn write_extras(&mut self, sink: &mut Sink<'_>, sep: &str) -> Result<(), CliError> {
+        let mut extras = std::mem::take(&mut self.extras);
+        extras.sort_by_key(|e| e.0);
+        for (k, &(_, at, len)) in extras.iter().enumerate() {
+            if k > 0 {
+                sink.text(sep)?;
+            }
+            let text = self.fetch(at, len)?;
+            sink.text(text)?;
+        }
+        Ok(())
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -151,5 +368,46 @@ mod tests {
         sink.whole("a").unwrap();
         sink.whole("b\n").unwrap();
         assert_eq!(buf, b"a\nb\n");
+    }
+
+    /// Rows given out of order come back in listing order, the same from memory
+    /// and from the temporary file; the second texts after them, in order too.
+    #[test]
+    fn rows_come_back_in_listing_order() {
+        let order = [3usize, 0, 4, 1, 2];
+        for limit in [usize::MAX, 0, 7] {
+            let mut store = Reorder::with_limit(order.len(), limit);
+            for &i in &order {
+                store.row(i, &format!("row {i};")).unwrap();
+                if i % 2 == 0 {
+                    store.extra(i, &format!("extra {i}")).unwrap();
+                }
+            }
+            assert_eq!(store.spilled(), limit != usize::MAX);
+            assert_eq!(store.extras(), 3);
+            let mut buf = Vec::new();
+            let mut sink = Sink::new(&mut buf, "a buffer");
+            let mut seen = Vec::new();
+            store
+                .write_rows(&mut sink, "|", &mut |k| {
+                    seen.push(k);
+                    Ok(())
+                })
+                .unwrap();
+            sink.text(" / ").unwrap();
+            store.write_extras(&mut sink, ",").unwrap();
+            assert_eq!(seen, vec![0, 1, 2, 3, 4]);
+            assert_eq!(
+                String::from_utf8(buf).unwrap(),
+                "row 0;|row 1;|row 2;|row 3;|row 4; / extra 0,extra 2,extra 4"
+            );
+        }
+        // a position left without its row is an error, not a gap
+        let mut store = Reorder::with_limit(2, usize::MAX);
+        store.row(1, "b").unwrap();
+        let mut buf = Vec::new();
+        let mut sink = Sink::new(&mut buf, "a buffer");
+        assert!(store.write_rows(&mut sink, "", &mut |_| Ok(())).is_err());
+        assert!(store.row(2, "c").is_err());
     }
 }

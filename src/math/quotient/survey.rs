@@ -212,6 +212,11 @@ const FEW: usize = 16;
 type Sparse = Option<Arc<[(u32, i128)]>>;
 
 /// The transition walk of one survey: two levels of normal forms and the products x_k·s.
+///
+/// Each normal form of the level below is dropped once the last w of the current level
+/// that starts from it (its v) is done, and on the top level, where nothing is kept for
+/// a next one, each normal form once it is handed out and every w whose sum needs it is
+/// done: both counted before the level starts, from the transition alone.
 struct Walk<'q> {
     q: &'q QuasiGroebner,
     n: usize,
@@ -219,11 +224,97 @@ struct Walk<'q> {
     times_var: HashMap<(u8, u32), Sparse>,
     prev: HashMap<Vec<u8>, Sparse>,
     cur: HashMap<Vec<u8>, Sparse>,
+    /// How many w of the current level still start from each v of `prev`.
+    prev_uses: HashMap<Vec<u8>, u32>,
+    /// On the top level: how many uses each w of `cur` still has (its own record, and
+    /// every w of the level with it in its sum).
+    cur_uses: Option<HashMap<Vec<u8>, u32>>,
     acc: Vec<i128>,
     touched: Vec<u32>,
 }
 
-impl Walk<'_> {
+/// The transition of w of length >= 1: v = w·t_{rs} and the terms v·t_{qr} of its sum.
+fn transition(w: &[u8]) -> Option<(usize, Vec<u8>, Vec<Vec<u8>>)> {
+    let (r, s) = pivot(w)?;
+    let mut v = w.to_vec();
+    v.swap(r, s);
+    let others = partners(&v, r)
+        .map(|q| {
+            let mut u = v.clone();
+            u.swap(q, r);
+            u
+        })
+        .collect();
+    Some((r, v, others))
+}
+
+/// Takes one use of `key` off `uses`; true when it was the last.
+fn release(uses: &mut HashMap<Vec<u8>, u32>, key: &[u8]) -> bool {
+    match uses.get_mut(key) {
+        Some(c) if *c > 1 => {
+            *c -= 1;
+            false
+        }
+        Some(_) => {
+            uses.remove(key);
+            true
+        }
+        None => false,
+    }
+}
+
+impl<'q> Walk<'q> {
+    fn new(q: &'q QuasiGroebner, n: usize) -> Walk<'q> {
+        Walk {
+            q,
+            n,
+            times_var: HashMap::new(),
+            prev: HashMap::new(),
+            cur: HashMap::new(),
+            prev_uses: HashMap::new(),
+            cur_uses: None,
+            acc: vec![0; q.basis().len()],
+            touched: Vec::new(),
+        }
+    }
+
+    /// Moves on to the permutations of length `level`: the finished level becomes the
+    /// level below, the products of the degree before it are dropped, and the uses of
+    /// what is kept are counted.
+    fn next_level(&mut self, level: usize, top: bool) {
+        self.prev = std::mem::take(&mut self.cur);
+        self.times_var.clear();
+        self.prev_uses.clear();
+        let mut cur_uses: HashMap<Vec<u8>, u32> = HashMap::new();
+        for w in perms_of_length(self.n, level) {
+            let Some((_, v, others)) = transition(w.as_bytes()) else {
+                continue;
+            };
+            *self.prev_uses.entry(v).or_default() += 1;
+            if top {
+                *cur_uses.entry(w.as_bytes().to_vec()).or_default() += 1;
+                for u in others {
+                    *cur_uses.entry(u).or_default() += 1;
+                }
+            }
+        }
+        self.prev.retain(|v, _| self.prev_uses.contains_key(v));
+        self.cur_uses = top.then_some(cur_uses);
+    }
+
+    /// The record of w is handed out: on the top level its normal form may go.
+    fn done_with(&mut self, w: &[u8]) {
+        self.release_cur(w);
+    }
+
+    fn release_cur(&mut self, w: &[u8]) {
+        if let Some(uses) = self.cur_uses.as_mut()
+            && release(uses, w)
+        {
+            self.cur.remove(w);
+        }
+    }
+
     /// NF(x_k·s) for the standard monomial at basis position s.
     fn times(&mut self, k: u8, s: u32, progress: &Progress) -> MathResult<Sparse> {
         if let Some(x) = self.times_var.get(&(k, s)) {
@@ -244,18 +335,9 @@ impl Walk<'_> {
             return Ok(x.clone());
         }
         progress.check()?;
-        let Some((r, s)) = pivot(w) else {
+        let Some((r, v, others)) = transition(w) else {
             return Ok(Some(Arc::from(vec![(0u32, 1i128)].into_boxed_slice())));
         };
-        let mut v = w.to_vec();
-        v.swap(r, s);
-        let others: Vec<Vec<u8>> = partners(&v, r)
-            .map(|q| {
-                let mut u = v.clone();
-                u.swap(q, r);
-                u
-            })
-            .collect();
         let mut parts = Vec::with_capacity(others.len());
         for u in &others {
             parts.push(self.normal_form(u, progress)?);
@@ -265,9 +347,15 @@ impl Walk<'_> {
                 "internal: the transition left the levels at {v:?}"
             )));
         };
+        if release(&mut self.prev_uses, &v) {
+            self.prev.remove(&v);
+        }
         let k = (self.n - 1 - r) as u8;
         let out = self.combine(base, k, &parts, progress)?;
         self.cur.insert(w.to_vec(), out.clone());
+        for u in &others {
+            self.release_cur(u);
+        }
         Ok(out)
     }
 
@@ -348,7 +436,8 @@ fn to_normal_form(q: &QuasiGroebner, v: &[(u32, i128)]) -> NormalForm {
     NormalForm { poly, coefficients }
 }
 
-/// Surveys the given permutations (all of the same size n <= 11), in order.
+/// Surveys the given permutations (all of the same size n <= 11), in order: the
+/// records of [`survey_each`] collected.
 ///
 /// ```
 /// use elbowroom::math::{Perm, Progress, quotient::survey::survey};
@@ -361,13 +450,7 @@ fn to_normal_form(q: &QuasiGroebner, v: &[(u32, i128)]) -> NormalForm {
 /// assert_eq!(progress.done(), progress.total());
 /// ```
 pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry>> {
-    run(perms, progress, &|q, w, nf, table| match nf {
-        Some(v) => Ok(SurveyEntry {
-            perm: w.clone(),
-            normal_form: to_normal_form(q, v),
-        }),
-        None => entry_by_expansion(w, q, table),
-    })
+    collect(perms, |each| survey_each(perms, progress, each))
 }
 
 /// [`survey`] keeping only the summary of each normal form (terms, sum, negatives).
@@ -380,53 +463,129 @@ pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry
 /// assert_eq!((s[0].terms(), s[1].terms()), (1, 2));
 /// ```
 pub fn survey_summaries(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveySummary>> {
-    run(perms, progress, &|q, w, nf, table| match nf {
-        Some(v) => {
-            let basis = q.basis();
-            let int = |c: i128| BigRational::from_integer(BigInt::from(c));
-            Ok(SurveySummary {
-                perm: w.clone(),
-                terms: v.len(),
-                sum: v
-                    .iter()
-                    .fold(BigRational::zero(), |acc, &(_, c)| acc + int(c)),
-                negatives: v
-                    .iter()
-                    .filter(|t| t.1 < 0)
-                    .map(|&(i, c)| (basis[i as usize], int(c)))
-                    .collect(),
+    collect(perms, |each| survey_summaries_each(perms, progress, each))
+}
+
+/// The records handed out by a walk, put back in the order of `perms`.
+fn collect<E>(
+    perms: &[Perm],
+    walk: impl FnOnce(&mut dyn FnMut(usize, E) -> MathResult<()>) -> MathResult<()>,
+) -> MathResult<Vec<E>> {
+    let mut out: Vec<Option<E>> = (0..perms.len()).map(|_| None).collect();
+    walk(&mut |i, e| {
+        out[i] = Some(e);
+        Ok(())
+    })?;
+    out.into_iter()
+        .enumerate()
+        .map(|(i, e)| {
+            e.ok_or_else(|| {
+                MathError::InvalidInput(format!("internal: {} was not surveyed", perms[i]))
             })
-        }
-        None => entry_by_expansion(w, q, table).map(|e| SurveySummary::of(&e)),
-    })
+        })
+        .collect()
+}
+
+/// The survey of the given permutations (all of one size n <= 11), each record handed
+/// to `each` with its position in `perms` as soon as it is known: first the w with
+/// ℓ(w) >= n (normal form 0), then level by level (by length), so not in the order of
+/// `perms`. Every position is handed out exactly once; an error of `each` ends the walk.
+///
+/// ```
+/// use elbowroom::math::{Perm, Progress, quotient::survey::survey_each};
+/// let perms: Vec<Perm> = Perm::all(3).collect();
+/// let mut seen = Vec::new();
+/// survey_each(&perms, &Progress::new(0), &mut |i, e| {
+///     assert_eq!(e.perm, perms[i]);
+///     seen.push(i);
+///     Ok::<(), elbowroom::math::MathError>(())
+/// })
+/// .unwrap();
+/// seen.sort();
+/// assert_eq!(seen, vec![0, 1, 2, 3, 4, 5]);
+/// ```
+pub fn survey_each<X: From<MathError>>(
+    perms: &[Perm],
+    progress: &Progress,
+    each: &mut dyn FnMut(usize, SurveyEntry) -> Result<(), X>,
+) -> Result<(), X> {
+    run(
+        perms,
+        progress,
+        &|q, w, nf, table| match nf {
+            Some(v) => Ok(SurveyEntry {
+                perm: w.clone(),
+                normal_form: to_normal_form(q, v),
+            }),
+            None => entry_by_expansion(w, q, table),
+        },
+        each,
+    )
+}
+
+/// [`survey_each`] handing out only the summary of each normal form.
+pub fn survey_summaries_each<X: From<MathError>>(
+    perms: &[Perm],
+    progress: &Progress,
+    each: &mut dyn FnMut(usize, SurveySummary) -> Result<(), X>,
+) -> Result<(), X> {
+    run(
+        perms,
+        progress,
+        &|q, w, nf, table| match nf {
+            Some(v) => {
+                let basis = q.basis();
+                let int = |c: i128| BigRational::from_integer(BigInt::from(c));
+                Ok(SurveySummary {
+                    perm: w.clone(),
+                    terms: v.len(),
+                    sum: v
+                        .iter()
+                        .fold(BigRational::zero(), |acc, &(_, c)| acc + int(c)),
+                    negatives: v
+                        .iter()
+                        .filter(|t| t.1 < 0)
+                        .map(|&(i, c)| (basis[i as usize], int(c)))
+                        .collect(),
+                })
+            }
+            None => entry_by_expansion(w, q, table).map(|e| SurveySummary::of(&e)),
+        },
+        each,
+    )
 }
 
 /// Makes the record of w from its normal form (`None`: redo it by expansion).
 type Make<'a, E> =
     dyn Fn(&QuasiGroebner, &Perm, Option<&[(u32, i128)]>, &mut SchubertTable) -> MathResult<E> + 'a;
 
-fn run<E: Clone>(perms: &[Perm], progress: &Progress, make: &Make<'_, E>) -> MathResult<Vec<E>> {
+fn run<E: Clone, X: From<MathError>>(
+    perms: &[Perm],
+    progress: &Progress,
+    make: &Make<'_, E>,
+    each: &mut dyn FnMut(usize, E) -> Result<(), X>,
+) -> Result<(), X> {
     let Some(first) = perms.first() else {
-        return Ok(Vec::new());
+        return Ok(());
     };
     let n = first.n();
     if let Some(w) = perms.iter().find(|w| w.n() != n) {
         return Err(MathError::InvalidInput(format!(
             "a survey takes permutations of one size; {w} is not in S_{n}"
-        )));
+        ))
+        .into());
     }
     let before = progress.done();
     let q = groebner_basis_with(n, progress)?;
     progress.set_total(progress.done() - before + perms.len() as u64);
     progress.check()?;
     let mut table = SchubertTable::new();
-    let mut out: Vec<Option<E>> = vec![None; perms.len()];
     // by level: which of the requested permutations have each length
     let mut wanted: HashMap<Vec<u8>, Vec<usize>> = HashMap::new();
     let mut top = 0usize;
     for (i, w) in perms.iter().enumerate() {
         if w.length() >= n {
-            out[i] = Some(make(&q, w, Some(&[]), &mut table)?);
+            each(i, make(&q, w, Some(&[]), &mut table)?)?;
             progress.advance(1);
         } else {
             top = top.max(w.length());
@@ -436,48 +595,33 @@ fn run<E: Clone>(perms: &[Perm], progress: &Progress, make: &Make<'_, E>) -> Mat
     if !wanted.is_empty() && wanted.len() <= FEW {
         // a few permutations: expanding them is cheaper than walking every level below
         for (i, w) in perms.iter().enumerate() {
-            if out[i].is_none() {
+            if w.length() < n {
                 progress.check()?;
-                out[i] = Some(make(&q, w, None, &mut table)?);
+                each(i, make(&q, w, None, &mut table)?)?;
                 progress.advance(1);
             }
         }
     } else if !wanted.is_empty() {
-        let mut walk = Walk {
-            q: &q,
-            n,
-            times_var: HashMap::new(),
-            prev: HashMap::new(),
-            cur: HashMap::new(),
-            acc: vec![0; q.basis().len()],
-            touched: Vec::new(),
-        };
+        let mut walk = Walk::new(&q, n);
         for level in 0..=top {
-            walk.prev = std::mem::take(&mut walk.cur);
-            walk.times_var.clear();
+            walk.next_level(level, level == top);
             for w in perms_of_length(n, level) {
                 let key = w.as_bytes();
                 let nf = walk.normal_form(key, progress)?;
                 if level == 0 {
                     walk.cur.insert(key.to_vec(), nf.clone());
                 }
+                walk.done_with(key);
                 let Some(places) = wanted.get(key) else {
                     continue;
                 };
                 let e = make(&q, &w, nf.as_deref(), &mut table)?;
                 for &i in places {
-                    out[i] = Some(e.clone());
+                    each(i, e.clone())?;
                     progress.advance(1);
                 }
             }
         }
     }
-    out.into_iter()
-        .enumerate()
-        .map(|(i, e)| {
-            e.ok_or_else(|| {
-                MathError::InvalidInput(format!("internal: {} was not surveyed", perms[i]))
-            })
-        })
-        .collect()
+    Ok(())
 }
