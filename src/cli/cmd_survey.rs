@@ -179,8 +179,11 @@ fn stream<E: SurveyRecord>(
         }
     };
     let progress = Arc::new(Progress::new(perms.len() as u64));
-    let _watch = interrupt::watch(progress.clone());
+    // nothing is written while the walk runs: its progress line may be shown
+    let walking = interrupt::watch_before_output(progress.clone());
     let mut store = collect_rows(perms, walk, &row, &counterexample, &progress)?;
+    drop(walking);
+    let _watch = interrupt::watch(progress.clone());
     let bad = store.extras();
     let count = perms.len();
     if json_out {
@@ -225,8 +228,10 @@ fn stream_table(
     };
     let render = |e: &SurveyEntry| row.of(e);
     let progress = Arc::new(Progress::new(perms.len() as u64));
-    let _watch = interrupt::watch(progress.clone());
+    let walking = interrupt::watch_before_output(progress.clone());
     let mut store = collect_rows(perms, &walk, &render, &|_| String::new(), &progress)?;
+    drop(walking);
+    let _watch = interrupt::watch(progress.clone());
     let head = row.head(perms.len());
     let frame = Frame {
         head: &head,
