@@ -16,7 +16,7 @@ pub const BOX: f32 = 24.0;
 /// Space for the row and column labels.
 const MARGIN: f32 = 22.0;
 /// Space under the grid for the caption `h = (...)`.
-const CAPTION: f32 = 20.0;
+const CAPTION: f32 = 8.0;
 
 /// The top-left corner of box (row, col), 1-based.
 pub fn box_origin(row: usize, col: usize) -> Pt {
@@ -165,4 +165,92 @@ fn labels(scene: &mut Scene, h: &HessenbergFn, look: &Look) {
         look.ink(),
         Anchor::Center,
     );
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::figure::ItemKind;
+
+    fn shaded(scene: &Scene, look: &Look) -> Vec<(usize, usize)> {
+        let plain = [look.background(), look.tile()];
+        scene
+            .items
+            .iter()
+            .filter_map(|it| match (&it.kind, it.tag) {
+                (ItemKind::Path { fill: Some(f), .. }, Tag::Cell(i, j)) if !plain.contains(f) => {
+                    Some((i, j))
+                }
+                _ => None,
+            })
+            .collect()
+    }
+
+    #[test]
+    fn the_shaded_boxes_are_the_factors_of_d_h_and_count_the_dimension() {
+        // De Mari, Procesi, Shayman (Trans. AMS 1992): the regular Hessenberg variety of h
+        // has dimension Σ_i (h(i) − i), one for each box i < j <= h(i)
+        let look = Look::light();
+        for n in 1..=6 {
+            for h in HessenbergFn::all(n) {
+                let scene = hessenberg_scene(&h, &look);
+                let boxes = shaded(&scene, &look);
+                let dim: usize = h
+                    .values()
+                    .iter()
+                    .enumerate()
+                    .map(|(k, &v)| v - (k + 1))
+                    .sum();
+                assert_eq!(boxes.len(), dim, "h = {h}");
+                assert!(boxes.iter().all(|&(i, j)| i < j && j <= h.at(i)), "h = {h}");
+                let cells = scene
+                    .items
+                    .iter()
+                    .filter(|it| matches!(it.tag, Tag::Cell(..)))
+                    .count();
+                assert_eq!(cells, n * n);
+                let dots = scene
+                    .items
+                    .iter()
+                    .filter(|it| matches!(it.kind, ItemKind::Circle { .. }))
+                    .count();
+                assert_eq!(dots, n, "one dot per diagonal box");
+            }
+        }
+    }
+
+    #[test]
+    fn the_bounding_paths_are_the_dyck_paths_one_for_each_h() {
+        // Hessenberg functions of n and Dyck paths of length 2n are in bijection; there
+        // are Catalan(n) of each (OEIS A000108: 1, 2, 5, 14, 42, 132)
+        let catalan = [1, 2, 5, 14, 42, 132];
+        for n in 1..=6 {
+            let mut paths: Vec<Vec<(i32, i32)>> = HessenbergFn::all(n)
+                .iter()
+                .map(|h| {
+                    boundary(h)
+                        .iter()
+                        .map(|p| {
+                            (
+                                ((p.x - MARGIN) / BOX).round() as i32,
+                                ((p.y - MARGIN) / BOX).round() as i32,
+                            )
+                        })
+                        .collect()
+                })
+                .collect();
+            for p in &paths {
+                assert_eq!(p.first(), Some(&(0, 0)));
+                assert_eq!(p.last(), Some(&(n as i32, n as i32)));
+                // unit steps east or south (a repeated corner is a step of length 0),
+                // never below the diagonal
+                assert!(p.windows(2).all(|s| (s[1].0 >= s[0].0 && s[1].1 == s[0].1)
+                    || (s[1].0 == s[0].0 && s[1].1 == s[0].1 + 1)));
+                assert!(p.iter().all(|&(x, y)| x >= y));
+            }
+            paths.sort();
+            paths.dedup();
+            assert_eq!(paths.len(), catalan[n - 1], "n = {n}");
+        }
+    }
 }

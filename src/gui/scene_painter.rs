@@ -403,3 +403,34 @@ fn paint_item(
         _ => {}
     }
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::figure::look::Look;
+    use crate::figure::wiring::wiring_scene;
+
+    #[test]
+    fn a_baked_highlight_draws_the_lit_items_last_over_a_halo() {
+        let look = Look::light();
+        let scene = wiring_scene(&[1, 2, 1], 3, &look, Some(1));
+        assert_eq!(with_highlight(&scene, &[], halo_color(&look)), scene);
+        let lit = with_highlight(&scene, &[Tag::Crossing(1)], halo_color(&look));
+        // one crossing marker: a halo and the marker itself, both at the end
+        assert_eq!(lit.items.len(), scene.items.len() + 1);
+        let tail: Vec<&Item> = lit.items.iter().rev().take(2).collect();
+        assert!(tail.iter().all(|i| i.tag == Tag::Crossing(1)));
+        let radius = |i: &Item| match i.kind {
+            ItemKind::Circle { radius, .. } => radius,
+            _ => 0.0,
+        };
+        let before = scene
+            .items
+            .iter()
+            .find(|i| i.tag == Tag::Crossing(1))
+            .map(radius)
+            .unwrap_or(0.0);
+        assert!((radius(tail[0]) - before * WIDEN).abs() < 1e-4);
+        assert!(radius(tail[1]) > radius(tail[0]));
+    }
+}
