@@ -309,3 +309,45 @@ fn a_new_exploration_has_its_own_title_and_no_notes_or_pins() {
     // nothing new to save yet: closing does not ask
     assert!(!h.state().closing.unsaved(&h.state().session));
 }
+
+#[test]
+fn a_wiring_diagram_exports_without_the_lit_crossing_unless_asked() {
+    let mut h = harness();
+    h.get_by_label("Reduced words & wiring").click();
+    // 15432 = w0 of {2, ..., 5}: 16 reduced words (Stanley 1984, the staircase of size 4,
+    // OEIS A005118), each of length 6
+    settle(&mut h, |h| has(h, "16 reduced words"));
+    settle(&mut h, |h| {
+        h.query_all_by_label_contains("braid ").next().is_some()
+    });
+    // hovering a move's button lights the crossing where it starts
+    h.query_all_by_label_contains("braid ")
+        .next()
+        .unwrap()
+        .hover();
+    h.step();
+    h.step();
+    let dir = scratch("wiring");
+    let clean = dir.join("clean.svg");
+    export_to(&mut h, "the wiring diagram shown", &clean);
+    let text = std::fs::read_to_string(&clean).unwrap();
+    // one marker per letter of the word, none emphasised
+    assert_eq!(text.matches("<circle").count(), 6, "{text}");
+    assert!(!text.contains("fill-opacity"), "{text}");
+    let marked = dir.join("marked.svg");
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::E);
+    h.step();
+    h.step();
+    h.get_by_label("include the on-screen marks (the lit crossing)")
+        .click();
+    h.step();
+    h.state_mut().files.path = marked.display().to_string();
+    h.step();
+    h.get_by_label("export").click();
+    settle(&mut h, |_| marked.exists());
+    let text = std::fs::read_to_string(&marked).unwrap();
+    // the lit crossing gets a faint halo under it, as on the canvas
+    assert_eq!(text.matches("<circle").count(), 7, "{text}");
+    assert_eq!(text.matches("fill-opacity").count(), 1, "{text}");
+    std::fs::remove_dir_all(&dir).ok();
+}

@@ -8,7 +8,7 @@
 //! diagonal, since h(i) >= i (a Dyck path of length 2n).
 
 use super::look::Look;
-use super::scene::{Anchor, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
+use super::scene::{Anchor, Color, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
 use crate::math::hessenberg::function::HessenbergFn;
 
 /// Side of a box in figure units.
@@ -24,6 +24,11 @@ pub fn box_origin(row: usize, col: usize) -> Pt {
         MARGIN + (col as f32 - 1.0) * BOX,
         MARGIN + (row as f32 - 1.0) * BOX,
     )
+}
+
+/// The fill of the boxes i < j <= h(i): the first colour of the label scale.
+pub fn shade() -> Color {
+    super::palette::label_color(1, 3)
 }
 
 /// The figure of `h`: boxes tagged `Cell(i, j)` (shaded for i < j <= h(i)),
@@ -89,7 +94,7 @@ fn boxes(scene: &mut Scene, h: &HessenbergFn, look: &Look) {
         width: 0.8,
         color: look.grid(),
     };
-    let shaded = super::palette::label_color(1, 3);
+    let shaded = shade();
     for i in 1..=n {
         for j in 1..=n {
             let o = box_origin(i, j);
