@@ -136,8 +136,8 @@ impl Explorer {
             self.files.start(a, &self.session);
         }
         self.picker_panel(ui);
-        self.notes.ui(ui, &mut self.session);
         self.view_tabs(ui);
+        self.notes.ui(ui, &mut self.session);
         self.central_view(ui);
         // figures and tables are gathered (tables built) only while the export window is open
         let exports = if self.files.action == Some(FileAction::Export) {
@@ -297,7 +297,6 @@ impl Explorer {
         let figures = match self.session.view {
             View::Dreams => return self.dreams.figures(),
             View::Words => return self.words.figures(),
-            View::Hessenberg => self.hessenberg.figures(),
             View::Quotient if !survey => self.quotient.figures(),
             View::Permutohedron => self.permutohedron.figures(),
             _ => Vec::new(),
@@ -308,6 +307,11 @@ impl Explorer {
             View::Quotient if survey => self.quotient.survey.tables(),
             _ => Vec::new(),
         };
+        // the Hessenberg view's table comes before the figure of h
+        let after = match self.session.view {
+            View::Hessenberg => self.hessenberg.figures(),
+            _ => Vec::new(),
+        };
         figures
             .into_iter()
             .map(|(name, s)| (name, Exportable::Figure(s)))
@@ -315,6 +319,11 @@ impl Explorer {
                 tables
                     .into_iter()
                     .map(|(name, t)| (name, Exportable::Table(t))),
+            )
+            .chain(
+                after
+                    .into_iter()
+                    .map(|(name, s)| (name, Exportable::Figure(s))),
             )
             .collect()
     }
