@@ -35,15 +35,20 @@ pub fn shade() -> Color {
 /// a dot in each diagonal box, and the bounding path (tagged `None`).
 ///
 /// ```
-/// use elbowroom::figure::hessenberg::hessenberg_scene;
+/// use elbowroom::figure::hessenberg::{hessenberg_scene, shade};
 /// use elbowroom::figure::look::Look;
-/// use elbowroom::figure::Tag;
+/// use elbowroom::figure::{ItemKind, Tag};
 /// use elbowroom::math::hessenberg::function::HessenbergFn;
 /// let h = HessenbergFn::new(&[2, 3, 3]).unwrap();
 /// let scene = hessenberg_scene(&h, &Look::light());
 /// // Σ (h(i) − i) = 1 + 1 + 0 = 2 shaded boxes, (1,2) and (2,3)
-/// let shaded = scene.items.iter().filter(|it| matches!(it.tag, Tag::Cell(i, j) if i < j)).count();
-/// assert_eq!(shaded, 2);
+/// let shaded: Vec<Tag> = scene
+///     .items
+///     .iter()
+///     .filter(|it| matches!(it.kind, ItemKind::Path { fill: Some(f), .. } if f == shade()))
+///     .map(|it| it.tag)
+///     .collect();
+/// assert_eq!(shaded, vec![Tag::Cell(1, 2), Tag::Cell(2, 3)]);
 /// ```
 pub fn hessenberg_scene(h: &HessenbergFn, look: &Look) -> Scene {
     let n = h.n();
