@@ -341,6 +341,8 @@ pub enum FigureKind {
     Permutohedron,
     /// The volume of P_λ along a segment.
     Volume,
+    /// The staircase diagram of a Hessenberg function h (--h, or --n for h(i) = i + 1).
+    Hessenberg,
 }
 
 impl FigureKind {
@@ -353,6 +355,7 @@ impl FigureKind {
             FigureKind::Paths => "paths",
             FigureKind::Permutohedron => "permutohedron",
             FigureKind::Volume => "volume",
+            FigureKind::Hessenberg => "hessenberg",
         }
     }
 }
@@ -433,6 +436,9 @@ pub struct FigureArgs {
     /// volume: the number of intervals sampled on the segment (1 to 400).
     #[arg(long, default_value_t = 24, allow_hyphen_values = true, value_parser = whole_count)]
     pub samples: usize,
+    /// hessenberg: the Hessenberg function h(1),...,h(n), e.g. 2,3,3.
+    #[arg(long, allow_hyphen_values = true)]
+    pub h: Option<String>,
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,

@@ -5,6 +5,7 @@ use super::app_ctx::AppCtx;
 use super::autosave::Autosave;
 use super::closing::CloseGuard;
 use super::files::{Exportable, Exports, FileAction, FilePanel};
+use super::notes::NotesPanel;
 use super::picker::Picker;
 use super::status::{self, FrameTimes};
 use super::theme;
@@ -46,6 +47,8 @@ pub struct Explorer {
     pub products: ProductsView,
     /// The save / open / export window.
     pub files: FilePanel,
+    /// The panel of the session's title and notes.
+    pub notes: NotesPanel,
     /// The recovery-file timer and the offer of a recovered session.
     pub autosave: Autosave,
     /// Asks before a close would lose unsaved changes.
@@ -115,6 +118,7 @@ impl Explorer {
             workbench: WorkbenchView::default(),
             products: ProductsView::default(),
             files: FilePanel::default(),
+            notes: NotesPanel::default(),
             autosave: Autosave::default(),
             closing,
             close_asked: false,
@@ -133,6 +137,7 @@ impl Explorer {
         }
         self.picker_panel(ui);
         self.view_tabs(ui);
+        self.notes.ui(ui, &mut self.session);
         self.central_view(ui);
         // figures and tables are gathered (tables built) only while the export window is open
         let exports = if self.files.action == Some(FileAction::Export) {
@@ -140,6 +145,9 @@ impl Explorer {
         } else {
             Vec::new()
         };
+        if self.files.action.is_some() {
+            self.files.unsaved = self.closing.unsaved(&self.session);
+        }
         self.files
             .ui(ui.ctx(), &mut self.session, &exports, &mut self.message);
         if let Some(s) = self.files.stored.take() {
@@ -190,6 +198,13 @@ impl Explorer {
                     .clicked()
                 {
                     file_action = Some(FileAction::Export);
+                }
+                if ui
+                    .selectable_label(self.notes.open, "notes")
+                    .on_hover_text("the exploration's title and notes (Ctrl+Shift+N)")
+                    .clicked()
+                {
+                    self.notes.open = !self.notes.open;
                 }
                 let label = if self.session.dark {
                     "light theme"
@@ -280,8 +295,8 @@ impl Explorer {
     fn exports(&mut self) -> Exports {
         let survey = self.session.quotient.survey;
         let figures = match self.session.view {
-            View::Dreams => self.dreams.figures(),
-            View::Words => self.words.figures(),
+            View::Dreams => return self.dreams.figures(),
+            View::Words => return self.words.figures(),
             View::Quotient if !survey => self.quotient.figures(),
             View::Permutohedron => self.permutohedron.figures(),
             _ => Vec::new(),
@@ -292,6 +307,11 @@ impl Explorer {
             View::Quotient if survey => self.quotient.survey.tables(),
             _ => Vec::new(),
         };
+        // the Hessenberg view's table comes before the figure of h
+        let after = match self.session.view {
+            View::Hessenberg => self.hessenberg.figures(),
+            _ => Vec::new(),
+        };
         figures
             .into_iter()
             .map(|(name, s)| (name, Exportable::Figure(s)))
@@ -299,6 +319,11 @@ impl Explorer {
                 tables
                     .into_iter()
                     .map(|(name, t)| (name, Exportable::Table(t))),
+            )
+            .chain(
+                after
+                    .into_iter()
+                    .map(|(name, s)| (name, Exportable::Figure(s))),
             )
             .collect()
     }

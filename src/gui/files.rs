@@ -1,8 +1,13 @@
 //! Saving and opening sessions and exporting figures and tables (Ctrl+S,
 //! Ctrl+O, Ctrl+E): a small window with a typed path (and the desktop's file
 //! dialog where one runs; the typed path always works), the demo sessions and
-//! the recent ones to pick from, and the figures and tables the current view
-//! can export.
+//! the recent ones to pick from, a new empty exploration, and the figures and
+//! tables the current view can export.
+//!
+//! An exported figure leaves out the marks the canvas adds for interaction
+//! (move dots, a lit pipe or crossing) unless "include the on-screen marks" is
+//! ticked; an exported table starts with lines saying what it is (the view's
+//! caption: n, h, the order of the rows; at least its name and row count).
 
 use crate::figure::Scene;
 use crate::figure::export::{self, ExportOptions};
@@ -28,21 +33,38 @@ pub enum FileAction {
 pub enum Exportable {
     /// A figure scene, drawn as on screen.
     Figure(Arc<Scene>),
+    /// A figure the canvas draws with marks for interaction: exported clean,
+    /// or as on screen when the user asks for the marks.
+    Marked {
+        /// The figure without the marks.
+        clean: Arc<Scene>,
+        /// The figure as on screen, marks included.
+        marked: Arc<Scene>,
+        /// Which marks these are, in a few words (`move dots, the lit pipe`).
+        marks: &'static str,
+    },
     /// A table of results.
     Table(Arc<Table>),
 }
 
 impl Exportable {
+    fn is_figure(&self) -> bool {
+        !matches!(self, Exportable::Table(_))
+    }
+
     fn extensions(&self) -> &'static [&'static str] {
-        match self {
-            Exportable::Figure(_) => &["png", "svg", "tex"],
-            Exportable::Table(_) => &["csv", "tex"],
+        if self.is_figure() {
+            &["png", "svg", "tex"]
+        } else {
+            &["csv", "tex"]
         }
     }
 
     fn hint(&self) -> &'static str {
         match self {
-            Exportable::Figure(_) => "The extension chooses the format: .png, .svg or .tex (TikZ).",
+            Exportable::Figure(_) | Exportable::Marked { .. } => {
+                "The extension chooses the format: .png, .svg or .tex (TikZ)."
+            }
             Exportable::Table(_) => {
                 "The extension chooses the format: .csv or .tex (a LaTeX tabular)."
             }
@@ -52,6 +74,39 @@ impl Exportable {
 
 /// A view's exportable items, each with a name for the list.
 pub type Exports = Vec<(String, Exportable)>;
+
+/// The table as exported: with its caption, or, for a table that has none,
+/// one made of its name in the list and its number of rows.
+pub fn described(name: &str, table: &Table) -> Table {
+    let mut t = table.clone();
+    if t.caption.is_empty() {
+        let mut what = name.trim_start_matches("the ").to_string();
+        if let Some(first) = what.get(..1) {
+            what = first.to_uppercase() + &what[1..];
+        }
+        t.caption = vec![format!(
+            "{what}, in the order the explorer lists them; {} rows",
+            t.rows.len()
+        )];
+    }
+    t
+}
+
+/// A fresh exploration: the default session (its own title, no notes, no
+/// pins, no history but its permutation), keeping only the theme and how
+/// figures are exported.
+pub fn fresh_session(from: &Session) -> Session {
+    Session {
+        dark: from.dark,
+        figure: from.figure.clone(),
+        ..Session::default()
+    }
+}
+
+/// The window title for a session.
+pub fn window_title(session: &Session) -> String {
+    format!("elbowroom — {}", session.title)
+}
 
 /// The file window's state.
 #[derive(Default)]
@@ -74,6 +129,13 @@ pub struct FilePanel {
     pub chosen: usize,
     /// Whether the typed path's extension was fitted to the first item yet.
     fitted: bool,
+    /// Export figures with the marks the canvas adds (move dots, highlights).
+    pub include_marks: bool,
+    /// Whether the session has changes in no file (kept up to date by the
+    /// window while this one is open), so a new exploration asks first.
+    pub unsaved: bool,
+    /// A new exploration was asked for over unsaved changes: waiting for a yes.
+    asking_new: bool,
 }
 
 impl FilePanel {
@@ -98,7 +160,18 @@ impl FilePanel {
         self.fitted = false;
         self.replacing = None;
         self.replace_ok = None;
+        self.asking_new = false;
         self.action = Some(action);
+    }
+
+    /// Replaces the session by a fresh one (see [`fresh_session`]); the
+    /// session file is forgotten, so Ctrl+S then asks where to save.
+    pub fn start_new(&mut self, ctx: &egui::Context, session: &mut Session) {
+        *session = fresh_session(session);
+        self.session_path = None;
+        self.stored = Some(session.clone());
+        self.asking_new = false;
+        ctx.send_viewport_cmd(egui::ViewportCommand::Title(window_title(session)));
     }
 
     /// Saves to the file the session came from or was last saved to, if there
@@ -162,16 +235,58 @@ impl FilePanel {
                         }
                     });
                 }
-                if action == FileAction::Open
-                    && let Some(p) = session_to_open(ui)
-                {
-                    self.path = p.display().to_string();
-                    done = self.perform(action, session, exports, message);
+                if action == FileAction::Open {
+                    if let Some(p) = session_to_open(ui) {
+                        self.path = p.display().to_string();
+                        done = self.perform(action, session, exports, message);
+                    }
+                    if self.new_exploration(ui, session) {
+                        *message = Some(format!("started \"{}\"", session.title));
+                        done = true;
+                    }
                 }
             });
+        if done && action == FileAction::Open {
+            ctx.send_viewport_cmd(egui::ViewportCommand::Title(window_title(session)));
+        }
         if !open || done {
             self.action = None;
         }
+    }
+
+    /// The button for a new, empty exploration (asking first when the
+    /// current one has unsaved changes); true once it is started.
+    fn new_exploration(&mut self, ui: &mut egui::Ui, session: &mut Session) -> bool {
+        ui.separator();
+        if !self.asking_new {
+            let new = ui
+                .button("start a new exploration")
+                .on_hover_text("an untitled exploration: no notes, no pins, S_4");
+            if !new.clicked() {
+                return false;
+            }
+            if self.unsaved {
+                self.asking_new = true;
+                return false;
+            }
+        } else {
+            ui.colored_label(
+                crate::gui::theme::alert(),
+                "This exploration has changes that are not in a session file.",
+            );
+            let mut go = false;
+            ui.horizontal(|ui| {
+                go = ui.button("start the new one anyway").clicked();
+                if ui.button("keep this one").clicked() {
+                    self.asking_new = false;
+                }
+            });
+            if !go {
+                return false;
+            }
+        }
+        self.start_new(ui.ctx(), session);
+        true
     }
 
     /// Names the file after `item` while the path is still the one proposed
@@ -216,12 +331,18 @@ impl FilePanel {
             self.propose(name, chosen);
             self.fitted = true;
         }
-        if matches!(chosen, Exportable::Figure(_)) {
+        if chosen.is_figure() {
             ui.horizontal(|ui| {
                 ui.label("PNG scale");
                 ui.add(egui::DragValue::new(&mut session.figure.scale).range(1.0..=12.0));
                 ui.checkbox(&mut session.figure.transparent, "transparent background");
             });
+        }
+        if let Exportable::Marked { marks, .. } = chosen {
+            ui.checkbox(
+                &mut self.include_marks,
+                format!("include the on-screen marks ({marks})"),
+            );
         }
         ui.weak(chosen.hint());
         true
@@ -325,7 +446,8 @@ impl FilePanel {
                 }
             },
             FileAction::Export => {
-                let Some((_, item)) = exports.get(self.chosen).or_else(|| exports.first()) else {
+                let Some((name, item)) = exports.get(self.chosen).or_else(|| exports.first())
+                else {
                     return false;
                 };
                 let opts = ExportOptions {
@@ -336,8 +458,13 @@ impl FilePanel {
                     Exportable::Figure(scene) => {
                         export::write(scene, &path, &opts).map_err(|e| e.to_string())
                     }
+                    Exportable::Marked { clean, marked, .. } => {
+                        let scene = if self.include_marks { marked } else { clean };
+                        export::write(scene, &path, &opts).map_err(|e| e.to_string())
+                    }
                     Exportable::Table(table) => {
-                        crate::tables::write(table, &path).map_err(|e| e.to_string())
+                        crate::tables::write(&described(name, table), &path)
+                            .map_err(|e| e.to_string())
                     }
                 };
                 match written {
@@ -435,9 +562,12 @@ fn with_name_of(path: &str, name: &str, item: &Exportable) -> String {
         .and_then(|e| e.to_str())
         .map(|e| e.to_ascii_lowercase())
         .filter(|e| item.extensions().contains(&e.as_str()))
-        .unwrap_or_else(|| match item {
-            Exportable::Figure(_) => "svg".into(),
-            Exportable::Table(_) => "csv".into(),
+        .unwrap_or_else(|| {
+            if item.is_figure() {
+                "svg".into()
+            } else {
+                "csv".into()
+            }
         });
     let file = format!("{}.{ext}", file_stem_of(name));
     match p.parent().filter(|d| !d.as_os_str().is_empty()) {
@@ -458,9 +588,10 @@ fn with_fitting_extension(path: &str, item: &Exportable) -> String {
     if fits {
         return path.to_string();
     }
-    let stem = match item {
-        Exportable::Figure(_) => "figure.svg",
-        Exportable::Table(_) => "table.csv",
+    let stem = if item.is_figure() {
+        "figure.svg"
+    } else {
+        "table.csv"
     };
     match p.parent().filter(|d| !d.as_os_str().is_empty()) {
         Some(dir) => dir.join(stem).display().to_string(),

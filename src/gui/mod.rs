@@ -10,6 +10,7 @@ pub mod autosave;
 pub mod browser;
 pub mod closing;
 pub mod files;
+pub mod notes;
 pub mod picker;
 pub mod scene_painter;
 pub mod status;

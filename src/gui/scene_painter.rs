@@ -1,10 +1,11 @@
 //! Draws a figure [`Scene`] with egui's painter: Béziers are flattened, figure
 //! units are mapped to the screen, and the pointer is hit-tested against the
 //! tagged items so a view can highlight a pipe end to end or react to a click
-//! on a cell.
+//! on a cell. [`with_highlight`] bakes the same emphasis into a scene, for an
+//! export that keeps the on-screen marks.
 
 use super::theme::color;
-use crate::figure::{Anchor, ItemKind, PathCmd, Pt, Scene, Tag};
+use crate::figure::{self, Anchor, Item, ItemKind, PathCmd, Pt, Scene, Tag};
 use eframe::egui::{self, Align2, Color32, FontId, Pos2, Sense, Shape, Stroke, Vec2};
 
 /// How to draw a scene.
@@ -208,7 +209,7 @@ fn tags_at(p: Pos2, scene: &Scene, geometry: &[Geometry], scale: f32) -> Vec<Tag
 
 /// Whether `p` is on the item: inside a filled path, near a stroked one
 /// (at least 4 points), or within 3 points of a circle.
-fn hits(p: Pos2, item: &crate::figure::Item, geo: &Geometry, scale: f32) -> bool {
+fn hits(p: Pos2, item: &Item, geo: &Geometry, scale: f32) -> bool {
     match (geo, &item.kind) {
         (Geometry::Lines(lines), ItemKind::Path { stroke, fill, .. }) => {
             let tol = stroke.map_or(0.0, |s| s.width * scale / 2.0).max(4.0);
@@ -221,6 +222,90 @@ fn hits(p: Pos2, item: &crate::figure::Item, geo: &Geometry, scale: f32) -> bool
         }
         (Geometry::Circle(c, r), _) => p.distance(*c) <= r + 3.0,
         _ => false,
+    }
+}
+
+/// How much wider a highlighted item is drawn.
+const WIDEN: f32 = 1.6;
+
+/// The halo around a highlighted item, in figure units (4 points on a canvas
+/// at 3 points per unit).
+const HALO: f32 = 4.0 / 3.0;
+
+/// `scene` as the canvas paints it with the items tagged in `highlight`
+/// emphasised: those items moved to the end, their lines and circles
+/// [`WIDEN`] times wider, each over a halo of `halo`. With nothing to
+/// highlight the scene is returned as it is.
+pub fn with_highlight(scene: &Scene, highlight: &[Tag], halo: figure::Color) -> Scene {
+    let lit = |item: &Item| highlight.contains(&item.tag) && !matches!(item.tag, Tag::None);
+    let mut out = Scene::new(scene.width, scene.height, scene.background);
+    out.items = scene.items.iter().filter(|i| !lit(i)).cloned().collect();
+    for item in scene.items.iter().filter(|i| lit(i)) {
+        match &item.kind {
+            ItemKind::Path { cmds, stroke, fill } => {
+                let wide = stroke.map(|s| figure::Stroke {
+                    width: s.width * WIDEN,
+                    ..s
+                });
+                if let Some(s) = wide {
+                    out.push(
+                        ItemKind::Path {
+                            cmds: cmds.clone(),
+                            stroke: Some(figure::Stroke {
+                                width: s.width + HALO,
+                                color: halo,
+                            }),
+                            fill: None,
+                        },
+                        item.tag,
+                    );
+                }
+                out.push(
+                    ItemKind::Path {
+                        cmds: cmds.clone(),
+                        stroke: wide,
+                        fill: *fill,
+                    },
+                    item.tag,
+                );
+            }
+            ItemKind::Circle {
+                center,
+                radius,
+                stroke,
+                fill,
+            } => {
+                out.push(
+                    ItemKind::Circle {
+                        center: *center,
+                        radius: radius * WIDEN + HALO / 2.0,
+                        stroke: None,
+                        fill: Some(halo),
+                    },
+                    item.tag,
+                );
+                out.push(
+                    ItemKind::Circle {
+                        center: *center,
+                        radius: radius * WIDEN,
+                        stroke: *stroke,
+                        fill: *fill,
+                    },
+                    item.tag,
+                );
+            }
+            ItemKind::Text { .. } => out.items.push(item.clone()),
+        }
+    }
+    out
+}
+
+/// The halo colour of a figure drawn in `look`: its ink, faint (as the
+/// canvas's halo is the text colour, faint).
+pub fn halo_color(look: &crate::figure::look::Look) -> figure::Color {
+    figure::Color {
+        a: 89,
+        ..look.ink()
     }
 }
 
@@ -248,7 +333,7 @@ fn paint_scene(
             &scene.items[k],
             &geometry[k],
             scale,
-            1.6,
+            WIDEN,
             Some(halo),
             origin,
         );
@@ -257,7 +342,7 @@ fn paint_scene(
 
 fn paint_item(
     painter: &egui::Painter,
-    item: &crate::figure::Item,
+    item: &Item,
     geo: &Geometry,
     scale: f32,
     widen: f32,
@@ -316,5 +401,36 @@ fn paint_item(
             );
         }
         _ => {}
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::figure::look::Look;
+    use crate::figure::wiring::wiring_scene;
+
+    #[test]
+    fn a_baked_highlight_draws_the_lit_items_last_over_a_halo() {
+        let look = Look::light();
+        let scene = wiring_scene(&[1, 2, 1], 3, &look, Some(1));
+        assert_eq!(with_highlight(&scene, &[], halo_color(&look)), scene);
+        let lit = with_highlight(&scene, &[Tag::Crossing(1)], halo_color(&look));
+        // one crossing marker: a halo and the marker itself, both at the end
+        assert_eq!(lit.items.len(), scene.items.len() + 1);
+        let tail: Vec<&Item> = lit.items.iter().rev().take(2).collect();
+        assert!(tail.iter().all(|i| i.tag == Tag::Crossing(1)));
+        let radius = |i: &Item| match i.kind {
+            ItemKind::Circle { radius, .. } => radius,
+            _ => 0.0,
+        };
+        let before = scene
+            .items
+            .iter()
+            .find(|i| i.tag == Tag::Crossing(1))
+            .map(radius)
+            .unwrap_or(0.0);
+        assert!((radius(tail[0]) - before * WIDEN).abs() < 1e-4);
+        assert!(radius(tail[1]) > radius(tail[0]));
     }
 }

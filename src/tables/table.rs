@@ -104,8 +104,14 @@ pub struct Table {
     /// The rows, each a list of cells.
     pub rows: Vec<Vec<Cell>>,
     /// Lines written above a LaTeX table as `%` comments (what the table is);
-    /// CSV has no comments, so they are left out there.
+    /// CSV has no comments, so they are left out there unless a caption is set.
     pub comments: Vec<String>,
+    /// What the table is, in words (which object, its parameters, the order of
+    /// the rows, how many), for a file that must say so by itself: the
+    /// explorer's exports set it, the command line's `--csv`/`--latex` never
+    /// do. When set, CSV starts with it and the comments as `# ` lines, and
+    /// LaTeX with it as `% ` lines before the comments.
+    pub caption: Vec<String>,
 }
 
 impl Table {
@@ -115,6 +121,7 @@ impl Table {
             columns,
             rows: Vec::new(),
             comments: Vec::new(),
+            caption: Vec::new(),
         }
     }
 
@@ -133,13 +140,52 @@ impl Table {
         self.comments.push(line.into());
     }
 
+    /// Sets the caption (see [`Table::caption`]).
+    pub fn with_caption(mut self, lines: Vec<String>) -> Table {
+        self.caption = lines;
+        self
+    }
+
+    /// The same table with its rows in `order` (indices into the rows; an
+    /// index out of range is skipped, so the result never has more rows).
+    pub fn reordered(&self, order: &[usize]) -> Table {
+        Table {
+            columns: self.columns.clone(),
+            rows: order
+                .iter()
+                .filter_map(|&i| self.rows.get(i).cloned())
+                .collect(),
+            comments: self.comments.clone(),
+            caption: self.caption.clone(),
+        }
+    }
+
+    /// The caption's lines, then (for CSV) the comments', each after `mark`.
+    fn preamble(&self, mark: &str, with_comments: bool) -> String {
+        let mut out = String::new();
+        let comments = if with_comments && !self.caption.is_empty() {
+            &self.comments[..]
+        } else {
+            &[]
+        };
+        for line in self.caption.iter().chain(comments) {
+            for part in line.lines() {
+                out.push_str(mark);
+                out.push_str(part);
+                out.push('\n');
+            }
+        }
+        out
+    }
+
     fn cells<'a>(&'a self, row: &'a [Cell]) -> impl Iterator<Item = Option<&'a Cell>> + 'a {
         (0..self.columns.len()).map(move |i| row.get(i))
     }
 
-    /// The table as CSV: a header line, then one line per row, `\n` line ends.
+    /// The table as CSV: a header line, then one line per row, `\n` line ends;
+    /// with a caption, `# ` lines before the header say what the table is.
     pub fn to_csv(&self) -> String {
-        let mut out = String::new();
+        let mut out = self.preamble("# ", true);
         let header: Vec<String> = self
             .columns
             .iter()
@@ -168,7 +214,7 @@ impl Table {
                 ColumnKind::Math => 'r',
             })
             .collect();
-        let mut out = String::new();
+        let mut out = self.preamble("% ", false);
         for line in &self.comments {
             for part in line.lines() {
                 out.push_str(&format!("% {part}\n"));
@@ -289,6 +335,26 @@ mod tests {
         assert!(tex.contains("fully\\_commutative & $(2,3,3)$ & $14$ \\\\\n"));
         assert!(tex.contains("50\\% \\& more &  &  \\\\\n"));
         assert!(tex.ends_with("\\end{tabular}\n"));
+    }
+
+    #[test]
+    fn a_caption_leads_both_formats_and_nothing_changes_without_one() {
+        let mut t = Table::new(vec![Column::math("$w$"), Column::math("$a^h_w$")]);
+        t.comment("two rows");
+        t.push(vec!["12".into(), "1".into()]);
+        t.push(vec!["21".into(), "2".into()]);
+        assert_eq!(t.to_csv(), "w,a^h_w\n12,1\n21,2\n");
+        let t = t
+            .with_caption(vec!["n = 2, largest first".into()])
+            .reordered(&[1, 0, 7]);
+        assert_eq!(
+            t.to_csv(),
+            "# n = 2, largest first\n# two rows\nw,a^h_w\n21,2\n12,1\n"
+        );
+        assert!(
+            t.to_latex()
+                .starts_with("% n = 2, largest first\n% two rows\n\\begin{tabular}{rr}\n")
+        );
     }
 
     #[test]

@@ -11,6 +11,7 @@
 //!   `paths --poly F --n N` draws the normal form of any polynomial instead.
 //! - `permutohedron --lambda L [--yaw A --pitch B]`: P_λ for n <= 5.
 //! - `volume --from A --to B [--samples M]`: Vol P_λ along λ(t) = (1 - t)A + tB.
+//! - `hessenberg --h 2,3,3` (or `--n N` for h(i) = i + 1): the staircase of h.
 //!
 //! With `--all`, `--out` is a directory (created if missing) and the files are
 //! named `KIND-W-K.EXT` with `--format` (svg by default).
@@ -18,6 +19,7 @@
 //! One file per kind of figure builds its scenes; [`pick`] chooses the items
 //! of an enumeration and names their files; this file writes them.
 
+mod hessenberg;
 mod paths;
 mod permutohedron;
 pub mod pick;
@@ -113,6 +115,7 @@ fn scenes(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
         FigureKind::Paths => paths::panels(args, look),
         FigureKind::Permutohedron => permutohedron::drawing(args, look),
         FigureKind::Volume => volume::plot(args, look),
+        FigureKind::Hessenberg => hessenberg::staircase(args, look),
     }
 }
 

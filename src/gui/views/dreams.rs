@@ -1,7 +1,8 @@
 //! The pipe-dream canvas: the staircase with pipes coloured by label, "k of N"
 //! with arrow-key stepping, hover to follow a pipe, click a cell to apply a
 //! ladder (or chute) move there, the dream's monomial and reading word; and a
-//! switch to bumpless pipe dreams.
+//! switch to bumpless pipe dreams. The dots of the moves and the lit pipe are
+//! marks for the canvas: an export leaves them out unless asked for.
 
 use super::{arrow_step, fetch_ready, figure_look};
 use crate::engine::requests::DREAM_LIMIT;
@@ -11,7 +12,8 @@ use crate::figure::dream::dream_scene;
 use crate::figure::look::Look;
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
-use crate::gui::scene_painter::{self, PaintOptions, SceneResponse};
+use crate::gui::files::{Exportable, Exports};
+use crate::gui::scene_painter::{self, PaintOptions, SceneResponse, halo_color, with_highlight};
 use crate::math::Perm;
 use crate::math::pipes::bumpless::BumplessDream;
 use crate::math::pipes::dream::PipeDream;
@@ -27,7 +29,8 @@ pub struct DreamsView {
     bumpless: Slot,
     /// A dream reached by a move that is not in the list (shown instead of the indexed one).
     moved_off_list: Option<PipeDream>,
-    scene: Option<(SceneKey, Arc<Scene>)>,
+    /// The scene on screen and the same figure without the move dots.
+    scene: Option<(SceneKey, Arc<Scene>, Arc<Scene>)>,
     hover_pipe: Option<usize>,
     /// What the last click on the canvas did.
     pub click_note: Option<String>,
@@ -165,11 +168,29 @@ fn bumpless_facts(ui: &mut egui::Ui, d: &BumplessDream, w: &Perm) {
 }
 
 impl DreamsView {
-    /// The figures this view can export: the dream on screen.
-    pub fn figures(&self) -> Vec<(String, Arc<Scene>)> {
+    /// The figures this view can export: the dream on screen, without the
+    /// move dots and the lit pipe unless the export asks for them.
+    pub fn figures(&self) -> Exports {
         self.scene
             .iter()
-            .map(|(_, s)| ("the pipe dream shown".to_string(), s.clone()))
+            .map(|(key, shown, clean)| {
+                let (look, marks) = match key {
+                    SceneKey::Dream(_, look) => (look, "move dots, the lit pipe"),
+                    SceneKey::Bumpless(_, _, look) => (look, "the lit pipe"),
+                };
+                let lit: Vec<Tag> = self.hover_pipe.map(Tag::Pipe).into_iter().collect();
+                let marked = if lit.is_empty() {
+                    shown.clone()
+                } else {
+                    Arc::new(with_highlight(shown, &lit, halo_color(look)))
+                };
+                let item = Exportable::Marked {
+                    clean: clean.clone(),
+                    marked,
+                    marks,
+                };
+                ("the pipe dream shown".to_string(), item)
+            })
             .collect()
     }
 
@@ -233,7 +254,10 @@ impl DreamsView {
             self.click_note = None;
         }
         let scene = self.scene_for(SceneKey::Dream(dream, look), || {
-            dream_scene(&dream, &look, &move_hints(&dream))
+            (
+                dream_scene(&dream, &look, &move_hints(&dream)),
+                Some(dream_scene(&dream, &look, &[])),
+            )
         });
         ui.horizontal_top(|ui| {
             let r = self.show_canvas(ui, &scene);
@@ -313,21 +337,28 @@ impl DreamsView {
         stepper(ui, &mut place.index, total, &mut none);
         let d = &list[place.index];
         let key = SceneKey::Bumpless(w.clone(), place.index, look);
-        let scene = self.scene_for(key, || bumpless_scene(d, &look));
+        let scene = self.scene_for(key, || (bumpless_scene(d, &look), None));
         ui.horizontal_top(|ui| {
             self.show_canvas(ui, &scene);
             bumpless_facts(ui, d, w);
         });
     }
 
-    /// The scene for `key`, drawn again by `draw` only when the key changed.
-    fn scene_for(&mut self, key: SceneKey, draw: impl FnOnce() -> Scene) -> Arc<Scene> {
+    /// The scene for `key`, drawn again by `draw` only when the key changed;
+    /// `draw` gives the scene on screen and, if it has marks, the clean one.
+    fn scene_for(
+        &mut self,
+        key: SceneKey,
+        draw: impl FnOnce() -> (Scene, Option<Scene>),
+    ) -> Arc<Scene> {
         match &self.scene {
-            Some((k, s)) if *k == key => s.clone(),
+            Some((k, s, _)) if *k == key => s.clone(),
             _ => {
-                let s = Arc::new(draw());
-                self.scene = Some((key, s.clone()));
-                s
+                let (shown, clean) = draw();
+                let shown = Arc::new(shown);
+                let clean = clean.map_or_else(|| shown.clone(), Arc::new);
+                self.scene = Some((key, shown.clone(), clean));
+                shown
             }
         }
     }

@@ -1,16 +1,22 @@
 //! Hessenberg classes: pick h by clicking boxes of an n×n grid (only valid
 //! Hessenberg functions can be made), compute the table a^h_w = DS_h(S_w) on
 //! the engine with progress and cancel, and browse it sorted by any column;
-//! clicking a row makes w current everywhere.
+//! clicking a row makes w current everywhere. Beside the controls, the
+//! staircase figure of h; both the figure and the table (in the order shown,
+//! with a caption naming n, h and the order) export with Ctrl+E.
 
 use super::fetch_ready;
-use crate::engine::layout::table_layout;
+use crate::engine::layout::{TableLayout, table_layout};
 use crate::engine::requests::h_text;
 use crate::engine::{Engine, Fetch, JobKey, Output, Slot};
+use crate::figure::Scene;
+use crate::figure::hessenberg::hessenberg_scene;
+use crate::figure::look::Look;
 use crate::gui::AppCtx;
+use crate::gui::scene_painter::{self, PaintOptions};
 use crate::gui::table_source::TableSource;
 use crate::math::Perm;
-use crate::math::hessenberg::function::{default_values, set_value};
+use crate::math::hessenberg::function::{HessenbergFn, default_values, set_value};
 use crate::math::hessenberg::table::{HessenbergTable, TABLE_MAX_N, TableEntry};
 use crate::session::model::{HessenbergPlace, SortColumn};
 use crate::tables::results::hessenberg_table;
@@ -53,8 +59,49 @@ pub struct HessenbergView {
     pub wanted: Option<Vec<usize>>,
     /// The summary and row order of the table shown, arranged on the engine.
     layout: Slot,
-    /// The table shown (keyed by h), for export.
-    export: TableSource<Vec<usize>>,
+    /// The table shown (keyed by h and its order on screen), for export.
+    export: TableSource<OrderKey>,
+    /// The row order shown, for the export to follow.
+    order_shown: Option<(OrderKey, Arc<Output>)>,
+    /// The staircase figure of h on screen, for export.
+    figure: Option<(Vec<usize>, Look, Arc<Scene>)>,
+}
+
+/// A table in an order: h, the column sorted by, and whether descending.
+type OrderKey = (Vec<usize>, String, bool);
+
+/// How the rows are ordered, in words, for the caption of an export.
+fn order_words(column: &str, descending: bool) -> &'static str {
+    match (column, descending) {
+        ("value", true) => "sorted by a^h_w, largest first",
+        ("value", false) => "sorted by a^h_w, smallest first",
+        ("length", true) => "sorted by the length l(w), longest first",
+        ("length", false) => "sorted by the length l(w), shortest first",
+        (_, true) => "sorted by w, lexicographically last first",
+        (_, false) => "sorted by w, lexicographically",
+    }
+}
+
+/// The caption of an exported table: what it is, n, h, the order and the count.
+pub fn table_caption(table: &HessenbergTable, column: &str, descending: bool) -> Vec<String> {
+    let tie = if descending {
+        "ties in reverse lexicographic order of w"
+    } else {
+        "ties in lexicographic order of w"
+    };
+    vec![
+        format!(
+            "Schubert coefficients a^h_w of the Hessenberg class, n = {}, h = {}, {}; {} rows",
+            table.h.n(),
+            table.h,
+            order_words(column, descending),
+            table.entries.len()
+        ),
+        format!(
+            "a^h_w = DS_h(S_w) is the coefficient of the Schubert class of w0 w, over l(w) = |h| = {}; rows in the order the explorer showed them ({tie})",
+            table.h.dimension()
+        ),
+    ]
 }
 
 /// The header buttons: a click sorts by that column, a second click turns the order round.
@@ -125,11 +172,46 @@ fn table_row(
 impl HessenbergView {
     /// The tables this view can export: the coefficients a^h_w on screen.
     pub fn tables(&mut self) -> Vec<(String, Arc<Table>)> {
+        let order = self.order_shown.clone();
         self.export
-            .table(|_, out| out.hessenberg().map(hessenberg_table))
+            .table(|key, out| {
+                let table = out.hessenberg()?;
+                let (_, layout) = order.as_ref().filter(|(k, _)| k == key)?;
+                let Output::Layout(layout) = layout.as_ref() else {
+                    return None;
+                };
+                let (_, column, descending) = key;
+                Some(
+                    hessenberg_table(table)
+                        .reordered(&layout.rows)
+                        .with_caption(table_caption(table, column, *descending)),
+                )
+            })
             .map(|(_, t)| ("the table of a^h_w".to_string(), t))
             .into_iter()
             .collect()
+    }
+
+    /// The figures this view can export: the staircase diagram of h.
+    pub fn figures(&self) -> Vec<(String, Arc<Scene>)> {
+        self.figure
+            .iter()
+            .map(|(h, _, s)| (format!("the staircase of h = {}", h_text(h)), s.clone()))
+            .collect()
+    }
+
+    /// The staircase figure of `h` in `look`, drawn again only when either changed.
+    fn figure_for(&mut self, h: &[usize], look: Look) -> Option<Arc<Scene>> {
+        if let Some((k, l, s)) = &self.figure
+            && k == h
+            && *l == look
+        {
+            return Some(s.clone());
+        }
+        let f = HessenbergFn::new(h).ok()?;
+        let s = Arc::new(hessenberg_scene(&f, &look));
+        self.figure = Some((h.to_vec(), look, s.clone()));
+        Some(s)
     }
 
     /// Draws the view.
@@ -143,8 +225,21 @@ impl HessenbergView {
             self.forget();
         }
         ui.weak("Click a box (i, j) above the diagonal to set h(i) = j; click the last box of a row to shrink it. The class of the Hessenberg variety is Σ a^h_w σ_{w0 w}, a^h_w = DS_h(S_w) over ℓ(w) = |h|.");
+        let look = super::figure_look(ctx.session);
         ui.horizontal_top(|ui| {
-            h_grid(ui, &mut ctx.session.hessenberg.h);
+            ui.vertical(|ui| {
+                h_grid(ui, &mut ctx.session.hessenberg.h);
+                ui.add_space(8.0);
+                let h = ctx.session.hessenberg.h.clone();
+                if let Some(scene) = self.figure_for(&h, look) {
+                    ui.weak("the staircase of h (Ctrl+E exports it)");
+                    let opts = PaintOptions {
+                        size: Some(egui::vec2(200.0, 200.0)),
+                        ..PaintOptions::default()
+                    };
+                    scene_painter::show(ui, &scene, &opts);
+                }
+            });
             ui.vertical(|ui| self.coefficient_table(ui, ctx));
         });
     }
@@ -176,7 +271,6 @@ impl HessenbergView {
         let Some(table) = out.hessenberg() else {
             return;
         };
-        self.export.note_shown(&wanted, &out);
         let place = &mut ctx.session.hessenberg;
         let column = place.sort_by.unwrap_or_default().key().to_string();
         let descending = place.descending;
@@ -206,9 +300,19 @@ impl HessenbergView {
                 return;
             }
         };
-        let Output::Layout(layout) = layout.as_ref() else {
+        let Output::Layout(arranged) = layout.as_ref() else {
             return;
         };
+        let order_key: OrderKey = (wanted.clone(), column.clone(), descending);
+        self.export.note_shown(&order_key, &out);
+        if self
+            .order_shown
+            .as_ref()
+            .is_none_or(|(k, _)| *k != order_key)
+        {
+            self.order_shown = Some((order_key, layout.clone()));
+        }
+        let layout: &TableLayout = arranged;
         ui.add(egui::Label::new(layout.summary.as_str()).wrap());
         ui.weak("Ctrl+E exports this table as CSV or as a LaTeX tabular.");
         let current = ctx.perm();

@@ -2,7 +2,8 @@
 //! of S_w(x_n, ..., x_1) for every w in S_n, computed on the engine with
 //! progress and cancel; a summary, the counterexamples (any negative
 //! coefficient) first and marked, every row clickable to show that w's normal
-//! form, and the table ready for export as CSV or LaTeX.
+//! form, and the table ready for export as CSV or LaTeX: the rows shown, in
+//! the order shown, under a caption naming n and the listing.
 
 use super::fetch_ready;
 use crate::engine::requests::Output;
@@ -39,8 +40,8 @@ pub struct SurveyPanel {
     pub only_counterexamples: bool,
     /// The summary line of the survey shown (a pass over every entry, so kept).
     summary: Option<(usize, String)>,
-    /// The survey shown (keyed by n), for export.
-    export: TableSource<usize>,
+    /// The survey shown (keyed by n and "only counterexamples"), for export.
+    export: TableSource<(usize, bool)>,
     /// Row order: counterexamples first, then lexicographic (indices into the
     /// entries), for the n and the "only counterexamples" setting it was made for.
     order: Option<(usize, bool, Vec<usize>)>,
@@ -61,6 +62,25 @@ fn summary_text(entries: &[SurveyEntry]) -> String {
             if bad == 1 { "" } else { "s" }
         )
     }
+}
+
+/// The caption of an exported survey: what it is, n, which rows, their order.
+pub fn survey_caption(n: usize, entries: &[SurveyEntry], only: bool, rows: usize) -> Vec<String> {
+    let bad = entries.iter().filter(|e| !e.nonnegative()).count();
+    let listing = if only {
+        format!(
+            "only the {bad} counterexamples (a negative coefficient) of the {} permutations",
+            entries.len()
+        )
+    } else {
+        format!(
+            "all {} permutations, the {bad} counterexamples (a negative coefficient) first",
+            entries.len()
+        )
+    };
+    vec![format!(
+        "Positivity survey in S_{n}: normal forms of S_w(x_{n}, ..., x_1) modulo J_{n} (lex order x_1 > ... > x_{n}), summary columns; {listing}, then lexicographic in w; {rows} rows"
+    )]
 }
 
 /// The header of the rows.
@@ -125,12 +145,20 @@ fn survey_row(ui: &mut egui::Ui, e: &SurveyEntry, current: &Perm, n: usize) -> b
 impl SurveyPanel {
     /// The tables this panel can export: the survey shown (without normal forms).
     pub fn tables(&mut self) -> Vec<(String, Arc<Table>)> {
+        let order = &self.order;
         self.export
-            .table(|n, out| match out {
-                Output::Survey(entries) => Some(survey_table(*n, entries, true)),
-                _ => None,
+            .table(|&(n, only), out| {
+                let Output::Survey(entries) = out else {
+                    return None;
+                };
+                let (_, _, rows) = order.as_ref().filter(|(k, o, _)| *k == n && *o == only)?;
+                Some(
+                    survey_table(n, entries, true)
+                        .reordered(rows)
+                        .with_caption(survey_caption(n, entries, only, rows.len())),
+                )
             })
-            .map(|(n, t)| (format!("the positivity survey of S_{n}"), t))
+            .map(|((n, _), t)| (format!("the positivity survey of S_{n}"), t))
             .into_iter()
             .collect()
     }
@@ -164,7 +192,6 @@ impl SurveyPanel {
         let Output::Survey(entries) = out.as_ref() else {
             return false;
         };
-        self.export.note_shown(&wanted, &out);
         if self.summary.as_ref().is_none_or(|(k, _)| *k != wanted) {
             self.summary = Some((wanted, summary_text(entries)));
         }
@@ -178,6 +205,8 @@ impl SurveyPanel {
             );
         });
         let order = self.order_for(wanted, entries);
+        self.export
+            .note_shown(&(wanted, self.only_counterexamples), &out);
         self.rows(ui, ctx, entries, &order, wanted)
     }
 

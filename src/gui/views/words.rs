@@ -1,6 +1,7 @@
 //! Reduced words: the exact count, a paged list with content vectors, the
 //! selected word drawn as a wiring diagram whose crossings light up with the
-//! letters, and the commutation and braid moves available from it.
+//! letters, and the commutation and braid moves available from it. The lit
+//! crossing is a mark for the canvas: an export leaves it out unless asked for.
 
 use super::{arrow_step, fetch_ready, figure_look};
 use crate::engine::requests::WORD_PAGE;
@@ -9,7 +10,8 @@ use crate::figure::look::Look;
 use crate::figure::wiring::wiring_scene;
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
-use crate::gui::scene_painter::{self, PaintOptions};
+use crate::gui::files::{Exportable, Exports};
+use crate::gui::scene_painter::{self, PaintOptions, halo_color, with_highlight};
 use crate::math::Perm;
 use crate::math::perms::words::{WordMove, apply_word_move, content, word_moves};
 use eframe::egui;
@@ -26,9 +28,16 @@ pub struct WordsView {
     hover_crossing: Option<usize>,
     /// Finds the place of the word reached by a move, to select it there.
     locating: Slot,
-    /// The wiring diagram on screen, without the hover highlight, for export.
-    wiring_shown: Option<Arc<Scene>>,
+    /// The wiring diagram on screen, without the hover highlight, for export,
+    /// with the word, n, look and lit crossing it was drawn for.
+    wiring_shown: Option<(WiringKey, Arc<Scene>)>,
+    /// The same diagram as on screen, lit crossing included, for an export
+    /// that keeps the marks.
+    wiring_marked: Option<(WiringKey, Arc<Scene>)>,
 }
+
+/// What a wiring diagram is drawn for: the word, n, the look, the lit crossing.
+type WiringKey = (Vec<usize>, usize, Look, Option<usize>);
 
 /// Where the selection is: the page of the list shown and the words on it.
 struct PageShown<'a> {
@@ -75,12 +84,22 @@ fn move_label(word: &[usize], mv: WordMove) -> (String, usize) {
 }
 
 impl WordsView {
-    /// The figures this view can export: the wiring diagram on screen.
-    pub fn figures(&self) -> Vec<(String, Arc<Scene>)> {
-        self.wiring_shown
-            .iter()
-            .map(|s| ("the wiring diagram shown".to_string(), s.clone()))
-            .collect()
+    /// The figures this view can export: the wiring diagram on screen,
+    /// without the lit crossing unless the export asks for it.
+    pub fn figures(&self) -> Exports {
+        let Some((_, clean)) = &self.wiring_shown else {
+            return Vec::new();
+        };
+        let marked = self
+            .wiring_marked
+            .as_ref()
+            .map_or_else(|| clean.clone(), |(_, s)| s.clone());
+        let item = Exportable::Marked {
+            clean: clean.clone(),
+            marked,
+            marks: "the lit crossing",
+        };
+        vec![("the wiring diagram shown".to_string(), item)]
     }
 
     /// Draws the view.
@@ -289,7 +308,24 @@ impl WordsView {
     /// The wiring diagram, with the hovered crossing lit.
     fn wiring(&mut self, ui: &mut egui::Ui, word: &[usize], n: usize, look: &Look) {
         let scene = wiring_scene(word, n, look, self.hover_crossing);
-        self.wiring_shown = Some(Arc::new(wiring_scene(word, n, look, None)));
+        let clean_key: WiringKey = (word.to_vec(), n, *look, None);
+        if self
+            .wiring_shown
+            .as_ref()
+            .is_none_or(|(k, _)| *k != clean_key)
+        {
+            self.wiring_shown = Some((clean_key, Arc::new(wiring_scene(word, n, look, None))));
+        }
+        let lit_key: WiringKey = (word.to_vec(), n, *look, self.hover_crossing);
+        if self
+            .wiring_marked
+            .as_ref()
+            .is_none_or(|(k, _)| *k != lit_key)
+        {
+            let lit: Vec<Tag> = self.hover_crossing.map(Tag::Crossing).into_iter().collect();
+            let marked = with_highlight(&scene, &lit, halo_color(look));
+            self.wiring_marked = Some((lit_key, Arc::new(marked)));
+        }
         let avail = ui.available_size();
         let opts = PaintOptions {
             highlight: self.hover_crossing.map(Tag::Crossing).into_iter().collect(),
