@@ -271,14 +271,20 @@ fn a_note_typed_in_the_panel_is_saved_and_opened_again() {
 }
 
 #[test]
-fn notes_past_the_typed_text_limit_are_cut_with_a_notice() {
-    let limit = elbowroom::math::limits::TYPED_TEXT_LIMIT;
+fn notes_past_the_editing_limit_are_kept_whole_and_shown_in_part() {
+    // notes longer than the panel edits (as a file may hold) are never shortened
+    let limit = elbowroom::math::limits::NOTES_TEXT_LIMIT;
     let mut h = harness();
-    h.state_mut().session.notes = "x".repeat(limit + 10);
+    let long = "x".repeat(limit + 10);
+    h.state_mut().session.notes = long.clone();
     h.state_mut().notes.open = true;
-    h.step();
-    assert_eq!(h.state().session.notes.len(), limit);
-    assert!(has(&h, &format!("the notes had {} characters", limit + 10)));
+    h.run();
+    assert_eq!(h.state().session.notes, long);
+    assert!(has(
+        &h,
+        &format!("these notes have {} characters", limit + 10)
+    ));
+    assert!(h.query_by_role(Role::MultilineTextInput).is_none());
 }
 
 #[test]

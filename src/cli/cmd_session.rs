@@ -40,7 +40,7 @@ fn check(args: &SessionCheckArgs) -> Result<String, CliError> {
     let mut out = format!(
         "{}: a valid session (format version {version})\n  title:   {}\n  n:       {}\n  current: {}\n  view:    {view}\n  pins:    {}\n  history: {} permutation{}\n",
         args.file.display(),
-        s.title,
+        excerpt(&s.title, NOTE_EXCERPT),
         s.n,
         current,
         s.pins.len(),
@@ -59,9 +59,29 @@ fn check(args: &SessionCheckArgs) -> Result<String, CliError> {
         ));
     }
     if let Some(first) = s.notes.lines().find(|l| !l.trim().is_empty()) {
-        out.push_str(&format!("  notes:   {first}\n"));
+        let lines = s.notes.lines().count();
+        out.push_str(&format!(
+            "  notes:   {}{}\n",
+            excerpt(first, NOTE_EXCERPT),
+            if lines > 1 {
+                format!(" ({lines} lines)")
+            } else {
+                String::new()
+            }
+        ));
     }
     Ok(out)
+}
+
+/// How many characters of the notes' first line the report shows.
+const NOTE_EXCERPT: usize = 80;
+
+/// The first `most` characters of `text`, with "…" when some were left out.
+fn excerpt(text: &str, most: usize) -> String {
+    match text.char_indices().nth(most) {
+        Some((at, _)) => format!("{}…", &text[..at]),
+        None => text.to_string(),
+    }
 }
 
 /// A session error as a CLI error: an unreadable or unwritable file fails
@@ -70,5 +90,16 @@ pub fn session_error(e: SessionError) -> CliError {
     match e {
         SessionError::Write { .. } | SessionError::NoConfigDir => CliError::Failed(e.to_string()),
         _ => CliError::Input(e.to_string()),
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::excerpt;
+
+    #[test]
+    fn long_notes_are_shown_as_an_excerpt() {
+        assert_eq!(excerpt("short", 80), "short");
+        assert_eq!(excerpt(&"λ".repeat(100), 3), "λλλ…");
     }
 }

@@ -2,12 +2,14 @@
 //! opened and closed by the status line's "notes" button or Ctrl+Shift+N,
 //! with the session's title and its free-text notes. Both are part of the
 //! session, so they are saved with it and an edit is an unsaved change (the
-//! close guard asks). The notes hold at most [`TYPED_TEXT_LIMIT`] characters
-//! and the title [`TITLE_LIMIT`]: typing or pasting past the limit is cut
-//! there, with a line saying so, and a longer text from a file is shortened
-//! to the limit (also said), so the editor never lays out an unbounded text.
+//! close guard asks). The panel edits notes of at most [`NOTES_TEXT_LIMIT`]
+//! characters and a title of at most [`TITLE_LIMIT`]: typing or pasting past
+//! the limit is not taken, with a line saying so. Longer notes or a longer
+//! title read from a file are never shortened: they are shown as an excerpt,
+//! not edited, and saved as they are, so the editor never lays out an
+//! unbounded text and nothing of the file is lost.
 
-use crate::math::limits::TYPED_TEXT_LIMIT;
+use crate::math::limits::NOTES_TEXT_LIMIT;
 use crate::session::Session;
 use eframe::egui;
 
@@ -23,23 +25,26 @@ pub struct NotesPanel {
     pub notice: Option<String>,
 }
 
-/// Shortens `text` to at most `limit` characters; the number it had, if it had more.
-fn cut_to(text: &mut String, limit: usize) -> Option<usize> {
+/// The number of characters of `text` when it has more than `limit`.
+fn over(text: &str, limit: usize) -> Option<usize> {
     // a byte length within the limit is a character count within it too
     if text.len() <= limit {
         return None;
     }
     let count = text.chars().count();
-    if count <= limit {
-        return None;
-    }
-    let end = text
-        .char_indices()
-        .nth(limit)
-        .map_or(text.len(), |(at, _)| at);
-    text.truncate(end);
-    Some(count)
+    (count > limit).then_some(count)
 }
+
+/// The first `most` characters of `text`, with "…" when some were left out.
+fn excerpt(text: &str, most: usize) -> String {
+    match text.char_indices().nth(most) {
+        Some((at, _)) => format!("{}…", &text[..at]),
+        None => text.to_string(),
+    }
+}
+
+/// How much of a text too long to edit is shown.
+const EXCERPT: usize = 2_000;
 
 /// Whether `text` has `limit` characters or more.
 fn at_limit(text: &str, limit: usize) -> bool {
@@ -62,16 +67,8 @@ impl NotesPanel {
         if !self.open {
             return;
         }
-        if let Some(had) = cut_to(&mut session.notes, TYPED_TEXT_LIMIT) {
-            self.notice = Some(format!(
-                "the notes had {had} characters; they are kept to the first {TYPED_TEXT_LIMIT}"
-            ));
-        }
-        if let Some(had) = cut_to(&mut session.title, TITLE_LIMIT) {
-            self.notice = Some(format!(
-                "the title had {had} characters; it is kept to the first {TITLE_LIMIT}"
-            ));
-        }
+        let long_notes = over(&session.notes, NOTES_TEXT_LIMIT);
+        let long_title = over(&session.title, TITLE_LIMIT);
         egui::Panel::right("notes")
             .resizable(true)
             .default_size(320.0)
@@ -83,40 +80,65 @@ impl NotesPanel {
                     }
                 });
                 ui.label("title");
-                let title = ui.add(
-                    egui::TextEdit::singleline(&mut session.title)
-                        .id_salt("session_title")
-                        .char_limit(TITLE_LIMIT)
-                        .desired_width(f32::INFINITY),
-                );
-                if title.changed() {
+                let mut title_changed = false;
+                if let Some(had) = long_title {
+                    ui.label(excerpt(&session.title, TITLE_LIMIT));
+                    ui.colored_label(
+                        crate::gui::theme::alert(),
+                        format!(
+                            "this title has {had} characters, more than the {TITLE_LIMIT} edited here; it is kept as it is"
+                        ),
+                    );
+                } else {
+                    let title = ui.add(
+                        egui::TextEdit::singleline(&mut session.title)
+                            .id_salt("session_title")
+                            .char_limit(TITLE_LIMIT)
+                            .desired_width(f32::INFINITY),
+                    );
+                    title_changed = title.changed();
+                }
+                if title_changed {
                     ui.ctx().send_viewport_cmd(egui::ViewportCommand::Title(
                         crate::gui::files::window_title(session),
                     ));
+                    if at_limit(&session.title, TITLE_LIMIT) {
+                        self.notice = Some(format!(
+                            "a title holds at most {TITLE_LIMIT} characters; what went past that was not taken"
+                        ));
+                    }
                 }
                 ui.label("notes (saved with the session)");
-                let edit = egui::ScrollArea::vertical()
-                    .id_salt("notes_scroll")
-                    .max_height(ui.available_height() - 40.0)
-                    .show(ui, |ui| {
-                        ui.add(
-                            egui::TextEdit::multiline(&mut session.notes)
-                                .id_salt("session_notes")
-                                .char_limit(TYPED_TEXT_LIMIT)
-                                .desired_rows(12)
-                                .desired_width(f32::INFINITY),
-                        )
-                    })
-                    .inner;
-                if edit.changed() && at_limit(&session.notes, TYPED_TEXT_LIMIT) {
-                    self.notice = Some(format!(
-                        "the notes hold at most {TYPED_TEXT_LIMIT} characters; what went past that was not taken"
-                    ));
-                }
-                if title.changed() && at_limit(&session.title, TITLE_LIMIT) {
-                    self.notice = Some(format!(
-                        "a title holds at most {TITLE_LIMIT} characters; what went past that was not taken"
-                    ));
+                if let Some(had) = long_notes {
+                    ui.colored_label(
+                        crate::gui::theme::alert(),
+                        format!(
+                            "these notes have {had} characters, more than the {NOTES_TEXT_LIMIT} edited here; they are kept as they are and saved unchanged (the first {EXCERPT} are shown)"
+                        ),
+                    );
+                    egui::ScrollArea::vertical()
+                        .id_salt("notes_scroll")
+                        .max_height(ui.available_height() - 40.0)
+                        .show(ui, |ui| ui.label(excerpt(&session.notes, EXCERPT)));
+                } else {
+                    let edit = egui::ScrollArea::vertical()
+                        .id_salt("notes_scroll")
+                        .max_height(ui.available_height() - 40.0)
+                        .show(ui, |ui| {
+                            ui.add(
+                                egui::TextEdit::multiline(&mut session.notes)
+                                    .id_salt("session_notes")
+                                    .char_limit(NOTES_TEXT_LIMIT)
+                                    .desired_rows(12)
+                                    .desired_width(f32::INFINITY),
+                            )
+                        })
+                        .inner;
+                    if edit.changed() && at_limit(&session.notes, NOTES_TEXT_LIMIT) {
+                        self.notice = Some(format!(
+                            "the notes hold at most {NOTES_TEXT_LIMIT} characters; what went past that was not taken"
+                        ));
+                    }
                 }
                 if let Some(n) = &self.notice {
                     ui.colored_label(crate::gui::theme::alert(), n);
@@ -131,15 +153,12 @@ mod tests {
     use super::*;
 
     #[test]
-    fn a_long_text_is_cut_at_a_character_boundary() {
-        let mut t = "ℓ(w) = 3; ".repeat(30);
-        let had = t.chars().count();
-        assert_eq!(cut_to(&mut t, 25), Some(had));
-        assert_eq!(t.chars().count(), 25);
-        assert!(t.starts_with("ℓ(w) = 3; ℓ(w)"));
-        let mut short = "σ_w".to_string();
-        assert_eq!(cut_to(&mut short, 3), None);
-        assert_eq!(short, "σ_w");
+    fn a_long_text_is_measured_and_shown_in_part_never_cut() {
+        let t = "ℓ(w) = 3; ".repeat(30);
+        assert_eq!(over(&t, 25), Some(t.chars().count()));
+        assert_eq!(over("σ_w", 3), None);
+        assert_eq!(excerpt(&t, 4), "ℓ(w)…");
+        assert_eq!(excerpt("σ_w", 3), "σ_w");
         assert!(at_limit("σ_w", 3));
         assert!(!at_limit("σ_", 3));
     }

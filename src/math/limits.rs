@@ -34,6 +34,12 @@ pub use crate::math::schubert::product::{PRODUCT_TERM_LIMIT, TRANSITION_NODE_LIM
 /// and reading that much takes well under a second.
 pub const TYPED_TEXT_LIMIT: usize = 200_000;
 
+/// The most characters of notes the explorer's notes panel edits: typing stays
+/// within one frame (a text edit lays its whole text out each frame; 200 000
+/// characters took 120–200 ms a frame in a release build). Longer notes read
+/// from a file are kept as they are and shown as an excerpt, not edited.
+pub const NOTES_TEXT_LIMIT: usize = 20_000;
+
 /// The most terms a typed polynomial may expand to while it is read (a power
 /// of a sum, a product of sums). 200 000 terms of big rationals take tens of
 /// megabytes and a few seconds to build; `(x1 + x2 + x3 + x4)^100` (176 851
