@@ -77,8 +77,10 @@ impl Autosave {
             .show(ctx, |ui| {
                 ui.label(format!(
                     "elbowroom did not close cleanly last time. An autosaved copy of \"{}\" \
-                     (n = {}, w = {:?}) is available.",
-                    recovered.title, recovered.n, recovered.current
+                     (n = {}, w = {}) is available.",
+                    recovered.title,
+                    recovered.n,
+                    crate::gui::app_ctx::current_perm(recovered)
                 ));
                 ui.horizontal(|ui| {
                     restore = ui.button("restore it").clicked();
