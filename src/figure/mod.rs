@@ -13,6 +13,7 @@ pub use scene::{Anchor, Color, Item, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
 pub mod bumpless;
 pub mod dream;
 pub mod look;
+pub mod math_text;
 pub mod paths;
 pub mod permutohedron;
 pub mod volume;
