@@ -3,7 +3,8 @@
 //! [`crate::figure::math_text`]) becomes an egui [`LayoutJob`] whose indices
 //! are smaller and lowered and whose exponents are smaller and raised, and a
 //! typeset result carries a "copy" button that puts its plain text on the
-//! clipboard.
+//! clipboard. The accessible name of a typeset line is its plain notation
+//! (a screen reader reads `x2^2 x3`, not the run of glyphs `x22x3`).
 
 use crate::figure::math_text::{Level, MathText, Piece, pieces};
 use eframe::egui::{self, Align, Color32, FontId, TextFormat, text::LayoutJob};
@@ -46,6 +47,11 @@ impl Typeset {
     pub fn strong(mut self) -> Typeset {
         self.strong = true;
         self
+    }
+
+    /// The line in our plain notation, as typed (`f = x2^2 x3`).
+    pub fn plain_text(&self) -> String {
+        self.parts.iter().map(|(t, _)| t.as_str()).collect()
     }
 
     /// The runs of the whole line.
@@ -126,6 +132,7 @@ pub fn math_label(ui: &mut egui::Ui, line: &Typeset, plain: &str) -> egui::Respo
     let response = ui
         .horizontal_wrapped(|ui| {
             let r = ui.add(egui::Label::new(job).wrap());
+            named(&r, egui::Role::Label, line);
             copy_button(ui, plain);
             r
         })
@@ -150,10 +157,45 @@ pub fn copy_button(ui: &mut egui::Ui, plain: &str) {
     }
 }
 
+/// Names the widget of `response` by the line's plain notation.
+fn named(response: &egui::Response, kind: egui::Role, line: &Typeset) {
+    let plain = line.plain_text();
+    response.widget_info(|| egui::WidgetInfo::labeled(kind, true, plain.clone()));
+}
+
 /// A typeset line on its own, no copy button (headings, column headers).
 pub fn label(ui: &mut egui::Ui, line: &Typeset) -> egui::Response {
     let job = line.job(ui);
-    ui.add(egui::Label::new(job).wrap())
+    let r = ui.add(egui::Label::new(job).wrap());
+    named(&r, egui::Role::Label, line);
+    r
+}
+
+/// A radio button choosing `value` for `current`, its text typeset.
+pub fn radio<V: PartialEq>(
+    ui: &mut egui::Ui,
+    current: &mut V,
+    value: V,
+    line: &Typeset,
+) -> egui::Response {
+    let selected = *current == value;
+    let mut r = radio_flag(ui, selected, line);
+    if r.clicked() && !selected {
+        *current = value;
+        r.mark_changed();
+    }
+    r
+}
+
+/// A radio button shown `selected`, its text typeset (the caller acts on a click).
+pub fn radio_flag(ui: &mut egui::Ui, selected: bool, line: &Typeset) -> egui::Response {
+    let job = line.job(ui);
+    let r = ui.radio(selected, job);
+    let plain = line.plain_text();
+    r.widget_info(|| {
+        egui::WidgetInfo::selected(egui::Role::RadioButton, true, selected, plain.clone())
+    });
+    r
 }
 
 /// A heading: the line in the heading font.
@@ -166,7 +208,9 @@ pub fn heading(ui: &mut egui::Ui, line: &Typeset) -> egui::Response {
         row,
         ui.visuals().strong_text_color(),
     );
-    ui.add(egui::Label::new(job).wrap())
+    let r = ui.add(egui::Label::new(job).wrap());
+    named(&r, egui::Role::Label, line);
+    r
 }
 
 fn shorten(plain: &str) -> String {

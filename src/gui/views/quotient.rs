@@ -12,6 +12,7 @@ use crate::figure::look::Look;
 use crate::figure::paths::{PathPanel, panels_of_normal_form, path_grid_scene};
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
+use crate::gui::typeset::{self, Typeset};
 use crate::gui::scene_painter::{self, PaintOptions};
 use crate::math::Perm;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
@@ -75,12 +76,8 @@ fn source_choice(ui: &mut egui::Ui, place: &mut QuotientPlace, w: &Perm) {
             place.survey = false;
             place.use_typed = true;
         }
-        if ui
-            .radio(
-                place.survey,
-                format!("positivity survey of all of S_{}", w.n()),
-            )
-            .clicked()
+        let survey = Typeset::new().symbol(format!("positivity survey of all of S_{}", w.n()));
+        if typeset::radio_flag(ui, place.survey, &survey).clicked()
         {
             place.survey = true;
         }
@@ -117,11 +114,12 @@ fn polynomials(ui: &mut egui::Ui, r: &Reduced) {
         .id_salt("quotient_polynomials")
         .max_height(96.0)
         .show(ui, |ui| {
-            ui.label(egui::RichText::new(format!("f = {}", r.input)).monospace());
-            ui.label(
-                egui::RichText::new(format!("NF(f) = {}", r.normal.poly.to_text()))
-                    .monospace()
-                    .strong(),
+            typeset::math_label(ui, &Typeset::new().plain("f = ").poly(&r.input), &r.input);
+            let normal = r.normal.poly.to_text();
+            typeset::math_label(
+                ui,
+                &Typeset::new().plain("NF(f) = ").poly(&normal).strong(),
+                &normal,
             );
         });
 }
@@ -135,14 +133,22 @@ fn summary(ui: &mut egui::Ui, r: &Reduced) {
         .iter()
         .filter(|c| c.2.is_negative())
         .count();
-    ui.label(format!(
-        "Hilbert series of Q[x]/J_{}: {}  (dimension {dim}, the Catalan number);  {} basis terms, {} negative, coefficient sum {}",
-        r.n,
-        hilbert_series_text(&r.hilbert),
-        r.normal.coefficients.len(),
-        negatives,
-        r.normal.coefficient_sum()
-    ));
+    let series = hilbert_series_text(&r.hilbert);
+    typeset::math_label(
+        ui,
+        &Typeset::new()
+            .plain("Hilbert series of Q[x]/")
+            .symbol(format!("J_{}", r.n))
+            .plain(": ")
+            .symbol(&series)
+            .plain(format!(
+                "  (dimension {dim}, the Catalan number);  {} basis terms, {} negative, coefficient sum {}",
+                r.normal.coefficients.len(),
+                negatives,
+                r.normal.coefficient_sum()
+            )),
+        &series,
+    );
 }
 
 /// The grid of lattice paths, scrolled, with the hovered panel's term as a tooltip.
@@ -161,8 +167,10 @@ fn show_paths(ui: &mut egui::Ui, scene: &Scene, r: &Reduced) {
             if let Some(Tag::Panel(k)) = resp.hovered_where(|t| matches!(t, Tag::Panel(_)))
                 && let Some((_, m, c)) = r.normal.coefficients.get(k)
             {
-                resp.response
-                    .on_hover_text(format!("{c} · {}", m.text(r.n)));
+                let line = Typeset::new().plain(format!("{c} · ")).poly(m.text(r.n));
+                resp.response.on_hover_ui(|ui| {
+                    typeset::label(ui, &line);
+                });
             }
         });
 }
@@ -199,7 +207,14 @@ impl QuotientView {
     /// Draws the view.
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
-        ui.heading("Normal form in Q[x1..xn]/J_n (lex order x1 > x2 > ... > xn)");
+        typeset::heading(
+            ui,
+            &Typeset::new()
+                .plain("Normal form in Q[")
+                .symbol("x_1, …, x_n")
+                .plain("]/")
+                .symbol("J_n (lex order x_1 > x_2 > … > x_n)"),
+        );
         source_choice(ui, &mut ctx.session.quotient, &w);
         let n = w.n();
         if ctx.session.quotient.survey {
@@ -232,7 +247,7 @@ impl QuotientView {
         summary(ui, r);
         let scene = self.paths_scene(ui, key, figure_look(ctx.session), r);
         if r.normal.coefficients.is_empty() {
-            ui.label("NF(f) = 0: f lies in J_n.");
+            typeset::label(ui, &Typeset::new().symbol("NF(f) = 0: f lies in J_n."));
             return;
         }
         show_paths(ui, &scene, r);
