@@ -7,6 +7,7 @@ use super::browser::Browser;
 use crate::engine::{Fetch, JobKey, Slot};
 use crate::math::perms::class::classes_of;
 use crate::math::{MathError, MathResult, Perm};
+use super::typeset::{self, Typeset};
 use eframe::egui;
 
 /// The picker's UI state.
@@ -115,7 +116,10 @@ impl Picker {
         {
             Fetch::Ready(out) => {
                 if let Some(c) = out.counts().and_then(|c| c.first()) {
-                    ui.label(format!("pipe dreams S_w(1,...,1) = {c}"));
+                    typeset::label(
+                        ui,
+                        &Typeset::new().symbol(format!("pipe dreams S_w(1, …, 1) = {c}")),
+                    );
                 }
             }
             Fetch::Running(..) => {

@@ -17,6 +17,7 @@ pub const SCRIPT_SCALE: f32 = 0.7;
 pub struct Typeset {
     parts: Vec<(String, Option<MathText>)>,
     strong: bool,
+    color: Option<Color32>,
 }
 
 impl Typeset {
@@ -49,6 +50,12 @@ impl Typeset {
         self
     }
 
+    /// Set in `color` instead of the text colour.
+    pub fn color(mut self, color: Color32) -> Typeset {
+        self.color = Some(color);
+        self
+    }
+
     /// The line in our plain notation, as typed (`f = x2^2 x3`).
     pub fn plain_text(&self) -> String {
         self.parts.iter().map(|(t, _)| t.as_str()).collect()
@@ -78,7 +85,9 @@ impl Typeset {
     /// The layout in `ui`'s body font and text colour.
     pub fn job(&self, ui: &egui::Ui) -> LayoutJob {
         let font = egui::TextStyle::Body.resolve(ui.style());
-        let color = if self.strong {
+        let color = if let Some(c) = self.color {
+            c
+        } else if self.strong {
             ui.visuals().strong_text_color()
         } else {
             ui.visuals().text_color()
@@ -158,7 +167,7 @@ pub fn copy_button(ui: &mut egui::Ui, plain: &str) {
 }
 
 /// Names the widget of `response` by the line's plain notation.
-fn named(response: &egui::Response, kind: egui::Role, line: &Typeset) {
+pub fn named(response: &egui::Response, kind: egui::Role, line: &Typeset) {
     let plain = line.plain_text();
     response.widget_info(|| egui::WidgetInfo::labeled(kind, true, plain.clone()));
 }

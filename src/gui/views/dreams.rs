@@ -17,6 +17,7 @@ use crate::math::pipes::bumpless::BumplessDream;
 use crate::math::pipes::dream::PipeDream;
 use crate::math::pipes::moves::MoveKind;
 use crate::math::poly::mono::exponents_text;
+use crate::gui::typeset::{self, Typeset};
 use eframe::egui;
 use std::sync::Arc;
 
@@ -113,11 +114,8 @@ fn move_at(
 fn dream_facts(ui: &mut egui::Ui, dream: &PipeDream, note: Option<&String>) {
     ui.vertical(|ui| {
         ui.label(egui::RichText::new("weight").weak());
-        ui.label(
-            egui::RichText::new(exponents_text(&dream.monomial()))
-                .monospace()
-                .strong(),
-        );
+        let weight = exponents_text(&dream.monomial());
+        typeset::math_label(ui, &Typeset::new().poly(&weight).strong(), &weight);
         ui.add_space(6.0);
         ui.label(egui::RichText::new("reading word").weak());
         let word: Vec<String> = dream.reading_word().iter().map(|a| a.to_string()).collect();
@@ -143,11 +141,8 @@ fn dream_facts(ui: &mut egui::Ui, dream: &PipeDream, note: Option<&String>) {
 fn bumpless_facts(ui: &mut egui::Ui, d: &BumplessDream, w: &Perm) {
     ui.vertical(|ui| {
         ui.label(egui::RichText::new("weight (blank tiles)").weak());
-        ui.label(
-            egui::RichText::new(exponents_text(&d.monomial()))
-                .monospace()
-                .strong(),
-        );
+        let weight = exponents_text(&d.monomial());
+        typeset::math_label(ui, &Typeset::new().poly(&weight).strong(), &weight);
         ui.add_space(6.0);
         let blanks: Vec<String> = d
             .blanks()

@@ -45,7 +45,12 @@ fn symmetrization_choice(ui: &mut egui::Ui, session: &mut Session, n: usize) {
     let hview = &session.hessenberg.h;
     let use_h = &mut session.workbench.use_h;
     ui.horizontal(|ui| {
-        ui.radio_value(use_h, false, format!("DS_n with n = {n} (the current S_n)"));
+        typeset::radio(
+            ui,
+            use_h,
+            false,
+            &Typeset::new().symbol(format!("DS_n with n = {n} (the current S_n)")),
+        );
         let htext: Vec<String> = hview.iter().map(|v| v.to_string()).collect();
         ui.add_enabled_ui(!hview.is_empty(), |ui| {
             let label = if hview.is_empty() {
@@ -56,7 +61,7 @@ fn symmetrization_choice(ui: &mut egui::Ui, session: &mut Session, n: usize) {
                     htext.join(", ")
                 )
             };
-            ui.radio_value(use_h, true, label);
+            typeset::radio(ui, use_h, true, &Typeset::new().symbol(label));
         });
     });
 }
