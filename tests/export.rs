@@ -202,7 +202,19 @@ fn svg_parses_with_one_path_per_pipe() {
         assert!(e.attribute("d").unwrap().contains('C'));
     }
     let text = doc.descendants().find(|e| e.has_tag_name("text")).unwrap();
-    assert_eq!(text.text(), Some("σ_w & λ <1>"));
+    // σ_w is set with its index lowered: σ, then w in a tspan shifted to "sub"
+    let read: String = text
+        .descendants()
+        .filter(|n| n.is_text())
+        .filter_map(|n| n.text())
+        .collect();
+    assert_eq!(read, "σw & λ <1>");
+    let index = text
+        .descendants()
+        .find(|e| e.has_tag_name("tspan"))
+        .unwrap();
+    assert_eq!(index.attribute("baseline-shift"), Some("sub"));
+    assert_eq!(index.text(), Some("w"));
     assert_eq!(doc.root_element().attribute("viewBox"), Some("0 0 220 120"));
 }
 
@@ -230,7 +242,11 @@ fn tikz_has_one_draw_per_pipe_and_declares_its_colours() {
         n + 2,
         "pipes, frame, circle"
     );
-    assert!(tex.contains("$\\sigma$\\_w \\& $\\lambda$ $<$1$>$"));
+    // σ_w with its index lowered, as one formula
+    assert!(
+        tex.contains("{$\\sigma _{w}\\ \\&\\ \\lambda \\ <1>$}"),
+        "{tex}"
+    );
 }
 
 #[test]

@@ -52,6 +52,23 @@ pub fn has_scripts(text: &str) -> bool {
         .any(|p| p.level != Level::Base)
 }
 
+/// How a figure label is read: `None` when it has nothing to lower or raise
+/// (it is then written as it is), as a polynomial when it holds only
+/// variables, digits and `^ * / + -` (`x2 x3^2`), else as a symbol.
+pub fn label_reading(text: &str) -> Option<MathText> {
+    if !has_scripts(text) {
+        return None;
+    }
+    let polynomial = text
+        .chars()
+        .all(|c| c == 'x' || c.is_ascii_digit() || " ^*/+-".contains(c));
+    Some(if polynomial {
+        MathText::Poly
+    } else {
+        MathText::Symbol
+    })
+}
+
 /// Reads `text` as `how` into runs, neighbouring runs at the same height merged.
 ///
 /// ```
@@ -324,5 +341,9 @@ mod tests {
         assert!(!has_scripts("-3/2"));
         assert!(has_scripts("x2 x3^2"));
         assert!(has_scripts("Vol P_λ(t)"));
+        assert_eq!(label_reading("x2 x3^2"), Some(MathText::Poly));
+        assert_eq!(label_reading("a^h_w"), Some(MathText::Symbol));
+        assert_eq!(label_reading("-3/2"), None);
+        assert_eq!(label_reading("1 2 3"), None);
     }
 }
