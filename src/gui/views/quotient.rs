@@ -9,7 +9,7 @@ use super::{figure_look, show_math_error, show_progress};
 use crate::engine::requests::{Output, QuotientInput, Reduced};
 use crate::engine::{Engine, Fetch, JobKey, Slot};
 use crate::figure::look::Look;
-use crate::figure::paths::{PathPanel, panels_of_normal_form, path_grid_scene};
+use crate::figure::paths::{PathPanel, panels_of_normal_form, path_grid_scene, with_legend};
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
 use crate::gui::typeset::{self, Typeset};
@@ -26,8 +26,11 @@ use std::sync::Arc;
 #[derive(Default)]
 pub struct QuotientView {
     normal_form: Slot,
-    /// The grid of lattice paths on screen, keyed by the normal form asked for and the look.
-    paths_scene: Option<(JobKey, Look, Arc<Scene>)>,
+    /// The grid of lattice paths on screen, keyed by the normal form asked
+    /// for and the look, and the same grid with its legend, for export.
+    paths_scene: Option<(JobKey, Look, Arc<Scene>, Arc<Scene>)>,
+    /// Export the grid without its legend.
+    pub figure_without_legend: bool,
     /// The survey over all of S_n.
     pub survey: SurveyPanel,
     /// The permutation last picked from the survey's rows, while its normal form is shown.
@@ -151,6 +154,37 @@ fn summary(ui: &mut egui::Ui, r: &Reduced) {
     );
 }
 
+/// The legend beside the panels: how x^e becomes its path, and a swatch of
+/// the colour of each x_i (the same words as in the exported figure).
+fn legend(ui: &mut egui::Ui, n: usize, without_in_figure: &mut bool) {
+    ui.strong("How to read the paths");
+    let weak = ui.visuals().weak_text_color();
+    for paragraph in crate::figure::paths::legend_paragraphs() {
+        typeset::label(ui, &Typeset::new().symbol(paragraph).color(weak));
+        ui.add_space(4.0);
+    }
+    ui.horizontal_wrapped(|ui| {
+        for v in 2..=n.max(2) {
+            let (rect, _) = ui.allocate_exact_size(egui::vec2(16.0, 10.0), egui::Sense::hover());
+            ui.painter().line_segment(
+                [rect.left_center(), rect.right_center()],
+                egui::Stroke::new(
+                    3.0,
+                    crate::gui::theme::color(crate::figure::palette::label_color(v, n)),
+                ),
+            );
+            typeset::label(ui, &Typeset::new().poly(format!("x{v}")));
+        }
+    });
+    let mut with = !*without_in_figure;
+    if ui
+        .checkbox(&mut with, "legend in the exported figure")
+        .changed()
+    {
+        *without_in_figure = !with;
+    }
+}
+
 /// The grid of lattice paths, scrolled, with the hovered panel's term as a tooltip.
 fn show_paths(ui: &mut egui::Ui, scene: &Scene, r: &Reduced) {
     egui::ScrollArea::vertical()
@@ -180,7 +214,10 @@ impl QuotientView {
     pub fn figures(&self) -> Vec<(String, Arc<Scene>)> {
         self.paths_scene
             .iter()
-            .map(|(_, _, s)| ("the lattice-path normal form".to_string(), s.clone()))
+            .map(|(_, _, bare, with)| {
+                let s = if self.figure_without_legend { bare } else { with };
+                ("the lattice-path normal form".to_string(), s.clone())
+            })
             .collect()
     }
 
@@ -250,7 +287,18 @@ impl QuotientView {
             typeset::label(ui, &Typeset::new().symbol("NF(f) = 0: f lies in J_n."));
             return;
         }
-        show_paths(ui, &scene, r);
+        ui.horizontal_top(|ui| {
+            let legend_width = 300.0;
+            let paths_width = (ui.available_width() - legend_width - 12.0).max(200.0);
+            ui.vertical(|ui| {
+                ui.set_width(paths_width);
+                show_paths(ui, &scene, r);
+            });
+            ui.vertical(|ui| {
+                ui.set_width(legend_width);
+                legend(ui, r.n, &mut self.figure_without_legend);
+            });
+        });
     }
 
     /// The normal form once reduced; until then the progress (with cancel) or
@@ -279,12 +327,14 @@ impl QuotientView {
     /// asked for or the look changed.
     fn paths_scene(&mut self, ui: &egui::Ui, key: JobKey, look: Look, r: &Reduced) -> Arc<Scene> {
         match &self.paths_scene {
-            Some((k, l, s)) if *k == key && *l == look => s.clone(),
+            Some((k, l, s, _)) if *k == key && *l == look => s.clone(),
             _ => {
                 let panels = path_panels(&r.normal, r.n);
-                let cols = ((ui.available_width() / 150.0) as usize).clamp(2, 10);
+                // the legend takes about 300 points beside the grid
+                let cols = (((ui.available_width() - 312.0) / 150.0) as usize).clamp(2, 10);
                 let s = Arc::new(path_grid_scene(&panels, r.n, cols, &look));
-                self.paths_scene = Some((key, look, s.clone()));
+                let with = Arc::new(with_legend(&s, r.n, &look));
+                self.paths_scene = Some((key, look, s.clone(), with));
                 s
             }
         }
