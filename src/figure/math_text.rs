@@ -119,7 +119,10 @@ fn is_run_char(c: char) -> bool {
 }
 
 fn is_operator(c: char) -> bool {
-    matches!(c, '+' | '-' | '−' | '=' | '·' | ',' | ':' | '(' | ')' | '<' | '>')
+    matches!(
+        c,
+        '+' | '-' | '−' | '=' | '·' | ',' | ':' | '(' | ')' | '<' | '>'
+    )
 }
 
 /// Reads one token of `chars` at `i`, set at `level` (a script's level when
@@ -166,7 +169,8 @@ fn step(chars: &[char], i: usize, level: Level, how: MathText, out: &mut Out) ->
                 j += 1;
             }
             let ends_word = j >= chars.len() || !chars[j].is_alphabetic();
-            let indexed = j > i + 1 && ends_word && (c != 'w' || (j == i + 2 && chars[i + 1] == '0'));
+            let indexed =
+                j > i + 1 && ends_word && (c != 'w' || (j == i + 2 && chars[i + 1] == '0'));
             out.push(&c.to_string(), level);
             if indexed {
                 let index: String = chars[i + 1..j].iter().collect();

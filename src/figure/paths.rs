@@ -376,7 +376,10 @@ mod tests {
                 _ => None,
             })
             .collect();
-        assert!(lines.iter().all(|l| l.chars().count() <= LEGEND_CHARS), "{lines:?}");
+        assert!(
+            lines.iter().all(|l| l.chars().count() <= LEGEND_CHARS),
+            "{lines:?}"
+        );
         // every word of the legend is in the figure, then one swatch label per x_2, x_3
         let words: Vec<&str> = legend_paragraphs()
             .iter()

@@ -366,7 +366,10 @@ mod tests {
         assert_eq!(label_latex("x2^2 x3"), "$x_{2}^{2}x_{3}$");
         assert_eq!(label_latex("a^h_w"), "$a^{h}_{w}$");
         assert_eq!(label_latex("σ_{w0 w}"), "$\\sigma _{w0w}$");
-        assert_eq!(label_latex("Vol P_λ(t)"), "$\\mathrm{Vol}\\ P_{\\lambda }(t)$");
+        assert_eq!(
+            label_latex("Vol P_λ(t)"),
+            "$\\mathrm{Vol}\\ P_{\\lambda }(t)$"
+        );
         // nothing to lower or raise: text as before
         assert_eq!(label_latex("-3/2"), "-3/2");
         assert_eq!(label_latex("a & b"), "a \\& b");

@@ -4,10 +4,10 @@
 
 use super::app_ctx::{AppCtx, step_history};
 use super::browser::Browser;
+use super::typeset::{self, Typeset};
 use crate::engine::{Fetch, JobKey, Slot};
 use crate::math::perms::class::classes_of;
 use crate::math::{MathError, MathResult, Perm};
-use super::typeset::{self, Typeset};
 use eframe::egui;
 
 /// The picker's UI state.

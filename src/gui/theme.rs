@@ -101,7 +101,10 @@ mod tests {
             } else {
                 egui::Visuals::light().text_color()
             };
-            assert!(contrast_ratio(text, panel_color(dark)) > ratio, "dark = {dark}");
+            assert!(
+                contrast_ratio(text, panel_color(dark)) > ratio,
+                "dark = {dark}"
+            );
         }
     }
 

@@ -211,12 +211,7 @@ pub fn radio_flag(ui: &mut egui::Ui, selected: bool, line: &Typeset) -> egui::Re
 pub fn heading(ui: &mut egui::Ui, line: &Typeset) -> egui::Response {
     let font = egui::TextStyle::Heading.resolve(ui.style());
     let row = ui.fonts_mut(|f| f.row_height(&font));
-    let job = layout(
-        &line.pieces(),
-        &font,
-        row,
-        ui.visuals().strong_text_color(),
-    );
+    let job = layout(&line.pieces(), &font, row, ui.visuals().strong_text_color());
     let r = ui.add(egui::Label::new(job).wrap());
     named(&r, egui::Role::Label, line);
     r

@@ -12,12 +12,12 @@ use crate::figure::look::Look;
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions, SceneResponse};
+use crate::gui::typeset::{self, Typeset};
 use crate::math::Perm;
 use crate::math::pipes::bumpless::BumplessDream;
 use crate::math::pipes::dream::PipeDream;
 use crate::math::pipes::moves::MoveKind;
 use crate::math::poly::mono::exponents_text;
-use crate::gui::typeset::{self, Typeset};
 use eframe::egui;
 use std::sync::Arc;
 

@@ -11,9 +11,9 @@ use crate::figure::permutohedron::polytope_scene;
 use crate::figure::volume::volume_plot_scene;
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
-use crate::gui::typeset::{self, Typeset};
 use crate::gui::scene_painter::{self, PaintOptions};
 use crate::gui::table_source::TableSource;
+use crate::gui::typeset::{self, Typeset};
 use crate::math::permutohedra::permutohedron::rational_to_f64;
 use crate::session::model::PermutohedronPlace;
 use crate::tables::table::Table;
@@ -341,7 +341,13 @@ impl PermutohedronView {
             v.resize(n, "0".into());
         }
         ui.label("λ (exact rationals: 3, 3/2, 1.25; the sliders step by 1/2 and keep λ_1 ≥ λ_2 ≥ … ≥ λ_n)");
-        rational_fields(ui, "lambda", &mut self.lambda_typing, &mut place.lambda, true);
+        rational_fields(
+            ui,
+            "lambda",
+            &mut self.lambda_typing,
+            &mut place.lambda,
+            true,
+        );
         let lambda = parse_rationals(&place.lambda);
         ui.horizontal_top(|ui| {
             ui.vertical(|ui| {
@@ -428,7 +434,8 @@ impl PermutohedronView {
         if lambda.len() > 4 {
             typeset::label(
                 ui,
-                &Typeset::new().symbol("P_λ is drawn for n = 3 (the polygon) and n = 4 (a projection)."),
+                &Typeset::new()
+                    .symbol("P_λ is drawn for n = 3 (the polygon) and n = 4 (a projection)."),
             );
             return;
         }
@@ -481,7 +488,7 @@ impl PermutohedronView {
             ui,
             &Typeset::new().symbol(format!("Mixed Eulerian numbers A_c of n = {n}")),
         )
-            .on_hover_text("Ctrl+E exports them as CSV or as a LaTeX tabular");
+        .on_hover_text("Ctrl+E exports them as CSV or as a LaTeX tabular");
         match self.eulerian.fetch(engine, JobKey::Eulerian(n)) {
             Fetch::Ready(out) => {
                 let Output::Eulerian(rows) = out.as_ref() else {
@@ -536,7 +543,10 @@ mod tests {
         // neighbours 1/3 and 1/4 have no multiple of 1/2 between them
         assert_eq!(slider_range(1, &lam(&["1/3", "0", "1/4"])), None);
         // a neighbour being typed does not bound the slider
-        assert_eq!(slider_range(1, &lam(&["1/", "2", "1"])), Some((2, SLIDER_TOP_HALVES)));
+        assert_eq!(
+            slider_range(1, &lam(&["1/", "2", "1"])),
+            Some((2, SLIDER_TOP_HALVES))
+        );
     }
 
     #[test]

@@ -9,8 +9,8 @@ use crate::engine::JobKey;
 use crate::engine::Slot;
 use crate::engine::requests::Terms;
 use crate::gui::AppCtx;
-use crate::math::{MAX_N, Perm};
 use crate::gui::typeset::{self, Typeset};
+use crate::math::{MAX_N, Perm};
 use eframe::egui;
 use num_traits::Signed;
 

@@ -12,8 +12,8 @@ use crate::figure::look::Look;
 use crate::figure::paths::{PathPanel, panels_of_normal_form, path_grid_scene, with_legend};
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
-use crate::gui::typeset::{self, Typeset};
 use crate::gui::scene_painter::{self, PaintOptions};
+use crate::gui::typeset::{self, Typeset};
 use crate::math::Perm;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::normal_form::NormalForm;
@@ -80,8 +80,7 @@ fn source_choice(ui: &mut egui::Ui, place: &mut QuotientPlace, w: &Perm) {
             place.use_typed = true;
         }
         let survey = Typeset::new().symbol(format!("positivity survey of all of S_{}", w.n()));
-        if typeset::radio_flag(ui, place.survey, &survey).clicked()
-        {
+        if typeset::radio_flag(ui, place.survey, &survey).clicked() {
             place.survey = true;
         }
     });
@@ -215,7 +214,11 @@ impl QuotientView {
         self.paths_scene
             .iter()
             .map(|(_, _, bare, with)| {
-                let s = if self.figure_without_legend { bare } else { with };
+                let s = if self.figure_without_legend {
+                    bare
+                } else {
+                    with
+                };
                 ("the lattice-path normal form".to_string(), s.clone())
             })
             .collect()

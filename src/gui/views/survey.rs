@@ -9,12 +9,12 @@ use crate::engine::requests::Output;
 use crate::engine::{JobKey, Slot};
 use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
+use crate::gui::typeset::{self, Typeset};
 use crate::math::Perm;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::survey::SurveyEntry;
 use crate::tables::results::survey_table;
 use crate::tables::table::Table;
-use crate::gui::typeset::{self, Typeset};
 use eframe::egui;
 use std::sync::Arc;
 
