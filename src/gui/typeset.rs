@@ -98,7 +98,7 @@ impl Typeset {
 }
 
 /// The runs laid out: scripts at [`SCRIPT_SCALE`] of `font`, superscripts
-/// aligned to the top of the row (raised), subscripts lowered below the
+/// towards the top of the row (raised), subscripts lowered below the
 /// baseline by an explicit line height (egui centres a glyph in its line
 /// height, so a short line height at the row's bottom sets it lower);
 /// `row_height` is the height of a line of `font`.
@@ -117,6 +117,10 @@ pub fn layout(runs: &[Piece], font: &FontId, row_height: f32, color: Color32) ->
                 font_id: small.clone(),
                 color,
                 valign: Align::TOP,
+                // at the row's top a script floats above the letters; a line
+                // a quarter of the font size taller than its own centres it
+                // an eighth lower, its foot about a third of the size up
+                line_height: Some(row_height * SCRIPT_SCALE + font.size * 0.25),
                 ..Default::default()
             },
             Level::Sub => TextFormat {
@@ -153,6 +157,27 @@ pub fn math_label(ui: &mut egui::Ui, line: &Typeset, plain: &str) -> egui::Respo
         }
     });
     response
+}
+
+/// Paints a figure label at `pos` as `painter.text` would, its indices and
+/// exponents typeset when it has any (see [`crate::figure::math_text::label_reading`]),
+/// so that the canvas shows what the SVG and TikZ files show.
+pub fn paint_label(
+    painter: &egui::Painter,
+    pos: egui::Pos2,
+    anchor: egui::Align2,
+    text: &str,
+    font: FontId,
+    color: Color32,
+) {
+    let Some(how) = crate::figure::math_text::label_reading(text) else {
+        painter.text(pos, anchor, text, font, color);
+        return;
+    };
+    let row = painter.fonts_mut(|f| f.row_height(&font));
+    let galley = painter.layout_job(layout(&pieces(text, how), &font, row, color));
+    let rect = anchor.anchor_size(pos, galley.size());
+    painter.galley(rect.min, galley, color);
 }
 
 /// A small "copy" button putting `plain` on the clipboard.

@@ -111,7 +111,10 @@ fn symmetric_expansion<'a, C: std::fmt::Display + 'a>(
         if k > 0 {
             line = line.plain(" + ");
         }
-        line = line.plain(format!("{c}·")).symbol(format!("m_{{({l})}}"));
+        line = line
+            .poly(c.to_string())
+            .plain("·")
+            .symbol(format!("m_{{({l})}}"));
         plain.push(format!("{c}·m({l})"));
     }
     (line, plain.join(" + "))
