@@ -235,10 +235,11 @@ fn volume_line(ui: &mut egui::Ui, slot: &mut Slot, engine: &Engine, lambda: &[Bi
 
 /// The volume along the segment as a plot of the exact samples, and the exact end values.
 fn segment_plot(ui: &mut egui::Ui, samples: &[(BigRational, BigRational)], pts: Vec<[f64; 2]>) {
+    let y_label = Typeset::new().symbol("Vol P_λ(t)").job(ui);
     Plot::new("volume_segment")
         .height(200.0)
         .x_axis_label("t")
-        .y_axis_label("Vol P_λ(t)")
+        .y_axis_label(y_label)
         .y_grid_spacer(decimal_grid)
         .allow_scroll(false)
         .show(ui, |p| {
@@ -254,7 +255,8 @@ fn segment_plot(ui: &mut egui::Ui, samples: &[(BigRational, BigRational)], pts: 
 }
 
 /// The step between ticks for values spread over `span`: 1, 2 or 5 times a
-/// power of ten, the largest giving at least `ticks` ticks.
+/// power of ten, the smallest giving at most `ticks` intervals (so that each
+/// tick keeps room for its label).
 pub fn tick_step(span: f64, ticks: usize) -> f64 {
     if !(span.is_finite() && span > 0.0) {
         return 1.0;
@@ -264,16 +266,16 @@ pub fn tick_step(span: f64, ticks: usize) -> f64 {
     [1.0, 2.0, 5.0, 10.0]
         .into_iter()
         .map(|m| m * power)
-        .filter(|s| *s <= raw)
-        .last()
-        .unwrap_or(power)
+        .find(|s| *s >= raw * (1.0 - 1e-12))
+        .unwrap_or(10.0 * power)
 }
 
-/// Grid lines for the volume axis: ticks every [`tick_step`] (about five on
-/// the axis, each one labelled) and fainter lines at a fifth of it.
+/// Grid lines for the volume axis: ticks every [`tick_step`] (at most four
+/// intervals on the axis, so each tick is labelled) and fainter lines at a
+/// fifth of it.
 fn decimal_grid(input: egui_plot::GridInput) -> Vec<egui_plot::GridMark> {
     let (lo, hi) = input.bounds;
-    let step = tick_step(hi - lo, 5);
+    let step = tick_step(hi - lo, 4);
     let mut marks = Vec::new();
     for (size, fine) in [(step, false), (step / 5.0, true)] {
         let first = (lo / size).ceil() as i64;
@@ -340,7 +342,12 @@ impl PermutohedronView {
         for v in [&mut place.lambda, &mut place.from, &mut place.to] {
             v.resize(n, "0".into());
         }
-        ui.label("λ (exact rationals: 3, 3/2, 1.25; the sliders step by 1/2 and keep λ_1 ≥ λ_2 ≥ … ≥ λ_n)");
+        typeset::label(
+            ui,
+            &Typeset::new().symbol(
+                "λ (exact rationals: 3, 3/2, 1.25; the sliders step by 1/2 and keep λ_1 ≥ λ_2 ≥ … ≥ λ_n)",
+            ),
+        );
         rational_fields(
             ui,
             "lambda",
@@ -563,15 +570,16 @@ mod tests {
 
     #[test]
     fn ticks_are_one_two_or_five_times_a_power_of_ten() {
-        assert_eq!(tick_step(16.0, 5), 2.0);
-        assert_eq!(tick_step(1.0, 5), 0.2);
-        assert_eq!(tick_step(250.0, 5), 50.0);
-        assert_eq!(tick_step(0.03, 5), 0.005);
-        for span in [0.7, 3.0, 42.0, 1234.5] {
-            let s = tick_step(span, 5);
-            assert!(span / s >= 5.0 && span / s < 12.5, "{span}: {s}");
+        // Vol P_λ from 2/3 to 16 along the demo's segment: ticks 0, 5, 10, 15
+        assert_eq!(tick_step(16.0, 4), 5.0);
+        assert_eq!(tick_step(1.0, 4), 0.5);
+        assert_eq!(tick_step(250.0, 4), 100.0);
+        assert_eq!(tick_step(20.0, 4), 5.0);
+        for span in [0.7, 3.0, 42.0, 1234.5, 1e-5] {
+            let s = tick_step(span, 4);
+            assert!(span / s <= 4.0 && span / s >= 1.6, "{span}: {s}");
         }
-        assert_eq!(tick_step(0.0, 5), 1.0);
+        assert_eq!(tick_step(0.0, 4), 1.0);
     }
 
     #[test]
