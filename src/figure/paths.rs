@@ -344,12 +344,14 @@ mod tests {
         // the path of x2 x3 in 3 variables is E N E N E N (lattice_path.rs):
         // the legend's word N^{e_1} E N^{e_2} E N^{e_3} E N^{n-|e|} with e = (0, 1, 1)
         let e = [0u32, 1, 1];
+        let n = e.len();
+        let total: u32 = e.iter().sum();
         let mut word = String::new();
         for &a in &e {
             word.push_str(&"N".repeat(a as usize));
             word.push('E');
         }
-        word.push_str(&"N".repeat(3 - 2));
+        word.push_str(&"N".repeat(n - total as usize));
         assert_eq!(word, LatticePath::of_monomial(&e).unwrap().word());
         let all = legend_paragraphs().join(" ");
         assert!(all.contains("N^{e_1} E N^{e_2} E … N^{e_n} E N^{n−|e|}"));

@@ -61,7 +61,7 @@ fn hilbert_series_text(hilbert: &[usize]) -> String {
 /// The radio buttons choosing what the view shows: the reversed Schubert
 /// polynomial of w, a typed polynomial, or the survey of S_n.
 fn source_choice(ui: &mut egui::Ui, place: &mut QuotientPlace, w: &Perm) {
-    ui.horizontal(|ui| {
+    ui.horizontal_wrapped(|ui| {
         if ui
             .radio(
                 !place.survey && !place.use_typed,
@@ -291,8 +291,10 @@ impl QuotientView {
             return;
         }
         ui.horizontal_top(|ui| {
-            let legend_width = 300.0;
-            let paths_width = (ui.available_width() - legend_width - 12.0).max(200.0);
+            // the legend takes up to 300 points, less in a narrow (zoomed) window
+            let avail = ui.available_width();
+            let legend_width = (avail * 0.32).clamp(160.0, 300.0);
+            let paths_width = (avail - legend_width - 12.0).max(120.0);
             ui.vertical(|ui| {
                 ui.set_width(paths_width);
                 show_paths(ui, &scene, r);
@@ -333,8 +335,9 @@ impl QuotientView {
             Some((k, l, s, _)) if *k == key && *l == look => s.clone(),
             _ => {
                 let panels = path_panels(&r.normal, r.n);
-                // the legend takes about 300 points beside the grid
-                let cols = (((ui.available_width() - 312.0) / 150.0) as usize).clamp(2, 10);
+                // the legend takes up to 300 points beside the grid
+                let legend = (ui.available_width() * 0.32).clamp(160.0, 300.0);
+                let cols = (((ui.available_width() - legend - 12.0) / 150.0) as usize).clamp(2, 10);
                 let s = Arc::new(path_grid_scene(&panels, r.n, cols, &look));
                 let with = Arc::new(with_legend(&s, r.n, &look));
                 self.paths_scene = Some((key, look, s.clone(), with));
