@@ -301,7 +301,9 @@ impl QuotientView {
             });
             ui.vertical(|ui| {
                 ui.set_width(legend_width);
-                legend(ui, r.n, &mut self.figure_without_legend);
+                egui::ScrollArea::vertical()
+                    .id_salt("paths_legend")
+                    .show(ui, |ui| legend(ui, r.n, &mut self.figure_without_legend));
             });
         });
     }
