@@ -8,7 +8,7 @@ use crate::engine::requests::Output;
 use crate::engine::{Engine, Fetch, JobKey, Slot};
 use crate::figure::look::Look;
 use crate::figure::permutohedron::polytope_scene;
-use crate::figure::volume::volume_plot_scene;
+use crate::figure::volume::{tick_step, volume_plot_scene};
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
@@ -252,22 +252,6 @@ fn segment_plot(ui: &mut egui::Ui, samples: &[(BigRational, BigRational)], pts: 
             first.1, last.1
         ));
     }
-}
-
-/// The step between ticks for values spread over `span`: 1, 2 or 5 times a
-/// power of ten, the smallest giving at most `ticks` intervals (so that each
-/// tick keeps room for its label).
-pub fn tick_step(span: f64, ticks: usize) -> f64 {
-    if !(span.is_finite() && span > 0.0) {
-        return 1.0;
-    }
-    let raw = span / ticks.max(1) as f64;
-    let power = 10f64.powf(raw.log10().floor());
-    [1.0, 2.0, 5.0, 10.0]
-        .into_iter()
-        .map(|m| m * power)
-        .find(|s| *s >= raw * (1.0 - 1e-12))
-        .unwrap_or(10.0 * power)
 }
 
 /// Grid lines for the volume axis: ticks every [`tick_step`] (at most four
