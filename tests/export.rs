@@ -135,6 +135,45 @@ fn png_dpi_and_transparency() {
     assert_eq!(count_exact(&p, palette::PAPER), 0, "no background painted");
 }
 
+/// The first and last rows of a PNG of `text` (size 40) holding ink.
+fn ink_rows(text: &str) -> (u32, u32) {
+    let mut scene = Scene::new(200.0, 100.0, palette::PAPER);
+    scene.label(
+        Pt::new(20.0, 50.0),
+        text.into(),
+        40.0,
+        palette::INK,
+        Anchor::Left,
+    );
+    let p = pixels(&export::to_png(&scene, &ExportOptions::default()).unwrap());
+    let inked: Vec<u32> = (0..p.height())
+        .filter(|&y| {
+            (0..p.width()).any(|x| {
+                p.pixel(x, y)
+                    .is_some_and(|px| px.red() < 0x80 && px.green() < 0x80)
+            })
+        })
+        .collect();
+    (inked[0], inked[inked.len() - 1])
+}
+
+#[test]
+fn png_indices_are_lowered_and_exponents_raised() {
+    // the PNG is the SVG rasterized: "a_2" has its 2 below the baseline of
+    // "a2" (which has nothing to lower), "a^2" its 2 above
+    let (plain_top, plain_bottom) = ink_rows("a2");
+    let (_, sub_bottom) = ink_rows("a_2");
+    let (sup_top, _) = ink_rows("a^2");
+    assert!(
+        sub_bottom >= plain_bottom + 4,
+        "index bottom {sub_bottom}, baseline {plain_bottom}"
+    );
+    assert!(
+        sup_top + 4 <= plain_top,
+        "exponent top {sup_top}, digit top {plain_top}"
+    );
+}
+
 #[test]
 fn png_text_is_drawn_with_the_bundled_font() {
     // a scene holding only text: every non-background pixel comes from glyphs
@@ -202,7 +241,20 @@ fn svg_parses_with_one_path_per_pipe() {
         assert!(e.attribute("d").unwrap().contains('C'));
     }
     let text = doc.descendants().find(|e| e.has_tag_name("text")).unwrap();
-    assert_eq!(text.text(), Some("σ_w & λ <1>"));
+    // σ_w is set with its index lowered: σ, then w in a tspan shifted down
+    // by 0.3 of the font size (10)
+    let read: String = text
+        .descendants()
+        .filter(|n| n.is_text())
+        .filter_map(|n| n.text())
+        .collect();
+    assert_eq!(read, "σw & λ <1>");
+    let index = text
+        .descendants()
+        .find(|e| e.has_tag_name("tspan"))
+        .unwrap();
+    assert_eq!(index.attribute("baseline-shift"), Some("-3"));
+    assert_eq!(index.text(), Some("w"));
     assert_eq!(doc.root_element().attribute("viewBox"), Some("0 0 220 120"));
 }
 
@@ -230,7 +282,11 @@ fn tikz_has_one_draw_per_pipe_and_declares_its_colours() {
         n + 2,
         "pipes, frame, circle"
     );
-    assert!(tex.contains("$\\sigma$\\_w \\& $\\lambda$ $<$1$>$"));
+    // σ_w with its index lowered, as one formula
+    assert!(
+        tex.contains("{$\\sigma _{w}\\ \\&\\ \\lambda \\ <1>$}"),
+        "{tex}"
+    );
 }
 
 #[test]

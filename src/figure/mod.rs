@@ -14,6 +14,7 @@ pub mod bumpless;
 pub mod dream;
 pub mod hessenberg;
 pub mod look;
+pub mod math_text;
 pub mod paths;
 pub mod permutohedron;
 pub mod volume;

@@ -2,7 +2,9 @@
 //! lattice-path diagrams: one panel per standard monomial with a nonzero
 //! coefficient, the path N^{e_1} E N^{e_2} E ... in the n×n square (staying
 //! weakly below the diagonal, drawn dashed), the monomial and its coefficient
-//! under it; negative coefficients in the alert colour with a red frame.
+//! under it; negative coefficients in the alert colour with a red frame; and
+//! the legend saying how a monomial becomes a path, set beside the grid in
+//! an exported figure and beside the panels in the window.
 
 use super::look::Look;
 use super::palette::label_color;
@@ -226,6 +228,97 @@ fn captions(scene: &mut Scene, panel: &PathPanel, x0: f32, y0: f32, look: &Look)
     );
 }
 
+/// The legend of the grid, one paragraph per entry, in our plain notation
+/// (indices `_`, exponents `^`): how the standard monomial x^e becomes its
+/// path, what the colours and the diagonal mean, and why these monomials:
+/// they are the basis of Q[x]/J_n of Aval, Bergeron and Bergeron (Adv. Math.
+/// 2004), counted by the Catalan numbers (OEIS A000108).
+pub fn legend_paragraphs() -> [&'static str; 4] {
+    [
+        "x^e = x_1^{e_1} x_2^{e_2} … x_n^{e_n} is the path N^{e_1} E N^{e_2} E … N^{e_n} E N^{n−|e|} from (0,0) to (n,n): E is a step east, N a step north.",
+        "The e_i north steps just before the i-th east step stand for x_i and take its colour; the last run, in ink, closes the path.",
+        "Standard in lex order x_1 > … > x_n means e_1 + … + e_i ≤ i − 1 for all i: the path stays below the dashed diagonal y = x. There are Catalan(n) such paths, a basis of Q[x]/J_n (Aval–Bergeron–Bergeron 2004).",
+        "Under each square: the coefficient, then the monomial; a negative coefficient is red, in a red frame.",
+    ]
+}
+
+/// The width of the legend column of an exported grid.
+pub const LEGEND_WIDTH: f32 = 290.0;
+const LEGEND_SIZE: f32 = 9.0;
+const LEGEND_LINE: f32 = 13.0;
+/// The characters on one line of the legend in an exported figure.
+const LEGEND_CHARS: usize = 56;
+
+/// Breaks `text` at spaces into lines of at most `width` characters (a
+/// longer word stands on its own line); braces never hold a space in the
+/// legend, so every line reads on its own.
+pub fn wrap_words(text: &str, width: usize) -> Vec<String> {
+    let mut lines = Vec::new();
+    let mut line = String::new();
+    for word in text.split(' ').filter(|w| !w.is_empty()) {
+        let len = line.chars().count();
+        if len > 0 && len + 1 + word.chars().count() > width {
+            lines.push(std::mem::take(&mut line));
+        }
+        if !line.is_empty() {
+            line.push(' ');
+        }
+        line.push_str(word);
+    }
+    if !line.is_empty() {
+        lines.push(line);
+    }
+    lines
+}
+
+/// The grid with the legend set in a column to its right, and a swatch of
+/// the colour of each variable x_2, ..., x_n that carries north steps (x_1
+/// never does: e_1 = 0 for a standard monomial).
+pub fn with_legend(grid: &Scene, n: usize, look: &Look) -> Scene {
+    let mut scene = grid.clone();
+    let x0 = grid.width + GAP;
+    let mut y = GAP + LEGEND_SIZE / 2.0;
+    for paragraph in legend_paragraphs() {
+        for line in wrap_words(paragraph, LEGEND_CHARS) {
+            scene.label(Pt::new(x0, y), line, LEGEND_SIZE, look.ink(), Anchor::Left);
+            y += LEGEND_LINE;
+        }
+        y += LEGEND_LINE * 0.5;
+    }
+    let n = n.max(1);
+    let per_row = 6;
+    for (k, v) in (2..=n).enumerate() {
+        let x = x0 + (k % per_row) as f32 * 46.0;
+        let row_y = y + (k / per_row) as f32 * LEGEND_LINE * 1.4;
+        scene.push(
+            ItemKind::Path {
+                cmds: vec![
+                    PathCmd::MoveTo(Pt::new(x, row_y)),
+                    PathCmd::LineTo(Pt::new(x + 16.0, row_y)),
+                ],
+                stroke: Some(Stroke {
+                    width: 2.6,
+                    color: label_color(v, n),
+                }),
+                fill: None,
+            },
+            Tag::None,
+        );
+        scene.label(
+            Pt::new(x + 20.0, row_y),
+            format!("x{v}"),
+            LEGEND_SIZE,
+            look.ink(),
+            Anchor::Left,
+        );
+    }
+    let rows = n.saturating_sub(1).div_ceil(per_row) as f32;
+    let bottom = y + rows * LEGEND_LINE * 1.4 + GAP;
+    scene.width = x0 + LEGEND_WIDTH;
+    scene.height = scene.height.max(bottom);
+    scene
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -244,6 +337,69 @@ mod tests {
             assert_eq!(p.path.exponents, m.exps(3));
         }
         Ok(())
+    }
+
+    #[test]
+    fn the_legend_states_the_path_of_the_definition() {
+        // the path of x2 x3 in 3 variables is E N E N E N (lattice_path.rs):
+        // the legend's word N^{e_1} E N^{e_2} E N^{e_3} E N^{n-|e|} with e = (0, 1, 1)
+        let e = [0u32, 1, 1];
+        let n = e.len();
+        let total: u32 = e.iter().sum();
+        let mut word = String::new();
+        for &a in &e {
+            word.push_str(&"N".repeat(a as usize));
+            word.push('E');
+        }
+        word.push_str(&"N".repeat(n - total as usize));
+        assert_eq!(word, LatticePath::of_monomial(&e).unwrap().word());
+        let all = legend_paragraphs().join(" ");
+        assert!(all.contains("N^{e_1} E N^{e_2} E … N^{e_n} E N^{n−|e|}"));
+        assert!(all.contains("e_1 + … + e_i ≤ i − 1"));
+        assert!(all.contains("Catalan(n)"));
+    }
+
+    #[test]
+    fn the_legend_sits_beside_the_grid() {
+        let panels = vec![PathPanel {
+            path: LatticePath::of_monomial(&[0, 1, 1]).unwrap(),
+            monomial: "x2 x3".into(),
+            coefficient: "2".into(),
+            negative: false,
+        }];
+        let look = Look::light();
+        let grid = path_grid_scene(&panels, 3, 4, &look);
+        let with = with_legend(&grid, 3, &look);
+        assert_eq!(with.width, grid.width + GAP + LEGEND_WIDTH);
+        let lines: Vec<&str> = with.items[grid.items.len()..]
+            .iter()
+            .filter_map(|i| match &i.kind {
+                ItemKind::Text { text, pos, .. } if pos.x >= grid.width => Some(text.as_str()),
+                _ => None,
+            })
+            .collect();
+        assert!(
+            lines.iter().all(|l| l.chars().count() <= LEGEND_CHARS),
+            "{lines:?}"
+        );
+        // every word of the legend is in the figure, then one swatch label per x_2, x_3
+        let words: Vec<&str> = legend_paragraphs()
+            .iter()
+            .flat_map(|p| p.split(' '))
+            .collect();
+        let shown: Vec<&str> = lines.iter().flat_map(|l| l.split(' ')).collect();
+        assert_eq!(&shown[..words.len()], &words[..]);
+        assert_eq!(&shown[words.len()..], ["x2", "x3"]);
+        for line in &lines {
+            assert!(line.chars().count() <= LEGEND_CHARS);
+        }
+    }
+
+    #[test]
+    fn words_wrap_at_spaces() {
+        assert_eq!(wrap_words("a bb ccc dddd", 6), ["a bb", "ccc", "dddd"]);
+        assert_eq!(wrap_words("averylongword x", 4), ["averylongword", "x"]);
+        assert!(wrap_words("", 4).is_empty());
     }
 
     #[test]

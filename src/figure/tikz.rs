@@ -6,6 +6,7 @@
 //! Coordinates are the scene's own: the picture is drawn with `x=1pt, y=-1pt`,
 //! so one figure unit is one point and y points down as in the scene.
 
+use super::math_text::{self, Level};
 use super::scene::{Anchor, Color, Item, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
 use super::svg::num;
 use std::collections::BTreeSet;
@@ -115,7 +116,7 @@ fn item_line(out: &mut String, item: &Item) {
                 "\\node[anchor={anchor}, inner sep=0pt, text={}, font=\\fontsize{{{s}}}{{{leading}}}\\selectfont\\sffamily] at {} {{{}}};{comment}",
                 color_name(*color),
                 point(*pos),
-                latex_text(text)
+                label_latex(text)
             );
         }
     }
@@ -200,6 +201,95 @@ fn tag_comment(tag: Tag) -> String {
     }
 }
 
+/// A figure label as LaTeX: with indices or exponents (see [`math_text`])
+/// it is set as one formula, `$x_{2}^{2}x_{3}$`, `$a^{h}_{w}$`, words in
+/// `\mathrm`; any other label as text by [`latex_text`].
+pub fn label_latex(text: &str) -> String {
+    let Some(how) = math_text::label_reading(text) else {
+        return latex_text(text);
+    };
+    let mut out = String::from("$");
+    for (k, p) in math_text::pieces(text, how).into_iter().enumerate() {
+        let body = math_mode(&p.text, how);
+        match p.level {
+            Level::Base => out.push_str(&body),
+            Level::Sub | Level::Sup => {
+                if k == 0 {
+                    out.push_str("{}");
+                }
+                out.push(if p.level == Level::Sub { '_' } else { '^' });
+                out.push('{');
+                out.push_str(&body);
+                out.push('}');
+            }
+        }
+    }
+    out.push('$');
+    out
+}
+
+/// A run of a label in math mode: runs of two or more letters upright
+/// (`\mathrm{Vol}`), spaces kept (`\ `) except in a polynomial, symbols
+/// by their commands, specials escaped.
+fn math_mode(text: &str, how: math_text::MathText) -> String {
+    let chars: Vec<char> = text.chars().collect();
+    let mut out = String::new();
+    let mut i = 0;
+    while i < chars.len() {
+        let c = chars[i];
+        if c.is_ascii_alphabetic() {
+            let mut j = i;
+            while j < chars.len() && chars[j].is_ascii_alphabetic() {
+                j += 1;
+            }
+            let word: String = chars[i..j].iter().collect();
+            if j - i >= 2 {
+                let _ = write!(out, "\\mathrm{{{word}}}");
+            } else {
+                out.push_str(&word);
+            }
+            i = j;
+            continue;
+        }
+        let piece = match c {
+            ' ' if how == math_text::MathText::Poly => "",
+            ' ' => "\\ ",
+            '\\' => "\\backslash ",
+            '{' => "\\{",
+            '}' => "\\}",
+            '#' => "\\#",
+            '$' => "\\$",
+            '%' => "\\%",
+            '&' => "\\&",
+            '_' => "\\_",
+            '^' => "\\hat{}",
+            '~' => "\\sim ",
+            '−' => "-",
+            '…' => "\\dots ",
+            c if c.is_ascii() && !c.is_control() => {
+                out.push(c);
+                i += 1;
+                continue;
+            }
+            c if c.is_control() => "",
+            c => {
+                // the symbols latex_text sets in math mode, without the dollars
+                let t = latex_text(&c.to_string());
+                let t = t.trim_matches('$');
+                out.push_str(t);
+                if t.starts_with('\\') && t.chars().last().is_some_and(|l| l.is_alphabetic()) {
+                    out.push(' ');
+                }
+                i += 1;
+                continue;
+            }
+        };
+        out.push_str(piece);
+        i += 1;
+    }
+    out
+}
+
 /// Plain scene text as LaTeX that pdflatex accepts with no extra package:
 /// specials escaped, the Greek and mathematical symbols the figures use in
 /// math mode, anything else unknown replaced by `?`.
@@ -236,6 +326,8 @@ pub fn latex_text(text: &str) -> String {
             '−' => "$-$",
             '→' => "$\\to$",
             '…' => "\\dots{}",
+            '–' => "--",
+            '—' => "---",
             '₀' => "$_0$",
             '₁' => "$_1$",
             '₂' => "$_2$",
@@ -266,5 +358,20 @@ mod tests {
     fn specials_are_escaped() {
         assert_eq!(latex_text("a_1 & 50%"), "a\\_1 \\& 50\\%");
         assert_eq!(latex_text("σ₂"), "$\\sigma$$_2$");
+    }
+
+    #[test]
+    fn labels_with_indices_are_formulas() {
+        assert_eq!(label_latex("x2^2*x3"), "$x_{2}^{2}x_{3}$");
+        assert_eq!(label_latex("x2^2 x3"), "$x_{2}^{2}x_{3}$");
+        assert_eq!(label_latex("a^h_w"), "$a^{h}_{w}$");
+        assert_eq!(label_latex("σ_{w0 w}"), "$\\sigma _{w0w}$");
+        assert_eq!(
+            label_latex("Vol P_λ(t)"),
+            "$\\mathrm{Vol}\\ P_{\\lambda }(t)$"
+        );
+        // nothing to lower or raise: text as before
+        assert_eq!(label_latex("-3/2"), "-3/2");
+        assert_eq!(label_latex("a & b"), "a \\& b");
     }
 }

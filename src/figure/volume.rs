@@ -13,6 +13,33 @@ const BOTTOM: f32 = 36.0;
 const TOP: f32 = 20.0;
 const RIGHT: f32 = 16.0;
 
+/// The step between ticks for values spread over `span`: 1, 2 or 5 times a
+/// power of ten, the smallest giving at most `ticks` intervals (so that each
+/// tick keeps room for its label).
+pub fn tick_step(span: f64, ticks: usize) -> f64 {
+    if !(span.is_finite() && span > 0.0) {
+        return 1.0;
+    }
+    let raw = span / ticks.max(1) as f64;
+    let power = 10f64.powf(raw.log10().floor());
+    [1.0, 2.0, 5.0, 10.0]
+        .into_iter()
+        .map(|m| m * power)
+        .find(|s| *s >= raw * (1.0 - 1e-12))
+        .unwrap_or(10.0 * power)
+}
+
+/// A tick value written with as many decimals as a step of [`tick_step`]
+/// needs (`5`, `2.5`, `0.02`).
+pub fn tick_text(v: f64, step: f64) -> String {
+    let decimals = if step >= 1.0 {
+        0
+    } else {
+        (-step.log10()).ceil().clamp(0.0, 12.0) as usize
+    };
+    format!("{v:.decimals$}")
+}
+
 /// Builds the plot of the samples (t, Vol P_λ(t)), values as floats for drawing.
 pub fn volume_plot_scene(samples: &[(f64, f64)], look: &Look) -> Scene {
     let mut scene = Scene::new(W, H, look.background());
@@ -50,13 +77,19 @@ pub fn volume_plot_scene(samples: &[(f64, f64)], look: &Look) -> Scene {
             format!("{t}"),
             Anchor::Center,
         );
-        let v = ymax * t;
+    }
+    // the volume axis at 1, 2 or 5 times a power of ten, at most four intervals
+    let step = tick_step(ymax, 4);
+    let mut k = 0u32;
+    while f64::from(k) * step <= ymax * (1.0 + 1e-9) && k <= 10 {
+        let v = f64::from(k) * step;
         text(
             &mut scene,
             Pt::new(LEFT - 6.0, py(v)),
-            format!("{v:.3}"),
+            tick_text(v, step),
             Anchor::Right,
         );
+        k += 1;
     }
     text(
         &mut scene,
@@ -97,6 +130,32 @@ pub fn volume_plot_scene(samples: &[(f64, f64)], look: &Look) -> Scene {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn volume_ticks_are_round_numbers() {
+        // the regular permutohedron of n = 4 has volume 4^2 = 16 (Postnikov 2009):
+        // ticks 0, 5, 10, 15
+        let s: Vec<(f64, f64)> = (0..=4)
+            .map(|k| (k as f64 / 4.0, 16.0 * (k * k) as f64 / 16.0))
+            .collect();
+        let scene = volume_plot_scene(&s, &Look::light());
+        let right: Vec<String> = scene
+            .items
+            .iter()
+            .filter_map(|i| match &i.kind {
+                ItemKind::Text {
+                    text,
+                    anchor: Anchor::Right,
+                    ..
+                } => Some(text.clone()),
+                _ => None,
+            })
+            .collect();
+        assert_eq!(right, ["0", "5", "10", "15"]);
+        assert_eq!(tick_text(0.4, 0.2), "0.4");
+        assert_eq!(tick_text(0.02, 0.02), "0.02");
+        assert_eq!(tick_text(2.5, 0.5), "2.5");
+    }
 
     #[test]
     fn one_marker_per_sample() {

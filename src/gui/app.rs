@@ -237,10 +237,11 @@ impl Explorer {
             });
     }
 
-    /// The tab bar over the central area.
+    /// The tab bar over the central area; the tabs wrap onto a second line
+    /// when the window is too narrow for them (a large zoom), so each stays reachable.
     fn view_tabs(&mut self, ui: &mut egui::Ui) {
         egui::Panel::top("view_tabs").show(ui, |ui| {
-            ui.horizontal(|ui| {
+            ui.horizontal_wrapped(|ui| {
                 for v in views::ORDER {
                     let chosen = self.session.view == v;
                     if ui.selectable_label(chosen, views::title(v)).clicked() {

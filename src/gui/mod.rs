@@ -16,6 +16,7 @@ pub mod scene_painter;
 pub mod status;
 pub mod table_source;
 pub mod theme;
+pub mod typeset;
 pub mod views;
 
 pub use app::{Explorer, run, run_file};

@@ -4,6 +4,7 @@
 
 use super::app_ctx::{AppCtx, step_history};
 use super::browser::Browser;
+use super::typeset::{self, Typeset};
 use crate::engine::{Fetch, JobKey, Slot};
 use crate::math::perms::class::classes_of;
 use crate::math::{MathError, MathResult, Perm};
@@ -115,7 +116,10 @@ impl Picker {
         {
             Fetch::Ready(out) => {
                 if let Some(c) = out.counts().and_then(|c| c.first()) {
-                    ui.label(format!("pipe dreams S_w(1,...,1) = {c}"));
+                    typeset::label(
+                        ui,
+                        &Typeset::new().symbol(format!("pipe dreams S_w(1, …, 1) = {c}")),
+                    );
                 }
             }
             Fetch::Running(..) => {

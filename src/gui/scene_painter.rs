@@ -392,7 +392,8 @@ fn paint_item(
             _,
         ) => {
             let screen = Pos2::new(origin.x + pos.x * scale, origin.y + pos.y * scale);
-            painter.text(
+            super::typeset::paint_label(
+                painter,
                 screen,
                 anchor(*a),
                 text,

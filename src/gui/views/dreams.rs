@@ -14,6 +14,7 @@ use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
 use crate::gui::files::{Exportable, Exports};
 use crate::gui::scene_painter::{self, PaintOptions, SceneResponse, halo_color, with_highlight};
+use crate::gui::typeset::{self, Typeset};
 use crate::math::Perm;
 use crate::math::pipes::bumpless::BumplessDream;
 use crate::math::pipes::dream::PipeDream;
@@ -116,11 +117,8 @@ fn move_at(
 fn dream_facts(ui: &mut egui::Ui, dream: &PipeDream, note: Option<&String>) {
     ui.vertical(|ui| {
         ui.label(egui::RichText::new("weight").weak());
-        ui.label(
-            egui::RichText::new(exponents_text(&dream.monomial()))
-                .monospace()
-                .strong(),
-        );
+        let weight = exponents_text(&dream.monomial());
+        typeset::math_label(ui, &Typeset::new().poly(&weight).strong(), &weight);
         ui.add_space(6.0);
         ui.label(egui::RichText::new("reading word").weak());
         let word: Vec<String> = dream.reading_word().iter().map(|a| a.to_string()).collect();
@@ -146,11 +144,8 @@ fn dream_facts(ui: &mut egui::Ui, dream: &PipeDream, note: Option<&String>) {
 fn bumpless_facts(ui: &mut egui::Ui, d: &BumplessDream, w: &Perm) {
     ui.vertical(|ui| {
         ui.label(egui::RichText::new("weight (blank tiles)").weak());
-        ui.label(
-            egui::RichText::new(exponents_text(&d.monomial()))
-                .monospace()
-                .strong(),
-        );
+        let weight = exponents_text(&d.monomial());
+        typeset::math_label(ui, &Typeset::new().poly(&weight).strong(), &weight);
         ui.add_space(6.0);
         let blanks: Vec<String> = d
             .blanks()

@@ -15,6 +15,7 @@ use crate::figure::look::Look;
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
 use crate::gui::table_source::TableSource;
+use crate::gui::typeset::{self, Typeset};
 use crate::math::Perm;
 use crate::math::hessenberg::function::{HessenbergFn, default_values, set_value};
 use crate::math::hessenberg::table::{HessenbergTable, TABLE_MAX_N, TableEntry};
@@ -117,10 +118,12 @@ fn sort_headers(ui: &mut egui::Ui, place: &mut HessenbergPlace, column: &str, wi
             } else {
                 ""
             };
+            let line = Typeset::new().symbol(name).plain(arrow).strong();
             let b = ui.add_sized(
                 [width, ui.spacing().interact_size.y],
-                egui::Button::new(format!("{name}{arrow}")),
+                egui::Button::new(line.job(ui)),
             );
+            typeset::named(&b, egui::Role::Button, &line);
             if b.clicked() {
                 if column == key {
                     place.descending = !place.descending;
@@ -155,15 +158,16 @@ fn table_row(
             [length_w, row_h],
             egui::Label::new(entry.perm.length().to_string()),
         );
-        let text = egui::RichText::new(entry.value.to_string()).monospace();
-        let text = if entry.value.is_negative() {
-            text.color(crate::gui::theme::alert())
+        let value = Typeset::new().poly(entry.value.to_string());
+        let value = if entry.value.is_negative() {
+            value.color(crate::gui::theme::alert())
         } else if entry.value.is_zero() {
-            text.weak()
+            value.color(ui.visuals().weak_text_color())
         } else {
-            text
+            value
         };
-        ui.add_sized([value_w, row_h], egui::Label::new(text));
+        let cell = ui.add_sized([value_w, row_h], egui::Label::new(value.job(ui)));
+        typeset::named(&cell, egui::Role::Label, &value);
         sel.clicked()
     })
     .inner
@@ -224,7 +228,14 @@ impl HessenbergView {
             // a new n: nothing of the old one stays asked for or shown
             self.forget();
         }
-        ui.weak("Click a box (i, j) above the diagonal to set h(i) = j; click the last box of a row to shrink it. The class of the Hessenberg variety is Σ a^h_w σ_{w0 w}, a^h_w = DS_h(S_w) over ℓ(w) = |h|.");
+        typeset::label(
+            ui,
+            &Typeset::new()
+                .plain("Click a box (i, j) above the diagonal to set h(i) = j; click the last box of a row to shrink it. The class of the Hessenberg variety is ")
+                .symbol("Σ a^h_w σ_{w0 w}, a^h_w = DS_h(S_w)")
+                .plain(" over ℓ(w) = |h|.")
+                .color(ui.visuals().weak_text_color()),
+        );
         let look = super::figure_look(ctx.session);
         ui.horizontal_top(|ui| {
             ui.vertical(|ui| {

@@ -8,11 +8,12 @@ use crate::engine::requests::Output;
 use crate::engine::{Engine, Fetch, JobKey, Slot};
 use crate::figure::look::Look;
 use crate::figure::permutohedron::polytope_scene;
-use crate::figure::volume::volume_plot_scene;
+use crate::figure::volume::{tick_step, volume_plot_scene};
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
 use crate::gui::table_source::TableSource;
+use crate::gui::typeset::{self, Typeset};
 use crate::math::permutohedra::permutohedron::rational_to_f64;
 use crate::session::model::PermutohedronPlace;
 use crate::tables::table::Table;
@@ -20,6 +21,7 @@ use eframe::egui;
 use egui_plot::{Line, Plot, Points};
 use num_bigint::BigInt;
 use num_rational::BigRational;
+use num_traits::{Signed, ToPrimitive};
 use std::sync::Arc;
 
 /// Samples along the segment.
@@ -38,6 +40,12 @@ pub struct PermutohedronView {
     segment_plot_scene: Option<Arc<Scene>>,
     /// The mixed Eulerian numbers shown (keyed by n), for export.
     eulerian_table: TableSource<usize>,
+    /// The λ fields as typed.
+    pub lambda_typing: Typing,
+    /// The λ_a fields as typed.
+    pub from_typing: Typing,
+    /// The λ_b fields as typed.
+    pub to_typing: Typing,
 }
 
 /// Reads an exact rational with the commands' reader (`3`, `-2`, `3/2`,
@@ -50,13 +58,58 @@ fn parse_rationals(v: &[String]) -> Result<Vec<BigRational>, String> {
     v.iter().map(|s| parse_rational(s)).collect()
 }
 
+/// The text shown in a row of λ fields while it is typed. The session holds
+/// the entries last read (so a save never meets a half-typed `1/`); a field
+/// that does not read keeps its text on screen, in red, until it does.
+#[derive(Clone, Debug, Default)]
+pub struct Typing {
+    /// The text in each field.
+    pub shown: Vec<String>,
+    /// The session's entries when the fields last agreed with them.
+    synced: Vec<String>,
+}
+
+impl Typing {
+    /// Takes over each entry of `v` that changed outside the fields (a new n,
+    /// a session opened, a slider).
+    fn sync(&mut self, v: &[String]) {
+        self.shown.resize(v.len(), String::new());
+        self.synced.resize(v.len(), String::new());
+        for (k, e) in v.iter().enumerate() {
+            if self.synced[k] != *e {
+                self.shown[k] = e.clone();
+                self.synced[k] = e.clone();
+            }
+        }
+    }
+
+    /// Writes each field that reads into `v`.
+    fn commit(&mut self, v: &mut [String]) {
+        for (k, text) in self.shown.iter().enumerate() {
+            if k < v.len() && parse_rational(text).is_ok() {
+                v[k] = text.trim().to_string();
+            }
+        }
+        self.synced = v.to_vec();
+    }
+}
+
 /// One row of fields for exact rationals (red while one does not read),
 /// with a slider under each if `sliders`; returns whether something changed.
-fn rational_fields(ui: &mut egui::Ui, id: &str, v: &mut [String], sliders: bool) -> bool {
+fn rational_fields(
+    ui: &mut egui::Ui,
+    id: &str,
+    typing: &mut Typing,
+    v: &mut [String],
+    sliders: bool,
+) -> bool {
+    typing.sync(v);
     let mut changed = false;
+    let read: Vec<Option<BigRational>> = v.iter().map(|s| parse_rational(s).ok()).collect();
     ui.horizontal(|ui| {
-        for (k, s) in v.iter_mut().enumerate() {
+        for k in 0..v.len() {
             ui.vertical(|ui| {
+                let s = &mut typing.shown[k];
                 let bad = parse_rational(s).is_err();
                 let mut edit = egui::TextEdit::singleline(s)
                     .id_salt((id, k))
@@ -65,36 +118,76 @@ fn rational_fields(ui: &mut egui::Ui, id: &str, v: &mut [String], sliders: bool)
                     edit = edit.text_color(crate::gui::theme::alert());
                 }
                 changed |= ui.add(edit).changed();
-                if sliders {
-                    changed |= half_step_slider(ui, s);
+                if sliders && let Some(h) = half_step_slider(ui, k, &read) {
+                    let text = halves_text(h);
+                    typing.shown[k] = text;
+                    changed = true;
                 }
             });
         }
     });
+    typing.commit(v);
     changed
 }
 
-/// A slider from 0 to 10 in steps of 1/2 that writes its value into `s`
-/// (`3` or `7/2`); returns whether it moved.
-fn half_step_slider(ui: &mut egui::Ui, s: &mut String) -> bool {
-    let mut x = parse_rational(s)
-        .map(|r| rational_to_f64(&r))
-        .unwrap_or(0.0);
-    let r = ui.add(
-        egui::Slider::new(&mut x, 0.0..=10.0)
-            .step_by(0.5)
-            .show_value(false),
-    );
-    if !r.changed() {
-        return false;
-    }
-    let halves = (x * 2.0).round() as i64;
-    *s = if halves % 2 == 0 {
-        (halves / 2).to_string()
-    } else {
-        format!("{halves}/2")
+/// The largest λ a slider reaches, in halves (λ = 10).
+const SLIDER_TOP_HALVES: i64 = 20;
+
+/// The range of the slider of λ_{k+1} (0-based `k`) in halves: within 0 to
+/// 10 and between its neighbours, λ_k ≥ λ_{k+1} ≥ λ_{k+2} (the view's λ is
+/// weakly decreasing); `None` when no multiple of 1/2 lies between them.
+pub fn slider_range(k: usize, lambda: &[Option<BigRational>]) -> Option<(i64, i64)> {
+    let two = BigRational::from_integer(BigInt::from(2));
+    let halves = |r: &BigRational, up: bool| -> i64 {
+        let h = r * &two;
+        let h = if up { h.ceil() } else { h.floor() };
+        h.to_integer()
+            .to_i64()
+            .unwrap_or(if h.is_negative() { i64::MIN } else { i64::MAX })
     };
-    true
+    let mut lo = 0i64;
+    let mut hi = SLIDER_TOP_HALVES;
+    if let Some(Some(right)) = lambda.get(k + 1) {
+        lo = lo.max(halves(right, true));
+    }
+    if k > 0
+        && let Some(Some(left)) = lambda.get(k - 1)
+    {
+        hi = hi.min(halves(left, false));
+    }
+    (lo <= hi).then_some((lo, hi))
+}
+
+/// A number of halves as an exact rational's text: `3`, `7/2`, `-1/2`.
+pub fn halves_text(h: i64) -> String {
+    if h % 2 == 0 {
+        (h / 2).to_string()
+    } else {
+        format!("{h}/2")
+    }
+}
+
+/// The slider of λ_{k+1} in steps of exactly 1/2, clamped to its neighbours
+/// (see [`slider_range`]); the halves it was moved to, if it moved.
+fn half_step_slider(ui: &mut egui::Ui, k: usize, lambda: &[Option<BigRational>]) -> Option<i64> {
+    let Some((lo, hi)) = slider_range(k, lambda) else {
+        ui.add_enabled(false, egui::Slider::new(&mut 0i64, 0..=1).show_value(false))
+            .on_disabled_hover_text("no multiple of 1/2 lies between the neighbours of this entry");
+        return None;
+    };
+    let two = BigRational::from_integer(BigInt::from(2));
+    let mut h = lambda
+        .get(k)
+        .and_then(|r| r.as_ref())
+        .and_then(|r| (r * &two).floor().to_integer().to_i64())
+        .unwrap_or(lo)
+        .clamp(lo, hi);
+    let r = ui.add(
+        egui::Slider::new(&mut h, lo..=hi)
+            .show_value(false)
+            .clamping(egui::SliderClamping::Always),
+    );
+    r.changed().then_some(h.clamp(lo, hi))
 }
 
 /// The heading and n; a new n resets λ to (n-1, ..., 1, 0) and the segment
@@ -102,7 +195,7 @@ fn half_step_slider(ui: &mut egui::Ui, s: &mut String) -> bool {
 fn heading_with_n(ui: &mut egui::Ui, place: &mut PermutohedronPlace) -> usize {
     let mut n = place.lambda.len().clamp(2, 8);
     ui.horizontal(|ui| {
-        ui.heading("Permutohedron P_λ");
+        typeset::heading(ui, &Typeset::new().symbol("Permutohedron P_λ"));
         ui.separator();
         ui.label("n");
         if ui.add(egui::DragValue::new(&mut n).range(2..=8)).changed() {
@@ -122,9 +215,14 @@ fn volume_line(ui: &mut egui::Ui, slot: &mut Slot, engine: &Engine, lambda: &[Bi
     match slot.fetch(engine, JobKey::Volume(lambda.to_vec())) {
         Fetch::Ready(out) => {
             if let Some(v) = out.rational() {
-                ui.label(
-                    egui::RichText::new(format!("Vol P_λ = {v}  (≈ {:.6})", rational_to_f64(v)))
+                let exact = v.to_string();
+                typeset::math_label(
+                    ui,
+                    &Typeset::new()
+                        .symbol("Vol P_λ")
+                        .plain(format!(" = {exact}  (≈ {:.6})", rational_to_f64(v)))
                         .strong(),
+                    &exact,
                 );
             }
         }
@@ -137,10 +235,12 @@ fn volume_line(ui: &mut egui::Ui, slot: &mut Slot, engine: &Engine, lambda: &[Bi
 
 /// The volume along the segment as a plot of the exact samples, and the exact end values.
 fn segment_plot(ui: &mut egui::Ui, samples: &[(BigRational, BigRational)], pts: Vec<[f64; 2]>) {
+    let y_label = Typeset::new().symbol("Vol P_λ(t)").job(ui);
     Plot::new("volume_segment")
         .height(200.0)
         .x_axis_label("t")
-        .y_axis_label("Vol P_λ(t)")
+        .y_axis_label(y_label)
+        .y_grid_spacer(decimal_grid)
         .allow_scroll(false)
         .show(ui, |p| {
             p.line(Line::new("volume", pts.clone()).width(2.0));
@@ -152,6 +252,32 @@ fn segment_plot(ui: &mut egui::Ui, samples: &[(BigRational, BigRational)], pts: 
             first.1, last.1
         ));
     }
+}
+
+/// Grid lines for the volume axis: ticks every [`tick_step`] (at most four
+/// intervals on the axis, so each tick is labelled) and fainter lines at a
+/// fifth of it.
+fn decimal_grid(input: egui_plot::GridInput) -> Vec<egui_plot::GridMark> {
+    let (lo, hi) = input.bounds;
+    let step = tick_step(hi - lo, 4);
+    let mut marks = Vec::new();
+    for (size, fine) in [(step, false), (step / 5.0, true)] {
+        let first = (lo / size).ceil() as i64;
+        let last = (hi / size).floor() as i64;
+        if last - first > 200 {
+            continue;
+        }
+        for k in first..=last {
+            if fine && k % 5 == 0 {
+                continue;
+            }
+            marks.push(egui_plot::GridMark {
+                value: k as f64 * size,
+                step_size: size,
+            });
+        }
+    }
+    marks
 }
 
 /// One row of the mixed Eulerian numbers: c and A_c.
@@ -200,8 +326,19 @@ impl PermutohedronView {
         for v in [&mut place.lambda, &mut place.from, &mut place.to] {
             v.resize(n, "0".into());
         }
-        ui.label("λ (exact rationals: 3, 3/2, 1.25)");
-        rational_fields(ui, "lambda", &mut place.lambda, true);
+        typeset::label(
+            ui,
+            &Typeset::new().symbol(
+                "λ (exact rationals: 3, 3/2, 1.25; the sliders step by 1/2 and keep λ_1 ≥ λ_2 ≥ … ≥ λ_n)",
+            ),
+        );
+        rational_fields(
+            ui,
+            "lambda",
+            &mut self.lambda_typing,
+            &mut place.lambda,
+            true,
+        );
         let lambda = parse_rationals(&place.lambda);
         ui.horizontal_top(|ui| {
             ui.vertical(|ui| {
@@ -232,14 +369,17 @@ impl PermutohedronView {
         place: &mut PermutohedronPlace,
         look: &Look,
     ) {
-        ui.label("Volume along the segment from λ_a to λ_b");
+        typeset::label(
+            ui,
+            &Typeset::new().symbol("Volume along the segment from λ_a to λ_b"),
+        );
         ui.horizontal(|ui| {
-            ui.label("λ_a");
-            rational_fields(ui, "from", &mut place.from, false);
+            typeset::label(ui, &Typeset::new().symbol("λ_a"));
+            rational_fields(ui, "from", &mut self.from_typing, &mut place.from, false);
         });
         ui.horizontal(|ui| {
-            ui.label("λ_b");
-            rational_fields(ui, "to", &mut place.to, false);
+            typeset::label(ui, &Typeset::new().symbol("λ_b"));
+            rational_fields(ui, "to", &mut self.to_typing, &mut place.to, false);
         });
         let (a, b) = match (parse_rationals(&place.from), parse_rationals(&place.to)) {
             (Ok(a), Ok(b)) => (a, b),
@@ -283,7 +423,11 @@ impl PermutohedronView {
         look: &Look,
     ) {
         if lambda.len() > 4 {
-            ui.weak("P_λ is drawn for n = 3 (the polygon) and n = 4 (a projection).");
+            typeset::label(
+                ui,
+                &Typeset::new()
+                    .symbol("P_λ is drawn for n = 3 (the polygon) and n = 4 (a projection)."),
+            );
             return;
         }
         let out = match self
@@ -331,8 +475,11 @@ impl PermutohedronView {
 
     /// The mixed Eulerian numbers A_c of n, drawn virtually.
     fn eulerian_list(&mut self, ui: &mut egui::Ui, engine: &Engine, n: usize) {
-        ui.label(format!("Mixed Eulerian numbers A_c of n = {n}"))
-            .on_hover_text("Ctrl+E exports them as CSV or as a LaTeX tabular");
+        typeset::label(
+            ui,
+            &Typeset::new().symbol(format!("Mixed Eulerian numbers A_c of n = {n}")),
+        )
+        .on_hover_text("Ctrl+E exports them as CSV or as a LaTeX tabular");
         match self.eulerian.fetch(engine, JobKey::Eulerian(n)) {
             Fetch::Ready(out) => {
                 let Output::Eulerian(rows) = out.as_ref() else {
@@ -366,5 +513,76 @@ mod tests {
         assert_eq!(parse_rational("1.25").unwrap().to_string(), "5/4");
         assert_eq!(parse_rational(" -2 ").unwrap().to_string(), "-2");
         assert!(parse_rational("x").is_err());
+    }
+
+    fn lam(v: &[&str]) -> Vec<Option<BigRational>> {
+        v.iter().map(|s| parse_rational(s).ok()).collect()
+    }
+
+    #[test]
+    fn a_slider_stays_between_its_neighbours() {
+        // λ = (7/2, 2, 1): the slider of λ_2 runs from 1 to 7/2 (2 to 7 halves),
+        // so λ_2 can no longer pass λ_1 = 7/2 (λ weakly decreasing, as in
+        // Postnikov's P_λ with λ_1 ≥ ... ≥ λ_n)
+        let l = lam(&["7/2", "2", "1"]);
+        assert_eq!(slider_range(1, &l), Some((2, 7)));
+        assert_eq!(halves_text(7), "7/2");
+        assert_eq!(parse_rational(&halves_text(7)).ok(), l[0]);
+        // the first slider is bounded by λ_2 below and 10 above, the last by λ_{n-1} above and 0 below
+        assert_eq!(slider_range(0, &l), Some((4, SLIDER_TOP_HALVES)));
+        assert_eq!(slider_range(2, &l), Some((0, 4)));
+        // neighbours 1/3 and 1/4 have no multiple of 1/2 between them
+        assert_eq!(slider_range(1, &lam(&["1/3", "0", "1/4"])), None);
+        // a neighbour being typed does not bound the slider
+        assert_eq!(
+            slider_range(1, &lam(&["1/", "2", "1"])),
+            Some((2, SLIDER_TOP_HALVES))
+        );
+    }
+
+    #[test]
+    fn the_slider_values_are_exact_halves() {
+        for h in -3..=21 {
+            let r = parse_rational(&halves_text(h)).unwrap();
+            assert_eq!(
+                r,
+                BigRational::new(BigInt::from(h), BigInt::from(2)),
+                "{h} halves"
+            );
+        }
+    }
+
+    #[test]
+    fn ticks_are_one_two_or_five_times_a_power_of_ten() {
+        // Vol P_λ from 2/3 to 16 along the demo's segment: ticks 0, 5, 10, 15
+        assert_eq!(tick_step(16.0, 4), 5.0);
+        assert_eq!(tick_step(1.0, 4), 0.5);
+        assert_eq!(tick_step(250.0, 4), 100.0);
+        assert_eq!(tick_step(20.0, 4), 5.0);
+        for span in [0.7, 3.0, 42.0, 1234.5, 1e-5] {
+            let s = tick_step(span, 4);
+            assert!(span / s <= 4.0 && span / s >= 1.6, "{span}: {s}");
+        }
+        assert_eq!(tick_step(0.0, 4), 1.0);
+    }
+
+    #[test]
+    fn a_half_typed_field_keeps_its_text_and_the_last_value_read() {
+        let mut v = vec!["3".to_string(), "2".to_string()];
+        let mut t = Typing::default();
+        t.sync(&v);
+        t.shown[0] = "1/".into();
+        t.commit(&mut v);
+        assert_eq!(v[0], "3");
+        assert_eq!(t.shown[0], "1/");
+        t.sync(&v);
+        assert_eq!(t.shown[0], "1/");
+        t.shown[0] = "1/2".into();
+        t.commit(&mut v);
+        assert_eq!(v[0], "1/2");
+        // an entry changed elsewhere (a new n, a file opened) is shown
+        v[1] = "5".into();
+        t.sync(&v);
+        assert_eq!(t.shown, ["1/2", "5"]);
     }
 }

@@ -9,6 +9,7 @@ use crate::engine::JobKey;
 use crate::engine::Slot;
 use crate::engine::requests::Terms;
 use crate::gui::AppCtx;
+use crate::gui::typeset::{self, Typeset};
 use crate::math::{MAX_N, Perm};
 use eframe::egui;
 use num_traits::Signed;
@@ -160,7 +161,9 @@ pub fn terms_list(ui: &mut egui::Ui, id: &str, terms: &Terms, ctx: &AppCtx) -> O
     let len_w = mono_width(ui, 5);
     let row_h = ui.spacing().interact_size.y;
     ui.horizontal(|ui| {
-        cell(ui, coef_w, row_h, true, |ui| ui.strong("c_w"));
+        cell(ui, coef_w, row_h, true, |ui| {
+            typeset::label(ui, &Typeset::new().symbol("c_w").strong())
+        });
         cell(ui, perm_w, row_h, false, |ui| ui.strong("w"));
         cell(ui, len_w, row_h, true, |ui| ui.strong("ℓ(w)"));
     });
@@ -232,7 +235,13 @@ impl ProductsView {
             self.v_text = ctx.perm().to_string();
         }
         ui.heading("Products and expansions");
-        ui.weak("S_u · S_v = Σ c^w_{uv} S_w by transition and Monk's rule; a click on a row makes w current.");
+        typeset::label(
+            ui,
+            &Typeset::new()
+                .symbol("S_u · S_v = Σ c^w_{uv} S_w")
+                .plain(" by transition and Monk's rule; a click on a row makes w current.")
+                .color(ui.visuals().weak_text_color()),
+        );
         ui.columns(2, |cols| {
             self.product_side(&mut cols[0], ctx);
             self.expansion_side(&mut cols[1], ctx);
@@ -254,12 +263,22 @@ impl ProductsView {
     }
 
     fn product_side(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
-        ui.strong("S_u · S_v");
+        typeset::label(ui, &Typeset::new().symbol("S_u · S_v").strong());
         factor_field(ui, "u", &mut self.u_text, ctx);
         factor_field(ui, "v", &mut self.v_text, ctx);
         ui.horizontal(|ui| {
-            ui.radio_value(&mut self.stable, true, "stably (w in S_∞)");
-            ui.radio_value(&mut self.stable, false, "in H*(Fl_n)");
+            typeset::radio(
+                ui,
+                &mut self.stable,
+                true,
+                &Typeset::new().symbol("stably (w in S_∞)"),
+            );
+            typeset::radio(
+                ui,
+                &mut self.stable,
+                false,
+                &Typeset::new().symbol("in H*(Fl_n)"),
+            );
             if !self.stable {
                 ui.label("n");
                 ui.add(
@@ -304,11 +323,17 @@ impl ProductsView {
         );
         let n = ctx.session.n.max(1);
         ui.horizontal(|ui| {
-            ui.radio_value(&mut self.poly_stable, false, format!("in H*(Fl_{n})"));
-            ui.radio_value(
+            typeset::radio(
+                ui,
+                &mut self.poly_stable,
+                false,
+                &Typeset::new().symbol(format!("in H*(Fl_{n})")),
+            );
+            typeset::radio(
+                ui,
                 &mut self.poly_stable,
                 true,
-                format!("stably, in Q[x1..x{n}] over S_∞"),
+                &Typeset::new().symbol(format!("stably, in Q[x1, …, x{n}] over S_∞")),
             );
         });
         if self.poly.len() > TYPED_TEXT_LIMIT {

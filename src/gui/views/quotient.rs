@@ -9,10 +9,11 @@ use super::{figure_look, show_math_error, show_progress};
 use crate::engine::requests::{Output, QuotientInput, Reduced};
 use crate::engine::{Engine, Fetch, JobKey, Slot};
 use crate::figure::look::Look;
-use crate::figure::paths::{PathPanel, panels_of_normal_form, path_grid_scene};
+use crate::figure::paths::{PathPanel, panels_of_normal_form, path_grid_scene, with_legend};
 use crate::figure::{Scene, Tag};
 use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
+use crate::gui::typeset::{self, Typeset};
 use crate::math::Perm;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::normal_form::NormalForm;
@@ -25,8 +26,11 @@ use std::sync::Arc;
 #[derive(Default)]
 pub struct QuotientView {
     normal_form: Slot,
-    /// The grid of lattice paths on screen, keyed by the normal form asked for and the look.
-    paths_scene: Option<(JobKey, Look, Arc<Scene>)>,
+    /// The grid of lattice paths on screen, keyed by the normal form asked
+    /// for and the look, and the same grid with its legend, for export.
+    paths_scene: Option<(JobKey, Look, Arc<Scene>, Arc<Scene>)>,
+    /// Export the grid without its legend.
+    pub figure_without_legend: bool,
     /// The survey over all of S_n.
     pub survey: SurveyPanel,
     /// The permutation last picked from the survey's rows, while its normal form is shown.
@@ -57,7 +61,7 @@ fn hilbert_series_text(hilbert: &[usize]) -> String {
 /// The radio buttons choosing what the view shows: the reversed Schubert
 /// polynomial of w, a typed polynomial, or the survey of S_n.
 fn source_choice(ui: &mut egui::Ui, place: &mut QuotientPlace, w: &Perm) {
-    ui.horizontal(|ui| {
+    ui.horizontal_wrapped(|ui| {
         if ui
             .radio(
                 !place.survey && !place.use_typed,
@@ -75,13 +79,8 @@ fn source_choice(ui: &mut egui::Ui, place: &mut QuotientPlace, w: &Perm) {
             place.survey = false;
             place.use_typed = true;
         }
-        if ui
-            .radio(
-                place.survey,
-                format!("positivity survey of all of S_{}", w.n()),
-            )
-            .clicked()
-        {
+        let survey = Typeset::new().symbol(format!("positivity survey of all of S_{}", w.n()));
+        if typeset::radio_flag(ui, place.survey, &survey).clicked() {
             place.survey = true;
         }
     });
@@ -117,11 +116,12 @@ fn polynomials(ui: &mut egui::Ui, r: &Reduced) {
         .id_salt("quotient_polynomials")
         .max_height(96.0)
         .show(ui, |ui| {
-            ui.label(egui::RichText::new(format!("f = {}", r.input)).monospace());
-            ui.label(
-                egui::RichText::new(format!("NF(f) = {}", r.normal.poly.to_text()))
-                    .monospace()
-                    .strong(),
+            typeset::math_label(ui, &Typeset::new().plain("f = ").poly(&r.input), &r.input);
+            let normal = r.normal.poly.to_text();
+            typeset::math_label(
+                ui,
+                &Typeset::new().plain("NF(f) = ").poly(&normal).strong(),
+                &normal,
             );
         });
 }
@@ -135,14 +135,53 @@ fn summary(ui: &mut egui::Ui, r: &Reduced) {
         .iter()
         .filter(|c| c.2.is_negative())
         .count();
-    ui.label(format!(
-        "Hilbert series of Q[x]/J_{}: {}  (dimension {dim}, the Catalan number);  {} basis terms, {} negative, coefficient sum {}",
-        r.n,
-        hilbert_series_text(&r.hilbert),
-        r.normal.coefficients.len(),
-        negatives,
-        r.normal.coefficient_sum()
-    ));
+    let series = hilbert_series_text(&r.hilbert);
+    typeset::math_label(
+        ui,
+        &Typeset::new()
+            .plain("Hilbert series of Q[x]/")
+            .symbol(format!("J_{}", r.n))
+            .plain(": ")
+            .symbol(&series)
+            .plain(format!(
+                "  (dimension {dim}, the Catalan number);  {} basis terms, {} negative, coefficient sum {}",
+                r.normal.coefficients.len(),
+                negatives,
+                r.normal.coefficient_sum()
+            )),
+        &series,
+    );
+}
+
+/// The legend beside the panels: how x^e becomes its path, and a swatch of
+/// the colour of each x_i (the same words as in the exported figure).
+fn legend(ui: &mut egui::Ui, n: usize, without_in_figure: &mut bool) {
+    ui.strong("How to read the paths");
+    let weak = ui.visuals().weak_text_color();
+    for paragraph in crate::figure::paths::legend_paragraphs() {
+        typeset::label(ui, &Typeset::new().symbol(paragraph).color(weak));
+        ui.add_space(4.0);
+    }
+    ui.horizontal_wrapped(|ui| {
+        for v in 2..=n.max(2) {
+            let (rect, _) = ui.allocate_exact_size(egui::vec2(16.0, 10.0), egui::Sense::hover());
+            ui.painter().line_segment(
+                [rect.left_center(), rect.right_center()],
+                egui::Stroke::new(
+                    3.0,
+                    crate::gui::theme::color(crate::figure::palette::label_color(v, n)),
+                ),
+            );
+            typeset::label(ui, &Typeset::new().poly(format!("x{v}")));
+        }
+    });
+    let mut with = !*without_in_figure;
+    if ui
+        .checkbox(&mut with, "legend in the exported figure")
+        .changed()
+    {
+        *without_in_figure = !with;
+    }
 }
 
 /// The grid of lattice paths, scrolled, with the hovered panel's term as a tooltip.
@@ -161,8 +200,10 @@ fn show_paths(ui: &mut egui::Ui, scene: &Scene, r: &Reduced) {
             if let Some(Tag::Panel(k)) = resp.hovered_where(|t| matches!(t, Tag::Panel(_)))
                 && let Some((_, m, c)) = r.normal.coefficients.get(k)
             {
-                resp.response
-                    .on_hover_text(format!("{c} · {}", m.text(r.n)));
+                let line = Typeset::new().plain(format!("{c} · ")).poly(m.text(r.n));
+                resp.response.on_hover_ui(|ui| {
+                    typeset::label(ui, &line);
+                });
             }
         });
 }
@@ -172,7 +213,14 @@ impl QuotientView {
     pub fn figures(&self) -> Vec<(String, Arc<Scene>)> {
         self.paths_scene
             .iter()
-            .map(|(_, _, s)| ("the lattice-path normal form".to_string(), s.clone()))
+            .map(|(_, _, bare, with)| {
+                let s = if self.figure_without_legend {
+                    bare
+                } else {
+                    with
+                };
+                ("the lattice-path normal form".to_string(), s.clone())
+            })
             .collect()
     }
 
@@ -199,7 +247,14 @@ impl QuotientView {
     /// Draws the view.
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
-        ui.heading("Normal form in Q[x1..xn]/J_n (lex order x1 > x2 > ... > xn)");
+        typeset::heading(
+            ui,
+            &Typeset::new()
+                .plain("Normal form in Q[")
+                .symbol("x_1, …, x_n")
+                .plain("]/")
+                .symbol("J_n (lex order x_1 > x_2 > … > x_n)"),
+        );
         source_choice(ui, &mut ctx.session.quotient, &w);
         let n = w.n();
         if ctx.session.quotient.survey {
@@ -232,10 +287,25 @@ impl QuotientView {
         summary(ui, r);
         let scene = self.paths_scene(ui, key, figure_look(ctx.session), r);
         if r.normal.coefficients.is_empty() {
-            ui.label("NF(f) = 0: f lies in J_n.");
+            typeset::label(ui, &Typeset::new().symbol("NF(f) = 0: f lies in J_n."));
             return;
         }
-        show_paths(ui, &scene, r);
+        ui.horizontal_top(|ui| {
+            // the legend takes up to 300 points, less in a narrow (zoomed) window
+            let avail = ui.available_width();
+            let legend_width = (avail * 0.32).clamp(160.0, 300.0);
+            let paths_width = (avail - legend_width - 12.0).max(120.0);
+            ui.vertical(|ui| {
+                ui.set_width(paths_width);
+                show_paths(ui, &scene, r);
+            });
+            ui.vertical(|ui| {
+                ui.set_width(legend_width);
+                egui::ScrollArea::vertical()
+                    .id_salt("paths_legend")
+                    .show(ui, |ui| legend(ui, r.n, &mut self.figure_without_legend));
+            });
+        });
     }
 
     /// The normal form once reduced; until then the progress (with cancel) or
@@ -264,12 +334,15 @@ impl QuotientView {
     /// asked for or the look changed.
     fn paths_scene(&mut self, ui: &egui::Ui, key: JobKey, look: Look, r: &Reduced) -> Arc<Scene> {
         match &self.paths_scene {
-            Some((k, l, s)) if *k == key && *l == look => s.clone(),
+            Some((k, l, s, _)) if *k == key && *l == look => s.clone(),
             _ => {
                 let panels = path_panels(&r.normal, r.n);
-                let cols = ((ui.available_width() / 150.0) as usize).clamp(2, 10);
+                // the legend takes up to 300 points beside the grid
+                let legend = (ui.available_width() * 0.32).clamp(160.0, 300.0);
+                let cols = (((ui.available_width() - legend - 12.0) / 150.0) as usize).clamp(2, 10);
                 let s = Arc::new(path_grid_scene(&panels, r.n, cols, &look));
-                self.paths_scene = Some((key, look, s.clone()));
+                let with = Arc::new(with_legend(&s, r.n, &look));
+                self.paths_scene = Some((key, look, s.clone(), with));
                 s
             }
         }

@@ -10,6 +10,7 @@ use crate::engine::requests::Output;
 use crate::engine::{JobKey, Slot};
 use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
+use crate::gui::typeset::{self, Typeset};
 use crate::math::Perm;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::survey::SurveyEntry;
@@ -87,10 +88,9 @@ pub fn survey_caption(n: usize, entries: &[SurveyEntry], only: bool, rows: usize
 fn header_row(ui: &mut egui::Ui) {
     ui.horizontal(|ui| {
         for (head, width) in COLUMNS {
-            ui.add_sized(
-                [width, 18.0],
-                egui::Label::new(egui::RichText::new(head).strong()),
-            );
+            let line = Typeset::new().symbol(head).strong();
+            let cell = ui.add_sized([width, 18.0], egui::Label::new(line.job(ui)));
+            typeset::named(&cell, egui::Role::Label, &line);
         }
         ui.label(egui::RichText::new("negative coefficients").strong());
     });
@@ -130,12 +130,14 @@ fn survey_row(ui: &mut egui::Ui, e: &SurveyEntry, current: &Perm, n: usize) -> b
         let sign = if alert { "no" } else { "yes" };
         ui.add_sized([sign_w, 18.0], egui::Label::new(text(sign.to_string())));
         if alert {
-            let negs: Vec<String> = e
-                .negatives()
-                .iter()
-                .map(|(m, c)| format!("{c}·{}", m.text(n)))
-                .collect();
-            ui.label(text(negs.join("  ")));
+            let mut line = Typeset::new().color(crate::gui::theme::alert());
+            for (k, (m, c)) in e.negatives().iter().enumerate() {
+                if k > 0 {
+                    line = line.plain("  ");
+                }
+                line = line.plain(format!("{c}·")).poly(m.text(n));
+            }
+            typeset::label(ui, &line);
         }
         clicked
     })

@@ -10,6 +10,7 @@ use super::{show_math_error, show_progress};
 use crate::engine::requests::{Output, QuotientInput};
 use crate::engine::{Engine, Fetch, JobKey, Slot};
 use crate::gui::AppCtx;
+use crate::gui::typeset::{self, Typeset};
 use crate::math::MathError;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::session::Session;
@@ -44,7 +45,12 @@ fn symmetrization_choice(ui: &mut egui::Ui, session: &mut Session, n: usize) {
     let hview = &session.hessenberg.h;
     let use_h = &mut session.workbench.use_h;
     ui.horizontal(|ui| {
-        ui.radio_value(use_h, false, format!("DS_n with n = {n} (the current S_n)"));
+        typeset::radio(
+            ui,
+            use_h,
+            false,
+            &Typeset::new().symbol(format!("DS_n with n = {n} (the current S_n)")),
+        );
         let htext: Vec<String> = hview.iter().map(|v| v.to_string()).collect();
         ui.add_enabled_ui(!hview.is_empty(), |ui| {
             let label = if hview.is_empty() {
@@ -55,7 +61,7 @@ fn symmetrization_choice(ui: &mut egui::Ui, session: &mut Session, n: usize) {
                     htext.join(", ")
                 )
             };
-            ui.radio_value(use_h, true, label);
+            typeset::radio(ui, use_h, true, &Typeset::new().symbol(label));
         });
     });
 }
@@ -76,26 +82,42 @@ fn show_divsym(ui: &mut egui::Ui, out: &Output, name: &str) {
     let Output::DivSym(d) = out else {
         return;
     };
-    ui.label(
-        egui::RichText::new(format!("{name} = {}", d.value.to_text()))
-            .monospace()
+    let value = d.value.to_text();
+    typeset::math_label(
+        ui,
+        &Typeset::new()
+            .symbol(name)
+            .plain(" = ")
+            .poly(&value)
             .strong(),
+        &value,
     );
     if d.symmetric.is_empty() {
         return;
     }
-    let parts: Vec<String> = d
-        .symmetric
-        .iter()
-        .map(|(lam, c)| {
-            let l: Vec<String> = lam.iter().map(|x| x.to_string()).collect();
-            format!("{c}·m({})", l.join(","))
-        })
-        .collect();
-    ui.label(format!(
-        "in monomial symmetric functions: {}",
-        parts.join(" + ")
-    ));
+    let (line, plain) = symmetric_expansion(&d.symmetric);
+    typeset::math_label(ui, &line, &plain);
+}
+
+/// Σ c_λ m_λ, typeset and as plain text (`96·m(2,1,1)`), the terms joined by +.
+fn symmetric_expansion<'a, C: std::fmt::Display + 'a>(
+    terms: impl IntoIterator<Item = (&'a Vec<u32>, &'a C)>,
+) -> (Typeset, String) {
+    let mut line = Typeset::new().plain("in monomial symmetric functions: ");
+    let mut plain = Vec::new();
+    for (k, (lam, c)) in terms.into_iter().enumerate() {
+        let l: Vec<String> = lam.iter().map(|x| x.to_string()).collect();
+        let l = l.join(",");
+        if k > 0 {
+            line = line.plain(" + ");
+        }
+        line = line
+            .poly(c.to_string())
+            .plain("·")
+            .symbol(format!("m_{{({l})}}"));
+        plain.push(format!("{c}·m({l})"));
+    }
+    (line, plain.join(" + "))
 }
 
 /// The normal form modulo J_m and how many standard monomials it has.
@@ -103,12 +125,15 @@ fn show_normal_form(ui: &mut egui::Ui, out: &Output, m: usize) {
     let Output::Reduced(r) = out else {
         return;
     };
-    ui.label(
-        egui::RichText::new(format!(
-            "normal form modulo J_{m}: {}",
-            r.normal.poly.to_text()
-        ))
-        .monospace(),
+    let normal = r.normal.poly.to_text();
+    typeset::math_label(
+        ui,
+        &Typeset::new()
+            .plain("normal form modulo ")
+            .symbol(format!("J_{m}"))
+            .plain(": ")
+            .poly(&normal),
+        &normal,
     );
     ui.weak(format!(
         "{} standard monomials with nonzero coefficient; the Quotient tab draws them as lattice paths",
@@ -232,7 +257,7 @@ impl WorkbenchView {
         };
         // DS and the normal form need f multiplied out: they start once it was read
         if let Some(t) = read.as_ref().and_then(|o| o.text().map(str::to_string)) {
-            ui.add(egui::Label::new(egui::RichText::new(format!("f = {t}")).monospace()).wrap());
+            typeset::math_label(ui, &Typeset::new().plain("f = ").poly(&t), &t);
             ui.separator();
             self.divided_symmetrization_and_normal_form(ui, ctx, &text, &h);
         } else {
@@ -242,7 +267,14 @@ impl WorkbenchView {
         }
         ui.separator();
         ui.columns(2, |cols| {
-            cols[0].strong(format!("Schubert expansion in H*(Fl_{m})"));
+            typeset::label(
+                &mut cols[0],
+                &Typeset::new()
+                    .plain("Schubert expansion in H*(")
+                    .symbol(format!("Fl_{m}"))
+                    .plain(")")
+                    .strong(),
+            );
             show_expansion(
                 &mut cols[0],
                 &mut self.flag_expansion,
@@ -250,7 +282,15 @@ impl WorkbenchView {
                 JobKey::Expansion(text.clone(), m, false),
                 "workbench_flag_rows",
             );
-            cols[1].strong(format!("stably, in Q[x1..x{m}] over S_∞"));
+            typeset::label(
+                &mut cols[1],
+                &Typeset::new()
+                    .plain("stably, in Q[")
+                    .symbol(format!("x1, …, x{m}"))
+                    .plain("] over ")
+                    .symbol("S_∞")
+                    .strong(),
+            );
             show_expansion(
                 &mut cols[1],
                 &mut self.stable_expansion,
