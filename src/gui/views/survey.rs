@@ -51,15 +51,15 @@ pub struct SurveyPanel {
 /// The summary of a survey: how many permutations, and how many counterexamples.
 fn summary_text(entries: &[SurveyEntry]) -> String {
     let bad = entries.iter().filter(|e| !e.nonnegative()).count();
+    let count = match entries.len() {
+        1 => "1 permutation".to_string(),
+        k => format!("{k} permutations"),
+    };
     if bad == 0 {
-        format!(
-            "{} permutations: every normal form has nonnegative coefficients",
-            entries.len()
-        )
+        format!("{count}: every normal form has nonnegative coefficients")
     } else {
         format!(
-            "{} permutations: {bad} counterexample{} (a negative coefficient), listed first",
-            entries.len(),
+            "{count}: {bad} counterexample{} (a negative coefficient), listed first",
             if bad == 1 { "" } else { "s" }
         )
     }
