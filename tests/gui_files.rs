@@ -215,7 +215,7 @@ fn the_hessenberg_view_exports_the_staircase_of_h() {
     settle(&mut h, |h| has(h, "the staircase of h"));
     let dir = scratch("staircase");
     let path = dir.join("staircase.svg");
-    export_to(&mut h, "the staircase of h = (3, 3, 4, 4)", &path);
+    export_to(&mut h, "the staircase of h = (3,3,4,4)", &path);
     let text = std::fs::read_to_string(&path).unwrap();
     // n² = 16 boxes and the bounding path are paths; the n = 4 diagonal dots are circles
     assert_eq!(text.matches("<circle").count(), 4, "{text}");

@@ -178,10 +178,10 @@ impl JobKey {
     }
 }
 
-/// h written as the explorer writes it everywhere: `(2, 3, 3)`.
+/// h written as the explorer and the commands write it everywhere: `(2,3,3)`.
 pub fn h_text(h: &[usize]) -> String {
     let parts: Vec<String> = h.iter().map(|v| v.to_string()).collect();
-    format!("({})", parts.join(", "))
+    format!("({})", parts.join(","))
 }
 
 /// A finished result.

@@ -324,7 +324,12 @@ impl HessenbergView {
             self.order_shown = Some((order_key, layout.clone()));
         }
         let layout: &TableLayout = arranged;
-        ui.add(egui::Label::new(layout.summary.as_str()).wrap());
+        // "…; Σ a^h_w = 8; …" with a^h_w typeset
+        let summary = match layout.summary.split_once("Σ a^h_w") {
+            Some((before, after)) => Typeset::new().plain(before).symbol("Σ a^h_w").plain(after),
+            None => Typeset::new().plain(layout.summary.as_str()),
+        };
+        typeset::label(ui, &summary);
         ui.weak("Ctrl+E exports this table as CSV or as a LaTeX tabular.");
         let current = ctx.perm();
         let place = &mut ctx.session.hessenberg;
