@@ -10,7 +10,7 @@ use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
 use elbowroom::gui::Explorer;
 use std::time::{Duration, Instant};
-use window_harness::{harness, has, settle};
+use window_harness::{harness, has, settle, survey_of_s5};
 
 /// n = 11, h = (3, 4, ..., 11, 11, 11): |h| = 27, the middle length of S_11; its
 /// table takes many seconds, so it is still running whenever the tests look.
@@ -80,16 +80,7 @@ fn the_survey_of_s5_finishes_while_a_slow_table_runs() {
     let mut h = harness();
     start_table(&mut h, &SLOW_H);
     let slow = h.state().engine.running()[0].progress.clone();
-    h.get_by_label("Quotient by J_n").click();
-    h.step();
-    h.get_by_label("positivity survey of all of S_5").click();
-    // the 120 normal forms of S_5 (as in gui_explorer.rs: none has a negative coefficient)
-    settle(&mut h, |h| {
-        has(
-            h,
-            "120 permutations: every normal form has nonnegative coefficients",
-        )
-    });
+    survey_of_s5(&mut h);
     // the table was neither stopped nor finished meanwhile
     assert!(!slow.is_canceled());
     assert!(

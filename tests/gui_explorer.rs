@@ -13,7 +13,7 @@ use elbowroom::gui::Explorer;
 use elbowroom::math::Perm;
 use elbowroom::math::pipes::dream::count_pipe_dreams;
 use elbowroom::session::model::View;
-use window_harness::{harness, has, settle};
+use window_harness::{harness, has, settle, survey_of_s5};
 
 fn type_and_go(h: &mut Harness<'static, Explorer>, text: &str) {
     h.state_mut().picker.text = text.to_string();
@@ -214,17 +214,7 @@ fn ctrl_s_saves_back_to_the_sessions_file() {
 fn a_positivity_survey_runs_and_a_row_shows_its_normal_form() {
     let mut h = harness();
     // the demo explores S_5
-    h.get_by_label("Quotient by J_n").click();
-    h.step();
-    h.get_by_label("positivity survey of all of S_5").click();
-    // all 5! = 120 permutations are reduced (and, as the headless survey finds for
-    // every n <= 8, none has a negative coefficient)
-    settle(&mut h, |h| {
-        has(
-            h,
-            "120 permutations: every normal form has nonnegative coefficients",
-        )
-    });
+    survey_of_s5(&mut h);
     // a click on the row of 12435 makes it current and shows its normal form:
     // S_12435 = S_{s3} = x1 + x2 + x3 (Macdonald's table), reversed in five
     // variables: x3 + x4 + x5 (the picker's list may show the same label, so the

@@ -13,7 +13,7 @@ use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
 use elbowroom::gui::Explorer;
 use std::path::{Path, PathBuf};
-use window_harness::{harness, has, settle};
+use window_harness::{harness, has, settle, survey_of_s5};
 
 /// A fresh directory for one test's files.
 fn scratch(name: &str) -> PathBuf {
@@ -131,15 +131,7 @@ fn a_latex_export_of_the_default_h_of_s3_says_what_it_is_before_the_tabular() {
 #[test]
 fn an_exported_survey_lists_its_rows_under_a_caption() {
     let mut h = harness();
-    h.get_by_label("Quotient by J_n").click();
-    h.step();
-    h.get_by_label("positivity survey of all of S_5").click();
-    settle(&mut h, |h| {
-        has(
-            h,
-            "120 permutations: every normal form has nonnegative coefficients",
-        )
-    });
+    survey_of_s5(&mut h);
     let dir = scratch("survey");
     let path = dir.join("survey.csv");
     export_to(&mut h, "the positivity survey of S_5", &path);

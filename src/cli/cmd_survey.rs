@@ -376,10 +376,14 @@ fn add_listing(v: &mut Value, n: usize, listed_total: usize) {
 
 /// The text output's heading and column names.
 fn text_head(job: &Job, count: usize, bad: usize) -> String {
-    let n = job.n;
+    heading(job.n, &job.shard, count, bad, job.summary)
+}
+
+/// The heading of the text output of piece `shard` of the survey of S_n: the
+/// counts, the listing when it is not all of S_n, the column names.
+fn heading(n: usize, shard: &str, count: usize, bad: usize, summary: bool) -> String {
     let mut out = format!(
-        "normal forms of S_w(x{n}, ..., x1) modulo J_{n} (piece {}): {count} {}, {bad} with a negative coefficient\n\n",
-        job.shard,
+        "normal forms of S_w(x{n}, ..., x1) modulo J_{n} (piece {shard}): {count} {}, {bad} with a negative coefficient\n\n",
         if count == 1 {
             "permutation"
         } else {
@@ -399,7 +403,7 @@ fn text_head(job: &Job, count: usize, bad: usize) -> String {
         "terms",
         "sum",
         "≥ 0",
-        if job.summary { "" } else { "  normal form" }
+        if summary { "" } else { "  normal form" }
     ));
     out
 }
@@ -566,30 +570,7 @@ pub fn survey_text<E: SurveyRecord>(
     normal_form: &dyn Fn(&E) -> Option<String>,
 ) -> String {
     let bad = entries.iter().filter(|e| !e.nonnegative()).count();
-    let mut out = format!(
-        "normal forms of S_w(x{n}, ..., x1) modulo J_{n} (piece {shard}): {} {}, {bad} with a negative coefficient\n\n",
-        entries.len(),
-        if entries.len() == 1 {
-            "permutation"
-        } else {
-            "permutations"
-        },
-    );
-    if n > FULL_LISTING_MAX_N {
-        out.push_str(&format!(
-            "(listed: the w with ℓ(w) <= {}; every S_w of degree >= {n} lies in J_{n})\n\n",
-            n - 1
-        ));
-    }
-    out.push_str(&format!(
-        "{:<10} {:>3} {:>6} {:>8} {:>6}{}\n",
-        "w",
-        "ℓ",
-        "terms",
-        "sum",
-        "≥ 0",
-        if summary { "" } else { "  normal form" }
-    ));
+    let mut out = heading(n, shard, entries.len(), bad, summary);
     for e in entries {
         out.push_str(&format!(
             "{:<10} {:>3} {:>6} {:>8} {:>6}",
