@@ -572,28 +572,12 @@ pub fn survey_text<E: SurveyRecord>(
     let bad = entries.iter().filter(|e| !e.nonnegative()).count();
     let mut out = heading(n, shard, entries.len(), bad, summary);
     for e in entries {
-        out.push_str(&format!(
-            "{:<10} {:>3} {:>6} {:>8} {:>6}",
-            e.perm().to_string(),
-            e.perm().length(),
-            e.terms(),
-            e.sum().to_string(),
-            if e.nonnegative() { "yes" } else { "NO" }
-        ));
-        if let Some(p) = normal_form(e) {
-            out.push_str(&format!("  {p}"));
-        }
-        out.push('\n');
+        out.push_str(&text_row(e, normal_form));
     }
     if bad > 0 {
         out.push_str("\ncounterexamples (negative coefficients):\n");
         for e in entries.iter().filter(|e| !e.nonnegative()) {
-            let negs: Vec<String> = e
-                .negatives()
-                .iter()
-                .map(|(m, c)| format!("{c}·{}", m.text(n)))
-                .collect();
-            out.push_str(&format!("  {}: {}\n", e.perm(), negs.join(", ")));
+            out.push_str(&counterexample_text(e, n));
         }
     }
     out
