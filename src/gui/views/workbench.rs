@@ -51,14 +51,13 @@ fn symmetrization_choice(ui: &mut egui::Ui, session: &mut Session, n: usize) {
             false,
             &Typeset::new().symbol(format!("DS_n with n = {n} (the current S_n)")),
         );
-        let htext: Vec<String> = hview.iter().map(|v| v.to_string()).collect();
         ui.add_enabled_ui(!hview.is_empty(), |ui| {
             let label = if hview.is_empty() {
                 "DS_h with the h chosen in the Hessenberg view (none chosen yet)".to_string()
             } else {
                 format!(
-                    "DS_h with h = ({}) from the Hessenberg view",
-                    htext.join(", ")
+                    "DS_h with h = {} from the Hessenberg view",
+                    crate::engine::requests::h_text(hview)
                 )
             };
             typeset::radio(ui, use_h, true, &Typeset::new().symbol(label));
