@@ -193,3 +193,29 @@ fn merge_refuses_foreign_or_short_pieces() {
     assert!(err(&[a.clone(), old]).contains("piece 2 (2/2) was written by version 0.0.1"));
     assert!(merge_surveys(&[a, b]).is_ok());
 }
+
+#[test]
+fn the_paths_figure_carries_its_legend_when_asked() {
+    // NF of S_2413(x4, ..., x1) modulo J_4 = x3^2 x4 + x3 x4^2 (two panels); the legend
+    // reads x^e as the path N^{e_1} E ... N^{e_n} E N^{n-|e|} (Aval–Bergeron–Bergeron 2004)
+    let dir = std::env::temp_dir().join(format!("elbowroom-legend-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    let plain = dir.join("plain.svg");
+    let legend = dir.join("legend.svg");
+    for (path, extra) in [(&plain, None), (&legend, Some("--legend"))] {
+        let mut args = vec!["figure", "paths", "2413", "--out", path.to_str().unwrap()];
+        args.extend(extra);
+        let out = run(&args);
+        assert!(
+            out.status.success(),
+            "{}",
+            String::from_utf8_lossy(&out.stderr)
+        );
+    }
+    let plain = std::fs::read_to_string(&plain).unwrap();
+    let legend = std::fs::read_to_string(&legend).unwrap();
+    assert!(!plain.contains("a step east"));
+    assert!(legend.contains("a step east"), "{legend}");
+    assert!(legend.contains("Catalan(n)"));
+    std::fs::remove_dir_all(&dir).ok();
+}

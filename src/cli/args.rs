@@ -418,6 +418,9 @@ pub struct FigureArgs {
     /// paths: panels per row (default: about the square root of their number).
     #[arg(long, allow_hyphen_values = true, value_parser = whole_count)]
     pub columns: Option<usize>,
+    /// paths: put the legend (how a monomial becomes a path, the colours) beside the panels.
+    #[arg(long)]
+    pub legend: bool,
     /// permutohedron: λ_1,...,λ_n (rationals, n <= 5).
     #[arg(long, allow_hyphen_values = true)]
     pub lambda: Option<String>,

@@ -6,7 +6,7 @@
 //! - `bumpless W [--index K | --all]`: bumpless pipe dreams of w.
 //! - `wiring W [--index K | --all | --word A]`: wiring diagrams of the reduced
 //!   words of w, in lexicographic order (or of the word given).
-//! - `paths W [--columns C]`: the normal form modulo J_n of the reversed Schubert
+//! - `paths W [--columns C] [--legend]`: the normal form modulo J_n of the reversed Schubert
 //!   polynomial S_w(x_n, ..., x_1), one lattice path per standard monomial;
 //!   `paths --poly F --n N` draws the normal form of any polynomial instead.
 //! - `permutohedron --lambda L [--yaw A --pitch B]`: P_λ for n <= 5.

@@ -8,7 +8,7 @@ use crate::cli::error::CliError;
 use crate::cli::interrupt;
 use crate::figure::Scene;
 use crate::figure::look::Look;
-use crate::figure::paths::{panels_of_normal_form, path_grid_scene};
+use crate::figure::paths::{panels_of_normal_form, path_grid_scene, with_legend};
 use crate::math::RatPoly;
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
@@ -33,7 +33,13 @@ pub fn panels(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
             (s.to_rational(), w.n(), format!("{kind}-{}", compact(&w)))
         }
     };
-    Ok(vec![(0, name, paths_scene(&f, n, args.columns, look)?)])
+    let grid = paths_scene(&f, n, args.columns, look)?;
+    let scene = if args.legend {
+        with_legend(&grid, n, look)
+    } else {
+        grid
+    };
+    Ok(vec![(0, name, scene)])
 }
 
 fn paths_scene(
