@@ -161,3 +161,24 @@ fn a_huge_power_in_the_workbench_keeps_frames_flowing() {
     settle(&mut h, |h| has(h, "f = x1 x2"));
     assert!(reading.is_canceled());
 }
+
+#[test]
+fn a_polynomial_typed_in_the_quotient_view_is_read_on_the_engine() {
+    let mut h = harness();
+    h.state_mut().session.n = 8;
+    h.state_mut().session.current = (1..=8).collect();
+    h.get_by_label("Quotient by J_n").click();
+    h.step();
+    h.state_mut().session.quotient.use_typed = true;
+    // (x1 + ... + x8)^12, C(19, 7) = 50 388 terms: seconds of reading in the test
+    // build, done with the reduction on the engine while the frames go on
+    h.state_mut().session.quotient.typed = "(x1+x2+x3+x4+x5+x6+x7+x8)^12".into();
+    for _ in 0..20 {
+        h.step();
+        std::thread::sleep(Duration::from_millis(5));
+    }
+    assert!(has(&h, "reducing"));
+    // a mistake is reported by the engine's reading, with its column
+    h.state_mut().session.quotient.typed = "x1 +* x2".into();
+    settle(&mut h, |h| has(h, "column"));
+}

@@ -4,6 +4,7 @@
 use super::args::{SessionAction, SessionArgs, SessionCheckArgs};
 use super::error::CliError;
 use super::json;
+use crate::session::model::excerpt;
 use crate::session::{SessionError, store};
 use serde_json::json;
 
@@ -75,14 +76,6 @@ fn check(args: &SessionCheckArgs) -> Result<String, CliError> {
 
 /// How many characters of the notes' first line the report shows.
 const NOTE_EXCERPT: usize = 80;
-
-/// The first `most` characters of `text`, with "…" when some were left out.
-fn excerpt(text: &str, most: usize) -> String {
-    match text.char_indices().nth(most) {
-        Some((at, _)) => format!("{}…", &text[..at]),
-        None => text.to_string(),
-    }
-}
 
 /// A session error as a CLI error: an unreadable or unwritable file fails
 /// (exit 1) when the operating system refused; a bad file is bad input (exit 2).

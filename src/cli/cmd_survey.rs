@@ -529,26 +529,12 @@ pub fn survey_json<E: SurveyRecord>(
 ) -> Value {
     let results: Vec<Value> = entries
         .iter()
-        .map(|e| {
-            let mut v = json!({
-                "perm": e.perm().one_line(),
-                "length": e.perm().length(),
-                "nonnegative": e.nonnegative(),
-                "terms": e.terms(),
-                "sum": e.sum().to_string(),
-            });
-            if let Some(p) = normal_form(e) {
-                v["normal_form"] = p;
-            }
-            v
-        })
+        .map(|e| result_json(e, normal_form))
         .collect();
     let counterexamples: Vec<Value> = entries
         .iter()
         .filter(|e| !e.nonnegative())
-        .map(
-            |e| json!({"perm": e.perm().one_line(), "negative_coefficients": negatives_json(e, n)}),
-        )
+        .map(|e| counterexample_json(e, n))
         .collect();
     json!({
         "kind": SURVEY_KIND,

@@ -11,6 +11,7 @@
 
 use crate::math::limits::NOTES_TEXT_LIMIT;
 use crate::session::Session;
+use crate::session::model::excerpt;
 use eframe::egui;
 
 /// The most characters a title may have.
@@ -33,14 +34,6 @@ fn over(text: &str, limit: usize) -> Option<usize> {
     }
     let count = text.chars().count();
     (count > limit).then_some(count)
-}
-
-/// The first `most` characters of `text`, with "…" when some were left out.
-fn excerpt(text: &str, most: usize) -> String {
-    match text.char_indices().nth(most) {
-        Some((at, _)) => format!("{}…", &text[..at]),
-        None => text.to_string(),
-    }
 }
 
 /// How much of a text too long to edit is shown.

@@ -265,3 +265,13 @@ impl Default for FigureSettings {
         }
     }
 }
+
+/// The first `most` characters of a session's text (a title, the notes), with
+/// "…" when some were left out: what a report or the window shows of a text too
+/// long to show whole.
+pub fn excerpt(text: &str, most: usize) -> String {
+    match text.char_indices().nth(most) {
+        Some((at, _)) => format!("{}…", &text[..at]),
+        None => text.to_string(),
+    }
+}

@@ -110,6 +110,48 @@ pub fn fetch_ready(
     None
 }
 
+/// A slot's result, or (while it is not there) its progress with cancel or its
+/// error explained by [`show_math_error`] (a typed input's mistake, no retry).
+pub fn fetch_or_explain(
+    ui: &mut egui::Ui,
+    slot: &mut Slot,
+    engine: &Engine,
+    key: JobKey,
+    what: &str,
+) -> Option<Arc<Output>> {
+    let failure = match slot.fetch(engine, key) {
+        Fetch::Ready(out) => return Some(out.clone()),
+        Fetch::Running(fraction, _) => {
+            show_progress(ui, what, fraction, slot);
+            return None;
+        }
+        Fetch::Failed(e) => e.clone(),
+    };
+    show_math_error(ui, &failure);
+    None
+}
+
+/// The longest typed polynomial a view sends to the engine. A text edit lays
+/// its whole text out again on each change, and a polynomial typed by hand is
+/// far shorter; the engine's own reading is bounded by `math::limits`.
+pub const WINDOW_POLY_LIMIT: usize = 4000;
+
+/// The one check of a typed polynomial on the window's thread: its length.
+/// False (after saying so) when it is longer than [`WINDOW_POLY_LIMIT`].
+pub fn typed_poly_fits(ui: &mut egui::Ui, text: &str) -> bool {
+    if text.len() <= WINDOW_POLY_LIMIT {
+        return true;
+    }
+    show_math_error(
+        ui,
+        &MathError::OutOfRange(format!(
+            "the polynomial is {} characters long; at most {WINDOW_POLY_LIMIT} are read",
+            text.len()
+        )),
+    );
+    false
+}
+
 /// Shows an error of the mathematics: a syntax error as its message and the
 /// input with a caret under the column, any other error as its text.
 pub fn show_math_error(ui: &mut egui::Ui, e: &MathError) {

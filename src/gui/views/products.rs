@@ -4,7 +4,7 @@
 //! `expand` use. The result is a list of rows (c_w, w, ℓ(w)); a click on a row
 //! makes w current; negative coefficients are marked.
 
-use super::fetch_ready;
+use super::{fetch_ready, typed_poly_fits};
 use crate::engine::JobKey;
 use crate::engine::Slot;
 use crate::engine::requests::Terms;
@@ -16,9 +16,6 @@ use num_traits::Signed;
 
 /// The longest text a field for a permutation accepts before it is read.
 const PERM_TEXT_LIMIT: usize = 80;
-/// The longest typed polynomial sent to the engine; the only check of typed
-/// text on the window's thread is this length.
-pub const TYPED_TEXT_LIMIT: usize = 4000;
 
 /// The view's UI state (its inputs are typed here; results come from the engine).
 pub struct ProductsView {
@@ -336,14 +333,7 @@ impl ProductsView {
                 &Typeset::new().symbol(format!("stably, in Q[x1, …, x{n}] over S_∞")),
             );
         });
-        if self.poly.len() > TYPED_TEXT_LIMIT {
-            ui.colored_label(
-                crate::gui::theme::alert(),
-                format!(
-                    "the polynomial is {} characters long; at most {TYPED_TEXT_LIMIT} are read",
-                    self.poly.len()
-                ),
-            );
+        if !typed_poly_fits(ui, &self.poly) {
             return;
         }
         ui.separator();

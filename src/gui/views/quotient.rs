@@ -5,9 +5,9 @@
 //! positivity survey over all of S_n (`survey.rs`).
 
 use super::survey::SurveyPanel;
-use super::{figure_look, show_math_error, show_progress};
+use super::{fetch_or_explain, figure_look, typed_poly_fits};
 use crate::engine::requests::{Output, QuotientInput, Reduced};
-use crate::engine::{Engine, Fetch, JobKey, Slot};
+use crate::engine::{JobKey, Slot};
 use crate::figure::look::Look;
 use crate::figure::paths::{PathPanel, panels_of_normal_form, path_grid_scene, with_legend};
 use crate::figure::{Scene, Tag};
@@ -86,8 +86,8 @@ fn source_choice(ui: &mut egui::Ui, place: &mut QuotientPlace, w: &Perm) {
     });
 }
 
-/// The polynomial to reduce: the typed one (with its field, `None` while it
-/// does not parse) or the reversed Schubert polynomial of w.
+/// The polynomial to reduce: the typed one (with its field, `None` while it is
+/// too long to send) or the reversed Schubert polynomial of w.
 fn quotient_input(ui: &mut egui::Ui, place: &mut QuotientPlace, w: &Perm) -> Option<QuotientInput> {
     let n = w.n();
     if !place.use_typed {
@@ -102,8 +102,8 @@ fn quotient_input(ui: &mut egui::Ui, place: &mut QuotientPlace, w: &Perm) -> Opt
             .font(egui::TextStyle::Monospace)
             .desired_width(f32::INFINITY),
     );
-    if let Err(e) = crate::math::poly::parse::parse_poly(&place.typed, Some(n)) {
-        show_math_error(ui, &e);
+    // read on the engine with the reduction (its mistakes are shown there)
+    if !typed_poly_fits(ui, &place.typed) {
         return None;
     }
     Some(QuotientInput::Typed(place.typed.clone(), n))
@@ -277,7 +277,13 @@ impl QuotientView {
             return;
         };
         let key = JobKey::NormalForm(input);
-        let Some(out) = self.fetch_normal_form(ui, ctx.engine, &key) else {
+        let Some(out) = fetch_or_explain(
+            ui,
+            &mut self.normal_form,
+            ctx.engine,
+            key.clone(),
+            "reducing",
+        ) else {
             return;
         };
         let Output::Reduced(r) = out.as_ref() else {
@@ -306,28 +312,6 @@ impl QuotientView {
                     .show(ui, |ui| legend(ui, r.n, &mut self.figure_without_legend));
             });
         });
-    }
-
-    /// The normal form once reduced; until then the progress (with cancel) or
-    /// the error is drawn.
-    fn fetch_normal_form(
-        &mut self,
-        ui: &mut egui::Ui,
-        engine: &Engine,
-        key: &JobKey,
-    ) -> Option<Arc<Output>> {
-        match self.normal_form.fetch(engine, key.clone()) {
-            Fetch::Ready(out) => Some(out.clone()),
-            Fetch::Running(f, _) => {
-                show_progress(ui, "reducing", f, &self.normal_form);
-                None
-            }
-            Fetch::Failed(e) => {
-                let e = e.clone();
-                show_math_error(ui, &e);
-                None
-            }
-        }
     }
 
     /// The grid of lattice paths of `r`, built again only when the normal form

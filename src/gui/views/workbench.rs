@@ -5,13 +5,12 @@
 //! The window's thread only checks the length of the text; reading and every
 //! computation run on the engine.
 
-use super::products::{TYPED_TEXT_LIMIT, terms_list, terms_summary};
-use super::{show_math_error, show_progress};
+use super::products::{terms_list, terms_summary};
+use super::{fetch_or_explain, typed_poly_fits};
 use crate::engine::requests::{Output, QuotientInput};
-use crate::engine::{Engine, Fetch, JobKey, Slot};
+use crate::engine::{Engine, JobKey, Slot};
 use crate::gui::AppCtx;
 use crate::gui::typeset::{self, Typeset};
-use crate::math::MathError;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::session::Session;
 use eframe::egui;
@@ -150,29 +149,15 @@ fn show_result(
     what: &str,
     show: impl FnOnce(&mut egui::Ui, &Output),
 ) {
-    match slot.fetch(engine, key) {
-        Fetch::Ready(out) => show(ui, out.as_ref()),
-        Fetch::Running(f, _) => show_progress(ui, what, f, slot),
-        Fetch::Failed(e) => {
-            let e = e.clone();
-            show_math_error(ui, &e);
-        }
+    if let Some(out) = fetch_or_explain(ui, slot, engine, key, what) {
+        show(ui, &out);
     }
 }
 
 /// A Schubert expansion: the summary and the rows (a click makes w current).
 fn show_expansion(ui: &mut egui::Ui, slot: &mut Slot, ctx: &mut AppCtx, key: JobKey, id: &str) {
-    let out = match slot.fetch(ctx.engine, key) {
-        Fetch::Ready(out) => out.clone(),
-        Fetch::Running(f, _) => {
-            show_progress(ui, "Schubert expansion", f, slot);
-            return;
-        }
-        Fetch::Failed(e) => {
-            let e = e.clone();
-            show_math_error(ui, &e);
-            return;
-        }
+    let Some(out) = fetch_or_explain(ui, slot, ctx.engine, key, "Schubert expansion") else {
+        return;
     };
     let Some(terms) = out.terms() else {
         return;
@@ -231,29 +216,17 @@ impl WorkbenchView {
         let h = chosen_h(ctx.session, n);
         let text = ctx.session.workbench.poly.clone();
         // the one check on this thread: the length of the text
-        if text.len() > TYPED_TEXT_LIMIT {
-            show_math_error(
-                ui,
-                &MathError::OutOfRange(format!(
-                    "the polynomial is {} characters long; at most {TYPED_TEXT_LIMIT} are read",
-                    text.len()
-                )),
-            );
+        if !typed_poly_fits(ui, &text) {
             return;
         }
         let m = h.len();
-        let read = match self.typed.fetch(ctx.engine, JobKey::Typed(text.clone(), m)) {
-            Fetch::Ready(out) => Some(out.clone()),
-            Fetch::Running(f, _) => {
-                show_progress(ui, "reading the polynomial", f, &self.typed);
-                None
-            }
-            Fetch::Failed(e) => {
-                let e = e.clone();
-                show_math_error(ui, &e);
-                None
-            }
-        };
+        let read = fetch_or_explain(
+            ui,
+            &mut self.typed,
+            ctx.engine,
+            JobKey::Typed(text.clone(), m),
+            "reading the polynomial",
+        );
         // DS and the normal form need f multiplied out: they start once it was read
         if let Some(t) = read.as_ref().and_then(|o| o.text().map(str::to_string)) {
             typeset::math_label(ui, &Typeset::new().plain("f = ").poly(&t), &t);
