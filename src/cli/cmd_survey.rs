@@ -23,11 +23,12 @@ use super::json;
 use super::output::{Reorder, Sink};
 use super::shard::Shard;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
+use crate::math::quotient::normal_form::groebner_basis_with;
 use crate::math::quotient::survey::{
     FULL_LISTING_MAX_N, SurveyEntry, SurveyRecord, survey_each, survey_listing,
     survey_summaries_each,
 };
-use crate::math::{Perm, Progress};
+use crate::math::{MathError, Perm, Progress};
 use crate::tables::results::survey_table;
 use crate::tables::table::Table;
 use serde_json::{Value, json};
@@ -123,6 +124,7 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
         summary: args.summary,
         format,
     };
+    basis_first(n, perms.len())?;
     let summary = args.summary;
     match format {
         // the summary needs no normal form kept: the compact records
@@ -146,6 +148,28 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
             let row = TableRow::new(n, summary, format == Format::Latex);
             stream_table(&job, &perms, sink, &row)
         }
+    }
+}
+
+/// Builds the basis of J_n before the walk (the walk then finds it built), so
+/// that a Ctrl-C says which of the two it stopped: the walk counts permutations,
+/// the construction its own steps.
+fn basis_first(n: usize, listed: usize) -> Result<(), CliError> {
+    if listed == 0 {
+        return Ok(());
+    }
+    let progress = Arc::new(Progress::default());
+    let watching = interrupt::watch_before_output(progress.clone());
+    let built = groebner_basis_with(n, &progress);
+    drop(watching);
+    match built {
+        Ok(_) => Ok(()),
+        Err(MathError::Canceled) => Err(CliError::Canceled(format!(
+            "the survey canceled after 0 of {listed} permutations (while building the basis of J_{n}: {} of {} steps); no output written",
+            progress.done(),
+            progress.total()
+        ))),
+        Err(e) => Err(e.into()),
     }
 }
 
