@@ -10,10 +10,11 @@ use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
 use elbowroom::figure::dream::{CELL, cell_origin};
 use elbowroom::gui::Explorer;
+use elbowroom::gui::views::dreams::DreamsView;
 use elbowroom::math::Perm;
 use elbowroom::math::pipes::dream::count_pipe_dreams;
 use elbowroom::session::model::View;
-use window_harness::{harness, has, settle, survey_of_s5};
+use window_harness::{ViewOf, harness, has, settle, survey_of_s5};
 
 fn type_and_go(h: &mut Harness<'static, Explorer>, text: &str) {
     h.state_mut().picker.text = text.to_string();
@@ -26,7 +27,7 @@ fn type_and_go(h: &mut Harness<'static, Explorer>, text: &str) {
 #[test]
 fn a_typed_permutation_reaches_every_view() {
     let mut h = harness();
-    settle(&mut h, |h| h.state().dreams.shown.is_some());
+    settle(&mut h, |h| h.state().view::<DreamsView>().shown.is_some());
     type_and_go(&mut h, "code: 1,0,1");
     // the code (1,0,1) is that of 2143, embedded in S_5
     assert_eq!(h.state().session.current, vec![2, 1, 4, 3, 5]);
@@ -113,8 +114,8 @@ fn the_arrow_keys_step_to_the_last_dream() {
 #[test]
 fn clicking_a_cell_applies_a_ladder_move() {
     let mut h = harness();
-    settle(&mut h, |h| h.state().dreams.shown.is_some());
-    let dream = h.state().dreams.shown.unwrap();
+    settle(&mut h, |h| h.state().view::<DreamsView>().shown.is_some());
+    let dream = h.state().view::<DreamsView>().shown.unwrap();
     let w = dream.permutation();
     let (i, j) = dream
         .crosses()
@@ -122,7 +123,7 @@ fn clicking_a_cell_applies_a_ladder_move() {
         .find(|&(i, j)| dream.ladder_move_at(i, j).is_some())
         .unwrap();
     let expected = dream.ladder_move_at(i, j).unwrap();
-    let (rect, scale) = h.state().dreams.canvas.unwrap();
+    let (rect, scale) = h.state().view::<DreamsView>().canvas.unwrap();
     let o = cell_origin(i, j);
     // a corner of the cell, away from the pipes through its middle
     let pos = rect.min + egui::vec2((o.x + CELL * 0.12) * scale, (o.y + CELL * 0.12) * scale);
@@ -138,15 +139,15 @@ fn clicking_a_cell_applies_a_ladder_move() {
         h.step();
     }
     h.step();
-    let shown = h.state().dreams.shown.unwrap();
+    let shown = h.state().view::<DreamsView>().shown.unwrap();
     assert_ne!(shown, dream);
     assert_eq!(shown, expected);
     assert_eq!(shown.permutation(), w);
-    assert!(h.state().dreams.click_note.is_some());
+    assert!(h.state().view::<DreamsView>().click_note.is_some());
     // another permutation: the note about the click goes
     type_and_go(&mut h, "1432");
     settle(&mut h, |h| has(h, "1 of 5"));
-    assert!(h.state().dreams.click_note.is_none());
+    assert!(h.state().view::<DreamsView>().click_note.is_none());
 }
 
 #[test]
@@ -324,4 +325,27 @@ fn an_export_is_named_after_its_table_and_asks_before_replacing_a_file() {
         })
     });
     std::fs::remove_dir_all(&dir).ok();
+}
+
+#[test]
+fn each_view_has_one_tab_and_a_click_on_it_shows_that_view() {
+    let kinds: Vec<View> = elbowroom::gui::views::all()
+        .iter()
+        .map(|v| v.kind())
+        .collect();
+    let titles: Vec<&str> = elbowroom::gui::views::all()
+        .iter()
+        .map(|v| v.title())
+        .collect();
+    for k in 0..kinds.len() {
+        assert!(!kinds[..k].contains(&kinds[k]), "{:?} twice", kinds[k]);
+        assert!(!titles[..k].contains(&titles[k]), "{} twice", titles[k]);
+    }
+    let mut h = harness();
+    for (kind, title) in kinds.iter().zip(&titles).rev() {
+        h.get_by_label(title).click();
+        h.step();
+        h.step();
+        assert_eq!(h.state().session.view, *kind, "after a click on {title}");
+    }
 }

@@ -12,8 +12,9 @@ use egui::accesskit::Role;
 use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
 use elbowroom::gui::Explorer;
+use elbowroom::gui::views::dreams::DreamsView;
 use std::path::{Path, PathBuf};
-use window_harness::{harness, has, settle, survey_of_s5};
+use window_harness::{ViewOf, harness, has, settle, survey_of_s5};
 
 /// A fresh directory for one test's files.
 fn scratch(name: &str) -> PathBuf {
@@ -154,8 +155,8 @@ fn an_exported_survey_lists_its_rows_under_a_caption() {
 #[test]
 fn a_pipe_dream_exports_without_its_move_dots_unless_asked() {
     let mut h = harness();
-    settle(&mut h, |h| h.state().dreams.shown.is_some());
-    let dream = h.state().dreams.shown.unwrap();
+    settle(&mut h, |h| h.state().view::<DreamsView>().shown.is_some());
+    let dream = h.state().view::<DreamsView>().shown.unwrap();
     // the cells where a ladder or chute move starts, each drawn as one dot
     let mut dots: Vec<(usize, usize)> = dream
         .available_moves()

@@ -8,9 +8,10 @@ mod window_harness;
 use eframe::egui;
 use egui_kittest::kittest::Queryable;
 use elbowroom::gui::app::demo_session;
+use elbowroom::gui::views::permutohedra::PermutohedronView;
 use elbowroom::gui::{Explorer, views};
 use elbowroom::session::model::View;
-use window_harness::{harness, has, settle};
+use window_harness::{ViewOf, harness, has, settle};
 
 /// The text the last frame put on the clipboard, if any.
 fn copied(h: &egui_kittest::Harness<'static, Explorer>) -> Option<String> {
@@ -47,10 +48,16 @@ fn a_half_typed_lambda_does_not_stop_a_save() {
     h.step();
     let before = h.state().session.solid.lambda.clone();
     assert_eq!(before, ["3", "2", "1", "0"]);
-    h.state_mut().permutohedron.lambda_typing.shown[0] = "1/".into();
+    h.state_mut()
+        .view_mut::<PermutohedronView>()
+        .lambda_typing
+        .shown[0] = "1/".into();
     h.step();
     // the half-typed text stays on screen, the session keeps the last λ read
-    assert_eq!(h.state().permutohedron.lambda_typing.shown[0], "1/");
+    assert_eq!(
+        h.state().view::<PermutohedronView>().lambda_typing.shown[0],
+        "1/"
+    );
     assert_eq!(h.state().session.solid.lambda, before);
     let dir = std::env::temp_dir().join(format!("elbowroom-gui-lambda-{}", std::process::id()));
     std::fs::create_dir_all(&dir).unwrap();
@@ -63,9 +70,15 @@ fn a_half_typed_lambda_does_not_stop_a_save() {
     settle(&mut h, |_| path.exists());
     let saved = elbowroom::session::store::load(&path).unwrap();
     assert_eq!(saved.solid.lambda, before);
-    assert_eq!(h.state().permutohedron.lambda_typing.shown[0], "1/");
+    assert_eq!(
+        h.state().view::<PermutohedronView>().lambda_typing.shown[0],
+        "1/"
+    );
     // once it reads, the field's value is the session's
-    h.state_mut().permutohedron.lambda_typing.shown[0] = "11/2".into();
+    h.state_mut()
+        .view_mut::<PermutohedronView>()
+        .lambda_typing
+        .shown[0] = "11/2".into();
     h.step();
     assert_eq!(h.state().session.solid.lambda[0], "11/2");
     std::fs::remove_dir_all(&dir).ok();
@@ -84,13 +97,12 @@ fn tabs_inside(width: f32, height: f32) {
     h.state_mut().session.view = View::Products;
     h.step();
     h.step();
-    for v in views::ORDER {
-        let node = h.get_by_label(views::title(v));
+    for title in views::all().iter().map(|v| v.title()) {
+        let node = h.get_by_label(title);
         let r = node.rect();
         assert!(
             r.max.x <= width + 0.5 && r.min.x >= 0.0 && r.max.y <= height,
-            "the tab {:?} at {r:?} is outside {width} × {height}",
-            views::title(v)
+            "the tab {title:?} at {r:?} is outside {width} × {height}",
         );
     }
 }

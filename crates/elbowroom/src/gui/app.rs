@@ -4,18 +4,14 @@
 use super::app_ctx::AppCtx;
 use super::autosave::Autosave;
 use super::closing::CloseGuard;
-use super::files::{Exportable, Exports, FileAction, FilePanel};
+use super::files::{Exports, FileAction, FilePanel};
 use super::notes::NotesPanel;
 use super::picker::Picker;
 use super::status::{self, FrameTimes};
 use super::theme;
-use super::views::{
-    self, dreams::DreamsView, hessenberg::HessenbergView, permutohedra::PermutohedronView,
-    products::ProductsView, quotient::QuotientView, words::WordsView, workbench::WorkbenchView,
-};
+use super::views::{self, View};
 use crate::engine::Engine;
 use crate::session::Session;
-use crate::session::model::View;
 use eframe::egui;
 use std::sync::Arc;
 use std::time::{Duration, Instant};
@@ -31,20 +27,8 @@ pub struct Explorer {
     pub message: Option<String>,
     /// The left panel.
     pub picker: Picker,
-    /// The pipe-dream view.
-    pub dreams: DreamsView,
-    /// The reduced-word view.
-    pub words: WordsView,
-    /// The Hessenberg view.
-    pub hessenberg: HessenbergView,
-    /// The quotient view.
-    pub quotient: QuotientView,
-    /// The permutohedron view.
-    pub permutohedron: PermutohedronView,
-    /// The polynomial workbench.
-    pub workbench: WorkbenchView,
-    /// The products and expansions view.
-    pub products: ProductsView,
+    /// The views of the central area, in tab order ([`views::all`]).
+    pub views: Vec<Box<dyn View>>,
     /// The save / open / export window.
     pub files: FilePanel,
     /// The panel of the session's title and notes.
@@ -110,13 +94,7 @@ impl Explorer {
             engine,
             message: None,
             picker: Picker::default(),
-            dreams: DreamsView::default(),
-            words: WordsView::default(),
-            hessenberg: HessenbergView::default(),
-            quotient: QuotientView::default(),
-            permutohedron: PermutohedronView::default(),
-            workbench: WorkbenchView::default(),
-            products: ProductsView::default(),
+            views: views::all(),
             files: FilePanel::default(),
             notes: NotesPanel::default(),
             autosave: Autosave::default(),
@@ -125,6 +103,21 @@ impl Explorer {
             times: FrameTimes::default(),
             frame_log: FrameLog::from_env(),
         }
+    }
+
+    /// The view of type `V` (for tests and tools that look inside one), if
+    /// the explorer has it.
+    pub fn find_view<V: View>(&self) -> Option<&V> {
+        self.views
+            .iter()
+            .find_map(|v| (v.as_ref() as &dyn std::any::Any).downcast_ref::<V>())
+    }
+
+    /// The view of type `V`, to change, if the explorer has it.
+    pub fn find_view_mut<V: View>(&mut self) -> Option<&mut V> {
+        self.views
+            .iter_mut()
+            .find_map(|v| (v.as_mut() as &mut dyn std::any::Any).downcast_mut::<V>())
     }
 
     /// Draws the whole window into `ui`.
@@ -162,7 +155,12 @@ impl Explorer {
             &mut self.files,
             &mut self.message,
         );
-        self.autosave.offer_ui(ui.ctx(), &mut self.session);
+        let recovered = self.autosave.offer_ui(ui.ctx(), &mut self.session);
+        if recovered || std::mem::take(&mut self.files.replaced) {
+            for v in &mut self.views {
+                v.session_replaced();
+            }
+        }
         if let Some(m) = self.autosave.tick(&self.session, ui.ctx()) {
             self.message = Some(m);
         }
@@ -242,10 +240,10 @@ impl Explorer {
     fn view_tabs(&mut self, ui: &mut egui::Ui) {
         egui::Panel::top("view_tabs").show(ui, |ui| {
             ui.horizontal_wrapped(|ui| {
-                for v in views::ORDER {
-                    let chosen = self.session.view == v;
-                    if ui.selectable_label(chosen, views::title(v)).clicked() {
-                        self.session.view = v;
+                for v in &self.views {
+                    let chosen = self.session.view == v.kind();
+                    if ui.selectable_label(chosen, v.title()).clicked() {
+                        self.session.view = v.kind();
                     }
                 }
             });
@@ -260,17 +258,14 @@ impl Explorer {
                 engine: &self.engine,
                 message: &mut self.message,
             };
-            if !views::ORDER.contains(&ctx.session.view) {
-                ctx.session.view = View::Dreams;
-            }
-            match ctx.session.view {
-                View::Words => self.words.ui(ui, &mut ctx),
-                View::Hessenberg => self.hessenberg.ui(ui, &mut ctx),
-                View::Quotient => self.quotient.ui(ui, &mut ctx),
-                View::Permutohedron => self.permutohedron.ui(ui, &mut ctx),
-                View::Workbench => self.workbench.ui(ui, &mut ctx),
-                View::Products => self.products.ui(ui, &mut ctx),
-                _ => self.dreams.ui(ui, &mut ctx),
+            let chosen = self
+                .views
+                .iter()
+                .position(|v| v.kind() == ctx.session.view)
+                .unwrap_or(0);
+            if let Some(view) = self.views.get_mut(chosen) {
+                ctx.session.view = view.kind();
+                view.ui(ui, &mut ctx);
             }
         });
     }
@@ -294,39 +289,12 @@ impl Explorer {
 
     /// The current view's figures and tables, for the export window.
     fn exports(&mut self) -> Exports {
-        let survey = self.session.quotient.survey;
-        let figures = match self.session.view {
-            View::Dreams => return self.dreams.figures(),
-            View::Words => return self.words.figures(),
-            View::Quotient if !survey => self.quotient.figures(),
-            View::Permutohedron => self.permutohedron.figures(),
-            _ => Vec::new(),
-        };
-        let tables = match self.session.view {
-            View::Hessenberg => self.hessenberg.tables(),
-            View::Permutohedron => self.permutohedron.tables(),
-            View::Quotient if survey => self.quotient.survey.tables(),
-            _ => Vec::new(),
-        };
-        // the Hessenberg view's table comes before the figure of h
-        let after = match self.session.view {
-            View::Hessenberg => self.hessenberg.figures(),
-            _ => Vec::new(),
-        };
-        figures
-            .into_iter()
-            .map(|(name, s)| (name, Exportable::Figure(s)))
-            .chain(
-                tables
-                    .into_iter()
-                    .map(|(name, t)| (name, Exportable::Table(t))),
-            )
-            .chain(
-                after
-                    .into_iter()
-                    .map(|(name, s)| (name, Exportable::Figure(s))),
-            )
-            .collect()
+        let session = &self.session;
+        self.views
+            .iter_mut()
+            .find(|v| v.kind() == session.view)
+            .map(|v| v.exports(session))
+            .unwrap_or_default()
     }
 
     fn shortcuts(&mut self, ui: &mut egui::Ui) {

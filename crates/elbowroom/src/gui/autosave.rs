@@ -64,10 +64,11 @@ impl Autosave {
         }
     }
 
-    /// Shows the offer of a recovered session, if any; restoring replaces `session`.
-    pub fn offer_ui(&mut self, ctx: &egui::Context, session: &mut Session) {
+    /// Shows the offer of a recovered session, if any; restoring replaces
+    /// `session` (and returns true).
+    pub fn offer_ui(&mut self, ctx: &egui::Context, session: &mut Session) -> bool {
         let Some(recovered) = self.offer.as_ref() else {
-            return;
+            return false;
         };
         let mut restore = false;
         let mut dismiss = false;
@@ -88,12 +89,13 @@ impl Autosave {
                 });
                 ui.weak("The recovered copy stays on disk beside the recovery file either way.");
             });
-        if restore {
-            if let Some(s) = self.offer.take() {
-                *session = s;
-            }
-        } else if dismiss {
+        if restore && let Some(s) = self.offer.take() {
+            *session = s;
+            return true;
+        }
+        if dismiss {
             self.offer = None;
         }
+        false
     }
 }

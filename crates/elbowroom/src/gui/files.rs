@@ -136,6 +136,9 @@ pub struct FilePanel {
     pub unsaved: bool,
     /// A new exploration was asked for over unsaved changes: waiting for a yes.
     asking_new: bool,
+    /// Another session replaced the one shown (opened, or a new one started)
+    /// since the explorer last looked.
+    pub replaced: bool,
 }
 
 impl FilePanel {
@@ -171,6 +174,7 @@ impl FilePanel {
         self.session_path = None;
         self.stored = Some(session.clone());
         self.asking_new = false;
+        self.replaced = true;
         ctx.send_viewport_cmd(egui::ViewportCommand::Title(window_title(session)));
     }
 
@@ -435,6 +439,7 @@ impl FilePanel {
                 Ok(s) => {
                     self.stored = Some(s.clone());
                     *session = s;
+                    self.replaced = true;
                     let _ = recent::push(&path);
                     *message = Some(format!("opened {}", path.display()));
                     self.session_path = Some(path);

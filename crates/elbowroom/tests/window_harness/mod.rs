@@ -9,7 +9,26 @@ use egui_kittest::kittest::Queryable;
 use elbowroom::engine::Engine;
 use elbowroom::gui::Explorer;
 use elbowroom::gui::app::demo_session;
+use elbowroom::gui::views::View;
 use std::time::{Duration, Instant};
+
+/// A view of the explorer by its type (every view is there from the start).
+pub trait ViewOf {
+    /// The view of type `V`.
+    fn view<V: View>(&self) -> &V;
+    /// The view of type `V`, to change.
+    fn view_mut<V: View>(&mut self) -> &mut V;
+}
+
+impl ViewOf for Explorer {
+    fn view<V: View>(&self) -> &V {
+        self.find_view::<V>().unwrap()
+    }
+
+    fn view_mut<V: View>(&mut self) -> &mut V {
+        self.find_view_mut::<V>().unwrap()
+    }
+}
 
 /// The explorer at 1280×800 on the demo session, computing with a quiet engine.
 pub fn harness() -> Harness<'static, Explorer> {

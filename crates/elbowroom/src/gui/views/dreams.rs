@@ -190,7 +190,7 @@ impl DreamsView {
     }
 
     /// Draws the view.
-    pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+    fn show(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
         ui.horizontal(|ui| {
             ui.heading(format!("Reduced pipe dreams of w = {w}"));
@@ -375,5 +375,29 @@ impl DreamsView {
             _ => None,
         };
         r
+    }
+}
+
+impl super::View for DreamsView {
+    fn kind(&self) -> crate::session::model::View {
+        crate::session::model::View::Dreams
+    }
+
+    fn title(&self) -> &'static str {
+        "Pipe dreams"
+    }
+
+    fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+        self.show(ui, ctx);
+    }
+
+    fn session_replaced(&mut self) {
+        self.moved_off_list = None;
+        self.click_note = None;
+        self.note_for = None;
+    }
+
+    fn exports(&mut self, _session: &crate::session::Session) -> crate::gui::files::Exports {
+        self.figures()
     }
 }

@@ -219,7 +219,7 @@ impl HessenbergView {
     }
 
     /// Draws the view.
-    pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+    fn show(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let place = &mut ctx.session.hessenberg;
         if place.h.is_empty() {
             place.h = default_values(ctx.session.n.clamp(2, TABLE_MAX_N));
@@ -502,4 +502,25 @@ fn rows_list(
             }
         });
     chosen
+}
+
+impl super::View for HessenbergView {
+    fn kind(&self) -> crate::session::model::View {
+        crate::session::model::View::Hessenberg
+    }
+
+    fn title(&self) -> &'static str {
+        "Hessenberg classes"
+    }
+
+    fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+        self.show(ui, ctx);
+    }
+
+    fn exports(&mut self, _session: &crate::session::Session) -> crate::gui::files::Exports {
+        // the table comes before the figure of h
+        let mut v = super::exports_of(Vec::new(), self.tables());
+        v.extend(super::exports_of(self.figures(), Vec::new()));
+        v
+    }
 }

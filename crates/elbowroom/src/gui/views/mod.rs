@@ -13,35 +13,69 @@ pub mod workbench;
 
 use crate::engine::{Engine, Fetch, JobKey, Output, Slot};
 use crate::figure::look::Look;
+use crate::gui::AppCtx;
+use crate::gui::files::Exports;
 use crate::math::MathError;
 use crate::session::Session;
-use crate::session::model::View;
+use crate::session::model::View as ViewKind;
 use eframe::egui;
+use std::any::Any;
 use std::sync::Arc;
 
-/// The tab title of a view (what it does, in a few words).
-pub fn title(v: View) -> &'static str {
-    match v {
-        View::Dreams => "Pipe dreams",
-        View::Words => "Reduced words & wiring",
-        View::Hessenberg => "Hessenberg classes",
-        View::Quotient => "Quotient by J_n",
-        View::Permutohedron => "Permutohedra",
-        View::Workbench => "Polynomial workbench",
-        View::Products => "Products & expansions",
+/// What every view of the central area is: a tab with a title, a `ui` drawn
+/// each frame from the session and the engine, the figures and tables it can
+/// export, and its own UI state, told when another session replaces the one
+/// shown. The explorer holds the views in [`all`] and iterates over them.
+pub trait View: Any {
+    /// Which view this is in a session file (`view: Dreams`, …).
+    fn kind(&self) -> ViewKind;
+
+    /// The tab title (what the view does, in a few words).
+    fn title(&self) -> &'static str;
+
+    /// Draws the view.
+    fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx);
+
+    /// The figures and tables the view can export now, in the order the
+    /// export window lists them.
+    fn exports(&mut self, _session: &Session) -> Exports {
+        Vec::new()
     }
+
+    /// Another session was opened (or a new one started): forget the UI
+    /// state that belonged to the one before.
+    fn session_replaced(&mut self) {}
 }
 
-/// The views in tab order.
-pub const ORDER: [View; 7] = [
-    View::Dreams,
-    View::Words,
-    View::Hessenberg,
-    View::Quotient,
-    View::Permutohedron,
-    View::Workbench,
-    View::Products,
-];
+/// Every view, in tab order: a new view is one file and one line here.
+pub fn all() -> Vec<Box<dyn View>> {
+    vec![
+        Box::new(dreams::DreamsView::default()),
+        Box::new(words::WordsView::default()),
+        Box::new(hessenberg::HessenbergView::default()),
+        Box::new(quotient::QuotientView::default()),
+        Box::new(permutohedra::PermutohedronView::default()),
+        Box::new(workbench::WorkbenchView::default()),
+        Box::new(products::ProductsView::default()),
+    ]
+}
+
+/// Figures first, then tables, as the export window lists them.
+pub fn exports_of(
+    figures: Vec<(String, Arc<crate::figure::Scene>)>,
+    tables: Vec<(String, Arc<crate::tables::table::Table>)>,
+) -> Exports {
+    use crate::gui::files::Exportable;
+    figures
+        .into_iter()
+        .map(|(name, s)| (name, Exportable::Figure(s)))
+        .chain(
+            tables
+                .into_iter()
+                .map(|(name, t)| (name, Exportable::Table(t))),
+        )
+        .collect()
+}
 
 /// Whether arrow keys belong to the view (no text field has the keyboard).
 pub fn arrows_free(ui: &egui::Ui) -> bool {

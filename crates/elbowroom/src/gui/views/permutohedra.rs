@@ -319,7 +319,7 @@ impl PermutohedronView {
 
     /// Draws the view: λ, then its volume and drawing on the left, the
     /// segment and the mixed Eulerian numbers on the right.
-    pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+    fn show(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let look = figure_look(ctx.session);
         let place = &mut ctx.session.solid;
         let n = heading_with_n(ui, place);
@@ -500,6 +500,24 @@ impl PermutohedronView {
                 ui.colored_label(crate::gui::theme::alert(), e.to_string());
             }
         }
+    }
+}
+
+impl super::View for PermutohedronView {
+    fn kind(&self) -> crate::session::model::View {
+        crate::session::model::View::Permutohedron
+    }
+
+    fn title(&self) -> &'static str {
+        "Permutohedra"
+    }
+
+    fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+        self.show(ui, ctx);
+    }
+
+    fn exports(&mut self, _session: &crate::session::Session) -> crate::gui::files::Exports {
+        super::exports_of(self.figures(), self.tables())
     }
 }
 

@@ -226,7 +226,7 @@ pub fn terms_summary(ui: &mut egui::Ui, terms: &Terms) {
 
 impl ProductsView {
     /// Draws the view.
-    pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+    fn show(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         if self.u_text.is_empty() && self.v_text.is_empty() {
             self.u_text = ctx.perm().to_string();
             self.v_text = ctx.perm().to_string();
@@ -350,5 +350,19 @@ impl ProductsView {
         if let Some(w) = terms_list(ui, "expansion_rows", terms, ctx) {
             ctx.go_to(w);
         }
+    }
+}
+
+impl super::View for ProductsView {
+    fn kind(&self) -> crate::session::model::View {
+        crate::session::model::View::Products
+    }
+
+    fn title(&self) -> &'static str {
+        "Products & expansions"
+    }
+
+    fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+        self.show(ui, ctx);
     }
 }

@@ -245,7 +245,7 @@ impl QuotientView {
     }
 
     /// Draws the view.
-    pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+    fn show(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
         typeset::heading(
             ui,
@@ -329,6 +329,32 @@ impl QuotientView {
                 self.paths_scene = Some((key, look, s.clone(), with));
                 s
             }
+        }
+    }
+}
+
+impl super::View for QuotientView {
+    fn kind(&self) -> crate::session::model::View {
+        crate::session::model::View::Quotient
+    }
+
+    fn title(&self) -> &'static str {
+        "Quotient by J_n"
+    }
+
+    fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+        self.show(ui, ctx);
+    }
+
+    fn session_replaced(&mut self) {
+        self.picked_from_survey = None;
+    }
+
+    fn exports(&mut self, session: &crate::session::Session) -> crate::gui::files::Exports {
+        if session.quotient.survey {
+            super::exports_of(Vec::new(), self.survey.tables())
+        } else {
+            super::exports_of(self.figures(), Vec::new())
         }
     }
 }

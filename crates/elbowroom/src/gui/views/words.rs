@@ -103,7 +103,7 @@ impl WordsView {
     }
 
     /// Draws the view.
-    pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+    fn show(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
         let n = w.n();
         self.heading_with_count(ui, ctx.engine, &w);
@@ -370,5 +370,23 @@ impl WordsView {
             Some(k) => self.select(index, page.index_of(k)),
             None => self.moved_off_page = Some(next),
         }
+    }
+}
+
+impl super::View for WordsView {
+    fn kind(&self) -> crate::session::model::View {
+        crate::session::model::View::Words
+    }
+
+    fn title(&self) -> &'static str {
+        "Reduced words & wiring"
+    }
+
+    fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+        self.show(ui, ctx);
+    }
+
+    fn exports(&mut self, _session: &crate::session::Session) -> crate::gui::files::Exports {
+        self.figures()
     }
 }

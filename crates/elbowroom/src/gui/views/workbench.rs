@@ -207,7 +207,7 @@ impl WorkbenchView {
     }
 
     /// Draws the view.
-    pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+    fn show(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         ui.heading("Polynomial workbench");
         ui.weak("Type a polynomial in x1..xn: + - * ^ /, implicit products, parentheses, rational constants (e.g. x1^2 x2 - 3/2 x3).");
         poly_field(ui, ctx.session);
@@ -271,5 +271,19 @@ impl WorkbenchView {
                 "workbench_stable_rows",
             );
         });
+    }
+}
+
+impl super::View for WorkbenchView {
+    fn kind(&self) -> crate::session::model::View {
+        crate::session::model::View::Workbench
+    }
+
+    fn title(&self) -> &'static str {
+        "Polynomial workbench"
+    }
+
+    fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+        self.show(ui, ctx);
     }
 }
