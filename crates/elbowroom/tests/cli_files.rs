@@ -10,6 +10,7 @@ fn elbowroom(args: &[&str]) -> Output {
     Command::new(env!("CARGO_BIN_EXE_elbowroom"))
         .args(args)
         .env("XDG_CONFIG_HOME", scratch_root().join("config"))
+        .env("XDG_STATE_HOME", scratch_root().join("state"))
         .output()
         .unwrap()
 }

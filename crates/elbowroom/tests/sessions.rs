@@ -512,6 +512,45 @@ fn recent_sessions_are_most_recent_first_without_repeats() {
 }
 
 #[test]
+fn a_recent_list_in_the_old_configuration_directory_is_still_found_and_carried_over() {
+    let dir = scratch("recent-legacy");
+    let files: Vec<PathBuf> = (0..2).map(|i| dir.join(format!("t{i}.ron"))).collect();
+    for f in &files {
+        store::save(f, &Session::default()).unwrap();
+    }
+    let (old, new) = (dir.join("old"), dir.join("new"));
+    recent::push_in(&old, &files[0]).unwrap();
+    assert_eq!(recent::load_or_legacy_in(&new, Some(&old)).len(), 1);
+    recent::push_or_legacy_in(&new, Some(&old), &files[1]).unwrap();
+    let names: Vec<String> = recent::load_in(&new)
+        .iter()
+        .map(|p| p.file_name().unwrap().to_string_lossy().into_owned())
+        .collect();
+    assert_eq!(
+        names,
+        ["t1.ron", "t0.ron"],
+        "the old list moved to the new place"
+    );
+    // once the new place has a list, the old one is no longer read
+    fs::remove_file(&files[1]).unwrap();
+    recent::push_in(&old, &files[0]).unwrap();
+    assert_eq!(recent::load_or_legacy_in(&new, Some(&old)).len(), 1);
+}
+
+#[test]
+fn the_autosave_is_state_not_configuration() {
+    let state = recovery::recovery_path().unwrap();
+    let config = elbowroom::session::config_dir::config_dir().unwrap();
+    assert!(!state.starts_with(&config), "{state:?} under {config:?}");
+    if cfg!(target_os = "linux") {
+        assert!(
+            state.to_string_lossy().contains("state"),
+            "the XDG state directory on Linux: {state:?}"
+        );
+    }
+}
+
+#[test]
 fn the_hessenberg_view_may_use_another_n_than_the_permutation() {
     // the demo explores S_4 while the Hessenberg view looks at n = 8
     let text = demo_text().replacen("h: []", "h: [2, 3, 4, 5, 6, 7, 8, 8]", 1);

@@ -63,7 +63,7 @@ pub enum SessionError {
         /// What went wrong.
         reason: String,
     },
-    /// No configuration directory could be found (neither `XDG_CONFIG_HOME` nor `HOME`).
+    /// No directory for elbowroom's own files could be found (no home directory).
     #[error("no configuration directory: set XDG_CONFIG_HOME or HOME")]
     NoConfigDir,
 }

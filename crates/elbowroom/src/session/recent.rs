@@ -2,10 +2,12 @@
 //! `recent.ron` in the configuration directory (at most [`MAX_RECENT`]),
 //! written atomically ([`crate::atomic_write`]).
 //!
-//! The functions without `_in` use [`super::config_dir::config_dir`]; the `_in`
-//! forms take the directory explicitly.
+//! The functions without `_in` use [`super::config_dir::config_dir`], and read
+//! the list an earlier version left in [`super::config_dir::legacy_dir`] while
+//! the configuration directory has none (the next push writes it over to the
+//! new place); the `_in` forms take the directories explicitly.
 
-use super::config_dir::config_dir;
+use super::config_dir::{config_dir, legacy_dir};
 use super::error::SessionError;
 use crate::atomic_write;
 use std::fs;
@@ -19,13 +21,34 @@ const RECENT_FILE: &str = "recent.ron";
 /// The recent sessions, most recent first; empty if none are recorded or the
 /// list cannot be read. Files that no longer exist are left out.
 pub fn load() -> Vec<PathBuf> {
-    config_dir().map(|d| load_in(&d)).unwrap_or_default()
+    config_dir()
+        .map(|d| load_or_legacy_in(&d, legacy_dir().as_deref()))
+        .unwrap_or_default()
 }
 
 /// Records `path` as the most recent session.
 pub fn push(path: &Path) -> Result<(), SessionError> {
     let dir = config_dir().ok_or(SessionError::NoConfigDir)?;
-    push_in(&dir, path)
+    push_or_legacy_in(&dir, legacy_dir().as_deref(), path)
+}
+
+/// The list in `dir`, or, when `dir` holds no list, the one in `legacy`.
+pub fn load_or_legacy_in(dir: &Path, legacy: Option<&Path>) -> Vec<PathBuf> {
+    match legacy {
+        Some(old) if !dir.join(RECENT_FILE).exists() => load_in(old),
+        _ => load_in(dir),
+    }
+}
+
+/// [`push_in`] onto the list [`load_or_legacy_in`] reads: the first push
+/// after an upgrade carries the old list over to `dir`.
+pub fn push_or_legacy_in(
+    dir: &Path,
+    legacy: Option<&Path>,
+    path: &Path,
+) -> Result<(), SessionError> {
+    let list = load_or_legacy_in(dir, legacy);
+    push_onto(dir, list, path)
 }
 
 /// [`load`] in a given directory.
@@ -47,8 +70,16 @@ pub fn push_in(dir: &Path, path: &Path) -> Result<(), SessionError> {
         path: dir.join(RECENT_FILE),
         reason,
     };
+    push_onto(dir, load_in(dir), path)
+}
+
+/// Writes `list` with `path` in front into `dir`.
+fn push_onto(dir: &Path, mut list: Vec<PathBuf>, path: &Path) -> Result<(), SessionError> {
+    let failed = |reason: String| SessionError::Write {
+        path: dir.join(RECENT_FILE),
+        reason,
+    };
     let path = fs::canonicalize(path).unwrap_or_else(|_| path.to_path_buf());
-    let mut list = load_in(dir);
     list.retain(|p| p != &path);
     list.insert(0, path);
     list.truncate(MAX_RECENT);

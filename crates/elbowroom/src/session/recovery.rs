@@ -3,10 +3,12 @@
 //! found at start-up means the last run ended abruptly, and its session can be
 //! offered back.
 //!
-//! The functions without `_in` use [`super::config_dir::config_dir`]; the `_in`
-//! forms take the directory explicitly.
+//! The autosave is state, not configuration: the functions without `_in` use
+//! [`super::config_dir::state_dir`] (and take back an autosave an earlier
+//! version left in [`super::config_dir::legacy_dir`]); the `_in` forms take the
+//! directory explicitly.
 
-use super::config_dir::config_dir;
+use super::config_dir::{legacy_dir, state_dir};
 use super::error::SessionError;
 use super::model::Session;
 use super::store;
@@ -16,27 +18,30 @@ use std::path::{Path, PathBuf};
 const RECOVERY_FILE: &str = "recovery.ron";
 const TAKEN_FILE: &str = "recovery-taken.ron";
 
-/// Where the autosave lives, if there is a configuration directory.
+/// Where the autosave lives, if the platform has a state directory.
 pub fn recovery_path() -> Option<PathBuf> {
-    config_dir().map(|d| d.join(RECOVERY_FILE))
+    state_dir().map(|d| d.join(RECOVERY_FILE))
 }
 
 /// Writes the autosave (atomically, like any save).
 pub fn write_recovery(session: &Session) -> Result<(), SessionError> {
-    let dir = config_dir().ok_or(SessionError::NoConfigDir)?;
+    let dir = state_dir().ok_or(SessionError::NoConfigDir)?;
     write_recovery_in(&dir, session)
 }
 
-/// Takes the autosave left by an abrupt exit, if any. The file is moved aside
-/// to `recovery-taken.ron` (not deleted) so that a second crash cannot lose it.
-/// A damaged autosave is moved aside too and gives `None`.
+/// Takes the autosave left by an abrupt exit, if any (in the state directory,
+/// else one an earlier version left in the old configuration directory). The
+/// file is moved aside to `recovery-taken.ron` (not deleted) so that a second
+/// crash cannot lose it. A damaged autosave is moved aside too and gives `None`.
 pub fn take_recovery() -> Option<Session> {
-    take_recovery_in(&config_dir()?)
+    state_dir()
+        .and_then(|d| take_recovery_in(&d))
+        .or_else(|| take_recovery_in(&legacy_dir()?))
 }
 
 /// Removes the autosave (on a clean exit).
 pub fn clear_recovery() {
-    if let Some(dir) = config_dir() {
+    if let Some(dir) = state_dir() {
         clear_recovery_in(&dir);
     }
 }
