@@ -66,10 +66,6 @@ pub fn load_in(dir: &Path) -> Vec<PathBuf> {
 
 /// [`push`] in a given directory (created if needed).
 pub fn push_in(dir: &Path, path: &Path) -> Result<(), SessionError> {
-    let failed = |reason: String| SessionError::Write {
-        path: dir.join(RECENT_FILE),
-        reason,
-    };
     push_onto(dir, load_in(dir), path)
 }
 
