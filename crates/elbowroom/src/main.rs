@@ -14,12 +14,14 @@ fn main() -> ExitCode {
 }
 
 /// `elbowroom FILE`: validates the session and opens it; a bad file is
-/// reported on one line (with its line and column) and nothing is written.
+/// reported on one line (with its line and column), nothing is written, and
+/// the window (where there is a display) opens with the refusal shown.
 fn open_session_file(path: &std::path::Path) -> ExitCode {
     let session = match elbowroom::session::store::load(path) {
         Ok(s) => s,
         Err(e) => {
             eprintln!("elbowroom: {e}");
+            show_refusal(path, e.to_string());
             return ExitCode::from(2);
         }
     };
@@ -43,6 +45,20 @@ fn open_explorer_on(session: elbowroom::session::Session, _path: &std::path::Pat
     );
     ExitCode::SUCCESS
 }
+
+/// The explorer with the refusal of a session file in its open window; where
+/// no window can open, the line on stderr is the whole answer.
+#[cfg(feature = "gui")]
+fn show_refusal(path: &std::path::Path, refusal: String) {
+    let unset = |name: &str| std::env::var_os(name).is_none_or(|v| v.is_empty());
+    if unset("DISPLAY") && unset("WAYLAND_DISPLAY") && unset("WAYLAND_SOCKET") {
+        return;
+    }
+    let _ = elbowroom::gui::run_refused(path.to_path_buf(), refusal);
+}
+
+#[cfg(not(feature = "gui"))]
+fn show_refusal(_path: &std::path::Path, _refusal: String) {}
 
 #[cfg(feature = "gui")]
 fn open_explorer() -> ExitCode {

@@ -11,6 +11,8 @@ fn elbowroom(args: &[&str]) -> Output {
         .args(args)
         .env("XDG_CONFIG_HOME", scratch_root().join("config"))
         .env("XDG_STATE_HOME", scratch_root().join("state"))
+        .env_remove("DISPLAY")
+        .env_remove("WAYLAND_DISPLAY")
         .output()
         .unwrap()
 }

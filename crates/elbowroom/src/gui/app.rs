@@ -4,7 +4,7 @@
 use super::app_ctx::AppCtx;
 use super::autosave::Autosave;
 use super::closing::CloseGuard;
-use super::files::{Exports, FileAction, FilePanel};
+use super::files::{self, Exports, FileAction, FilePanel};
 use super::notes::NotesPanel;
 use super::picker::Picker;
 use super::status::{self, FrameTimes};
@@ -39,6 +39,8 @@ pub struct Explorer {
     pub closing: CloseGuard,
     /// A close asked by other means than the window's own button (tests).
     pub close_asked: bool,
+    /// The window title last sent to the window system.
+    pub title_shown: String,
     times: FrameTimes,
     frame_log: FrameLog,
 }
@@ -89,6 +91,7 @@ impl Explorer {
     /// An explorer over `session`, computing with `engine`.
     pub fn new(session: Session, engine: Engine) -> Self {
         let closing = CloseGuard::new(&session);
+        let title_shown = files::window_title(&session, false);
         Explorer {
             session,
             engine,
@@ -100,6 +103,7 @@ impl Explorer {
             autosave: Autosave::default(),
             closing,
             close_asked: false,
+            title_shown,
             times: FrameTimes::default(),
             frame_log: FrameLog::from_env(),
         }
@@ -118,6 +122,14 @@ impl Explorer {
         self.views
             .iter_mut()
             .find_map(|v| (v.as_mut() as &mut dyn std::any::Any).downcast_mut::<V>())
+    }
+
+    /// Opens the file window on `file` with the reason it was refused.
+    pub fn show_refused(&mut self, file: &std::path::Path, why: String) {
+        self.files.start(FileAction::Open, &self.session);
+        self.files.path = file.display().to_string();
+        self.files.error = Some(why.clone());
+        self.message = Some(why);
     }
 
     /// Draws the whole window into `ui`.
@@ -167,9 +179,20 @@ impl Explorer {
         if !self.engine.running().is_empty() {
             ui.ctx().request_repaint_after(Duration::from_millis(50));
         }
+        self.update_title(ui.ctx());
         let took = started.elapsed();
         self.times.record(took);
         self.log_frame(ui, took);
+    }
+
+    /// Sends the window title when it changed: the session's title (escaped)
+    /// with a mark while there are unsaved changes.
+    fn update_title(&mut self, ctx: &egui::Context) {
+        let title = files::window_title(&self.session, self.closing.unsaved(&self.session));
+        if title != self.title_shown {
+            ctx.send_viewport_cmd(egui::ViewportCommand::Title(title.clone()));
+            self.title_shown = title;
+        }
     }
 
     /// The bottom panel: open, save as, export, the theme and label switches,
@@ -356,11 +379,28 @@ pub fn run_file(session: Session, path: std::path::PathBuf) -> eframe::Result {
     launch(session, Some(path))
 }
 
+/// Opens the explorer on the demo exploration with the open window showing why
+/// the session file at `path` was refused (`refusal`), so that a desktop user
+/// who opened the file sees the reason and can pick another.
+pub fn run_refused(path: std::path::PathBuf, refusal: String) -> eframe::Result {
+    let session = crate::session::demo::default_demo();
+    let refused = Some((path, refusal));
+    launch_with(session, None, refused)
+}
+
 fn launch(session: Session, path: Option<std::path::PathBuf>) -> eframe::Result {
+    launch_with(session, path, None)
+}
+
+fn launch_with(
+    session: Session,
+    path: Option<std::path::PathBuf>,
+    refused: Option<(std::path::PathBuf, String)>,
+) -> eframe::Result {
     let options = eframe::NativeOptions {
         viewport: egui::ViewportBuilder::default()
             .with_inner_size([1280.0, 800.0])
-            .with_title(format!("elbowroom — {}", session.title)),
+            .with_title(files::window_title(&session, false)),
         // the window repaints only on input or while a job runs, so waiting for
         // the display's refresh buys nothing; without it a software renderer
         // (no GPU) shows each frame as soon as it is drawn
@@ -379,6 +419,9 @@ fn launch(session: Session, path: Option<std::path::PathBuf>) -> eframe::Result 
             let engine = Engine::new(Arc::new(move || ctx.request_repaint()));
             let mut explorer = Explorer::new(session, engine);
             explorer.files.session_path = path;
+            if let Some((file, why)) = refused {
+                explorer.show_refused(&file, why);
+            }
             explorer.autosave = Autosave::enabled(crate::session::take_recovery());
             Ok(Box::new(explorer))
         }),

@@ -103,9 +103,15 @@ pub fn fresh_session(from: &Session) -> Session {
     }
 }
 
-/// The window title for a session.
-pub fn window_title(session: &Session) -> String {
-    format!("elbowroom — {}", session.title)
+/// The window title for a session: its title as [`crate::session::model::shown_text`]
+/// shows it (control characters escaped, at most the quoted length), after a
+/// mark while it has changes in no file.
+pub fn window_title(session: &Session, unsaved: bool) -> String {
+    let mark = if unsaved { "• " } else { "" };
+    format!(
+        "{mark}elbowroom — {}",
+        crate::session::model::shown_text(&session.title, crate::math::limits::QUOTE_LIMIT)
+    )
 }
 
 /// The file window's state.
@@ -136,6 +142,8 @@ pub struct FilePanel {
     pub unsaved: bool,
     /// A new exploration was asked for over unsaved changes: waiting for a yes.
     asking_new: bool,
+    /// Why the last open or save failed, shown in the window until the next try.
+    pub error: Option<String>,
     /// Another session replaced the one shown (opened, or a new one started)
     /// since the explorer last looked.
     pub replaced: bool,
@@ -164,18 +172,18 @@ impl FilePanel {
         self.replacing = None;
         self.replace_ok = None;
         self.asking_new = false;
+        self.error = None;
         self.action = Some(action);
     }
 
     /// Replaces the session by a fresh one (see [`fresh_session`]); the
     /// session file is forgotten, so Ctrl+S then asks where to save.
-    pub fn start_new(&mut self, ctx: &egui::Context, session: &mut Session) {
+    pub fn start_new(&mut self, session: &mut Session) {
         *session = fresh_session(session);
         self.session_path = None;
         self.stored = Some(session.clone());
         self.asking_new = false;
         self.replaced = true;
-        ctx.send_viewport_cmd(egui::ViewportCommand::Title(window_title(session)));
     }
 
     /// Saves to the file the session came from or was last saved to, if there
@@ -220,6 +228,12 @@ impl FilePanel {
                 if action == FileAction::Export && !self.export_choice(ui, session, exports) {
                     return;
                 }
+                if let Some(e) = &self.error {
+                    ui.add(
+                        egui::Label::new(egui::RichText::new(e).color(crate::gui::theme::alert()))
+                            .wrap(),
+                    );
+                }
                 if self.path_row(ui, action, exports, message) {
                     done = self.perform(action, session, exports, message);
                 }
@@ -250,9 +264,6 @@ impl FilePanel {
                     }
                 }
             });
-        if done && action == FileAction::Open {
-            ctx.send_viewport_cmd(egui::ViewportCommand::Title(window_title(session)));
-        }
         if !open || done {
             self.action = None;
         }
@@ -289,7 +300,7 @@ impl FilePanel {
                 return false;
             }
         }
-        self.start_new(ui.ctx(), session);
+        self.start_new(session);
         true
     }
 
@@ -432,6 +443,7 @@ impl FilePanel {
                 }
                 Err(e) => {
                     *message = Some(e.to_string());
+                    self.error = Some(e.to_string());
                     false
                 }
             },
@@ -447,6 +459,7 @@ impl FilePanel {
                 }
                 Err(e) => {
                     *message = Some(e.to_string());
+                    self.error = Some(e.to_string());
                     false
                 }
             },

@@ -19,5 +19,5 @@ pub mod theme;
 pub mod typeset;
 pub mod views;
 
-pub use app::{Explorer, run, run_file};
+pub use app::{Explorer, run, run_file, run_refused};
 pub use app_ctx::AppCtx;

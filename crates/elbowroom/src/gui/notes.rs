@@ -92,9 +92,6 @@ impl NotesPanel {
                     title_changed = title.changed();
                 }
                 if title_changed {
-                    ui.ctx().send_viewport_cmd(egui::ViewportCommand::Title(
-                        crate::gui::files::window_title(session),
-                    ));
                     if at_limit(&session.title, TITLE_LIMIT) {
                         self.notice = Some(format!(
                             "a title holds at most {TITLE_LIMIT} characters; what went past that was not taken"

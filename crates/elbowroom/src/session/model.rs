@@ -275,3 +275,23 @@ pub fn excerpt(text: &str, most: usize) -> String {
         None => text.to_string(),
     }
 }
+
+/// A session's text as the window system and one-line messages may show it:
+/// control characters (a NUL, a newline, an escape) written as escapes
+/// (`\u{0}`, `\n`, `\u{1b}`), at most `most` characters of the text, with "…"
+/// when some were left out.
+pub fn shown_text(text: &str, most: usize) -> String {
+    let mut out = String::new();
+    for (k, c) in text.chars().enumerate() {
+        if k == most {
+            out.push('…');
+            break;
+        }
+        if c.is_control() {
+            out.extend(c.escape_default());
+        } else {
+            out.push(c);
+        }
+    }
+    out
+}
