@@ -9,9 +9,8 @@ mod window_harness;
 use egui_kittest::Harness;
 use egui_kittest::kittest::Queryable;
 use elbowroom::gui::Explorer;
-use elbowroom::gui::views::products::ProductsView;
 use std::time::{Duration, Instant};
-use window_harness::{ViewOf, harness, has, settle, survey_of_s5};
+use window_harness::{harness, has, settle, survey_of_s5};
 
 /// n = 11, h = (3, 4, ..., 11, 11, 11): |h| = 27, the middle length of S_11; its
 /// table takes many seconds, so it is still running whenever the tests look.
@@ -98,9 +97,9 @@ fn a_click_on_a_product_row_makes_w_current() {
     let mut h = harness();
     h.get_by_label("Products & expansions").click();
     h.step();
-    h.state_mut().view_mut::<ProductsView>().u_text = "132".into();
-    h.state_mut().view_mut::<ProductsView>().v_text = "132".into();
-    h.state_mut().view_mut::<ProductsView>().stable = true;
+    h.state_mut().session.products.u = "132".into();
+    h.state_mut().session.products.v = "132".into();
+    h.state_mut().session.products.stable = true;
     // S_132 · S_132 = (x1 + x2)^2 = S_1423 + S_231 (Monk's rule; by hand,
     // S_231 = x1 x2 and S_1423 = x1^2 + x1 x2 + x2^2, Macdonald's table)
     settle(&mut h, |h| {
@@ -118,8 +117,9 @@ fn negative_coefficients_of_an_expansion_are_marked() {
     h.get_by_label("Products & expansions").click();
     h.step();
     // x2 = S_132 − S_21 stably (S_132 = x1 + x2, S_21 = x1); in H*(Fl_5) the same
-    // with five entries
-    h.state_mut().view_mut::<ProductsView>().poly = "x2".into();
+    // with five entries (the expansion's own n)
+    h.state_mut().session.products.poly = "x2".into();
+    h.state_mut().session.products.poly_n = 5;
     settle(&mut h, |h| has(h, "some coefficients are negative"));
     assert!(has(&h, "negative"));
     assert!(has(&h, "-1"));

@@ -5,8 +5,8 @@
 #![allow(clippy::unwrap_used)]
 
 use elbowroom::session::model::{
-    BrowserPlace, DreamPlace, FigureSettings, HessenbergPlace, PermutohedronPlace, QuotientPlace,
-    SortColumn, View, WordPlace, WorkbenchPlace,
+    BrowserPlace, DreamPlace, FigureSettings, HessenbergPlace, PermutohedronPlace, ProductsPlace,
+    QuotientPlace, SortColumn, View, WordPlace, WorkbenchPlace,
 };
 use elbowroom::session::{Session, SessionError, demo, format, recent, recovery, store};
 use proptest::prelude::*;
@@ -141,7 +141,7 @@ fn session() -> impl Strategy<Value = Session> {
                 words: WordPlace { index: d.2 },
                 quotient: QuotientPlace {
                     use_typed: q.0,
-                    typed: q.1,
+                    typed: q.1.clone(),
                     survey: q.2,
                 },
                 solid: PermutohedronPlace {
@@ -157,8 +157,17 @@ fn session() -> impl Strategy<Value = Session> {
                     descending: h.2,
                 },
                 workbench: WorkbenchPlace {
-                    poly: w.0,
+                    poly: w.0.clone(),
                     use_h: w.1,
+                },
+                products: ProductsPlace {
+                    u: q.1.chars().take(20).collect(),
+                    v: String::new(),
+                    stable: w.1,
+                    n: 1 + d.0 % 16,
+                    poly: w.0,
+                    poly_stable: q.0,
+                    poly_n: 1 + d.2 % 16,
                 },
                 figure: FigureSettings {
                     scale: f.0,

@@ -469,7 +469,16 @@ fn word_page(w: &Perm, page: usize, progress: &Progress) -> MathResult<Vec<Vec<u
 
 fn volume(lambda: &[BigRational], progress: &Progress) -> MathResult<BigRational> {
     progress.set_total(1);
-    let v = Permutohedron::new(lambda)?.volume();
+    let p = Permutohedron::new(lambda)?;
+    let digits = p.volume_digit_estimate();
+    let limit = crate::math::limits::VOLUME_DIGIT_LIMIT;
+    if digits > limit {
+        return Err(MathError::OutOfRange(format!(
+            "the volume at n = {} works with numbers of about {digits} digits ((n − 1) times the digits of λ over a common denominator); at most {limit} are accepted",
+            p.n()
+        )));
+    }
+    let v = p.volume();
     progress.advance(1);
     Ok(v)
 }
@@ -518,10 +527,13 @@ fn reduce(input: &QuotientInput, progress: &Progress) -> MathResult<Reduced> {
     })
 }
 
+/// The largest n whose S_n the browser lists (9! = 362 880 rows).
+pub const BROWSE_MAX_N: usize = 9;
+
 fn browse(b: &BrowseKey, progress: &Progress) -> MathResult<Vec<Perm>> {
-    if b.n == 0 || b.n > 9 {
+    if b.n == 0 || b.n > BROWSE_MAX_N {
         return Err(MathError::OutOfRange(format!(
-            "the browser lists S_n for 1 <= n <= 9, not n = {}",
+            "the browser lists S_n for 1 <= n <= {BROWSE_MAX_N}, not n = {}",
             b.n
         )));
     }

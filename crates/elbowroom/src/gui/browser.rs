@@ -3,6 +3,7 @@
 //! visible rows are computed by the engine.
 
 use super::app_ctx::AppCtx;
+use crate::engine::requests::BROWSE_MAX_N;
 use crate::engine::{BrowseKey, Engine, Fetch, JobKey, Output, Slot};
 use crate::math::Perm;
 use crate::math::perms::class::PermClass;
@@ -98,7 +99,7 @@ fn perm_row(ui: &mut egui::Ui, w: &Perm, current: &Perm, count: String) -> bool 
 impl Browser {
     /// The filter the session asks for.
     fn key(ctx: &AppCtx) -> BrowseKey {
-        let n = ctx.session.n.clamp(1, 9);
+        let n = ctx.session.n.clamp(1, crate::math::MAX_N);
         let top = n * (n - 1) / 2;
         let place = &ctx.session.browser;
         BrowseKey {
@@ -115,6 +116,15 @@ impl Browser {
         let key = Self::key(ctx);
         let top = key.n * (key.n - 1) / 2;
         ui.heading(format!("All of S_{}", key.n));
+        if key.n > BROWSE_MAX_N {
+            self.perms.clear();
+            ui.weak(format!(
+                "S_{} has {} permutations; the list is shown for n up to {BROWSE_MAX_N}. Type a permutation above, or step to w·s_i and s_i·w.",
+                key.n,
+                crate::gui::typeset::grouped(&(1..=key.n as u128).product::<u128>().to_string())
+            ));
+            return;
+        }
         length_filter(ui, ctx, &key, top);
         class_and_order(ui, ctx, &key);
         if self.blocks_for.as_ref() != Some(&key) {

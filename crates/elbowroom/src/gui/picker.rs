@@ -206,9 +206,13 @@ impl Picker {
 fn size_and_history(ui: &mut egui::Ui, ctx: &mut AppCtx, w: &Perm) {
     ui.horizontal(|ui| {
         ui.label("n");
-        let mut n = ctx.session.n.clamp(1, 9);
+        let mut n = ctx.session.n.clamp(1, crate::math::MAX_N);
         let changed = ui
-            .add(egui::DragValue::new(&mut n).range(1..=9))
+            .add(
+                egui::DragValue::new(&mut n)
+                    .range(1..=crate::math::MAX_N)
+                    .update_while_editing(false),
+            )
             .on_hover_text("the size of S_n")
             .changed();
         if changed && n != w.n() {

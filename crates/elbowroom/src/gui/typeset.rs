@@ -252,6 +252,27 @@ fn shorten(plain: &str) -> String {
     }
 }
 
+/// A whole number written with its digits in groups of three, separated by
+/// thin spaces (`50388` as `50 388`, `-1234567` as `-1 234 567`), when it
+/// has more than four digits; other text (a fraction, a word) as it is.
+pub fn grouped(number: &str) -> String {
+    let (sign, digits) = match number.strip_prefix('-') {
+        Some(rest) => ("-", rest),
+        None => ("", number),
+    };
+    if digits.len() <= 4 || !digits.bytes().all(|b| b.is_ascii_digit()) {
+        return number.to_string();
+    }
+    let mut out = String::from(sign);
+    for (k, c) in digits.chars().enumerate() {
+        if k > 0 && (digits.len() - k) % 3 == 0 {
+            out.push('\u{2009}');
+        }
+        out.push(c);
+    }
+    out
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -318,5 +339,13 @@ mod tests {
         assert_eq!(job.sections[0].format.font_id.size, 20.0);
         assert_eq!(job.sections[1].format.font_id.size, 20.0 * SCRIPT_SCALE);
         assert_eq!(job.sections[1].format.valign, Align::BOTTOM);
+    }
+
+    #[test]
+    fn long_numbers_are_grouped_by_three() {
+        assert_eq!(grouped("50388"), "50\u{2009}388");
+        assert_eq!(grouped("-1234567"), "-1\u{2009}234\u{2009}567");
+        assert_eq!(grouped("1234"), "1234");
+        assert_eq!(grouped("3/2"), "3/2");
     }
 }

@@ -42,6 +42,8 @@ pub struct Session {
     pub hessenberg: HessenbergPlace,
     /// Where the polynomial workbench is.
     pub workbench: WorkbenchPlace,
+    /// The products view's factors and typed polynomial.
+    pub products: ProductsPlace,
     /// How figures are exported.
     pub figure: FigureSettings,
 }
@@ -65,6 +67,7 @@ impl Default for Session {
             solid: PermutohedronPlace::default(),
             hessenberg: HessenbergPlace::default(),
             workbench: WorkbenchPlace::default(),
+            products: ProductsPlace::default(),
             figure: FigureSettings::default(),
         }
     }
@@ -239,6 +242,42 @@ pub struct WorkbenchPlace {
     pub poly: String,
     /// Use the Hessenberg function of the Hessenberg view instead of DS_n.
     pub use_h: bool,
+}
+
+/// The products view's inputs: the factors u and v as typed (empty: the
+/// current permutation), how they are multiplied, and a typed polynomial to
+/// expand with its own n.
+#[derive(Clone, Debug, PartialEq, Eq, Serialize, Deserialize)]
+#[serde(default)]
+pub struct ProductsPlace {
+    /// The first factor, as typed.
+    pub u: String,
+    /// The second factor, as typed.
+    pub v: String,
+    /// Multiply stably (over S_∞) rather than in H*(Fl_n).
+    pub stable: bool,
+    /// The n of H*(Fl_n) for the product (raised, when shown, to hold u and v).
+    pub n: usize,
+    /// The typed polynomial to expand.
+    pub poly: String,
+    /// Expand it stably rather than in H*(Fl_n).
+    pub poly_stable: bool,
+    /// The n of the expansion: H*(Fl_n), or the variables x1, …, xn.
+    pub poly_n: usize,
+}
+
+impl Default for ProductsPlace {
+    fn default() -> Self {
+        ProductsPlace {
+            u: String::new(),
+            v: String::new(),
+            stable: true,
+            n: 4,
+            poly: "(x1 - x3)(x2 - x4)".into(),
+            poly_stable: false,
+            poly_n: 4,
+        }
+    }
 }
 
 /// How figures are exported.

@@ -61,9 +61,11 @@ pub fn check(session: &Session) -> Result<(), String> {
             ));
         }
     }
+    check_products(&session.products)?;
     for (name, text) in [
         ("quotient.typed", &session.quotient.typed),
         ("workbench.poly", &session.workbench.poly),
+        ("products.poly", &session.products.poly),
     ] {
         let len = text.chars().count();
         if len > TYPED_TEXT_LIMIT {
@@ -98,6 +100,26 @@ pub fn check(session: &Session) -> Result<(), String> {
 
 /// λ as typed in the permutohedron view: at most [`MAX_N`] entries, each an
 /// exact rational as the view reads it (or empty, a field being typed).
+/// The products view: n and poly_n in 1..=[`MAX_N`], the factors short texts
+/// (what they say is read, and refused if need be, in the view).
+fn check_products(p: &super::model::ProductsPlace) -> Result<(), String> {
+    for (name, n) in [("products.n", p.n), ("products.poly_n", p.poly_n)] {
+        if !(1..=MAX_N).contains(&n) {
+            return Err(format!("{name} = {n} is out of range; 1 <= n <= {MAX_N}"));
+        }
+    }
+    for (name, text) in [("products.u", &p.u), ("products.v", &p.v)] {
+        let len = text.chars().count();
+        if len > QUOTE_LIMIT * 10 {
+            return Err(format!(
+                "{name} is {len} characters long; a factor has at most {}",
+                QUOTE_LIMIT * 10
+            ));
+        }
+    }
+    Ok(())
+}
+
 fn check_rationals(name: &str, entries: &[String]) -> Result<(), String> {
     if entries.len() > MAX_N {
         return Err(format!(

@@ -220,9 +220,27 @@ impl HessenbergView {
 
     /// Draws the view.
     fn show(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
+        // an empty h means h(i) = i + 1 at the session's n: shown as that,
+        // and left empty in the session until the user changes it
+        let unset = ctx.session.hessenberg.h.is_empty();
+        let default = default_values(ctx.session.n.clamp(2, TABLE_MAX_N));
+        if unset {
+            ctx.session.hessenberg.h = default.clone();
+        }
+        self.show_h(ui, ctx);
+        if unset && ctx.session.hessenberg.h == default {
+            ctx.session.hessenberg.h.clear();
+        }
+    }
+
+    /// Draws the view for the session's h (not empty).
+    fn show_h(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let place = &mut ctx.session.hessenberg;
-        if place.h.is_empty() {
-            place.h = default_values(ctx.session.n.clamp(2, TABLE_MAX_N));
+        if !(2..=TABLE_MAX_N).contains(&place.h.len()) {
+            if kept_h(ui, place) {
+                self.forget();
+            }
+            return;
         }
         if h_controls(ui, place) {
             // a new n: nothing of the old one stays asked for or shown
@@ -409,6 +427,27 @@ fn h_controls(ui: &mut egui::Ui, place: &mut HessenbergPlace) -> bool {
         }
     });
     n_changed
+}
+
+/// An h from the session that this view cannot show (n = 1, or n past the
+/// tables' largest): said so, and kept as it is (saved unchanged) until the
+/// user picks an n here; true once they do.
+fn kept_h(ui: &mut egui::Ui, place: &mut HessenbergPlace) -> bool {
+    let n = place.h.len().clamp(2, TABLE_MAX_N);
+    ui.heading("Hessenberg classes");
+    ui.colored_label(
+        crate::gui::theme::alert(),
+        format!(
+            "The session's h = {} has n = {}; this view shows n from 2 to {TABLE_MAX_N}. It is kept as it is (and saved unchanged) until you choose an n here.",
+            h_text(&place.h),
+            place.h.len()
+        ),
+    );
+    let go = ui.button(format!("start over at n = {n}")).clicked();
+    if go {
+        place.h = default_values(n);
+    }
+    go
 }
 
 /// The n×n grid of boxes picking h: box (i, j) is filled when j <= h(i);

@@ -77,6 +77,17 @@ pub fn exports_of(
         .collect()
 }
 
+/// An elapsed time as every progress line writes it: tenths of a second
+/// under a minute (`0.7 s`, `12.4 s`), then minutes and seconds (`2 min 05 s`).
+pub fn elapsed_text(secs: f32) -> String {
+    if secs < 60.0 {
+        format!("{secs:.1} s")
+    } else {
+        let whole = secs as u64;
+        format!("{} min {:02} s", whole / 60, whole % 60)
+    }
+}
+
 /// Whether arrow keys belong to the view (no text field has the keyboard).
 pub fn arrows_free(ui: &egui::Ui) -> bool {
     ui.ctx().memory(|m| m.focused().is_none())

@@ -14,6 +14,7 @@ use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
 use crate::gui::table_source::TableSource;
 use crate::gui::typeset::{self, Typeset};
+use crate::math::MAX_N;
 use crate::math::permutohedra::permutohedron::rational_to_f64;
 use crate::session::model::PermutohedronPlace;
 use crate::tables::table::Table;
@@ -83,10 +84,12 @@ impl Typing {
         }
     }
 
-    /// Writes each field that reads into `v`.
+    /// Writes each field the user changed and that reads into `v` (an entry
+    /// nobody touched stays exactly as the session had it).
     fn commit(&mut self, v: &mut [String]) {
         for (k, text) in self.shown.iter().enumerate() {
-            if k < v.len() && parse_rational(text).is_ok() {
+            let touched = self.synced.get(k) != Some(text);
+            if k < v.len() && touched && parse_rational(text).is_ok() {
                 v[k] = text.trim().to_string();
             }
         }
@@ -106,7 +109,7 @@ fn rational_fields(
     typing.sync(v);
     let mut changed = false;
     let read: Vec<Option<BigRational>> = v.iter().map(|s| parse_rational(s).ok()).collect();
-    ui.horizontal(|ui| {
+    ui.horizontal_wrapped(|ui| {
         for k in 0..v.len() {
             ui.vertical(|ui| {
                 let s = &mut typing.shown[k];
@@ -192,22 +195,63 @@ fn half_step_slider(ui: &mut egui::Ui, k: usize, lambda: &[Option<BigRational>])
 
 /// The heading and n; a new n resets λ to (n-1, ..., 1, 0) and the segment
 /// to run from (1, 0, ..., 0) to it. Returns n.
-fn heading_with_n(ui: &mut egui::Ui, place: &mut PermutohedronPlace) -> usize {
-    let mut n = place.lambda.len().clamp(2, 8);
+fn heading_with_n(ui: &mut egui::Ui, place: &mut PermutohedronPlace) -> Option<usize> {
+    let len = place.lambda.len();
+    let fits = (2..=MAX_N).contains(&len) && place.from.len() == len && place.to.len() == len;
+    let mut n = len.clamp(2, MAX_N);
+    let mut chosen = false;
     ui.horizontal(|ui| {
         typeset::heading(ui, &Typeset::new().symbol("Permutohedron P_λ"));
         ui.separator();
         ui.label("n");
-        if ui.add(egui::DragValue::new(&mut n).range(2..=8)).changed() {
-            let regular: Vec<String> = (0..n).rev().map(|k| k.to_string()).collect();
-            place.lambda = regular.clone();
-            place.to = regular;
-            place.from = (0..n)
-                .map(|k| if k == 0 { "1" } else { "0" }.to_string())
-                .collect();
+        chosen = ui
+            .add(
+                egui::DragValue::new(&mut n)
+                    .range(2..=MAX_N)
+                    .update_while_editing(false),
+            )
+            .changed();
+        if !fits {
+            chosen |= ui.button(format!("start over at n = {n}")).clicked();
         }
     });
-    n
+    if chosen {
+        let regular: Vec<String> = (0..n).rev().map(|k| k.to_string()).collect();
+        place.lambda = regular.clone();
+        place.to = regular;
+        place.from = (0..n)
+            .map(|k| if k == 0 { "1" } else { "0" }.to_string())
+            .collect();
+        return Some(n);
+    }
+    if !fits {
+        ui.colored_label(
+            crate::gui::theme::alert(),
+            format!(
+                "The session's λ, λ_a and λ_b have {len}, {} and {} entries; this view shows one n from 2 to {MAX_N} for all three. They are kept as they are (and saved unchanged) until you choose an n here.",
+                place.from.len(),
+                place.to.len()
+            ),
+        );
+        return None;
+    }
+    Some(len)
+}
+
+/// Why the view does not list the mixed Eulerian numbers of n, if it does
+/// not: the work is over the limit the `eulerian` command has.
+fn eulerian_refusal(n: usize) -> Option<String> {
+    use crate::math::limits::{EULERIAN_WORK_LIMIT, binomial, monomials_of_degree};
+    let m = n as u64;
+    let compositions = binomial(2 * m - 3, m - 2);
+    let work = compositions.saturating_mul(monomials_of_degree(m - 1, m));
+    (work > EULERIAN_WORK_LIMIT).then(|| {
+        format!(
+            "mixed Eulerian numbers at n = {n}: {compositions} compositions, each over {} monomials of degree {}, is {work} steps; at most {EULERIAN_WORK_LIMIT} are accepted (n <= 10)",
+            monomials_of_degree(m - 1, m),
+            m - 1
+        )
+    })
 }
 
 /// The exact volume of P_λ, with a decimal approximation.
@@ -322,10 +366,9 @@ impl PermutohedronView {
     fn show(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let look = figure_look(ctx.session);
         let place = &mut ctx.session.solid;
-        let n = heading_with_n(ui, place);
-        for v in [&mut place.lambda, &mut place.from, &mut place.to] {
-            v.resize(n, "0".into());
-        }
+        let Some(n) = heading_with_n(ui, place) else {
+            return;
+        };
         typeset::label(
             ui,
             &Typeset::new().symbol(
@@ -480,6 +523,13 @@ impl PermutohedronView {
             &Typeset::new().symbol(format!("Mixed Eulerian numbers A_c of n = {n}")),
         )
         .on_hover_text("Ctrl+E exports them as CSV or as a LaTeX tabular");
+        if let Some(why) = eulerian_refusal(n) {
+            self.eulerian.clear();
+            ui.add(
+                egui::Label::new(egui::RichText::new(why).color(crate::gui::theme::alert())).wrap(),
+            );
+            return;
+        }
         match self.eulerian.fetch(engine, JobKey::Eulerian(n)) {
             Fetch::Ready(out) => {
                 let Output::Eulerian(rows) = out.as_ref() else {

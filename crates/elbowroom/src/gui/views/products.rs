@@ -11,43 +11,19 @@ use crate::engine::requests::Terms;
 use crate::gui::AppCtx;
 use crate::gui::typeset::{self, Typeset};
 use crate::math::{MAX_N, Perm};
+use crate::session::model::ProductsPlace;
 use eframe::egui;
 use num_traits::Signed;
 
 /// The longest text a field for a permutation accepts before it is read.
 const PERM_TEXT_LIMIT: usize = 80;
 
-/// The view's UI state (its inputs are typed here; results come from the engine).
+/// The view's UI state: its inputs are in the session
+/// ([`crate::session::model::ProductsPlace`]); results come from the engine.
+#[derive(Default)]
 pub struct ProductsView {
-    /// The first factor, as typed.
-    pub u_text: String,
-    /// The second factor, as typed.
-    pub v_text: String,
-    /// Multiply stably (over S_∞) rather than in H*(Fl_n).
-    pub stable: bool,
-    /// The n of H*(Fl_n) (raised to hold u and v).
-    pub flag_n: usize,
-    /// The typed polynomial to expand.
-    pub poly: String,
-    /// Expand it stably rather than in H*(Fl_n).
-    pub poly_stable: bool,
     product: Slot,
     expansion: Slot,
-}
-
-impl Default for ProductsView {
-    fn default() -> Self {
-        ProductsView {
-            u_text: String::new(),
-            v_text: String::new(),
-            stable: true,
-            flag_n: 0,
-            poly: "(x1 - x3)(x2 - x4)".into(),
-            poly_stable: false,
-            product: Slot::default(),
-            expansion: Slot::default(),
-        }
-    }
 }
 
 /// Reads a typed permutation (bounded text), or says what is wrong.
@@ -63,13 +39,14 @@ fn read_perm(text: &str) -> Result<Perm, String> {
 
 /// A typed permutation's field with the buttons that fill it: the current
 /// permutation and each pin.
-fn factor_field(ui: &mut egui::Ui, name: &str, text: &mut String, ctx: &AppCtx) {
+fn factor_field(ui: &mut egui::Ui, name: &str, text: &mut String, current: &str, ctx: &AppCtx) {
     ui.horizontal(|ui| {
         ui.label(format!("{name} ="));
         ui.add(
             egui::TextEdit::singleline(text)
                 .id_salt(("product_factor", name))
                 .font(egui::TextStyle::Monospace)
+                .hint_text(current)
                 .desired_width(160.0),
         );
         if ui
@@ -77,7 +54,7 @@ fn factor_field(ui: &mut egui::Ui, name: &str, text: &mut String, ctx: &AppCtx) 
             .on_hover_text("the current permutation")
             .clicked()
         {
-            *text = ctx.perm().to_string();
+            *text = current.to_string();
         }
         ui.menu_button("pins", |ui| {
             if ctx.session.pins.is_empty() {
@@ -227,10 +204,6 @@ pub fn terms_summary(ui: &mut egui::Ui, terms: &Terms) {
 impl ProductsView {
     /// Draws the view.
     fn show(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
-        if self.u_text.is_empty() && self.v_text.is_empty() {
-            self.u_text = ctx.perm().to_string();
-            self.v_text = ctx.perm().to_string();
-        }
         ui.heading("Products and expansions");
         typeset::label(
             ui,
@@ -245,47 +218,38 @@ impl ProductsView {
         });
     }
 
-    /// The key of the product asked for, or the reason there is none.
-    pub fn product_key(&mut self, session_n: usize) -> Result<JobKey, String> {
-        let u = read_perm(&self.u_text).map_err(|e| format!("u: {e}"))?;
-        let v = read_perm(&self.v_text).map_err(|e| format!("v: {e}"))?;
-        if self.stable {
-            return Ok(JobKey::Product(u, v, None));
-        }
-        if self.flag_n == 0 {
-            self.flag_n = session_n;
-        }
-        self.flag_n = self.flag_n.max(u.n()).max(v.n()).clamp(1, MAX_N);
-        Ok(JobKey::Product(u, v, Some(self.flag_n)))
-    }
-
     fn product_side(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         typeset::label(ui, &Typeset::new().symbol("S_u · S_v").strong());
-        factor_field(ui, "u", &mut self.u_text, ctx);
-        factor_field(ui, "v", &mut self.v_text, ctx);
+        let current = ctx.perm().to_string();
+        let mut place = ctx.session.products.clone();
+        factor_field(ui, "u", &mut place.u, &current, ctx);
+        factor_field(ui, "v", &mut place.v, &current, ctx);
         ui.horizontal(|ui| {
             typeset::radio(
                 ui,
-                &mut self.stable,
+                &mut place.stable,
                 true,
                 &Typeset::new().symbol("stably (w in S_∞)"),
             );
             typeset::radio(
                 ui,
-                &mut self.stable,
+                &mut place.stable,
                 false,
                 &Typeset::new().symbol("in H*(Fl_n)"),
             );
-            if !self.stable {
+            if !place.stable {
                 ui.label("n");
                 ui.add(
-                    egui::DragValue::new(&mut self.flag_n)
+                    egui::DragValue::new(&mut place.n)
                         .range(1..=MAX_N)
                         .update_while_editing(false),
                 );
             }
         });
-        let key = match self.product_key(ctx.session.n) {
+        if place != ctx.session.products {
+            ctx.session.products = place;
+        }
+        let key = match product_key(&ctx.session.products, &current) {
             Ok(k) => k,
             Err(e) => {
                 ui.add(
@@ -295,9 +259,17 @@ impl ProductsView {
                 return;
             }
         };
+        if let JobKey::Product(u, v, Some(n)) = &key
+            && *n != ctx.session.products.n
+        {
+            ui.weak(format!(
+                "in H*(Fl_{n}): n is raised from {} to hold u = {u} and v = {v}",
+                ctx.session.products.n
+            ));
+        }
         ui.separator();
         let Some(out) = fetch_ready(ui, &mut self.product, ctx.engine, key, |secs| {
-            format!("multiplying ({secs:.1} s)")
+            format!("multiplying ({})", super::elapsed_text(secs))
         }) else {
             return;
         };
@@ -312,34 +284,46 @@ impl ProductsView {
 
     fn expansion_side(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         ui.strong("Schubert expansion of a polynomial");
+        let mut place = ctx.session.products.clone();
         ui.add(
-            egui::TextEdit::singleline(&mut self.poly)
+            egui::TextEdit::singleline(&mut place.poly)
                 .id_salt("product_poly")
                 .font(egui::TextStyle::Monospace)
                 .desired_width(f32::INFINITY),
         );
-        let n = ctx.session.n.max(1);
-        ui.horizontal(|ui| {
+        let n = place.poly_n;
+        ui.horizontal_wrapped(|ui| {
+            ui.label("n");
+            ui.add(
+                egui::DragValue::new(&mut place.poly_n)
+                    .range(1..=MAX_N)
+                    .update_while_editing(false),
+            )
+            .on_hover_text("the expansion's own n (the left panel's n is not used)");
             typeset::radio(
                 ui,
-                &mut self.poly_stable,
+                &mut place.poly_stable,
                 false,
                 &Typeset::new().symbol(format!("in H*(Fl_{n})")),
             );
             typeset::radio(
                 ui,
-                &mut self.poly_stable,
+                &mut place.poly_stable,
                 true,
                 &Typeset::new().symbol(format!("stably, in Q[x1, …, x{n}] over S_∞")),
             );
         });
-        if !typed_poly_fits(ui, &self.poly) {
+        if place != ctx.session.products {
+            ctx.session.products = place;
+        }
+        let place = &ctx.session.products;
+        if !typed_poly_fits(ui, &place.poly) {
             return;
         }
         ui.separator();
-        let key = JobKey::Expansion(self.poly.clone(), n, self.poly_stable);
+        let key = JobKey::Expansion(place.poly.clone(), place.poly_n, place.poly_stable);
         let Some(out) = fetch_ready(ui, &mut self.expansion, ctx.engine, key, |secs| {
-            format!("expanding ({secs:.1} s)")
+            format!("expanding ({})", super::elapsed_text(secs))
         }) else {
             return;
         };
@@ -351,6 +335,26 @@ impl ProductsView {
             ctx.go_to(w);
         }
     }
+}
+
+/// The key of the product the session asks for (an empty factor is the
+/// current permutation, `current`), or the reason there is none. In
+/// H*(Fl_n), n is raised to hold u and v.
+pub fn product_key(place: &ProductsPlace, current: &str) -> Result<JobKey, String> {
+    let text = |t: &str| {
+        if t.trim().is_empty() {
+            current.to_string()
+        } else {
+            t.to_string()
+        }
+    };
+    let u = read_perm(&text(&place.u)).map_err(|e| format!("u: {e}"))?;
+    let v = read_perm(&text(&place.v)).map_err(|e| format!("v: {e}"))?;
+    if place.stable {
+        return Ok(JobKey::Product(u, v, None));
+    }
+    let n = place.n.max(u.n()).max(v.n()).clamp(1, MAX_N);
+    Ok(JobKey::Product(u, v, Some(n)))
 }
 
 impl super::View for ProductsView {
