@@ -9,6 +9,7 @@
 mod window_harness;
 use eframe::egui;
 use egui_kittest::Harness;
+use egui_kittest::kittest::Queryable;
 use elbowroom::engine::Engine;
 use elbowroom::gui::Explorer;
 use elbowroom::session::{Session, store};
@@ -126,4 +127,137 @@ fn a_refused_session_file_is_explained_in_the_open_window() {
     assert_eq!(h.state().files.path, bad.display().to_string());
     // a demo session picked from the same window opens
     settle(&mut h, |h| has(h, "01-seminar-pipe-dreams.ron"));
+}
+
+/// The session after every view was shown for a few frames.
+fn after_every_view(s: Session) -> Session {
+    let mut h = harness_on(s);
+    for v in elbowroom::gui::views::all() {
+        h.state_mut().session.view = v.kind();
+        for _ in 0..4 {
+            h.step();
+        }
+    }
+    h.state().session.clone()
+}
+
+#[test]
+fn values_the_window_cannot_show_are_kept_and_saved_back_unchanged() {
+    let dir = scratch("kept");
+    let sixteen: Vec<String> = (0..16).rev().map(|k| k.to_string()).collect();
+    let mut odd = Session::default();
+    // λ, λ_a and λ_b with 16 entries (session check accepts up to 16), an
+    // entry written with spaces, h of length 16, and the h of n = 1
+    odd.solid.lambda = sixteen.clone();
+    odd.solid.from = sixteen.clone();
+    odd.solid.to = sixteen;
+    odd.solid.lambda[3] = " 12 ".into();
+    odd.hessenberg.h = (2..=16).chain([16]).collect();
+    for s in [
+        odd.clone(),
+        Session {
+            hessenberg: elbowroom::session::model::HessenbergPlace {
+                h: vec![1],
+                ..Default::default()
+            },
+            ..odd.clone()
+        },
+    ] {
+        let path = dir.join("odd.ron");
+        store::save(&path, &s).unwrap();
+        let before = std::fs::read_to_string(&path).unwrap();
+        let loaded = store::load(&path).unwrap();
+        let shown = after_every_view(loaded.clone());
+        assert_eq!(shown, loaded, "the explorer changed the session");
+        store::save(&path, &shown).unwrap();
+        assert_eq!(std::fs::read_to_string(&path).unwrap(), before);
+    }
+    // the demo sessions, with h left empty, come back unchanged too
+    for path in elbowroom::session::demo::demo_paths() {
+        let loaded = store::load(&path).unwrap();
+        assert_eq!(
+            after_every_view(loaded.clone()),
+            loaded,
+            "{}",
+            path.display()
+        );
+    }
+}
+
+#[test]
+fn the_views_say_which_values_they_keep_without_showing_them() {
+    let mut s = Session::default();
+    s.hessenberg.h = vec![1];
+    s.solid.lambda = (0..16).map(|k| k.to_string()).collect();
+    let mut h = harness_on(s);
+    h.state_mut().session.view = elbowroom::session::model::View::Hessenberg;
+    h.step();
+    h.step();
+    assert!(has(&h, "h = (1) has n = 1"));
+    assert!(has(&h, "kept as it is"));
+    h.state_mut().session.view = elbowroom::session::model::View::Permutohedron;
+    h.step();
+    h.step();
+    assert!(has(&h, "have 16, 4 and 4 entries"));
+    // the user's own choice of n does change them
+    h.get_by_label("start over at n = 16").click();
+    h.step();
+    h.step();
+    assert_eq!(h.state().session.solid.to.len(), 16);
+}
+
+#[test]
+fn the_products_view_is_saved_and_reopened() {
+    let dir = scratch("products");
+    let mut h = harness();
+    h.state_mut().session.view = elbowroom::session::model::View::Products;
+    h.step();
+    {
+        let p = &mut h.state_mut().session.products;
+        p.u = "2143".into();
+        p.v = "1432".into();
+        p.stable = false;
+        p.n = 6;
+        p.poly = "x1 x3 - x2^2".into();
+        p.poly_stable = true;
+        p.poly_n = 7;
+    }
+    h.step();
+    let path = dir.join("p.ron");
+    h.state_mut().files.session_path = Some(path.clone());
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::S);
+    h.step();
+    let back = store::load(&path).unwrap();
+    assert_eq!(back.products, h.state().session.products);
+    assert_eq!(back.products.poly_n, 7);
+    assert_eq!(back.products.u, "2143");
+    assert!(!back.products.stable);
+}
+
+#[test]
+fn the_expansion_uses_its_own_n_not_the_left_panels() {
+    let mut h = harness();
+    h.state_mut().session.view = elbowroom::session::model::View::Products;
+    h.state_mut().session.products.poly = "x2".into();
+    h.state_mut().session.products.poly_n = 3;
+    // the demo's left panel is at n = 5; in H*(Fl_3), x2 = S_132 − S_213
+    // (S_132 = x1 + x2, S_213 = x1; Macdonald's table)
+    settle(&mut h, |h| has(h, "some coefficients are negative"));
+    assert!(has(&h, "132"));
+    assert!(!has(&h, "13245"));
+    assert_eq!(h.state().session.n, 5);
+}
+
+#[test]
+fn the_left_panel_reaches_s_11_from_a_row_of_an_n_11_table() {
+    let mut s = Session::default();
+    let w: Vec<usize> = vec![2, 1, 3, 4, 5, 6, 7, 8, 9, 11, 10];
+    s.n = 11;
+    s.current = w.clone();
+    s.history = vec![w];
+    let mut h = harness_on(s);
+    h.step();
+    h.step();
+    assert!(has(&h, "All of S_11"), "the panel stopped below n = 11");
+    assert!(has(&h, "39\u{2009}916\u{2009}800 permutations"));
 }

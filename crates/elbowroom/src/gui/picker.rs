@@ -17,6 +17,8 @@ pub struct Picker {
     pub text: String,
     /// Why the last typed entry was refused.
     pub error: Option<String>,
+    /// What to know about the last entry read (a word that is not reduced).
+    pub note: Option<String>,
     /// The permutation (one-line) whose text the field was last set to.
     text_for: Vec<usize>,
     dream_count: Slot,
@@ -25,7 +27,8 @@ pub struct Picker {
 
 /// Reads a typed permutation: one-line (`31524`, `3 1 5 2 4`, `3,1,5,2,4`),
 /// `code: 2,0,2,0` (a Lehmer code) or `word: 1 3 2 3` (the product s_1 s_3 s_2 s_3).
-/// A result smaller than `n` is embedded in S_n.
+/// A code or word giving a permutation smaller than `n` is embedded in S_n;
+/// a one-line permutation keeps its own n (`31524` is in S_5 whatever n was).
 pub fn parse_entry(text: &str, n: usize) -> MathResult<Perm> {
     let t = text.trim();
     let numbers = |rest: &str| -> MathResult<Vec<usize>> {
@@ -45,9 +48,25 @@ pub fn parse_entry(text: &str, n: usize) -> MathResult<Perm> {
         let needed = word.iter().copied().max().map_or(1, |m| m + 1);
         Perm::from_word(&word, Some(needed.max(n)))?
     } else {
-        Perm::parse(t)?
+        return Perm::parse(t);
     };
     if w.n() < n { w.embed(n) } else { Ok(w) }
+}
+
+/// What to say about an entry that was read: a `word:` that is not reduced
+/// (more letters than ℓ(w)) gives its product, which the user should know.
+pub fn entry_note(text: &str, w: &Perm) -> Option<String> {
+    let rest = text.trim().strip_prefix("word:")?;
+    let letters = rest
+        .split([',', ' ', '\t'])
+        .filter(|s| !s.is_empty())
+        .count();
+    (letters != w.length()).then(|| {
+        format!(
+            "the word has {letters} letters but ℓ(w) = {}: it is not reduced, and w = {w} is its product",
+            w.length()
+        )
+    })
 }
 
 impl Picker {
@@ -55,6 +74,10 @@ impl Picker {
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
         if self.text_for != w.one_line() {
+            if !self.text_for.is_empty() {
+                // another w: the note about the last entry is about an old one
+                self.note = None;
+            }
             self.text_for = w.one_line();
             self.text = w.to_string();
             self.error = None;
@@ -86,15 +109,24 @@ impl Picker {
                 match parse_entry(&self.text, ctx.session.n) {
                     Ok(v) => {
                         self.error = None;
+                        self.note = entry_note(&self.text, &v);
+                        self.text_for = v.one_line();
+                        self.text = v.to_string();
                         ctx.go_to(v);
                     }
-                    Err(e) => self.error = Some(e.to_string()),
+                    Err(e) => {
+                        self.error = Some(e.to_string());
+                        self.note = None;
+                    }
                 }
             }
             ui.weak("one-line, code: or word:");
         });
         if let Some(e) = &self.error {
             ui.colored_label(super::theme::alert(), e);
+        }
+        if let Some(note) = &self.note {
+            ui.add(egui::Label::new(egui::RichText::new(note).weak()).wrap());
         }
     }
 
@@ -271,7 +303,20 @@ mod tests {
         );
         // s1 s3 s2 s3 = s1 s2 s3 s2 ; one-line 2431
         assert_eq!(parse_entry("word: 1 3 2 3", 4).unwrap().to_string(), "2431");
-        assert_eq!(parse_entry("213", 5).unwrap().to_string(), "21345");
+        // a one-line permutation keeps its own n
+        assert_eq!(parse_entry("213", 5).unwrap().to_string(), "213");
+        assert_eq!(parse_entry("31524", 8).unwrap().to_string(), "31524");
+        // s1 s2 s1 s2 = s2 s1 (the braid relation s1 s2 s1 = s2 s1 s2): 312, length 2
+        // (positions swapped left to right, as word: 1 3 2 3 gives 2431 above)
+        let w = parse_entry("word: 1 2 1 2", 3).unwrap();
+        assert_eq!(w.to_string(), "312");
+        assert!(
+            entry_note("word: 1 2 1 2", &w)
+                .unwrap()
+                .contains("not reduced")
+        );
+        let v = parse_entry("word: 1 2 1", 3).unwrap();
+        assert!(entry_note("word: 1 2 1", &v).is_none());
         assert!(parse_entry("3124 x", 4).is_err());
         assert!(parse_entry("1224", 4).is_err());
     }

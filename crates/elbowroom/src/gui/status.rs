@@ -82,7 +82,14 @@ pub fn rows_ui(ui: &mut egui::Ui, engine: &Engine, message: &mut Option<String>)
                     .show_percentage(),
             );
             let secs = job.started.elapsed().as_secs_f32();
-            ui.add(egui::Label::new(format!("{} ({secs:.1} s)", job.label)).truncate());
+            ui.add(
+                egui::Label::new(format!(
+                    "{} ({})",
+                    job.label,
+                    super::views::elapsed_text(secs)
+                ))
+                .truncate(),
+            );
         });
     }
     if running.len() > JOBS_LISTED {

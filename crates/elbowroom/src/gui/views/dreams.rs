@@ -193,7 +193,12 @@ impl DreamsView {
     fn show(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
         ui.horizontal(|ui| {
-            ui.heading(format!("Reduced pipe dreams of w = {w}"));
+            let model = if ctx.session.dreams.bumpless {
+                "Bumpless pipe dreams"
+            } else {
+                "Reduced pipe dreams"
+            };
+            ui.heading(format!("{model} of w = {w}"));
             ui.separator();
             let mut b = ctx.session.dreams.bumpless;
             if ui
@@ -258,7 +263,21 @@ impl DreamsView {
             let r = self.show_canvas(ui, &scene);
             self.canvas = Some((r.response.rect, r.scale));
             self.shown = Some(dream);
-            if let Some(k) = self.hover_pipe {
+            let shift = ui.input(|inp| inp.modifiers.shift);
+            let hovered_move = match r.hovered_where(|t| matches!(t, Tag::Cell(..))) {
+                Some(Tag::Cell(i, j)) => move_at(&dream, i, j, shift).map(|(_, kind)| (i, j, kind)),
+                _ => None,
+            };
+            if let Some((i, j, kind)) = hovered_move {
+                r.response.clone().on_hover_text(format!(
+                    "a click makes the {kind} move at ({i}, {j}){}",
+                    if shift {
+                        ""
+                    } else {
+                        "; Shift+click, the inverse move"
+                    }
+                ));
+            } else if let Some(k) = self.hover_pipe {
                 r.response.clone().on_hover_text(format!(
                     "pipe {k}: enters row {k}, leaves column {}",
                     w.at(k)

@@ -389,7 +389,7 @@ impl HessenbergView {
             &mut self.table,
             engine,
             JobKey::Hessenberg(h.to_vec()),
-            |secs| format!("computing a^h_w ({secs:.0} s)"),
+            |secs| format!("computing a^h_w ({})", super::elapsed_text(secs)),
         )
     }
 }

@@ -110,7 +110,7 @@ pub fn arrow_step(ui: &egui::Ui) -> isize {
 pub fn show_progress(ui: &mut egui::Ui, what: &str, fraction: f32, slot: &Slot) {
     ui.horizontal(|ui| {
         ui.spinner();
-        ui.label(what);
+        super::typeset::label(ui, &super::typeset::Typeset::new().symbol(what));
         ui.add(
             egui::ProgressBar::new(fraction)
                 .desired_width(200.0)
@@ -172,6 +172,12 @@ pub fn fetch_or_explain(
         }
         Fetch::Failed(e) => e.clone(),
     };
+    if matches!(failure, MathError::Canceled) {
+        if show_failure_with_retry(ui, &failure) {
+            slot.retry();
+        }
+        return None;
+    }
     show_math_error(ui, &failure);
     None
 }

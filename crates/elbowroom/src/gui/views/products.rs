@@ -186,10 +186,14 @@ pub fn terms_list(ui: &mut egui::Ui, id: &str, terms: &Terms, ctx: &AppCtx) -> O
 /// One line about an expansion: how many terms, and whether some coefficient is negative.
 pub fn terms_summary(ui: &mut egui::Ui, terms: &Terms) {
     let k = terms.terms.len();
+    if k == 0 {
+        ui.label("the result is 0 (no terms)");
+        return;
+    }
     let count = if k == 1 {
         "1 term".to_string()
     } else {
-        format!("{k} terms")
+        format!("{} terms", typeset::grouped(&k.to_string()))
     };
     if terms.has_negative() {
         ui.colored_label(

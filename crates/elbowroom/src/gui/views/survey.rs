@@ -187,7 +187,12 @@ impl SurveyPanel {
             &mut self.survey,
             ctx.engine,
             JobKey::Survey(wanted),
-            |secs| format!("reducing S_w(x{wanted}, ..., x1) over S_{wanted} ({secs:.0} s)"),
+            |secs| {
+                format!(
+                    "reducing S_w(x{wanted}, ..., x1) over S_{wanted} ({})",
+                    super::elapsed_text(secs)
+                )
+            },
         ) else {
             return false;
         };

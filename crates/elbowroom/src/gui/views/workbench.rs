@@ -25,14 +25,12 @@ pub struct WorkbenchView {
     stable_expansion: Slot,
 }
 
-/// The field for the polynomial (a first polynomial when it is empty).
+/// The field for the polynomial (an example as its hint while it is empty).
 fn poly_field(ui: &mut egui::Ui, session: &mut Session) {
-    if session.workbench.poly.is_empty() {
-        session.workbench.poly = "x1^2 x2 + x1 x2 x3".into();
-    }
     ui.add(
         egui::TextEdit::singleline(&mut session.workbench.poly)
             .id_salt("workbench_poly")
+            .hint_text("x1^2 x2 + x1 x2 x3")
             .font(egui::TextStyle::Monospace)
             .desired_width(f32::INFINITY),
     );
@@ -168,14 +166,29 @@ fn show_expansion(ui: &mut egui::Ui, slot: &mut Slot, ctx: &mut AppCtx, key: Job
     }
 }
 
+/// "f = …" for the text the engine wrote back: the polynomial typeset, and a
+/// long one's count of terms ("… (50 388 terms in all)") as plain words.
+fn read_back(t: &str) -> Typeset {
+    let Some((head, rest)) = t.split_once(" … (") else {
+        return Typeset::new().plain("f = ").poly(t);
+    };
+    let (count, words) = rest.split_once(' ').unwrap_or((rest, ""));
+    Typeset::new()
+        .plain("f = ")
+        .poly(head)
+        .plain(format!(" … ({} {words}", typeset::grouped(count)))
+}
+
 impl WorkbenchView {
-    /// DS_n(f) (or DS_h(f)) and the normal form modulo J_m.
+    /// DS_n(f) (or DS_h(f)) and the normal form modulo J_n (n the
+    /// workbench's, whichever h symmetrizes).
     fn divided_symmetrization_and_normal_form(
         &mut self,
         ui: &mut egui::Ui,
         ctx: &mut AppCtx,
         text: &str,
         h: &[usize],
+        n: usize,
     ) {
         let name = if ctx.session.workbench.use_h {
             "DS_h(f)"
@@ -191,7 +204,7 @@ impl WorkbenchView {
             "divided symmetrization",
             |ui, out| show_divsym(ui, out, name),
         );
-        let m = h.len();
+        let m = n;
         if m <= MAX_QUOTIENT_N {
             ui.separator();
             let key = JobKey::NormalForm(QuotientInput::Typed(text.to_string(), m));
@@ -216,34 +229,33 @@ impl WorkbenchView {
         let h = chosen_h(ctx.session, n);
         let text = ctx.session.workbench.poly.clone();
         // the one check on this thread: the length of the text
-        if !typed_poly_fits(ui, &text) {
+        if text.trim().is_empty() || !typed_poly_fits(ui, &text) {
+            self.forget();
             return;
         }
-        let m = h.len();
         let read = fetch_or_explain(
             ui,
             &mut self.typed,
             ctx.engine,
-            JobKey::Typed(text.clone(), m),
+            JobKey::Typed(text.clone(), h.len().max(n)),
             "reading the polynomial",
         );
-        // DS and the normal form need f multiplied out: they start once it was read
-        if let Some(t) = read.as_ref().and_then(|o| o.text().map(str::to_string)) {
-            typeset::math_label(ui, &Typeset::new().plain("f = ").poly(&t), &t);
-            ui.separator();
-            self.divided_symmetrization_and_normal_form(ui, ctx, &text, &h);
-        } else {
-            // asked for no more: a job for an older text stops
-            self.divsym.clear();
-            self.normal_form.clear();
-        }
+        // everything else needs f read: until then (or when it does not
+        // read, said once above) nothing else is asked for
+        let Some(t) = read.as_ref().and_then(|o| o.text().map(str::to_string)) else {
+            self.forget();
+            return;
+        };
+        typeset::math_label(ui, &read_back(&t), &t);
+        ui.separator();
+        self.divided_symmetrization_and_normal_form(ui, ctx, &text, &h, n);
         ui.separator();
         ui.columns(2, |cols| {
             typeset::label(
                 &mut cols[0],
                 &Typeset::new()
                     .plain("Schubert expansion in H*(")
-                    .symbol(format!("Fl_{m}"))
+                    .symbol(format!("Fl_{n}"))
                     .plain(")")
                     .strong(),
             );
@@ -251,14 +263,14 @@ impl WorkbenchView {
                 &mut cols[0],
                 &mut self.flag_expansion,
                 ctx,
-                JobKey::Expansion(text.clone(), m, false),
+                JobKey::Expansion(text.clone(), n, false),
                 "workbench_flag_rows",
             );
             typeset::label(
                 &mut cols[1],
                 &Typeset::new()
                     .plain("stably, in Q[")
-                    .symbol(format!("x1, …, x{m}"))
+                    .symbol(format!("x1, …, x{n}"))
                     .plain("] over ")
                     .symbol("S_∞")
                     .strong(),
@@ -267,10 +279,18 @@ impl WorkbenchView {
                 &mut cols[1],
                 &mut self.stable_expansion,
                 ctx,
-                JobKey::Expansion(text, m, true),
+                JobKey::Expansion(text, n, true),
                 "workbench_stable_rows",
             );
         });
+    }
+
+    /// Asks for nothing beyond reading the text (a running job stops).
+    fn forget(&mut self) {
+        self.divsym.clear();
+        self.normal_form.clear();
+        self.flag_expansion.clear();
+        self.stable_expansion.clear();
     }
 }
 
