@@ -240,15 +240,23 @@ impl WorkbenchView {
             JobKey::Typed(text.clone(), h.len().max(n)),
             "reading the polynomial",
         );
-        // everything else needs f read: until then (or when it does not
-        // read, said once above) nothing else is asked for
-        let Some(t) = read.as_ref().and_then(|o| o.text().map(str::to_string)) else {
-            self.forget();
-            return;
-        };
-        typeset::math_label(ui, &read_back(&t), &t);
-        ui.separator();
-        self.divided_symmetrization_and_normal_form(ui, ctx, &text, &h, n);
+        match read.as_ref().and_then(|o| o.text().map(str::to_string)) {
+            Some(t) => {
+                typeset::math_label(ui, &read_back(&t), &t);
+                ui.separator();
+                // DS and the normal form need f multiplied out: they start once it was read
+                self.divided_symmetrization_and_normal_form(ui, ctx, &text, &h, n);
+            }
+            None if self.typed.is_running() => {
+                self.divsym.clear();
+                self.normal_form.clear();
+            }
+            None => {
+                // the text does not read, said once above: nothing else is asked for
+                self.forget();
+                return;
+            }
+        }
         ui.separator();
         ui.columns(2, |cols| {
             typeset::label(
