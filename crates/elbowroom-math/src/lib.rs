@@ -18,6 +18,7 @@
 //! 8. [`permutohedra`]: permutohedron volumes and mixed Eulerian numbers.
 
 pub mod error;
+pub mod excerpt;
 pub mod limits;
 pub mod progress;
 

@@ -84,7 +84,7 @@ fn streamed_survey_equals_the_collected_one() {
         let n_arg = n.to_string();
         for shard in [Shard::WHOLE, Shard { index: 2, count: 3 }] {
             let shard_arg = format!("{}/{}", shard.index, shard.count);
-            if survey_listing(n).len() < shard.index {
+            if survey_listing(n).len() < shard.count {
                 rejects(
                     &["survey", "--n", &n_arg, "--shard", &shard_arg],
                     "beyond the listing",

@@ -8,7 +8,7 @@ use std::path::PathBuf;
 
 /// elbowroom: exact Schubert calculus. With no command, opens the explorer.
 #[derive(Parser, Debug)]
-#[command(name = "elbowroom", version, about, long_about = None)]
+#[command(name = "elbowroom", version = VERSION_LINE, about, long_about = None)]
 pub struct Cli {
     /// The headless command to run; none opens the explorer.
     #[command(subcommand)]
@@ -50,6 +50,78 @@ pub enum Command {
     Session(SessionArgs),
     /// Draws a figure and writes it as PNG, SVG or TikZ (`figure dream 1432 --out f.png`).
     Figure(FigureArgs),
+    /// Prints a completion script for a shell (`elbowroom completions bash > …`).
+    Completions(CompletionsArgs),
+    /// Prints the manual page (roff; `elbowroom man > elbowroom.1`).
+    Man,
+}
+
+/// The commit the program was built from ("unknown" outside a git checkout).
+pub const BUILD: &str = env!("ELBOWROOM_COMMIT");
+
+/// What `--version` prints after the name: the version, the commit and the
+/// optional features built in.
+#[cfg(feature = "gui")]
+pub const VERSION_LINE: &str = concat!(
+    env!("CARGO_PKG_VERSION"),
+    " (commit ",
+    env!("ELBOWROOM_COMMIT"),
+    "; features: gui)"
+);
+
+/// What `--version` prints after the name: the version, the commit and the
+/// optional features built in.
+#[cfg(not(feature = "gui"))]
+pub const VERSION_LINE: &str = concat!(
+    env!("CARGO_PKG_VERSION"),
+    " (commit ",
+    env!("ELBOWROOM_COMMIT"),
+    "; features: none)"
+);
+
+impl Command {
+    /// The file given with `--out` for a command whose output (otherwise on
+    /// standard output) goes there instead.
+    pub fn out_file(&self) -> Option<&std::path::Path> {
+        match self {
+            Command::Hessenberg(a) => a.output.out.as_deref(),
+            Command::Eulerian(a) => a.output.out.as_deref(),
+            Command::Survey(a) => a.output.out.as_deref(),
+            Command::Words(a) => a.out.out.as_deref(),
+            Command::Dreams(a) => a.out.out.as_deref(),
+            Command::Merge(a) => a.out.out.as_deref(),
+            _ => None,
+        }
+    }
+}
+
+/// The shells `elbowroom completions` writes scripts for.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum ShellArg {
+    /// bash
+    Bash,
+    /// zsh
+    Zsh,
+    /// fish
+    Fish,
+}
+
+/// Arguments of `elbowroom completions`.
+#[derive(Args, Debug)]
+pub struct CompletionsArgs {
+    /// The shell.
+    #[arg(value_enum)]
+    pub shell: ShellArg,
+}
+
+/// `--out FILE`: the output written to FILE instead of standard output,
+/// through a temporary file renamed to FILE only when complete.
+#[derive(Args, Debug, Default)]
+pub struct OutFile {
+    /// Write the output to this file instead of standard output; it appears
+    /// only when complete (a stopped run leaves no file).
+    #[arg(long, value_name = "FILE")]
+    pub out: Option<PathBuf>,
 }
 
 /// Arguments of `elbowroom perm`.
@@ -92,6 +164,9 @@ pub struct WordsArgs {
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
+    /// Where the output goes.
+    #[command(flatten)]
+    pub out: OutFile,
 }
 
 /// Arguments of `elbowroom dreams`.
@@ -112,6 +187,9 @@ pub struct DreamsArgs {
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
+    /// Where the output goes.
+    #[command(flatten)]
+    pub out: OutFile,
 }
 
 /// Arguments of `elbowroom divsym`.
@@ -224,6 +302,10 @@ pub struct TableOutput {
     /// Print a LaTeX tabular.
     #[arg(long)]
     pub latex: bool,
+    /// Write the output to this file instead of standard output; it appears
+    /// only when complete (a stopped run leaves no file).
+    #[arg(long, value_name = "FILE")]
+    pub out: Option<PathBuf>,
 }
 
 impl TableOutput {
@@ -245,13 +327,16 @@ pub struct MergeArgs {
     /// The JSON outputs of the pieces of one sharded run.
     #[arg(required = true)]
     pub files: Vec<PathBuf>,
+    /// Where the output goes.
+    #[command(flatten)]
+    pub out: OutFile,
 }
 
 /// Arguments of `elbowroom quotient`.
 #[derive(Args, Debug)]
 pub struct QuotientArgs {
-    /// The number of variables n (1 to 8).
-    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
+    /// The number of variables n (the help names the range from the limits).
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n, help = quotient_n_help())]
     pub n: usize,
     /// Print one JSON object instead of text.
     #[arg(long)]
@@ -267,8 +352,8 @@ pub struct ReduceArgs {
     /// The polynomial, e.g. "x1^2 x2 - 3/2 x3" or "M(2,1) + F(1,1)".
     #[arg(allow_hyphen_values = true)]
     pub poly: String,
-    /// The number of variables n (1 to 8).
-    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
+    /// The number of variables n (the help names the range from the limits).
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n, help = quotient_n_help())]
     pub n: usize,
     /// Print one JSON object instead of text.
     #[arg(long)]
@@ -278,8 +363,9 @@ pub struct ReduceArgs {
 /// Arguments of `elbowroom survey`.
 #[derive(Args, Debug)]
 pub struct SurveyArgs {
-    /// Survey all of S_n (1 <= n <= 8).
+    /// Survey all of S_n (the help names the range from the limits).
     #[arg(
+        help = format!("Survey all of S_n (1 <= n <= {})", crate::math::quotient::groebner::MAX_QUOTIENT_N),
         long,
         conflicts_with = "perm",
         required_unless_present = "perm",
@@ -412,8 +498,8 @@ pub struct FigureArgs {
     /// paths: the polynomial to reduce instead of the reversed Schubert polynomial.
     #[arg(long, allow_hyphen_values = true)]
     pub poly: Option<String>,
-    /// paths: the number of variables for --poly (1 to 8).
-    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
+    /// paths: the number of variables for --poly (the help names the range).
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n, help = format!("paths: the number of variables for --poly (1 to {})", crate::math::quotient::groebner::MAX_QUOTIENT_N))]
     pub n: Option<usize>,
     /// paths: panels per row (default: about the square root of their number).
     #[arg(long, allow_hyphen_values = true, value_parser = whole_count)]
@@ -445,6 +531,14 @@ pub struct FigureArgs {
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
+}
+
+/// The help of `--n` where the quotient by J_n is computed.
+fn quotient_n_help() -> String {
+    format!(
+        "The number of variables n (1 to {})",
+        crate::math::quotient::groebner::MAX_QUOTIENT_N
+    )
 }
 
 /// `--n`: a whole number. Negative numbers and other text are refused here,
@@ -494,15 +588,13 @@ pub fn finite_angle(text: &str) -> Result<f32, String> {
     }
 }
 
-/// A typed value as quoted in a message: a short excerpt of a long one.
+/// A typed value as quoted in a message: a short excerpt of a long one,
+/// control characters escaped.
 fn quoted(text: &str) -> String {
-    let limit = crate::math::limits::QUOTE_LIMIT;
     if text.trim().is_empty() {
         "nothing".into()
-    } else if text.chars().count() <= limit {
-        text.to_string()
     } else {
-        format!("{}…", text.chars().take(limit).collect::<String>())
+        crate::math::excerpt::excerpt(text)
     }
 }
 

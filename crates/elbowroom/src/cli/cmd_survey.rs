@@ -90,18 +90,7 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
         }
     };
     let listed_total = perms.len();
-    if shard.index > listed_total {
-        return Err(CliError::Input(format!(
-            "--shard {}/{} is beyond the listing: it has {listed_total} {}, so K can be at most {listed_total}",
-            shard.index,
-            shard.count,
-            if listed_total == 1 {
-                "permutation"
-            } else {
-                "permutations"
-            }
-        )));
-    }
+    shard.check_fits(listed_total)?;
     let perms: Vec<Perm> = perms
         .into_iter()
         .enumerate()
@@ -376,6 +365,7 @@ fn json_frame(job: &Job, count: usize, bad: usize) -> (String, String) {
         "counterexamples": [],
     });
     add_listing(&mut v, job.n, job.listed_total);
+    add_build(&mut v, &job.shard);
     let whole = json::render(&v);
     let gap = "\"results\":[],\"counterexamples\":[]";
     match whole.find(gap) {
@@ -531,7 +521,18 @@ pub fn survey_document<E: SurveyRecord>(
 ) -> Value {
     let mut v = survey_json(n, shard, entries, normal_form);
     add_listing(&mut v, n, listed_total);
+    add_build(&mut v, shard);
     v
+}
+
+/// A piece of a split survey (`shard` other than "1/1") names the build that
+/// made it (`"build"`, last): merge takes pieces of one build.
+fn add_build(v: &mut Value, shard: &str) {
+    if shard != "1/1"
+        && let Some(obj) = v.as_object_mut()
+    {
+        obj.insert("build".into(), json!(super::documents::BUILD));
+    }
 }
 
 /// Which permutations the survey of S_n lists (the `"listing"` of the JSON).

@@ -91,7 +91,7 @@ mod tests {
         let l = parse_lambda("3, 1/2 -1 0.25").unwrap_or_default();
         let shown: Vec<String> = l.iter().map(|v| v.to_string()).collect();
         assert_eq!(shown, ["3", "1/2", "-1", "1/4"]);
-        assert!(parse_lambda(" , ").is_err());
+        assert!(parse_lambda(" , ").is_err_and(|e| matches!(e, CliError::Input(_))));
         for bad in ["1,,2", "1,2,", ",1", ""] {
             let e = parse_lambda(bad).map_err(|e| e.message().to_string());
             assert!(
@@ -99,7 +99,9 @@ mod tests {
                 "{bad:?}: {e:?}"
             );
         }
-        assert!(parse_lambda(&vec!["1"; 17].join(",")).is_err());
+        assert!(
+            parse_lambda(&vec!["1"; 17].join(",")).is_err_and(|e| matches!(e, CliError::Input(_)))
+        );
         assert_eq!(
             parse_lambda("1,x").map_err(|e| e.message().to_string()),
             Err("'x' is not a rational number; accepted: integers, fractions p/q and decimals (3, -3/2, 0.25)".into())
