@@ -21,6 +21,7 @@ pub mod error;
 pub mod excerpt;
 pub mod limits;
 pub mod progress;
+pub mod sizing;
 
 pub mod perms;
 pub mod poly;

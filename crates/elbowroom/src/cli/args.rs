@@ -2,6 +2,8 @@
 //! command, one struct per command. The command modules read these; this
 //! module imports none of them. The doc comments are the `--help` texts.
 
+use super::shard::Shard;
+use crate::math::Perm;
 use crate::tables::table::Table;
 use clap::{Args, Parser, Subcommand, ValueEnum};
 use std::path::PathBuf;
@@ -128,8 +130,8 @@ pub struct OutFile {
 #[derive(Args, Debug)]
 pub struct PermArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4 (commas needed for n >= 10).
-    #[arg(allow_hyphen_values = true)]
-    pub perm: String,
+    #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
+    pub perm: Perm,
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
@@ -139,8 +141,8 @@ pub struct PermArgs {
 #[derive(Args, Debug)]
 pub struct SchubertArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4.
-    #[arg(allow_hyphen_values = true)]
-    pub perm: String,
+    #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
+    pub perm: Perm,
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
@@ -153,8 +155,8 @@ pub struct SchubertArgs {
 #[derive(Args, Debug)]
 pub struct WordsArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4.
-    #[arg(allow_hyphen_values = true)]
-    pub perm: String,
+    #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
+    pub perm: Perm,
     /// List at most this many words (the first ones in lexicographic order).
     #[arg(long, default_value_t = 1000, allow_hyphen_values = true, value_parser = whole_count)]
     pub limit: usize,
@@ -173,8 +175,8 @@ pub struct WordsArgs {
 #[derive(Args, Debug)]
 pub struct DreamsArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4.
-    #[arg(allow_hyphen_values = true)]
-    pub perm: String,
+    #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
+    pub perm: Perm,
     /// List at most this many dreams.
     #[arg(long, default_value_t = 1000, allow_hyphen_values = true, value_parser = whole_count)]
     pub limit: usize,
@@ -219,8 +221,8 @@ pub struct HessenbergArgs {
     #[arg(long, allow_hyphen_values = true)]
     pub h: Option<String>,
     /// Compute only piece K of N (K/N): the permutations at listing positions i with i mod N = K-1.
-    #[arg(long, allow_hyphen_values = true)]
-    pub shard: Option<String>,
+    #[arg(long, allow_hyphen_values = true, value_parser = shard_arg)]
+    pub shard: Option<Shard>,
     /// Summarise the table of every Hessenberg function of n (Catalan(n) of
     /// them): dimension, total, nonzero entries, maximum, negative entries.
     #[arg(long, conflicts_with_all = ["h", "shard"])]
@@ -251,11 +253,11 @@ pub struct ExpandArgs {
 #[derive(Args, Debug)]
 pub struct ProductArgs {
     /// The permutation u: 132, "1 3 2" or 1,3,2.
-    #[arg(allow_hyphen_values = true)]
-    pub u: String,
+    #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
+    pub u: Perm,
     /// The permutation v.
-    #[arg(allow_hyphen_values = true)]
-    pub v: String,
+    #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
+    pub v: Perm,
     /// Multiply in H*(Fl_N) instead of stably (u and v must lie in S_N).
     #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: Option<usize>,
@@ -268,8 +270,8 @@ pub struct ProductArgs {
 #[derive(Args, Debug)]
 pub struct VolumeArgs {
     /// λ_1,...,λ_n: rationals in any order, repeats allowed (for example 3,1/2,-1,0).
-    #[arg(long, allow_hyphen_values = true)]
-    pub lambda: String,
+    #[arg(long, allow_hyphen_values = true, value_parser = lambda_arg)]
+    pub lambda: Lambda,
     /// Also give the volume as a polynomial in λ_1..λ_n (valid on λ_1 >= ... >= λ_n).
     #[arg(long)]
     pub polynomial: bool,
@@ -374,8 +376,8 @@ pub struct SurveyArgs {
     )]
     pub n: Option<usize>,
     /// Survey one permutation, e.g. 2143.
-    #[arg(long)]
-    pub perm: Option<String>,
+    #[arg(long, value_parser = perm_arg)]
+    pub perm: Option<Perm>,
     /// How to print the results.
     #[command(flatten)]
     pub output: TableOutput,
@@ -383,8 +385,8 @@ pub struct SurveyArgs {
     #[arg(long)]
     pub summary: bool,
     /// Run only piece K of N of the listing (item i goes to piece (i mod N) + 1).
-    #[arg(long, value_name = "K/N")]
-    pub shard: Option<String>,
+    #[arg(long, value_name = "K/N", value_parser = shard_arg)]
+    pub shard: Option<Shard>,
 }
 
 /// Arguments of `elbowroom session`.
@@ -508,8 +510,8 @@ pub struct FigureArgs {
     #[arg(long)]
     pub legend: bool,
     /// permutohedron: λ_1,...,λ_n (rationals, n <= 5).
-    #[arg(long, allow_hyphen_values = true)]
-    pub lambda: Option<String>,
+    #[arg(long, allow_hyphen_values = true, value_parser = lambda_arg)]
+    pub lambda: Option<Lambda>,
     /// permutohedron: turn about the vertical axis, in radians.
     #[arg(long, default_value_t = 0.6, allow_hyphen_values = true, value_parser = finite_angle)]
     pub yaw: f32,
@@ -517,11 +519,11 @@ pub struct FigureArgs {
     #[arg(long, default_value_t = 0.35, allow_hyphen_values = true, value_parser = finite_angle)]
     pub pitch: f32,
     /// volume: the start λ_a of the segment.
-    #[arg(long, allow_hyphen_values = true)]
-    pub from: Option<String>,
+    #[arg(long, allow_hyphen_values = true, value_parser = lambda_arg)]
+    pub from: Option<Lambda>,
     /// volume: the end λ_b of the segment.
-    #[arg(long, allow_hyphen_values = true)]
-    pub to: Option<String>,
+    #[arg(long, allow_hyphen_values = true, value_parser = lambda_arg)]
+    pub to: Option<Lambda>,
     /// volume: the number of intervals sampled on the segment (1 to 400).
     #[arg(long, default_value_t = 24, allow_hyphen_values = true, value_parser = whole_count)]
     pub samples: usize,
@@ -531,6 +533,37 @@ pub struct FigureArgs {
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
+}
+
+/// λ = (λ_1, ..., λ_n), exact rationals as typed.
+pub type Lambda = Vec<num_rational::BigRational>;
+
+/// A refusal by one of the typed readers below, printed as it is (the same
+/// one line the command itself would give), without clap's framing.
+#[derive(Debug)]
+pub struct Verbatim(pub String);
+
+impl std::fmt::Display for Verbatim {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(&self.0)
+    }
+}
+
+impl std::error::Error for Verbatim {}
+
+/// A permutation argument: 31524, "3 1 5 2 4" or 3,1,5,2,4 ([`Perm::parse`]).
+pub fn perm_arg(text: &str) -> Result<Perm, Verbatim> {
+    Perm::parse(text).map_err(|e| Verbatim(e.to_string()))
+}
+
+/// `--shard K/N` ([`Shard::parse`]).
+pub fn shard_arg(text: &str) -> Result<Shard, Verbatim> {
+    Shard::parse(text).map_err(|e| Verbatim(e.message()))
+}
+
+/// λ as `l1,...,ln` ([`super::inputs::parse_lambda`]).
+pub fn lambda_arg(text: &str) -> Result<Lambda, Verbatim> {
+    super::inputs::parse_lambda(text).map_err(|e| Verbatim(e.message()))
 }
 
 /// The help of `--n` where the quotient by J_n is computed.

@@ -63,10 +63,10 @@ enum Format {
 
 /// Runs the command, writing the survey through `sink`.
 pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
-    let shard = Shard::of_arg(args.shard.as_deref())?;
+    let shard = args.shard.unwrap_or(Shard::WHOLE);
     let (n, perms): (usize, Vec<Perm>) = match (&args.perm, args.n) {
-        (Some(text), _) => {
-            let w = Perm::parse(text)?;
+        (Some(w), _) => {
+            let w = w.clone();
             if w.n() > MAX_QUOTIENT_N {
                 return Err(CliError::Input(format!(
                     "{w} has n = {}; surveys run for n from 1 to {MAX_QUOTIENT_N}",

@@ -45,19 +45,10 @@ pub fn parse_lambda(text: &str) -> Result<Vec<BigRational>, CliError> {
         .collect()
 }
 
-/// Refuses a volume computation whose numbers would have more than
-/// [`crate::math::limits::VOLUME_DIGIT_LIMIT`] digits (the estimate is
-/// [`Permutohedron::volume_digit_estimate`], plus `extra` digits).
+/// Refuses a volume computation whose numbers would be too long
+/// ([`crate::math::sizing::check_volume`], the check the window makes too).
 pub fn check_volume_size(p: &Permutohedron, extra: u64, what: &str) -> Result<(), CliError> {
-    let limit = crate::math::limits::VOLUME_DIGIT_LIMIT;
-    let digits = p.volume_digit_estimate().saturating_add(extra);
-    if digits > limit {
-        return Err(CliError::Input(format!(
-            "{what} at n = {} works with numbers of about {digits} digits ((n − 1) times the digits of λ over a common denominator); at most {limit} are accepted",
-            p.n()
-        )));
-    }
-    Ok(())
+    Ok(crate::math::sizing::check_volume(p, extra, what)?)
 }
 
 /// The entries of a list typed as `a,b,c` or `a b c` (or both): between two

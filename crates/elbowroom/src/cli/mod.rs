@@ -234,6 +234,13 @@ fn report_usage_error(e: clap::Error) -> ExitCode {
             }
         }
         _ => {
+            // a typed reader's refusal is already the one line to print
+            if let Some(v) =
+                std::error::Error::source(&e).and_then(|s| s.downcast_ref::<args::Verbatim>())
+            {
+                report(&v.0);
+                return ExitCode::from(2);
+            }
             let rendered = e.to_string();
             let summary: Vec<&str> = rendered
                 .lines()
