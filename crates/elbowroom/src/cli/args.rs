@@ -384,6 +384,10 @@ pub struct SurveyArgs {
     /// Leave out the per-permutation normal forms.
     #[arg(long)]
     pub summary: bool,
+    /// Print JSON Lines: a header object, one object per result (as in --json),
+    /// one {"counterexample": ...} per counterexample, then a summary object.
+    #[arg(long, conflicts_with_all = ["json", "csv", "latex"])]
+    pub jsonl: bool,
     /// Run only piece K of N of the listing (item i goes to piece (i mod N) + 1).
     #[arg(long, value_name = "K/N", value_parser = shard_arg)]
     pub shard: Option<Shard>,

@@ -57,6 +57,8 @@ struct Job {
 enum Format {
     Text,
     Json,
+    /// JSON Lines: a header, one line per result, one per counterexample, a summary.
+    Jsonl,
     Csv,
     Latex,
 }
@@ -97,7 +99,9 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
         .filter(|(i, _)| shard.selects(*i))
         .map(|(_, w)| w)
         .collect();
-    let format = if args.output.json {
+    let format = if args.jsonl {
+        Format::Jsonl
+    } else if args.output.json {
         Format::Json
     } else if args.output.csv {
         Format::Csv
@@ -117,7 +121,7 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let summary = args.summary;
     match format {
         // the summary needs no normal form kept: the compact records
-        Format::Text | Format::Json if summary => stream(
+        Format::Text | Format::Json | Format::Jsonl if summary => stream(
             &job,
             &perms,
             sink,
@@ -125,7 +129,7 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
             &|_| None,
             &|_| None,
         ),
-        Format::Text | Format::Json => stream(
+        Format::Text | Format::Json | Format::Jsonl => stream(
             &job,
             &perms,
             sink,
@@ -176,7 +180,7 @@ fn stream<E: SurveyRecord>(
     json_nf: &dyn Fn(&E) -> Option<Value>,
 ) -> Result<(), CliError> {
     let n = job.n;
-    let json_out = job.format == Format::Json;
+    let json_out = matches!(job.format, Format::Json | Format::Jsonl);
     let row = |e: &E| {
         if json_out {
             json::render(&result_json(e, json_nf))
@@ -185,7 +189,9 @@ fn stream<E: SurveyRecord>(
         }
     };
     let counterexample = |e: &E| {
-        if json_out {
+        if job.format == Format::Jsonl {
+            json::render(&json!({"counterexample": counterexample_json(e, n)}))
+        } else if json_out {
             json::render(&counterexample_json(e, n))
         } else {
             counterexample_text(e, n)
@@ -199,7 +205,18 @@ fn stream<E: SurveyRecord>(
     let _watch = interrupt::watch(progress.clone());
     let bad = store.extras();
     let count = perms.len();
-    if json_out {
+    if job.format == Format::Jsonl {
+        let head = format!("{}\n", jsonl_header(job, count)?);
+        let tail = format!("\n{}", jsonl_summary(count, bad)?);
+        let frame = Frame {
+            head: &head,
+            sep: "\n",
+            between: if bad > 0 { "\n" } else { "" },
+            extra_sep: "\n",
+            tail: &tail,
+        };
+        write_out(sink, &mut store, &progress, &frame)
+    } else if json_out {
         let (head, tail) = json_frame(job, count, bad);
         let frame = Frame {
             head: &head,
@@ -330,6 +347,59 @@ fn write_out(
             "rows",
         )
     })
+}
+
+/// The first line of `survey --jsonl`: what the lines after it are.
+#[derive(serde::Serialize)]
+struct JsonlHeader<'a> {
+    kind: &'a str,
+    n: usize,
+    shard: &'a str,
+    count: usize,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    listed_total: Option<usize>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    listing: Option<&'static str>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    version: Option<&'static str>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    build: Option<&'static str>,
+}
+
+/// The last line of `survey --jsonl`: its presence says the output is complete.
+#[derive(serde::Serialize)]
+struct JsonlSummary {
+    summary: &'static str,
+    count: usize,
+    all_nonnegative: bool,
+    counterexamples: usize,
+}
+
+fn jsonl_header(job: &Job, count: usize) -> Result<String, CliError> {
+    let large = job.n > FULL_LISTING_MAX_N;
+    let header = JsonlHeader {
+        kind: SURVEY_KIND,
+        n: job.n,
+        shard: &job.shard,
+        count,
+        listed_total: large.then_some(job.listed_total),
+        listing: large.then(|| listing_name(job.n)),
+        version: large.then_some(env!("CARGO_PKG_VERSION")),
+        build: (job.shard != "1/1").then_some(super::documents::BUILD),
+    };
+    serde_json::to_string(&header)
+        .map_err(|e| CliError::Failed(format!("cannot write the header: {e}")))
+}
+
+fn jsonl_summary(count: usize, bad: usize) -> Result<String, CliError> {
+    let summary = JsonlSummary {
+        summary: SURVEY_KIND,
+        count,
+        all_nonnegative: bad == 0,
+        counterexamples: bad,
+    };
+    serde_json::to_string(&summary)
+        .map_err(|e| CliError::Failed(format!("cannot write the summary: {e}")))
 }
 
 /// One result of the JSON, `"normal_form"` last when `normal_form` gives one.
