@@ -790,3 +790,38 @@ fn version_names_the_build_and_completions_and_manual_are_printed() {
     );
     refused(&["completions", "tcsh"], &["tcsh"]);
 }
+
+#[test]
+fn session_check_escapes_titles_and_speaks_no_ron() {
+    let dir = scratch("session-words");
+    let escape = dir.join("escape.ron");
+    std::fs::write(
+        &escape,
+        "(format: \"elbowroom-session\", version: 1, session: (title: \"a\\u{1b}[31mred\", n: 4))",
+    )
+    .unwrap();
+    let out = bounded(&["session", "check", escape.to_str().unwrap()]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(!text.contains('\u{1b}'), "{text:?}");
+    assert!(text.contains("a\\u{1b}[31mred"), "{text}");
+    let number = dir.join("number.ron");
+    std::fs::write(
+        &number,
+        "(format: \"elbowroom-session\", version: 1, session: (title: \"x\", view: 0.35))",
+    )
+    .unwrap();
+    let err = refused(
+        &["session", "check", number.to_str().unwrap()],
+        &["`0.35` is not accepted here"],
+    );
+    assert!(
+        !err.contains("raw identifier") && !err.contains("std identifier"),
+        "{err}"
+    );
+    let _ = std::fs::remove_dir_all(&dir);
+}
