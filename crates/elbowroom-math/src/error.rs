@@ -31,6 +31,10 @@ pub enum MathError {
     /// Any other malformed input (a Hessenberg function, a composition, ...).
     #[error("invalid input: {0}")]
     InvalidInput(String),
+    /// A computation past its documented size, refused before it starts: the
+    /// message names the estimate and the limit ([`crate::sizing`]).
+    #[error("{0}")]
+    TooLarge(String),
     /// The computation was cancelled before it finished.
     #[error("canceled")]
     Canceled,

@@ -18,8 +18,10 @@
 //! 8. [`permutohedra`]: permutohedron volumes and mixed Eulerian numbers.
 
 pub mod error;
+pub mod excerpt;
 pub mod limits;
 pub mod progress;
+pub mod sizing;
 
 pub mod perms;
 pub mod poly;

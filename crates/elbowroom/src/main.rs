@@ -20,7 +20,7 @@ fn open_session_file(path: &std::path::Path) -> ExitCode {
     let session = match elbowroom::session::store::load(path) {
         Ok(s) => s,
         Err(e) => {
-            eprintln!("elbowroom: {e}");
+            elbowroom::cli::report(&e.to_string());
             show_refusal(path, e.to_string());
             return ExitCode::from(2);
         }
@@ -83,14 +83,14 @@ fn open_explorer() -> ExitCode {
 fn window_failure(reason: &str) -> ExitCode {
     let unset = |name: &str| std::env::var_os(name).is_none_or(|v| v.is_empty());
     if unset("DISPLAY") && unset("WAYLAND_DISPLAY") && unset("WAYLAND_SOCKET") {
-        eprintln!(
-            "elbowroom: the explorer window could not open: there is no display (DISPLAY and WAYLAND_DISPLAY are unset); the headless commands need none, see 'elbowroom --help'"
+        elbowroom::cli::report(
+            "the explorer window could not open: there is no display (DISPLAY and WAYLAND_DISPLAY are unset); the headless commands need none, see 'elbowroom --help'",
         );
     } else {
-        eprintln!(
-            "elbowroom: the explorer window could not open: {}",
+        elbowroom::cli::report(&format!(
+            "the explorer window could not open: {}",
             without_source_locations(reason)
-        );
+        ));
     }
     ExitCode::FAILURE
 }

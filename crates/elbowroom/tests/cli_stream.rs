@@ -50,6 +50,11 @@ fn streamed_tables_equal_the_collected_ones() {
                 ];
                 let mut with_json = base.to_vec();
                 with_json.push("--json");
+                if table.listed < shard.count {
+                    // a split into more pieces than the listing has rows is refused
+                    rejects(&with_json, "beyond the listing");
+                    continue;
+                }
                 assert_eq!(
                     stdout(&with_json),
                     render(&hessenberg_table_json(&table, shard)) + "\n",
@@ -200,5 +205,28 @@ fn merge_rechecks_every_piece() {
     );
     rejects(&["merge", &files[0], &version, &files[2]], "\"version\"");
     rejects(&["merge", &files[0], &files[2]], "pieces 2/3 are missing");
+    // pieces are read as JSON: white space after the colons changes nothing
+    let spaced = variant("spaced.json", texts[1].replace("\":", "\": "));
+    assert_eq!(stdout(&["merge", &files[0], &spaced, &files[2]]), merged);
+    // a piece of another build is refused, naming the builds
+    let build = format!("\"build\":\"{}\"", elbowroom::cli::documents::BUILD);
+    assert!(texts[1].contains(&build), "a piece names its build");
+    let other = variant(
+        "build.json",
+        texts[1].replace(&build, "\"build\":\"0123456789ab\""),
+    );
+    rejects(
+        &["merge", &files[0], &other, &files[2]],
+        "build 0123456789ab",
+    );
+    // a split into N pieces with N far beyond the listing costs nothing to refuse
+    let one = variant(
+        "wide.json",
+        texts[0].replace("\"shard\":\"1/3\"", "\"shard\":\"1/18446744073709551615\""),
+    );
+    rejects(
+        &["merge", &one],
+        "and 18446744073709551609 more are missing",
+    );
     std::fs::remove_dir_all(&dir).ok();
 }

@@ -84,7 +84,7 @@ fn streamed_survey_equals_the_collected_one() {
         let n_arg = n.to_string();
         for shard in [Shard::WHOLE, Shard { index: 2, count: 3 }] {
             let shard_arg = format!("{}/{}", shard.index, shard.count);
-            if survey_listing(n).len() < shard.index {
+            if survey_listing(n).len() < shard.count {
                 rejects(
                     &["survey", "--n", &n_arg, "--shard", &shard_arg],
                     "beyond the listing",
@@ -222,5 +222,51 @@ fn ctrl_c_stops_a_survey_and_says_so() {
         );
         assert_eq!(err.trim().lines().count(), 1, "{args:?}: {err}");
         assert!(out.stdout.is_empty(), "{args:?}");
+    }
+}
+
+/// `survey --jsonl` carries what `--json` does, a line at a time: a header
+/// with the kind, n, the piece and the count; the results in listing order
+/// (each one the object of `--json`); one `{"counterexample": ...}` per
+/// counterexample; and a summary whose "all_nonnegative" is the JSON's.
+#[test]
+fn json_lines_carry_the_json_document() {
+    for n in 1..=5usize {
+        let n_arg = n.to_string();
+        for shard in ["1/1", "2/2"] {
+            if n == 1 && shard == "2/2" {
+                continue;
+            }
+            for summary in [false, true] {
+                let mut args = vec!["survey", "--n", &n_arg, "--shard", shard];
+                if summary {
+                    args.push("--summary");
+                }
+                let whole = common::json(&[args.clone(), vec!["--json"]].concat());
+                let out = common::run(&[args, vec!["--jsonl"]].concat());
+                assert!(out.status.success());
+                let lines: Vec<serde_json::Value> = String::from_utf8(out.stdout)
+                    .unwrap()
+                    .lines()
+                    .map(|l| serde_json::from_str(l).unwrap())
+                    .collect();
+                let header = &lines[0];
+                for key in ["kind", "n", "shard", "count"] {
+                    assert_eq!(header[key], whole[key], "{key}");
+                }
+                let results = whole["results"].as_array().unwrap();
+                let counter = whole["counterexamples"].as_array().unwrap();
+                assert_eq!(&lines[1..=results.len()], &results[..]);
+                let extra: Vec<serde_json::Value> = lines[results.len() + 1..lines.len() - 1]
+                    .iter()
+                    .map(|l| l["counterexample"].clone())
+                    .collect();
+                assert_eq!(&extra, counter);
+                let last = &lines[lines.len() - 1];
+                assert_eq!(last["summary"], "quotient_survey");
+                assert_eq!(last["all_nonnegative"], whole["all_nonnegative"]);
+                assert_eq!(last["count"], whole["count"]);
+            }
+        }
     }
 }

@@ -69,6 +69,7 @@ impl Perm {
     /// Parses one-line notation: `31524` (digits, n <= 9), `3 1 5 2 4`, `3,1,5,2,4`
     /// (the comma or space form is needed for n >= 10); brackets are ignored.
     pub fn parse(text: &str) -> MathResult<Perm> {
+        let shown = crate::excerpt::excerpt(text);
         let trimmed = text
             .trim()
             .trim_start_matches(['[', '('])
@@ -76,7 +77,7 @@ impl Perm {
             .trim();
         if trimmed.is_empty() {
             return Err(MathError::InvalidPermutation(format!(
-                "'{text}' is empty; accepted: 31524, 3 1 5 2 4 or 3,1,5,2,4"
+                "'{shown}' is empty; accepted: 31524, 3 1 5 2 4 or 3,1,5,2,4"
             )));
         }
         let has_sep = trimmed.contains([',', ' ', '\t']);
@@ -85,13 +86,14 @@ impl Perm {
             // between two commas there must be an entry: `1,,2` is not 12
             if trimmed.split(',').any(|piece| piece.trim().is_empty()) {
                 return Err(MathError::InvalidPermutation(format!(
-                    "'{text}' has an empty entry between commas; accepted: 31524, 3 1 5 2 4 or 3,1,5,2,4"
+                    "'{shown}' has an empty entry between commas; accepted: 31524, 3 1 5 2 4 or 3,1,5,2,4"
                 )));
             }
             for tok in trimmed.split([',', ' ', '\t']).filter(|t| !t.is_empty()) {
                 let v: usize = tok.parse().map_err(|_| {
+                    let tok = crate::excerpt::excerpt(tok);
                     MathError::InvalidPermutation(format!(
-                        "'{tok}' in '{text}' is not a positive integer; accepted: 31524, 3 1 5 2 4 or 3,1,5,2,4"
+                        "'{tok}' in '{shown}' is not a positive integer; accepted: 31524, 3 1 5 2 4 or 3,1,5,2,4"
                     ))
                 })?;
                 values.push(v);
@@ -99,14 +101,15 @@ impl Perm {
         } else {
             for ch in trimmed.chars() {
                 let Some(d) = ch.to_digit(10) else {
+                    let ch = crate::excerpt::excerpt(&ch.to_string());
                     return Err(MathError::InvalidPermutation(format!(
-                        "'{ch}' in '{text}' is not a digit; accepted: 31524, 3 1 5 2 4 or 3,1,5,2,4"
+                        "'{ch}' in '{shown}' is not a digit; accepted: 31524, 3 1 5 2 4 or 3,1,5,2,4"
                     )));
                 };
                 values.push(d as usize);
             }
         }
-        Perm::from_one_line(&values).map_err(|e| annotate(e, &format!("in '{text}'")))
+        Perm::from_one_line(&values).map_err(|e| annotate(e, &format!("in '{shown}'")))
     }
 
     /// Builds the permutation of S_n with Lehmer code `code` (c_i <= n - i).

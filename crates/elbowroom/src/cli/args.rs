@@ -2,13 +2,15 @@
 //! command, one struct per command. The command modules read these; this
 //! module imports none of them. The doc comments are the `--help` texts.
 
+use super::shard::Shard;
+use crate::math::Perm;
 use crate::tables::table::Table;
 use clap::{Args, Parser, Subcommand, ValueEnum};
 use std::path::PathBuf;
 
 /// elbowroom: exact Schubert calculus. With no command, opens the explorer.
 #[derive(Parser, Debug)]
-#[command(name = "elbowroom", version, about, long_about = None)]
+#[command(name = "elbowroom", version = VERSION_LINE, about, long_about = None)]
 pub struct Cli {
     /// The headless command to run; none opens the explorer.
     #[command(subcommand)]
@@ -50,14 +52,86 @@ pub enum Command {
     Session(SessionArgs),
     /// Draws a figure and writes it as PNG, SVG or TikZ (`figure dream 1432 --out f.png`).
     Figure(FigureArgs),
+    /// Prints a completion script for a shell (`elbowroom completions bash > …`).
+    Completions(CompletionsArgs),
+    /// Prints the manual page (roff; `elbowroom man > elbowroom.1`).
+    Man,
+}
+
+/// The commit the program was built from ("unknown" outside a git checkout).
+pub const BUILD: &str = env!("ELBOWROOM_COMMIT");
+
+/// What `--version` prints after the name: the version, the commit and the
+/// optional features built in.
+#[cfg(feature = "gui")]
+pub const VERSION_LINE: &str = concat!(
+    env!("CARGO_PKG_VERSION"),
+    " (commit ",
+    env!("ELBOWROOM_COMMIT"),
+    "; features: gui)"
+);
+
+/// What `--version` prints after the name: the version, the commit and the
+/// optional features built in.
+#[cfg(not(feature = "gui"))]
+pub const VERSION_LINE: &str = concat!(
+    env!("CARGO_PKG_VERSION"),
+    " (commit ",
+    env!("ELBOWROOM_COMMIT"),
+    "; features: none)"
+);
+
+impl Command {
+    /// The file given with `--out` for a command whose output (otherwise on
+    /// standard output) goes there instead.
+    pub fn out_file(&self) -> Option<&std::path::Path> {
+        match self {
+            Command::Hessenberg(a) => a.output.out.as_deref(),
+            Command::Eulerian(a) => a.output.out.as_deref(),
+            Command::Survey(a) => a.output.out.as_deref(),
+            Command::Words(a) => a.out.out.as_deref(),
+            Command::Dreams(a) => a.out.out.as_deref(),
+            Command::Merge(a) => a.out.out.as_deref(),
+            _ => None,
+        }
+    }
+}
+
+/// The shells `elbowroom completions` writes scripts for.
+#[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
+pub enum ShellArg {
+    /// bash
+    Bash,
+    /// zsh
+    Zsh,
+    /// fish
+    Fish,
+}
+
+/// Arguments of `elbowroom completions`.
+#[derive(Args, Debug)]
+pub struct CompletionsArgs {
+    /// The shell.
+    #[arg(value_enum)]
+    pub shell: ShellArg,
+}
+
+/// `--out FILE`: the output written to FILE instead of standard output,
+/// through a temporary file renamed to FILE only when complete.
+#[derive(Args, Debug, Default)]
+pub struct OutFile {
+    /// Write the output to this file instead of standard output; it appears
+    /// only when complete (a stopped run leaves no file).
+    #[arg(long, value_name = "FILE")]
+    pub out: Option<PathBuf>,
 }
 
 /// Arguments of `elbowroom perm`.
 #[derive(Args, Debug)]
 pub struct PermArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4 (commas needed for n >= 10).
-    #[arg(allow_hyphen_values = true)]
-    pub perm: String,
+    #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
+    pub perm: Perm,
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
@@ -67,8 +141,8 @@ pub struct PermArgs {
 #[derive(Args, Debug)]
 pub struct SchubertArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4.
-    #[arg(allow_hyphen_values = true)]
-    pub perm: String,
+    #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
+    pub perm: Perm,
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
@@ -81,8 +155,8 @@ pub struct SchubertArgs {
 #[derive(Args, Debug)]
 pub struct WordsArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4.
-    #[arg(allow_hyphen_values = true)]
-    pub perm: String,
+    #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
+    pub perm: Perm,
     /// List at most this many words (the first ones in lexicographic order).
     #[arg(long, default_value_t = 1000, allow_hyphen_values = true, value_parser = whole_count)]
     pub limit: usize,
@@ -92,14 +166,17 @@ pub struct WordsArgs {
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
+    /// Where the output goes.
+    #[command(flatten)]
+    pub out: OutFile,
 }
 
 /// Arguments of `elbowroom dreams`.
 #[derive(Args, Debug)]
 pub struct DreamsArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4.
-    #[arg(allow_hyphen_values = true)]
-    pub perm: String,
+    #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
+    pub perm: Perm,
     /// List at most this many dreams.
     #[arg(long, default_value_t = 1000, allow_hyphen_values = true, value_parser = whole_count)]
     pub limit: usize,
@@ -112,6 +189,9 @@ pub struct DreamsArgs {
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
+    /// Where the output goes.
+    #[command(flatten)]
+    pub out: OutFile,
 }
 
 /// Arguments of `elbowroom divsym`.
@@ -141,8 +221,8 @@ pub struct HessenbergArgs {
     #[arg(long, allow_hyphen_values = true)]
     pub h: Option<String>,
     /// Compute only piece K of N (K/N): the permutations at listing positions i with i mod N = K-1.
-    #[arg(long, allow_hyphen_values = true)]
-    pub shard: Option<String>,
+    #[arg(long, allow_hyphen_values = true, value_parser = shard_arg)]
+    pub shard: Option<Shard>,
     /// Summarise the table of every Hessenberg function of n (Catalan(n) of
     /// them): dimension, total, nonzero entries, maximum, negative entries.
     #[arg(long, conflicts_with_all = ["h", "shard"])]
@@ -173,11 +253,11 @@ pub struct ExpandArgs {
 #[derive(Args, Debug)]
 pub struct ProductArgs {
     /// The permutation u: 132, "1 3 2" or 1,3,2.
-    #[arg(allow_hyphen_values = true)]
-    pub u: String,
+    #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
+    pub u: Perm,
     /// The permutation v.
-    #[arg(allow_hyphen_values = true)]
-    pub v: String,
+    #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
+    pub v: Perm,
     /// Multiply in H*(Fl_N) instead of stably (u and v must lie in S_N).
     #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: Option<usize>,
@@ -190,8 +270,8 @@ pub struct ProductArgs {
 #[derive(Args, Debug)]
 pub struct VolumeArgs {
     /// λ_1,...,λ_n: rationals in any order, repeats allowed (for example 3,1/2,-1,0).
-    #[arg(long, allow_hyphen_values = true)]
-    pub lambda: String,
+    #[arg(long, allow_hyphen_values = true, value_parser = lambda_arg)]
+    pub lambda: Lambda,
     /// Also give the volume as a polynomial in λ_1..λ_n (valid on λ_1 >= ... >= λ_n).
     #[arg(long)]
     pub polynomial: bool,
@@ -224,6 +304,10 @@ pub struct TableOutput {
     /// Print a LaTeX tabular.
     #[arg(long)]
     pub latex: bool,
+    /// Write the output to this file instead of standard output; it appears
+    /// only when complete (a stopped run leaves no file).
+    #[arg(long, value_name = "FILE")]
+    pub out: Option<PathBuf>,
 }
 
 impl TableOutput {
@@ -245,13 +329,16 @@ pub struct MergeArgs {
     /// The JSON outputs of the pieces of one sharded run.
     #[arg(required = true)]
     pub files: Vec<PathBuf>,
+    /// Where the output goes.
+    #[command(flatten)]
+    pub out: OutFile,
 }
 
 /// Arguments of `elbowroom quotient`.
 #[derive(Args, Debug)]
 pub struct QuotientArgs {
-    /// The number of variables n (1 to 8).
-    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
+    /// The number of variables n (the help names the range from the limits).
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n, help = quotient_n_help())]
     pub n: usize,
     /// Print one JSON object instead of text.
     #[arg(long)]
@@ -267,8 +354,8 @@ pub struct ReduceArgs {
     /// The polynomial, e.g. "x1^2 x2 - 3/2 x3" or "M(2,1) + F(1,1)".
     #[arg(allow_hyphen_values = true)]
     pub poly: String,
-    /// The number of variables n (1 to 8).
-    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
+    /// The number of variables n (the help names the range from the limits).
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n, help = quotient_n_help())]
     pub n: usize,
     /// Print one JSON object instead of text.
     #[arg(long)]
@@ -278,8 +365,9 @@ pub struct ReduceArgs {
 /// Arguments of `elbowroom survey`.
 #[derive(Args, Debug)]
 pub struct SurveyArgs {
-    /// Survey all of S_n (1 <= n <= 8).
+    /// Survey all of S_n (the help names the range from the limits).
     #[arg(
+        help = format!("Survey all of S_n (1 <= n <= {})", crate::math::quotient::groebner::MAX_QUOTIENT_N),
         long,
         conflicts_with = "perm",
         required_unless_present = "perm",
@@ -288,17 +376,21 @@ pub struct SurveyArgs {
     )]
     pub n: Option<usize>,
     /// Survey one permutation, e.g. 2143.
-    #[arg(long)]
-    pub perm: Option<String>,
+    #[arg(long, value_parser = perm_arg)]
+    pub perm: Option<Perm>,
     /// How to print the results.
     #[command(flatten)]
     pub output: TableOutput,
     /// Leave out the per-permutation normal forms.
     #[arg(long)]
     pub summary: bool,
+    /// Print JSON Lines: a header object, one object per result (as in --json),
+    /// one {"counterexample": ...} per counterexample, then a summary object.
+    #[arg(long, conflicts_with_all = ["json", "csv", "latex"])]
+    pub jsonl: bool,
     /// Run only piece K of N of the listing (item i goes to piece (i mod N) + 1).
-    #[arg(long, value_name = "K/N")]
-    pub shard: Option<String>,
+    #[arg(long, value_name = "K/N", value_parser = shard_arg)]
+    pub shard: Option<Shard>,
 }
 
 /// Arguments of `elbowroom session`.
@@ -412,8 +504,8 @@ pub struct FigureArgs {
     /// paths: the polynomial to reduce instead of the reversed Schubert polynomial.
     #[arg(long, allow_hyphen_values = true)]
     pub poly: Option<String>,
-    /// paths: the number of variables for --poly (1 to 8).
-    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
+    /// paths: the number of variables for --poly (the help names the range).
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n, help = format!("paths: the number of variables for --poly (1 to {})", crate::math::quotient::groebner::MAX_QUOTIENT_N))]
     pub n: Option<usize>,
     /// paths: panels per row (default: about the square root of their number).
     #[arg(long, allow_hyphen_values = true, value_parser = whole_count)]
@@ -422,8 +514,8 @@ pub struct FigureArgs {
     #[arg(long)]
     pub legend: bool,
     /// permutohedron: λ_1,...,λ_n (rationals, n <= 5).
-    #[arg(long, allow_hyphen_values = true)]
-    pub lambda: Option<String>,
+    #[arg(long, allow_hyphen_values = true, value_parser = lambda_arg)]
+    pub lambda: Option<Lambda>,
     /// permutohedron: turn about the vertical axis, in radians.
     #[arg(long, default_value_t = 0.6, allow_hyphen_values = true, value_parser = finite_angle)]
     pub yaw: f32,
@@ -431,11 +523,11 @@ pub struct FigureArgs {
     #[arg(long, default_value_t = 0.35, allow_hyphen_values = true, value_parser = finite_angle)]
     pub pitch: f32,
     /// volume: the start λ_a of the segment.
-    #[arg(long, allow_hyphen_values = true)]
-    pub from: Option<String>,
+    #[arg(long, allow_hyphen_values = true, value_parser = lambda_arg)]
+    pub from: Option<Lambda>,
     /// volume: the end λ_b of the segment.
-    #[arg(long, allow_hyphen_values = true)]
-    pub to: Option<String>,
+    #[arg(long, allow_hyphen_values = true, value_parser = lambda_arg)]
+    pub to: Option<Lambda>,
     /// volume: the number of intervals sampled on the segment (1 to 400).
     #[arg(long, default_value_t = 24, allow_hyphen_values = true, value_parser = whole_count)]
     pub samples: usize,
@@ -445,6 +537,45 @@ pub struct FigureArgs {
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
+}
+
+/// λ = (λ_1, ..., λ_n), exact rationals as typed.
+pub type Lambda = Vec<num_rational::BigRational>;
+
+/// A refusal by one of the typed readers below, printed as it is (the same
+/// one line the command itself would give), without clap's framing.
+#[derive(Debug)]
+pub struct Verbatim(pub String);
+
+impl std::fmt::Display for Verbatim {
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(&self.0)
+    }
+}
+
+impl std::error::Error for Verbatim {}
+
+/// A permutation argument: 31524, "3 1 5 2 4" or 3,1,5,2,4 ([`Perm::parse`]).
+pub fn perm_arg(text: &str) -> Result<Perm, Verbatim> {
+    Perm::parse(text).map_err(|e| Verbatim(e.to_string()))
+}
+
+/// `--shard K/N` ([`Shard::parse`]).
+pub fn shard_arg(text: &str) -> Result<Shard, Verbatim> {
+    Shard::parse(text).map_err(|e| Verbatim(e.message()))
+}
+
+/// λ as `l1,...,ln` ([`super::inputs::parse_lambda`]).
+pub fn lambda_arg(text: &str) -> Result<Lambda, Verbatim> {
+    super::inputs::parse_lambda(text).map_err(|e| Verbatim(e.message()))
+}
+
+/// The help of `--n` where the quotient by J_n is computed.
+fn quotient_n_help() -> String {
+    format!(
+        "The number of variables n (1 to {})",
+        crate::math::quotient::groebner::MAX_QUOTIENT_N
+    )
 }
 
 /// `--n`: a whole number. Negative numbers and other text are refused here,
@@ -494,15 +625,13 @@ pub fn finite_angle(text: &str) -> Result<f32, String> {
     }
 }
 
-/// A typed value as quoted in a message: a short excerpt of a long one.
+/// A typed value as quoted in a message: a short excerpt of a long one,
+/// control characters escaped.
 fn quoted(text: &str) -> String {
-    let limit = crate::math::limits::QUOTE_LIMIT;
     if text.trim().is_empty() {
         "nothing".into()
-    } else if text.chars().count() <= limit {
-        text.to_string()
     } else {
-        format!("{}…", text.chars().take(limit).collect::<String>())
+        crate::math::excerpt::excerpt(text)
     }
 }
 

@@ -13,7 +13,6 @@ use super::json;
 use crate::math::RatPoly;
 use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize_with};
 use crate::math::hessenberg::function::HessenbergFn;
-use crate::math::limits::{DIVSYM_PRODUCT_LIMIT, DIVSYM_TERM_LIMIT, binomial, monomials_of_degree};
 use crate::math::poly::parse::parse_poly;
 use crate::math::{MathError, Progress};
 use serde_json::{Value, json};
@@ -65,41 +64,10 @@ pub fn run(args: &DivsymArgs) -> Result<String, CliError> {
     Ok(out)
 }
 
-/// Refuses DS_h(f) before it starts when its answer could have more than
-/// [`DIVSYM_TERM_LIMIT`] monomials (it is symmetric of degree deg f − dim, so
-/// at most C(deg f − dim + n − 1, n − 1) of them), or when f·Q_h could have
-/// more than [`DIVSYM_PRODUCT_LIMIT`] terms (terms(f) times
-/// min(2^k, C(k + n − 1, n − 1)) for the k factors of Q_h).
+/// Refuses DS_h(f) before it starts when it is past its limits
+/// ([`crate::math::sizing::check_divsym`], the check the window makes too).
 pub fn check_budget(f: &RatPoly, h: &HessenbergFn) -> Result<(), CliError> {
-    let n = h.n() as u64;
-    let dim = h.dimension() as u64;
-    let degree = u64::from(f.degree());
-    if !f.is_zero() && degree > dim {
-        let monomials = monomials_of_degree(degree - dim, n);
-        if monomials > DIVSYM_TERM_LIMIT {
-            return Err(CliError::Input(format!(
-                "DS_h(f) is symmetric of degree {} in {n} variables and may have {monomials} monomials; at most {DIVSYM_TERM_LIMIT} are accepted",
-                degree - dim
-            )));
-        }
-    }
-    let needs_q = degree > dim || (degree == dim && !h.is_default());
-    if needs_q {
-        let k = h.complement_pairs().len() as u64;
-        let q_terms = if k >= 127 {
-            u128::MAX
-        } else {
-            (1u128 << k).min(binomial(k + n - 1, n - 1))
-        };
-        let product = (f.len() as u128).saturating_mul(q_terms);
-        if product > DIVSYM_PRODUCT_LIMIT {
-            return Err(CliError::Input(format!(
-                "DS_h(f) goes through f·Q_h: {} terms of f times up to {q_terms} terms of Q_h is {product}; at most {DIVSYM_PRODUCT_LIMIT} are accepted",
-                f.len()
-            )));
-        }
-    }
-    Ok(())
+    Ok(crate::math::sizing::check_divsym(f, h)?)
 }
 
 /// DS_h(f) on a thread of its own while this thread watches for Ctrl-C: an

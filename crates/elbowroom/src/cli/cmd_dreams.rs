@@ -22,7 +22,7 @@ pub const BUMPLESS_LIMIT: u64 = 200_000;
 
 /// Runs the command.
 pub fn run(args: &DreamsArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
-    let w = Perm::parse(&args.perm)?;
+    let w = args.perm.clone();
     // the number of reduced pipe dreams, S_w(1, ..., 1); by Lam–Lee–Shimozono it
     // is also the number of bumpless pipe dreams
     let count = count_pipe_dreams(&w);

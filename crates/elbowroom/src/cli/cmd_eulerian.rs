@@ -6,7 +6,6 @@ use super::args::EulerianArgs;
 use super::error::CliError;
 use super::interrupt;
 use super::json;
-use crate::math::limits::{EULERIAN_WORK_LIMIT, binomial, monomials_of_degree};
 use crate::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
 use crate::tables::results::eulerian_table;
 use num_bigint::BigInt;
@@ -21,16 +20,7 @@ pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
             crate::math::MAX_N
         )));
     }
-    let n = args.n as u64;
-    let compositions = binomial(2 * n - 3, n - 2);
-    let work = compositions.saturating_mul(monomials_of_degree(n - 1, n));
-    if work > EULERIAN_WORK_LIMIT {
-        return Err(CliError::Input(format!(
-            "mixed Eulerian numbers at n = {n}: {compositions} compositions, each over {} monomials of degree {}, is {work} steps; at most {EULERIAN_WORK_LIMIT} are accepted (n <= 10)",
-            monomials_of_degree(n - 1, n),
-            n - 1
-        )));
-    }
+    crate::math::sizing::check_eulerian(args.n)?;
     let numbers = interrupt::run_interruptible("the computation", "compositions", 0, |progress| {
         mixed_eulerian_numbers(args.n, progress)
     })?;

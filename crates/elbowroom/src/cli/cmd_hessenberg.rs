@@ -33,7 +33,8 @@ pub fn run(args: &HessenbergArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
         return sink.whole(&every_h(args)?);
     }
     let h = hessenberg_from_args(args.n, args.h.as_deref())?;
-    let shard = Shard::of_arg(args.shard.as_deref())?;
+    let shard = args.shard.unwrap_or(Shard::WHOLE);
+    shard.check_fits(rows::size_class_table(&h)? as usize)?;
     if args.output.latex {
         // a LaTeX table names its totals above the rows: collected (sized like the rest)
         let table = interrupt::run_interruptible("the table", "permutations", 0, |progress| {
@@ -63,12 +64,16 @@ pub fn run(args: &HessenbergArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
         stream.row(sink, row.line, &row.value)
     });
     let rows_written = stream.summary.rows as u64;
+    // a cancel counts the rows written out of the rows of this piece (the
+    // walk's own counter runs ahead of the output, in parallel)
+    let counted = Progress::new(stream.selected() as u64);
+    counted.advance(rows_written);
     walked.map_err(|e| {
         interrupt::or_canceled(
             e,
             "the table",
             "permutations",
-            &progress,
+            &counted,
             rows_written,
             "rows",
         )

@@ -17,21 +17,23 @@
 use super::args::MergeArgs;
 use super::documents::{HESSENBERG_KIND, HessenbergJsonStream, SURVEY_KIND, VERSION};
 use super::error::CliError;
+use super::interrupt;
 use super::json;
 use super::json_reader::JsonReader;
 use super::merge_survey::merge_surveys;
 use super::output::Sink;
 use super::shard::Shard;
-use crate::math::MathError;
 use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::hessenberg::rows::RowSummary;
 use crate::math::perms::listing::{for_each_of_length, mahonian_row};
+use crate::math::{MathError, Progress};
 use num_bigint::BigInt;
 use serde_json::Value;
 use std::collections::BTreeSet;
 use std::fs::File;
-use std::io::{BufReader, Read, Seek, SeekFrom};
+use std::io::{BufReader, Read};
 use std::path::{Path, PathBuf};
+use std::sync::Arc;
 
 /// The largest piece read: a whole table of n = 16 (43 874 857 rows of about
 /// 66 bytes) is about 2.9 GB; 4 GB leaves room and refuses anything larger.
@@ -54,7 +56,7 @@ pub fn run(args: &MergeArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
         if *k != kind {
             return Err(CliError::Input(format!(
                 "{} has kind '{k}' but the first file has kind '{kind}'; merge pieces of one run",
-                path.display()
+                shown(path)
             )));
         }
     }
@@ -77,17 +79,17 @@ pub fn run(args: &MergeArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
 /// larger than [`MERGE_FILE_LIMIT`].
 fn check_file(path: &Path) -> Result<(), CliError> {
     let meta = std::fs::metadata(path)
-        .map_err(|e| CliError::Input(format!("cannot read {}: {e}", path.display())))?;
+        .map_err(|e| CliError::Input(format!("cannot read {}: {e}", shown(path))))?;
     if !meta.is_file() {
         return Err(CliError::Input(format!(
             "{} is not a regular file; merge reads the JSON files of the pieces",
-            path.display()
+            shown(path)
         )));
     }
     if meta.len() > MERGE_FILE_LIMIT {
         return Err(CliError::Input(format!(
             "{} has {} bytes, more than the {MERGE_FILE_LIMIT} accepted for a piece",
-            path.display(),
+            shown(path),
             meta.len()
         )));
     }
@@ -96,14 +98,14 @@ fn check_file(path: &Path) -> Result<(), CliError> {
 
 fn open(path: &Path) -> Result<JsonReader<BufReader<File>>, CliError> {
     let file = File::open(path)
-        .map_err(|e| CliError::Input(format!("cannot read {}: {e}", path.display())))?;
+        .map_err(|e| CliError::Input(format!("cannot read {}: {e}", shown(path))))?;
     JsonReader::new(BufReader::with_capacity(1 << 16, file)).map_err(|e| not_json(path, &e))
 }
 
 fn not_json(path: &Path, why: &str) -> CliError {
     CliError::Input(format!(
         "{} is not a JSON output of elbowroom: {why}",
-        path.display()
+        shown(path)
     ))
 }
 
@@ -125,13 +127,13 @@ fn read_whole(path: &Path) -> Result<Value, CliError> {
     if len > SURVEY_FILE_LIMIT {
         return Err(CliError::Input(format!(
             "{} has {len} bytes, more than the {SURVEY_FILE_LIMIT} accepted for a survey piece",
-            path.display()
+            shown(path)
         )));
     }
     let mut text = String::new();
     File::open(path)
         .and_then(|f| f.take(SURVEY_FILE_LIMIT + 1).read_to_string(&mut text))
-        .map_err(|e| CliError::Input(format!("cannot read {}: {e}", path.display())))?;
+        .map_err(|e| CliError::Input(format!("cannot read {}: {e}", shown(path))))?;
     serde_json::from_str(&text).map_err(|e| not_json(path, &e.to_string()))
 }
 
@@ -142,6 +144,7 @@ struct Piece {
     h: HessenbergFn,
     listed: usize,
     shard: Shard,
+    build: Option<String>,
 }
 
 impl Piece {
@@ -155,7 +158,7 @@ fn read_head(
     path: &Path,
     r: &mut JsonReader<BufReader<File>>,
 ) -> Result<(HessenbergFn, usize), CliError> {
-    let name = path.display().to_string();
+    let name = shown(path);
     let bad = |what: &str| CliError::Input(format!("{name}: {what}"));
     let mut head = serde_json::Map::new();
     loop {
@@ -207,36 +210,57 @@ fn read_head(
     Ok((h, listed))
 }
 
-/// The `"shard"` and `"version"` labels, found near the end of the file (they
-/// follow the coefficients); the full read checks them again.
-fn labels_at_end(path: &Path) -> Result<(Shard, Option<String>), CliError> {
-    let name = path.display().to_string();
-    let mut file =
-        File::open(path).map_err(|e| CliError::Input(format!("cannot read {name}: {e}")))?;
-    let len = file.metadata().map(|m| m.len()).unwrap_or(0);
-    file.seek(SeekFrom::Start(len.saturating_sub(4096)))
-        .map_err(|e| CliError::Input(format!("cannot read {name}: {e}")))?;
-    let mut tail = Vec::new();
-    file.read_to_end(&mut tail)
-        .map_err(|e| CliError::Input(format!("cannot read {name}: {e}")))?;
-    let tail = String::from_utf8_lossy(&tail);
-    if !tail.trim_end().ends_with('}') {
-        return Err(CliError::Input(format!(
-            "{name}: cut short: the file ends before its JSON object does (rerun that piece)"
-        )));
-    }
-    let after = |key: &str| -> Option<String> {
-        let at = tail.rfind(&format!("\"{key}\":\""))? + key.len() + 4;
-        let end = tail[at..].find('"')?;
-        Some(tail[at..at + end].to_string())
-    };
-    let shard = match after("shard") {
-        Some(s) => {
-            Shard::parse(&s).map_err(|e| CliError::Input(format!("{name}: {}", e.message())))?
+/// The labels of a piece: `"shard"`, `"version"` and `"build"`, read as JSON
+/// wherever they stand (the coefficients are stepped over one at a time,
+/// never held); a piece without `"shard"` is the whole table.
+struct Labels {
+    shard: Shard,
+    version: Option<String>,
+    build: Option<String>,
+}
+
+fn labels(path: &Path) -> Result<Labels, CliError> {
+    let name = shown(path);
+    let bad = |what: &str| {
+        if what.contains("cut short") {
+            CliError::Input(format!(
+                "{name}: cut short: the file ends before its JSON object does (rerun that piece)"
+            ))
+        } else {
+            CliError::Input(format!("{name}: {what}"))
         }
-        None => Shard::WHOLE,
     };
-    Ok((shard, after("version")))
+    let mut r = open(path)?;
+    let mut labels = Labels {
+        shard: Shard::WHOLE,
+        version: None,
+        build: None,
+    };
+    while let Some(key) = r.next_key().map_err(|e| bad(&e))? {
+        if key == "coefficients" {
+            r.begin_list().map_err(|e| bad(&e))?;
+            while r.next_item().map_err(|e| bad(&e))?.is_some() {}
+            continue;
+        }
+        let v = r.value().map_err(|e| bad(&e))?;
+        let text = || v.as_str().map(str::to_string);
+        match key.as_str() {
+            "shard" => {
+                let label = text().ok_or_else(|| bad("\"shard\" is not a text K/N"))?;
+                labels.shard = Shard::parse(&label).map_err(|e| bad(&e.message()))?;
+            }
+            "version" => labels.version = text(),
+            "build" => labels.build = text(),
+            _ => {}
+        }
+    }
+    r.finish().map_err(|e| bad(&e))?;
+    Ok(labels)
+}
+
+/// A file's name as a message quotes it.
+fn shown(path: &Path) -> String {
+    crate::math::excerpt::excerpt(&path.display().to_string())
 }
 
 /// Merges the pieces of `elbowroom hessenberg --shard K/N --json`.
@@ -244,15 +268,20 @@ fn merge_hessenberg(files: &[PathBuf], sink: &mut Sink<'_>) -> Result<(), CliErr
     let mut pieces: Vec<Piece> = Vec::new();
     let mut shards = BTreeSet::new();
     for path in files {
-        let name = path.display().to_string();
+        let name = shown(path);
         let (h, listed) = read_head(path, &mut open(path)?)?;
-        let (shard, version) = labels_at_end(path)?;
+        let Labels {
+            shard,
+            version,
+            build,
+        } = labels(path)?;
         let piece = Piece {
             path: path.clone(),
             name,
             h,
             listed,
             shard,
+            build,
         };
         if let Some(first) = pieces.first() {
             if first.h != piece.h {
@@ -262,6 +291,13 @@ fn merge_hessenberg(files: &[PathBuf], sink: &mut Sink<'_>) -> Result<(), CliErr
                     piece.h.n(),
                     first.h,
                     first.h.n()
+                )));
+            }
+            if first.build != piece.build {
+                return Err(piece.bad(&format!(
+                    "it was made by build {}, the first file by build {}; merge pieces made by one build (rerun them with one program)",
+                    piece.build.as_deref().map_or("(none)".into(), crate::math::excerpt::excerpt),
+                    first.build.as_deref().map_or("(none)".into(), crate::math::excerpt::excerpt)
                 )));
             }
             if first.shard.count != shard.count {
@@ -274,7 +310,10 @@ fn merge_hessenberg(files: &[PathBuf], sink: &mut Sink<'_>) -> Result<(), CliErr
         if !shard.is_whole() && version.as_deref() != Some(VERSION) {
             return Err(piece.bad(&format!(
                 "\"version\" is {}, but this is elbowroom {VERSION}; merge pieces made by one version",
-                version.map_or("missing".to_string(), |v| format!("\"{v}\""))
+                version.map_or("missing".to_string(), |v| format!(
+                    "\"{}\"",
+                    crate::math::excerpt::excerpt(&v)
+                ))
             )));
         }
         if !shards.insert(shard.index) {
@@ -289,26 +328,43 @@ fn merge_hessenberg(files: &[PathBuf], sink: &mut Sink<'_>) -> Result<(), CliErr
         return Err(CliError::Input("nothing to merge".into()));
     };
     let count = first.shard.count;
-    let missing: Vec<String> = (1..=count)
-        .filter(|k| !shards.contains(k))
-        .map(|k| format!("{k}/{count}"))
-        .collect();
-    if !missing.is_empty() {
+    // the pieces given are distinct, so some are missing exactly when fewer
+    // than N were given; the message names the first few (memory does not
+    // grow with N)
+    if shards.len() < count {
+        let absent = count - shards.len();
+        let first: Vec<String> = (1..=count)
+            .filter(|k| !shards.contains(k))
+            .take(5)
+            .map(|k| format!("{k}/{count}"))
+            .collect();
+        let more = if absent > first.len() {
+            format!(" and {} more", absent - first.len())
+        } else {
+            String::new()
+        };
         return Err(CliError::Input(format!(
-            "pieces {} are missing; give all {count} pieces of the run (rerun the missing ones)",
-            missing.join(", ")
+            "pieces {}{more} are missing; give all {count} pieces of the run (rerun the missing ones)",
+            first.join(", "),
         )));
     }
     pieces.sort_by_key(|p| p.shard.index);
-    // first pass: every check; nothing is written unless all pieces pass
-    walk(&pieces, &mut |_, _| Ok(()))?;
     let (h, listed) = (pieces[0].h.clone(), pieces[0].listed);
+    // Ctrl-C, SIGTERM and SIGHUP stop either pass with a "canceled" line
+    let progress = Arc::new(Progress::new(2 * listed as u64));
+    let _watch = interrupt::watch(progress.clone());
+    let canceled = |e: CliError, written: u64| {
+        interrupt::or_canceled(e, "merge", "rows (two passes)", &progress, written, "rows")
+    };
+    // first pass: every check; nothing is written unless all pieces pass
+    walk(&pieces, &progress, &mut |_, _| Ok(())).map_err(|e| canceled(e, 0))?;
     let mut out = HessenbergJsonStream::start(sink, &h, listed)?;
     let mut summary = RowSummary::default();
-    walk(&pieces, &mut |line, value| {
+    walk(&pieces, &progress, &mut |line, value| {
         summary.add(value);
         out.row(sink, line, value)
-    })?;
+    })
+    .map_err(|e| canceled(e, summary.rows as u64))?;
     out.finish(sink, &summary, Shard::WHOLE)
 }
 
@@ -318,7 +374,7 @@ type RowVisitor<'a> = dyn FnMut(&[u8], &BigInt) -> Result<(), CliError> + 'a;
 /// Walks the listing of the w of length |h| with every piece open, taking row i
 /// from piece (i mod N) + 1, and hands each (w, a^h_w) to `row` in listing order;
 /// checks everything the module notes list.
-fn walk(pieces: &[Piece], row: &mut RowVisitor<'_>) -> Result<(), CliError> {
+fn walk(pieces: &[Piece], progress: &Progress, row: &mut RowVisitor<'_>) -> Result<(), CliError> {
     let mut readers = Vec::with_capacity(pieces.len());
     for p in pieces {
         let mut r = open(&p.path)?;
@@ -333,6 +389,8 @@ fn walk(pieces: &[Piece], row: &mut RowVisitor<'_>) -> Result<(), CliError> {
         let k = i % count;
         let p = &pieces[k];
         let mut step = || -> Result<(), CliError> {
+            progress.check()?;
+            progress.advance(1);
             let item = readers[k]
                 .next_item()
                 .map_err(|e| p.bad(&format!("coefficient {}: {e}", sums[k].rows + 1)))?;

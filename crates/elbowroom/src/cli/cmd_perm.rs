@@ -5,12 +5,12 @@ use super::error::CliError;
 use super::json;
 use crate::math::perms::words::count_reduced_words_with;
 use crate::math::pipes::dream::count_pipe_dreams;
-use crate::math::{Perm, Progress, perms::class::classes_of};
+use crate::math::{Progress, perms::class::classes_of};
 use serde_json::json;
 
 /// Runs the command.
 pub fn run(args: &PermArgs) -> Result<String, CliError> {
-    let w = Perm::parse(&args.perm)?;
+    let w = args.perm.clone();
     let classes: Vec<&str> = classes_of(&w).iter().map(|c| c.key()).collect();
     let words = count_reduced_words_with(&w, &Progress::default())?;
     let dreams = count_pipe_dreams(&w);

@@ -4,6 +4,7 @@
 use super::args::{SessionAction, SessionArgs, SessionCheckArgs};
 use super::error::CliError;
 use super::json;
+use crate::math::excerpt::escape_controls;
 use crate::session::model::excerpt;
 use crate::session::{SessionError, store};
 use serde_json::json;
@@ -40,8 +41,8 @@ fn check(args: &SessionCheckArgs) -> Result<String, CliError> {
         .unwrap_or_else(|_| format!("{:?}", s.current));
     let mut out = format!(
         "{}: a valid session (format version {version})\n  title:   {}\n  n:       {}\n  current: {}\n  view:    {view}\n  pins:    {}\n  history: {} permutation{}\n",
-        args.file.display(),
-        excerpt(&s.title, NOTE_EXCERPT),
+        escape_controls(&args.file.display().to_string()),
+        escape_controls(&excerpt(&s.title, NOTE_EXCERPT)),
         s.n,
         current,
         s.pins.len(),
@@ -63,7 +64,7 @@ fn check(args: &SessionCheckArgs) -> Result<String, CliError> {
         let lines = s.notes.lines().count();
         out.push_str(&format!(
             "  notes:   {}{}\n",
-            excerpt(first, NOTE_EXCERPT),
+            escape_controls(&excerpt(first, NOTE_EXCERPT)),
             if lines > 1 {
                 format!(" ({lines} lines)")
             } else {

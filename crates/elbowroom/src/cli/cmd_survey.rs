@@ -57,16 +57,18 @@ struct Job {
 enum Format {
     Text,
     Json,
+    /// JSON Lines: a header, one line per result, one per counterexample, a summary.
+    Jsonl,
     Csv,
     Latex,
 }
 
 /// Runs the command, writing the survey through `sink`.
 pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
-    let shard = Shard::of_arg(args.shard.as_deref())?;
+    let shard = args.shard.unwrap_or(Shard::WHOLE);
     let (n, perms): (usize, Vec<Perm>) = match (&args.perm, args.n) {
-        (Some(text), _) => {
-            let w = Perm::parse(text)?;
+        (Some(w), _) => {
+            let w = w.clone();
             if w.n() > MAX_QUOTIENT_N {
                 return Err(CliError::Input(format!(
                     "{w} has n = {}; surveys run for n from 1 to {MAX_QUOTIENT_N}",
@@ -90,25 +92,16 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
         }
     };
     let listed_total = perms.len();
-    if shard.index > listed_total {
-        return Err(CliError::Input(format!(
-            "--shard {}/{} is beyond the listing: it has {listed_total} {}, so K can be at most {listed_total}",
-            shard.index,
-            shard.count,
-            if listed_total == 1 {
-                "permutation"
-            } else {
-                "permutations"
-            }
-        )));
-    }
+    shard.check_fits(listed_total)?;
     let perms: Vec<Perm> = perms
         .into_iter()
         .enumerate()
         .filter(|(i, _)| shard.selects(*i))
         .map(|(_, w)| w)
         .collect();
-    let format = if args.output.json {
+    let format = if args.jsonl {
+        Format::Jsonl
+    } else if args.output.json {
         Format::Json
     } else if args.output.csv {
         Format::Csv
@@ -128,7 +121,7 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let summary = args.summary;
     match format {
         // the summary needs no normal form kept: the compact records
-        Format::Text | Format::Json if summary => stream(
+        Format::Text | Format::Json | Format::Jsonl if summary => stream(
             &job,
             &perms,
             sink,
@@ -136,7 +129,7 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
             &|_| None,
             &|_| None,
         ),
-        Format::Text | Format::Json => stream(
+        Format::Text | Format::Json | Format::Jsonl => stream(
             &job,
             &perms,
             sink,
@@ -187,7 +180,7 @@ fn stream<E: SurveyRecord>(
     json_nf: &dyn Fn(&E) -> Option<Value>,
 ) -> Result<(), CliError> {
     let n = job.n;
-    let json_out = job.format == Format::Json;
+    let json_out = matches!(job.format, Format::Json | Format::Jsonl);
     let row = |e: &E| {
         if json_out {
             json::render(&result_json(e, json_nf))
@@ -196,7 +189,9 @@ fn stream<E: SurveyRecord>(
         }
     };
     let counterexample = |e: &E| {
-        if json_out {
+        if job.format == Format::Jsonl {
+            json::render(&json!({"counterexample": counterexample_json(e, n)}))
+        } else if json_out {
             json::render(&counterexample_json(e, n))
         } else {
             counterexample_text(e, n)
@@ -210,7 +205,18 @@ fn stream<E: SurveyRecord>(
     let _watch = interrupt::watch(progress.clone());
     let bad = store.extras();
     let count = perms.len();
-    if json_out {
+    if job.format == Format::Jsonl {
+        let head = format!("{}\n", jsonl_header(job, count)?);
+        let tail = format!("\n{}", jsonl_summary(count, bad)?);
+        let frame = Frame {
+            head: &head,
+            sep: "\n",
+            between: if bad > 0 { "\n" } else { "" },
+            extra_sep: "\n",
+            tail: &tail,
+        };
+        write_out(sink, &mut store, &progress, &frame)
+    } else if json_out {
         let (head, tail) = json_frame(job, count, bad);
         let frame = Frame {
             head: &head,
@@ -343,6 +349,59 @@ fn write_out(
     })
 }
 
+/// The first line of `survey --jsonl`: what the lines after it are.
+#[derive(serde::Serialize)]
+struct JsonlHeader<'a> {
+    kind: &'a str,
+    n: usize,
+    shard: &'a str,
+    count: usize,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    listed_total: Option<usize>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    listing: Option<&'static str>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    version: Option<&'static str>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    build: Option<&'static str>,
+}
+
+/// The last line of `survey --jsonl`: its presence says the output is complete.
+#[derive(serde::Serialize)]
+struct JsonlSummary {
+    summary: &'static str,
+    count: usize,
+    all_nonnegative: bool,
+    counterexamples: usize,
+}
+
+fn jsonl_header(job: &Job, count: usize) -> Result<String, CliError> {
+    let large = job.n > FULL_LISTING_MAX_N;
+    let header = JsonlHeader {
+        kind: SURVEY_KIND,
+        n: job.n,
+        shard: &job.shard,
+        count,
+        listed_total: large.then_some(job.listed_total),
+        listing: large.then(|| listing_name(job.n)),
+        version: large.then_some(env!("CARGO_PKG_VERSION")),
+        build: (job.shard != "1/1").then_some(super::documents::BUILD),
+    };
+    serde_json::to_string(&header)
+        .map_err(|e| CliError::Failed(format!("cannot write the header: {e}")))
+}
+
+fn jsonl_summary(count: usize, bad: usize) -> Result<String, CliError> {
+    let summary = JsonlSummary {
+        summary: SURVEY_KIND,
+        count,
+        all_nonnegative: bad == 0,
+        counterexamples: bad,
+    };
+    serde_json::to_string(&summary)
+        .map_err(|e| CliError::Failed(format!("cannot write the summary: {e}")))
+}
+
 /// One result of the JSON, `"normal_form"` last when `normal_form` gives one.
 fn result_json<E: SurveyRecord>(e: &E, normal_form: &dyn Fn(&E) -> Option<Value>) -> Value {
     let mut v = json!({
@@ -376,6 +435,7 @@ fn json_frame(job: &Job, count: usize, bad: usize) -> (String, String) {
         "counterexamples": [],
     });
     add_listing(&mut v, job.n, job.listed_total);
+    add_build(&mut v, &job.shard);
     let whole = json::render(&v);
     let gap = "\"results\":[],\"counterexamples\":[]";
     match whole.find(gap) {
@@ -531,7 +591,18 @@ pub fn survey_document<E: SurveyRecord>(
 ) -> Value {
     let mut v = survey_json(n, shard, entries, normal_form);
     add_listing(&mut v, n, listed_total);
+    add_build(&mut v, shard);
     v
+}
+
+/// A piece of a split survey (`shard` other than "1/1") names the build that
+/// made it (`"build"`, last): merge takes pieces of one build.
+fn add_build(v: &mut Value, shard: &str) {
+    if shard != "1/1"
+        && let Some(obj) = v.as_object_mut()
+    {
+        obj.insert("build".into(), json!(super::documents::BUILD));
+    }
 }
 
 /// Which permutations the survey of S_n lists (the `"listing"` of the JSON).

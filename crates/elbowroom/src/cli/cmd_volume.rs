@@ -2,7 +2,7 @@
 
 use super::args::VolumeArgs;
 use super::error::CliError;
-use super::inputs::{check_volume_size, parse_lambda};
+use super::inputs::check_volume_size;
 use super::json;
 use crate::math::permutohedra::permutohedron::{
     POLYNOMIAL_MAX_N, Permutohedron, volume_polynomial,
@@ -14,7 +14,7 @@ pub const VERTEX_LIST_LIMIT: usize = 720;
 
 /// Runs the command.
 pub fn run(args: &VolumeArgs) -> Result<String, CliError> {
-    let lambda = parse_lambda(&args.lambda)?;
+    let lambda = args.lambda.clone();
     let p = Permutohedron::new(&lambda)?;
     check_volume_size(&p, 0, "the volume")?;
     let n = p.n();

@@ -17,7 +17,7 @@ use std::sync::Arc;
 
 /// Runs the command.
 pub fn run(args: &WordsArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
-    let w = Perm::parse(&args.perm)?;
+    let w = args.perm.clone();
     let progress = Arc::new(Progress::new(0));
     let _watch = interrupt::watch(progress.clone());
     let count = count_reduced_words_with(&w, &progress).map_err(|e| match e {

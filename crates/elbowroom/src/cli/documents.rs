@@ -18,6 +18,10 @@ pub const HESSENBERG_KIND: &str = "hessenberg_table";
 /// The version a piece of a sharded table names (`"version"`).
 pub const VERSION: &str = env!("CARGO_PKG_VERSION");
 
+/// The build a piece of a sharded run names (`"build"`): the commit the
+/// program was built from, "unknown" outside a git checkout.
+pub const BUILD: &str = super::args::BUILD;
+
 /// The `"kind"` of `elbowroom survey --json`.
 pub const SURVEY_KIND: &str = "quotient_survey";
 
@@ -50,6 +54,7 @@ pub fn hessenberg_table_json(table: &HessenbergTable, shard: Shard) -> Value {
             Value::String(format!("{}/{}", shard.index, shard.count)),
         );
         obj.insert("version".into(), Value::String(VERSION.into()));
+        obj.insert("build".into(), Value::String(BUILD.into()));
     }
     v
 }
@@ -131,6 +136,8 @@ impl HessenbergJsonStream {
             );
             // a piece names the version that made it; merge takes pieces of one version
             obj.insert("version".into(), Value::String(VERSION.into()));
+            // and the build (the commit): merge takes pieces of one build
+            obj.insert("build".into(), Value::String(BUILD.into()));
         }
         let text = json::render(&tail);
         sink.text("],")?;

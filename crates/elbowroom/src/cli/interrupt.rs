@@ -1,8 +1,9 @@
-//! Ctrl-C for long headless runs: the first interrupt sets the cancel flag of the
-//! computation being watched, whose worker loops then stop with `Canceled`.
+//! Ctrl-C, SIGTERM and SIGHUP for headless runs: the first signal sets the
+//! cancel flag of the computation being watched, whose worker loops then stop
+//! with `Canceled`; a run with nothing watched ends at once with one line.
 //!
-//! The handler is installed once per process; each long run registers its
-//! [`Progress`] for as long as the returned guard lives.
+//! The handling is installed once per process ([`install`]); each long run
+//! registers its [`Progress`] for as long as the returned guard lives.
 //!
 //! While a run is watched and standard error is a terminal, a line on standard
 //! error says how far it has got (after the first two seconds, refreshed every
@@ -18,8 +19,8 @@
 use super::error::CliError;
 use crate::math::{MathError, MathResult, Progress};
 use std::io::{IsTerminal, Write};
-use std::sync::atomic::{AtomicBool, Ordering};
-use std::sync::{Arc, Mutex, OnceLock};
+use std::sync::atomic::{AtomicBool, AtomicI32, Ordering};
+use std::sync::{Arc, Mutex};
 use std::time::{Duration, Instant};
 
 /// The environment variable that turns the announcement on (value `1`).
@@ -28,21 +29,109 @@ pub const ANNOUNCE_ENV: &str = "ELBOWROOM_ANNOUNCE_WATCH";
 /// The line printed on stderr once Ctrl-C cancels the registered run.
 pub const ANNOUNCEMENT: &str = "elbowroom: watching for Ctrl-C";
 
-static WATCHED: OnceLock<Mutex<Option<Arc<Progress>>>> = OnceLock::new();
+static WATCHED: Mutex<Option<Arc<Progress>>> = Mutex::new(None);
+
+/// The signal that stopped the run (0 while none has come).
+static SIGNAL: AtomicI32 = AtomicI32::new(0);
+
+/// What the run is, for the line printed when a signal ends it at once.
+static RUNNING: Mutex<Option<(String, Instant)>> = Mutex::new(None);
+
+/// How long a watched run has, after a signal cancels it, to stop by itself
+/// and say how far it got, before the process ends without it.
+const GRACE: Duration = Duration::from_secs(3);
 
 fn slot() -> &'static Mutex<Option<Arc<Progress>>> {
-    WATCHED.get_or_init(|| {
-        // if another handler is already installed, Ctrl-C keeps its default behaviour
-        let _ = ctrlc::set_handler(|| {
-            if let Some(m) = WATCHED.get()
-                && let Ok(guard) = m.lock()
-                && let Some(p) = guard.as_ref()
+    &WATCHED
+}
+
+/// Installs the handling of SIGINT (Ctrl-C), SIGTERM (what a batch scheduler
+/// sends at its time limit) and SIGHUP (a closed terminal), once, for the run
+/// of command `what`: a signal cancels the watched computation, which then
+/// stops with a "canceled after …" line; when nothing is watched (or the
+/// computation does not stop within [`GRACE`]), the process removes its
+/// unfinished temporary files, says "`what` canceled after T s" and exits with
+/// 128 + the signal. SIGXFSZ (a file-size limit reached) is ignored, so that
+/// the write fails with an error the command reports, instead of killing it.
+pub fn install(what: &str) {
+    if let Ok(mut r) = RUNNING.lock() {
+        *r = Some((what.to_string(), Instant::now()));
+    }
+    static ONCE: std::sync::Once = std::sync::Once::new();
+    ONCE.call_once(|| {
+        #[cfg(unix)]
+        {
+            use signal_hook::consts::{SIGHUP, SIGINT, SIGTERM, SIGXFSZ};
+            // a handler that only sets a flag: the signal no longer ends the process
+            let _ = signal_hook::flag::register(SIGXFSZ, Arc::new(AtomicBool::new(false)));
+            if let Ok(mut signals) = signal_hook::iterator::Signals::new([SIGINT, SIGTERM, SIGHUP])
             {
-                p.cancel();
+                std::thread::spawn(move || {
+                    for sig in signals.forever() {
+                        on_signal(sig);
+                    }
+                });
             }
-        });
-        Mutex::new(None)
-    })
+        }
+        #[cfg(not(unix))]
+        {
+            let _ = ctrlc::set_handler(|| on_signal(2));
+        }
+    });
+}
+
+/// A signal came: cancel the watched run and give it [`GRACE`] to report;
+/// with none watched, end at once.
+fn on_signal(sig: i32) {
+    let first = SIGNAL.swap(sig, Ordering::SeqCst) == 0;
+    let watched = WATCHED.lock().ok().and_then(|g| g.clone());
+    if let Some(p) = watched {
+        p.cancel();
+        if first {
+            std::thread::spawn(move || {
+                std::thread::sleep(GRACE);
+                end_now(sig);
+            });
+            return;
+        }
+    }
+    end_now(sig);
+}
+
+/// Ends the process on signal `sig`: unfinished temporary files removed, one
+/// line on stderr, exit status 128 + `sig`.
+fn end_now(sig: i32) -> ! {
+    crate::atomic_write::remove_unfinished();
+    let (what, since) = RUNNING
+        .lock()
+        .ok()
+        .and_then(|r| r.clone())
+        .unwrap_or_else(|| ("the command".into(), Instant::now()));
+    let secs = since.elapsed().as_secs_f64();
+    super::report(&format!(
+        "{what} canceled after {secs:.1} s ({}); output cut short",
+        signal_name(sig)
+    ));
+    std::process::exit(128 + sig)
+}
+
+/// The name of a signal as a user knows it.
+pub fn signal_name(sig: i32) -> &'static str {
+    match sig {
+        1 => "SIGHUP",
+        2 => "SIGINT, Ctrl-C",
+        15 => "SIGTERM",
+        _ => "a signal",
+    }
+}
+
+/// The exit status of a run canceled by a signal: 128 + the signal (130 for
+/// Ctrl-C, 143 for SIGTERM, 129 for SIGHUP); 130 when no signal is known.
+pub fn canceled_status() -> u8 {
+    match SIGNAL.load(Ordering::SeqCst) {
+        s @ 1..=64 => 128 + s as u8,
+        _ => 130,
+    }
 }
 
 /// Keeps a computation registered with the Ctrl-C handler while it lives (and
@@ -80,7 +169,7 @@ fn watch_with(progress: Arc<Progress>, line_allowed: bool) -> Watch {
         *g = Some(progress.clone());
     }
     if std::env::var(ANNOUNCE_ENV).is_ok_and(|v| v == "1") {
-        eprintln!("{ANNOUNCEMENT}");
+        let _ = writeln!(std::io::stderr(), "{ANNOUNCEMENT}");
     }
     let ticker = (line_allowed && std::io::stderr().is_terminal()).then(|| Ticker::start(progress));
     Watch { ticker }
@@ -202,9 +291,10 @@ pub fn or_canceled(
     rows: u64,
     row: &str,
 ) -> CliError {
-    match e {
-        CliError::Canceled(_) => canceled(what, unit, progress, rows, row),
-        other => other,
+    if e.is_canceled() {
+        canceled(what, unit, progress, rows, row)
+    } else {
+        e
     }
 }
 

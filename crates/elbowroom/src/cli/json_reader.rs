@@ -16,11 +16,18 @@ pub const MAX_DEPTH: usize = 32;
 /// The longest string or number read (bytes).
 pub const MAX_STRING: usize = 1 << 16;
 
+/// The most entries (list items and object fields, at every depth) of one
+/// value read whole: a field or a list item of a piece is small, so memory
+/// stays bounded whatever a file holds and in whatever order.
+pub const MAX_ENTRIES: usize = 100_000;
+
 /// A pull reader of one JSON object.
 pub struct JsonReader<R> {
     input: R,
     first_key: bool,
     first_item: bool,
+    /// Entries still allowed in the value being read.
+    budget: usize,
 }
 
 /// Why the text could not be read: a message naming what was expected.
@@ -33,6 +40,7 @@ impl<R: BufRead> JsonReader<R> {
             input,
             first_key: true,
             first_item: true,
+            budget: MAX_ENTRIES,
         };
         r.expect(b'{', "the opening '{' of a JSON object")?;
         Ok(r)
@@ -130,11 +138,13 @@ impl<R: BufRead> JsonReader<R> {
             self.expect(b',', "',' or ']' in a list")?;
         }
         self.first_item = false;
+        self.budget = MAX_ENTRIES;
         self.value_at(1).map(Some)
     }
 
     /// The current field's value, read whole.
     pub fn value(&mut self) -> ReadResult<Value> {
+        self.budget = MAX_ENTRIES;
         self.value_at(1)
     }
 
@@ -142,6 +152,12 @@ impl<R: BufRead> JsonReader<R> {
         if depth > MAX_DEPTH {
             return Err(format!("nested more than {MAX_DEPTH} deep"));
         }
+        if self.budget == 0 {
+            return Err(format!(
+                "a value with more than {MAX_ENTRIES} entries, far more than a piece's fields hold"
+            ));
+        }
+        self.budget -= 1;
         match self.peek()? {
             None => Err("the text ends where a value was expected (cut short)".into()),
             Some(b'"') => {
@@ -322,5 +338,17 @@ mod tests {
         let mut r = JsonReader::new(deep.as_bytes()).unwrap();
         r.next_key().unwrap();
         assert!(r.value().unwrap_err().contains("nested"));
+        // a huge field is refused at its bound, whatever comes before or after it
+        let huge = format!(
+            "{{\"x\": [{}0], \"kind\": \"k\"}}",
+            "0,".repeat(MAX_ENTRIES + 5)
+        );
+        let mut r = JsonReader::new(huge.as_bytes()).unwrap();
+        r.next_key().unwrap();
+        assert!(r.value().unwrap_err().contains("entries"));
+        let fits = format!("{{\"x\": [{}0]}}", "0,".repeat(MAX_ENTRIES - 10));
+        let mut r = JsonReader::new(fits.as_bytes()).unwrap();
+        r.next_key().unwrap();
+        assert!(r.value().is_ok());
     }
 }

@@ -18,6 +18,85 @@ fn bad(msg: String) -> CliError {
     CliError::Input(msg)
 }
 
+fn excerpt(text: &str) -> String {
+    crate::math::excerpt::excerpt(text)
+}
+
+/// The listing of the survey of S_n, as one-line lists.
+fn listing_of(n: Option<u64>) -> Result<Vec<Vec<u64>>, CliError> {
+    let max = crate::math::quotient::groebner::MAX_QUOTIENT_N;
+    let n = match n {
+        Some(n) if (1..=max as u64).contains(&n) => n as usize,
+        _ => {
+            return Err(bad(format!(
+                "the first piece has no \"n\" from 1 to {max}; merge the JSON outputs of survey --shard"
+            )));
+        }
+    };
+    Ok(crate::math::quotient::survey::survey_listing(n)
+        .iter()
+        .map(|w| w.one_line().into_iter().map(|v| v as u64).collect())
+        .collect())
+}
+
+/// The re-checks of one piece (number `number`, piece `shard`): its results are
+/// exactly the permutations of the listing that belong to it, in order (no
+/// duplicate, no foreign permutation, none left out); each result says whether
+/// it is nonnegative; the counterexamples are exactly the results that are not,
+/// in order; and `"all_nonnegative"` agrees with them.
+fn check_piece(
+    doc: &Value,
+    results: &[Value],
+    counterexamples: &[Value],
+    listing: &[Vec<u64>],
+    shard: Shard,
+    number: usize,
+) -> Result<(), CliError> {
+    let label = format!("piece {number} ({}/{})", shard.index, shard.count);
+    let mine = listing
+        .iter()
+        .enumerate()
+        .filter(|(i, _)| shard.selects(*i))
+        .map(|(_, w)| w);
+    let mut negative: Vec<Vec<u64>> = Vec::new();
+    for (j, (r, want)) in results.iter().zip(mine).enumerate() {
+        let got = perm_key(r);
+        if &got != want {
+            return Err(bad(format!(
+                "{label}: result {} is {}, but that place of the listing holds {want:?}; the piece does not follow the listing (a row repeated, foreign or left out)",
+                j + 1,
+                excerpt(&r.get("perm").map_or("missing".into(), |v| v.to_string()))
+            )));
+        }
+        match r.get("nonnegative").and_then(Value::as_bool) {
+            Some(true) => {}
+            Some(false) => negative.push(got),
+            None => {
+                return Err(bad(format!(
+                    "{label}: result {} has no \"nonnegative\": true or false",
+                    j + 1
+                )));
+            }
+        }
+    }
+    let listed: Vec<Vec<u64>> = counterexamples.iter().map(perm_key).collect();
+    if listed != negative {
+        return Err(bad(format!(
+            "{label}: its counterexamples ({}) are not its results with \"nonnegative\": false ({}); the piece is not consistent",
+            listed.len(),
+            negative.len()
+        )));
+    }
+    if doc.get("all_nonnegative").and_then(Value::as_bool) != Some(negative.is_empty()) {
+        return Err(bad(format!(
+            "{label}: \"all_nonnegative\" is not {}, though it has {} counterexamples; the piece is not consistent",
+            negative.is_empty(),
+            negative.len()
+        )));
+    }
+    Ok(())
+}
+
 /// Merges survey documents (`"kind": "quotient_survey"`) of the same n whose shards
 /// K/N cover 1..N exactly once. Results and counterexamples come back in listing order
 /// (lex order of the permutations), with `"shard": "1/1"` and `"merged_from": N`.
@@ -29,6 +108,8 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
     };
     let n = first.get("n").and_then(Value::as_u64);
     let version = first.get("version").and_then(Value::as_str);
+    let build = first.get("build").and_then(Value::as_str);
+    let listing = listing_of(n)?;
     // pieces of n <= 8 carry no "listed_total": they list all of S_n
     let full = |d: &Value| {
         d.get("listed_total").and_then(Value::as_u64).or_else(|| {
@@ -67,6 +148,16 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
                 version.unwrap_or("(none)")
             )));
         }
+        let its_build = doc.get("build").and_then(Value::as_str);
+        if its_build != build {
+            return Err(bad(format!(
+                "piece {} ({}) was made by build {}, the first piece by build {}; rerun the pieces with one build",
+                i + 1,
+                excerpt(shard),
+                its_build.map_or("(none)".into(), excerpt),
+                build.map_or("(none)".into(), excerpt)
+            )));
+        }
         if full(doc) != listed_total {
             return Err(bad(format!(
                 "piece {} ({shard}) splits a listing of a different size; merge pieces of one run",
@@ -90,7 +181,7 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
             _ => {}
         }
         if std::mem::replace(&mut seen[parsed.index - 1], true) {
-            return Err(bad(format!("piece {shard} is given twice")));
+            return Err(bad(format!("piece {} is given twice", excerpt(shard))));
         }
         let (Some(r), Some(c)) = (
             doc.get("results").and_then(Value::as_array),
@@ -114,6 +205,7 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
                 expected.or(stated.map(|s| s as usize)).unwrap_or(0)
             )));
         }
+        check_piece(doc, r, c, &listing, parsed, i + 1)?;
         results.extend(r.iter().cloned());
         counterexamples.extend(c.iter().cloned());
     }
@@ -155,7 +247,8 @@ mod tests {
     fn shards_must_cover_once() {
         let shard = |k: usize, perms: &[[u64; 2]]| {
             json!({"kind": "quotient_survey", "n": 2, "shard": format!("{k}/2"),
-                   "results": perms.iter().map(|p| json!({"perm": p})).collect::<Vec<_>>(),
+                   "all_nonnegative": true,
+                   "results": perms.iter().map(|p| json!({"perm": p, "nonnegative": true})).collect::<Vec<_>>(),
                    "counterexamples": []})
         };
         let a = shard(1, &[[1, 2]]);
@@ -163,19 +256,57 @@ mod tests {
         let merged = merge_surveys(&[b.clone(), a.clone()]).unwrap_or(Value::Null);
         assert_eq!(merged["results"][0]["perm"], json!([1, 2]));
         assert_eq!(merged["count"], json!(2));
-        assert!(merge_surveys(std::slice::from_ref(&a)).is_err());
-        assert!(merge_surveys(&[a.clone(), a]).is_err());
-        assert!(merge_surveys(&[]).is_err());
+        assert!(
+            merge_surveys(std::slice::from_ref(&a)).is_err_and(|e| matches!(e, CliError::Input(_)))
+        );
+        assert!(merge_surveys(&[a.clone(), a]).is_err_and(|e| matches!(e, CliError::Input(_))));
+        assert!(merge_surveys(&[]).is_err_and(|e| matches!(e, CliError::Input(_))));
         // a piece cut short: it states a count its results do not reach
         let mut short = shard(2, &[[2, 1]]);
         short["count"] = json!(2);
-        assert!(merge_surveys(&[shard(1, &[[1, 2]]), short]).is_err());
+        assert!(
+            merge_surveys(&[shard(1, &[[1, 2]]), short])
+                .is_err_and(|e| matches!(e, CliError::Input(_)))
+        );
         // pieces of different versions or listings
         let mut other = shard(2, &[[2, 1]]);
         other["version"] = json!("0.0.0");
-        assert!(merge_surveys(&[shard(1, &[[1, 2]]), other]).is_err());
+        assert!(
+            merge_surveys(&[shard(1, &[[1, 2]]), other])
+                .is_err_and(|e| matches!(e, CliError::Input(_)))
+        );
+        // pieces of different builds
+        let mut other = shard(2, &[[2, 1]]);
+        other["build"] = json!("0123abcd");
+        let e = merge_surveys(&[shard(1, &[[1, 2]]), other]).unwrap_err();
+        assert!(
+            matches!(&e, CliError::Input(m) if m.contains("build")),
+            "{e:?}"
+        );
+        // doctored pieces: a foreign permutation, a repeated one, a row said
+        // negative without a counterexample
+        let e = merge_surveys(&[shard(1, &[[9, 9]]), shard(2, &[[2, 1]])]).unwrap_err();
+        assert!(
+            matches!(&e, CliError::Input(m) if m.contains("does not follow the listing")),
+            "{e:?}"
+        );
+        let e = merge_surveys(&[shard(1, &[[1, 2]]), shard(2, &[[1, 2]])]).unwrap_err();
+        assert!(
+            matches!(&e, CliError::Input(m) if m.contains("does not follow the listing")),
+            "{e:?}"
+        );
+        let mut lying = shard(2, &[[2, 1]]);
+        lying["results"][0]["nonnegative"] = json!(false);
+        let e = merge_surveys(&[shard(1, &[[1, 2]]), lying]).unwrap_err();
+        assert!(
+            matches!(&e, CliError::Input(m) if m.contains("not consistent")),
+            "{e:?}"
+        );
         let mut wider = shard(2, &[[2, 1]]);
         wider["listed_total"] = json!(5);
-        assert!(merge_surveys(&[shard(1, &[[1, 2]]), wider]).is_err());
+        assert!(
+            merge_surveys(&[shard(1, &[[1, 2]]), wider])
+                .is_err_and(|e| matches!(e, CliError::Input(_)))
+        );
     }
 }

@@ -45,35 +45,144 @@ pub use args::{Cli, Command};
 pub use error::CliError;
 pub use output::Sink;
 
-use clap::Parser;
+use clap::{CommandFactory, FromArgMatches};
 use std::ffi::OsString;
 use std::process::ExitCode;
 
+/// Writes one line `elbowroom: LINE` on standard error; when standard error
+/// cannot be written (a full device, a closed pipe) the line is dropped,
+/// never a panic.
+pub fn report(line: &str) {
+    use std::io::Write;
+    let mut line = crate::math::excerpt::escape_controls(line);
+    // a message quoting too much of an input is cut in the middle
+    if line.chars().count() > 1000 {
+        let head: String = line.chars().take(600).collect();
+        let tail: Vec<char> = line.chars().rev().take(300).collect();
+        let tail: String = tail.into_iter().rev().collect();
+        line = format!("{head} … {tail}");
+    }
+    let mut err = std::io::stderr().lock();
+    let _ = writeln!(err, "elbowroom: {line}");
+    let _ = err.flush();
+}
+
+/// Whether standard output is open. A descriptor closed by the caller (`>&-`)
+/// is reopened on `/dev/null` (read and write) by the Rust runtime before
+/// `main`, where every write would vanish; such a start is taken as closed,
+/// so that the command says so instead of succeeding with nothing written.
+/// (A shell's `> /dev/null` opens it write-only and is left alone.)
+pub fn stdout_is_open() -> bool {
+    #[cfg(target_os = "linux")]
+    {
+        let target = std::fs::read_link("/proc/self/fd/1");
+        if target.is_ok_and(|t| t == std::path::Path::new("/dev/null"))
+            && let Ok(info) = std::fs::read_to_string("/proc/self/fdinfo/1")
+            && let Some(flags) = info.lines().find_map(|l| l.strip_prefix("flags:"))
+            && let Ok(flags) = u32::from_str_radix(flags.trim(), 8)
+        {
+            // O_ACCMODE = 3, O_RDWR = 2
+            return flags & 3 != 2;
+        }
+        true
+    }
+    #[cfg(not(target_os = "linux"))]
+    true
+}
+
 /// Runs one headless command and prints its output; returns the exit status.
 pub fn run(argv: Vec<OsString>) -> ExitCode {
-    let cli = match Cli::try_parse_from(argv) {
+    let matches = match Cli::command().try_get_matches_from(argv) {
+        Ok(m) => m,
+        Err(e) => return report_usage_error(e),
+    };
+    let cli = match Cli::from_arg_matches(&matches) {
         Ok(cli) => cli,
         Err(e) => return report_usage_error(e),
     };
     let Some(command) = cli.command else {
-        eprintln!("elbowroom: no command given; see 'elbowroom --help'");
+        report("no command given; see 'elbowroom --help'");
         return ExitCode::from(2);
     };
-    let stdout = std::io::stdout();
-    let mut buffered = std::io::BufWriter::with_capacity(output::BUFFER, stdout.lock());
-    let mut sink = Sink::new(&mut buffered, "standard output");
-    let result = execute(&command, &mut sink).and_then(|()| sink.flush());
+    let name = matches.subcommand_name().unwrap_or("the command");
+    if let Some(("figure", sub)) = matches.subcommand()
+        && let Err(e) = cmd_figure::foreign_flags(sub)
+    {
+        report(&e.message());
+        return ExitCode::from(e.exit_code());
+    }
+    interrupt::install(name);
+    let result = match command.out_file() {
+        Some(path) => run_to_file(&command, path),
+        None => run_to_stdout(&command),
+    };
     match result {
         Ok(()) => ExitCode::SUCCESS,
-        // a closed pipe (for example `| head`) means the reader has what it wanted
-        Err(_) if sink.closed_pipe() => ExitCode::SUCCESS,
         Err(e) => {
-            // what was produced before the failure still goes out, then the reason
-            let _ = sink.flush();
-            eprintln!("elbowroom: {}", e.message());
+            report(&e.message());
             ExitCode::from(e.exit_code())
         }
     }
+}
+
+/// Runs a command whose output goes to standard output.
+fn run_to_stdout(command: &Command) -> Result<(), CliError> {
+    if !stdout_is_open() {
+        return Err(CliError::Failed(
+            "cannot write standard output: it is closed".into(),
+        ));
+    }
+    let stdout = std::io::stdout();
+    let mut buffered = std::io::BufWriter::with_capacity(output::BUFFER, stdout.lock());
+    let mut sink = Sink::new(&mut buffered, "standard output");
+    let result = execute(command, &mut sink).and_then(|()| sink.flush());
+    match result {
+        Ok(()) => Ok(()),
+        // a closed pipe (for example `| head`) means the reader has what it wanted
+        Err(_) if sink.closed_pipe() => Ok(()),
+        Err(e) => {
+            // what was produced before the failure still goes out, then the reason
+            let _ = sink.flush();
+            Err(e)
+        }
+    }
+}
+
+/// Runs a command whose output goes to `--out FILE`: written to a temporary
+/// file beside it, renamed to FILE only when the command has succeeded.
+fn run_to_file(command: &Command, path: &std::path::Path) -> Result<(), CliError> {
+    let shown = crate::math::excerpt::excerpt(&path.display().to_string());
+    let failed = |e: crate::atomic_write::WriteFailure| {
+        CliError::Failed(format!("cannot write {shown}: {e}"))
+    };
+    let mut staged = crate::atomic_write::Staged::create(path).map_err(failed)?;
+    let mut sink = Sink::new(&mut staged, &shown);
+    execute(command, &mut sink).and_then(|()| sink.flush())?;
+    drop(sink);
+    staged.commit().map_err(failed)
+}
+
+/// Prints a completion script for `shell`.
+fn completions(shell: args::ShellArg) -> Result<String, CliError> {
+    use clap_complete::Shell;
+    let shell = match shell {
+        args::ShellArg::Bash => Shell::Bash,
+        args::ShellArg::Zsh => Shell::Zsh,
+        args::ShellArg::Fish => Shell::Fish,
+    };
+    let mut bytes = Vec::new();
+    clap_complete::generate(shell, &mut Cli::command(), "elbowroom", &mut bytes);
+    String::from_utf8(bytes)
+        .map_err(|_| CliError::Failed("the completion script is not text".into()))
+}
+
+/// Prints the manual page (roff).
+fn manual_page() -> Result<String, CliError> {
+    let mut bytes = Vec::new();
+    clap_mangen::Man::new(Cli::command())
+        .render(&mut bytes)
+        .map_err(|e| CliError::Failed(format!("cannot render the manual page: {e}")))?;
+    String::from_utf8(bytes).map_err(|_| CliError::Failed("the manual page is not text".into()))
 }
 
 /// Runs a parsed command, writing what it prints to `sink`. Commands with long
@@ -97,6 +206,8 @@ pub fn execute(command: &Command, sink: &mut Sink<'_>) -> Result<(), CliError> {
         Command::Survey(a) => return cmd_survey::run(a, sink),
         Command::Session(a) => cmd_session::run(a),
         Command::Figure(a) => cmd_figure::run(a),
+        Command::Completions(a) => completions(a.shell),
+        Command::Man => manual_page(),
     }?;
     sink.whole(&whole)
 }
@@ -107,10 +218,29 @@ fn report_usage_error(e: clap::Error) -> ExitCode {
         ErrorKind::DisplayHelp
         | ErrorKind::DisplayVersion
         | ErrorKind::DisplayHelpOnMissingArgumentOrSubcommand => {
-            let _ = e.print();
-            ExitCode::SUCCESS
+            use std::io::Write;
+            // help and version are the output: a failed write is a failure
+            let written = if stdout_is_open() {
+                e.print().and_then(|()| std::io::stdout().flush())
+            } else {
+                Err(std::io::Error::other("it is closed"))
+            };
+            match written {
+                Ok(()) => ExitCode::SUCCESS,
+                Err(err) => {
+                    report(&format!("cannot write standard output: {err}"));
+                    ExitCode::FAILURE
+                }
+            }
         }
         _ => {
+            // a typed reader's refusal is already the one line to print
+            if let Some(v) =
+                std::error::Error::source(&e).and_then(|s| s.downcast_ref::<args::Verbatim>())
+            {
+                report(&v.0);
+                return ExitCode::from(2);
+            }
             let rendered = e.to_string();
             let summary: Vec<&str> = rendered
                 .lines()
@@ -120,7 +250,9 @@ fn report_usage_error(e: clap::Error) -> ExitCode {
                 .collect();
             let text = summary.join(" ");
             let text = text.trim_start_matches("error: ");
-            eprintln!("elbowroom: {text}; see 'elbowroom --help' for what is accepted");
+            report(&format!(
+                "{text}; see 'elbowroom --help' for what is accepted"
+            ));
             ExitCode::from(2)
         }
     }

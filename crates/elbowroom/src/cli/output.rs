@@ -361,7 +361,7 @@ mod tests {
         assert!(!sink.closed_pipe());
         let mut pipe = Refuses(ErrorKind::BrokenPipe);
         let mut sink = Sink::new(&mut pipe, "standard output");
-        assert!(sink.text("x").is_err());
+        assert!(matches!(sink.text("x"), Err(CliError::Failed(_))));
         assert!(sink.closed_pipe());
         let mut buf = Vec::new();
         let mut sink = Sink::new(&mut buf, "a buffer");
@@ -407,7 +407,10 @@ mod tests {
         store.row(1, "b").unwrap();
         let mut buf = Vec::new();
         let mut sink = Sink::new(&mut buf, "a buffer");
-        assert!(store.write_rows(&mut sink, "", &mut |_| Ok(())).is_err());
-        assert!(store.row(2, "c").is_err());
+        assert!(matches!(
+            store.write_rows(&mut sink, "", &mut |_| Ok(())),
+            Err(CliError::Failed(_))
+        ));
+        assert!(matches!(store.row(2, "c"), Err(CliError::Failed(_))));
     }
 }

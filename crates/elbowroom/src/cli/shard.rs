@@ -26,7 +26,8 @@ impl Shard {
     pub fn parse(text: &str) -> Result<Shard, CliError> {
         let bad = || {
             CliError::Input(format!(
-                "--shard '{text}' is not of the form K/N with 1 <= K <= N (for example 3/8)"
+                "--shard '{}' is not of the form K/N with 1 <= K <= N (for example 3/8)",
+                crate::math::excerpt::excerpt(text)
             ))
         };
         let (k, n) = text.split_once('/').ok_or_else(bad)?;
@@ -41,6 +42,22 @@ impl Shard {
     /// The shard of an optional `--shard` argument: the whole batch without one.
     pub fn of_arg(text: Option<&str>) -> Result<Shard, CliError> {
         text.map_or(Ok(Shard::WHOLE), Shard::parse)
+    }
+
+    /// Refuses a split into more pieces than the listing has rows (`rows`):
+    /// such pieces would be empty, and a merge would have to account for
+    /// pieces that hold nothing.
+    pub fn check_fits(&self, rows: usize) -> Result<(), CliError> {
+        if !self.is_whole() && self.count > rows.max(1) {
+            return Err(CliError::Input(format!(
+                "--shard {}/{} is beyond the listing: it has {rows} {}, so N can be at most {} (a piece holds at least one)",
+                self.index,
+                self.count,
+                if rows == 1 { "row" } else { "rows" },
+                rows.max(1)
+            )));
+        }
+        Ok(())
     }
 
     /// Whether item `i` (0-based, in listing order) belongs to this shard.
@@ -66,8 +83,16 @@ mod tests {
         for i in 0..100 {
             assert_eq!(shards.iter().filter(|s| s.selects(i)).count(), 1);
         }
-        assert!(Shard::parse("0/3").is_err());
-        assert!(Shard::parse("4/3").is_err());
-        assert!(Shard::parse("x").is_err());
+        assert!(Shard::parse("0/3").is_err_and(|e| matches!(e, CliError::Input(_))));
+        assert!(Shard::parse("4/3").is_err_and(|e| matches!(e, CliError::Input(_))));
+        assert!(Shard::parse("x").is_err_and(|e| matches!(e, CliError::Input(_))));
+        // a split into more pieces than rows is refused when the piece is made
+        assert!(Shard::parse("2/3").unwrap().check_fits(3).is_ok());
+        let e = Shard::parse("1/4").unwrap().check_fits(3).unwrap_err();
+        assert!(
+            matches!(&e, CliError::Input(m) if m.contains("beyond the listing: it has 3 rows, so N can be at most 3")),
+            "{e:?}"
+        );
+        assert!(Shard::WHOLE.check_fits(0).is_ok());
     }
 }

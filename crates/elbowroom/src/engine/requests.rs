@@ -408,6 +408,9 @@ fn typed(text: &str, n: usize, progress: &Progress) -> MathResult<String> {
 
 fn schubert_polynomial(w: &Perm, progress: &Progress) -> MathResult<IntPoly> {
     progress.set_total(1);
+    // the same refusal as `elbowroom schubert`
+    crate::math::sizing::check_schubert(w)?;
+    progress.check()?;
     let p = SchubertTable::new().get(w);
     progress.advance(1);
     Ok((*p).clone())
@@ -487,6 +490,8 @@ fn divsym(text: &str, h: &[usize], progress: &Progress) -> MathResult<DividedSym
     progress.set_total(1);
     let h = HessenbergFn::new(h)?;
     let f = parse_poly_with(text, Some(h.n()), progress)?;
+    // the same refusal as `elbowroom divsym`
+    crate::math::sizing::check_divsym(&f, &h)?;
     let out = divided_symmetrize_with(&f, &h, progress)?;
     progress.advance(1);
     Ok(out)

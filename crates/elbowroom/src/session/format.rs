@@ -179,6 +179,13 @@ fn explain(code: &ron::Error) -> String {
             "expected an elbowroom session `(format: \"elbowroom-session\", version: 1, session: (...))` here".into()
         }
         E::TrailingCharacters => "there is more text after the end of the session".into(),
+        E::SuggestRawIdentifier(found) | E::InvalidIdentifier(found) => format!(
+            "`{}` is not accepted here; a field name or a choice such as Dreams is expected",
+            crate::math::excerpt::excerpt(found)
+        ),
+        E::ExpectedIdentifier => {
+            "a field name or a choice such as Dreams is expected here".into()
+        }
         E::Message(m) => format!("{} here", lower_first(&plain(m)).trim_end_matches('.')),
         other => format!(
             "{} here",

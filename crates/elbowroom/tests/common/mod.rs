@@ -45,6 +45,12 @@ pub fn rejects(args: &[&str], needle: &str) {
 /// `ELBOWROOM_ANNOUNCE_WATCH=1`), sends it SIGINT as Ctrl-C does, and returns
 /// what it did. The announcement line is left out of the stderr returned.
 pub fn interrupted(args: &[&str]) -> Output {
+    signaled(args, "INT")
+}
+
+/// [`interrupted`] with another signal (`"TERM"`, `"HUP"`, `"INT"`), sent
+/// once the long run is registered.
+pub fn signaled(args: &[&str], signal: &str) -> Output {
     use elbowroom::cli::interrupt::{ANNOUNCE_ENV, ANNOUNCEMENT};
     use std::io::{BufRead, BufReader, Read};
     let mut child = Command::new(env!("CARGO_BIN_EXE_elbowroom"))
@@ -62,7 +68,7 @@ pub fn interrupted(args: &[&str]) -> Output {
         "{args:?}: expected {ANNOUNCEMENT:?} on stderr first, got {line:?}"
     );
     let status = Command::new("kill")
-        .args(["-INT", &child.id().to_string()])
+        .args([&format!("-{signal}"), &child.id().to_string()])
         .status()
         .unwrap();
     assert!(status.success(), "kill -INT failed");

@@ -77,7 +77,10 @@ mod tests {
                 &out_text,
             ]);
             assert!(
-                matches!(refused, Err(CliError::Input(_))),
+                matches!(
+                    refused,
+                    Err(CliError::Math(crate::math::MathError::InvalidInput(_)))
+                ),
                 "{bad}: {refused:?}"
             );
         }

@@ -47,7 +47,100 @@ type Figure = (usize, String, Scene);
 /// A file written: index, path, width and height in points.
 type Written = (usize, PathBuf, f32, f32);
 
-/// Runs the command.
+/// The flags every kind of figure takes (where and how the file is written).
+const COMMON_FLAGS: &[&str] = &[
+    "kind",
+    "out",
+    "scale",
+    "dpi",
+    "transparent",
+    "dark",
+    "no_labels",
+    "json",
+];
+
+/// The flags (clap ids) a kind of figure takes besides [`COMMON_FLAGS`], as
+/// they are typed.
+fn kind_flags(kind: FigureKind) -> &'static [(&'static str, &'static str)] {
+    match kind {
+        FigureKind::Dream | FigureKind::Bumpless => &[
+            ("perm", "W"),
+            ("index", "--index"),
+            ("all", "--all"),
+            ("format", "--format"),
+        ],
+        FigureKind::Wiring => &[
+            ("perm", "W"),
+            ("index", "--index"),
+            ("all", "--all"),
+            ("format", "--format"),
+            ("word", "--word"),
+        ],
+        FigureKind::Paths => &[
+            ("perm", "W"),
+            ("poly", "--poly"),
+            ("n", "--n"),
+            ("columns", "--columns"),
+            ("legend", "--legend"),
+        ],
+        FigureKind::Permutohedron => &[
+            ("lambda", "--lambda"),
+            ("yaw", "--yaw"),
+            ("pitch", "--pitch"),
+        ],
+        FigureKind::Volume => &[("from", "--from"), ("to", "--to"), ("samples", "--samples")],
+        FigureKind::Hessenberg => &[("h", "--h"), ("n", "--n")],
+    }
+}
+
+/// Refuses a flag given on the command line that the kind of figure does not
+/// take (`figure dream 1432 --lambda 1,2,3`), naming the flags it does take.
+pub fn foreign_flags(matches: &clap::ArgMatches) -> Result<(), CliError> {
+    use clap::parser::ValueSource;
+    let Ok(Some(kind)) = matches.try_get_one::<FigureKind>("kind") else {
+        return Ok(());
+    };
+    let own = kind_flags(*kind);
+    let all = [
+        ("perm", "W"),
+        ("index", "--index"),
+        ("all", "--all"),
+        ("format", "--format"),
+        ("word", "--word"),
+        ("poly", "--poly"),
+        ("n", "--n"),
+        ("columns", "--columns"),
+        ("legend", "--legend"),
+        ("lambda", "--lambda"),
+        ("yaw", "--yaw"),
+        ("pitch", "--pitch"),
+        ("from", "--from"),
+        ("to", "--to"),
+        ("samples", "--samples"),
+        ("h", "--h"),
+    ];
+    for (id, shown) in all {
+        if COMMON_FLAGS.contains(&id) || own.iter().any(|(o, _)| *o == id) {
+            continue;
+        }
+        if matches.value_source(id) == Some(ValueSource::CommandLine) {
+            let takes: Vec<&str> = own.iter().map(|(_, s)| *s).collect();
+            let what = if id == "perm" {
+                "a permutation".to_string()
+            } else {
+                shown.to_string()
+            };
+            return Err(CliError::Input(format!(
+                "figure {} takes no {what}; it takes {} (and --out, --scale, --dpi, --transparent, --dark, --no-labels, --json)",
+                kind.name(),
+                takes.join(", ")
+            )));
+        }
+    }
+    Ok(())
+}
+
+/// Draws the figures asked for and writes their files.
 pub fn run(args: &FigureArgs) -> Result<String, CliError> {
     let opts = export_options(args)?;
     let look = Look {

@@ -3,7 +3,6 @@
 use super::Figure;
 use crate::cli::args::FigureArgs;
 use crate::cli::error::CliError;
-use crate::cli::inputs::parse_lambda;
 use crate::figure::look::Look;
 use crate::figure::permutohedron::polytope_scene;
 use crate::math::permutohedra::drawing::{MAX_DRAWN_N, PolytopeDrawing};
@@ -11,13 +10,12 @@ use crate::math::permutohedra::permutohedron::Permutohedron;
 
 /// The one figure of P_λ for `--lambda` (n <= [`MAX_DRAWN_N`]).
 pub fn drawing(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
-    let Some(text) = &args.lambda else {
+    let Some(lambda) = &args.lambda else {
         return Err(CliError::Input(
             "figure permutohedron needs --lambda, for example --lambda 3,2,1,0".into(),
         ));
     };
-    let lambda = parse_lambda(text)?;
-    let p = Permutohedron::new(&lambda)?;
+    let p = Permutohedron::new(lambda)?;
     if p.n() > MAX_DRAWN_N {
         return Err(CliError::Input(format!(
             "P_λ is drawn for n <= {MAX_DRAWN_N}; --lambda has {} entries",

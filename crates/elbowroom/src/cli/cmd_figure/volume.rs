@@ -3,7 +3,7 @@
 use super::Figure;
 use crate::cli::args::FigureArgs;
 use crate::cli::error::CliError;
-use crate::cli::inputs::{check_volume_size, parse_lambda};
+use crate::cli::inputs::check_volume_size;
 use crate::cli::interrupt;
 use crate::figure::look::Look;
 use crate::figure::volume::volume_plot_scene;
@@ -29,7 +29,7 @@ pub fn plot(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
             args.samples
         )));
     }
-    let (a, b) = (parse_lambda(a)?, parse_lambda(b)?);
+    let (a, b) = (a.clone(), b.clone());
     if a.len() != b.len() {
         return Err(CliError::Input(format!(
             "--from has {} entries and --to has {}; the two ends of the segment need the same number",
