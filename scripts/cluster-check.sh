@@ -1,7 +1,7 @@
 #!/bin/sh
 # A real cluster run on this machine: a one-node Slurm (slurmctld, slurmd and
 # munged, all on localhost, configured in a private directory) runs the
-# README's array jobs, then `elbowroom merge` puts the pieces back together and
+# array jobs of docs/cluster.md, then `elbowroom merge` puts the pieces back together and
 # the result is compared with the single run.
 #
 #   scripts/cluster-check.sh [path/to/elbowroom]
@@ -108,7 +108,7 @@ echo "one-node Slurm up: $(sinfo -h -o '%P %D %t %c CPUs %m MB')"
 TIME=""
 if [ -x /usr/bin/time ]; then TIME="/usr/bin/time -f %e_s_%M_KB"; fi
 
-# the README's array jobs: each task one piece (memory and time per piece: README)
+# the array jobs of docs/cluster.md: each task one piece (memory and time per piece there)
 sbatch --quiet --wait --array=1-4 --mem=500M --time=10 --job-name=hessenberg \
     --output="$OUT/hessenberg-%a.json" --error="$OUT/hessenberg-%a.err" \
     --wrap "$TIME $BIN hessenberg --n 12 --shard \$SLURM_ARRAY_TASK_ID/4 --json"

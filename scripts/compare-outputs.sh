@@ -1,5 +1,5 @@
 #!/bin/bash
-# Runs every `$ elbowroom ...` example of the README, and the commands in
+# Runs every `$ elbowroom ...` example of README.md and docs/*.md, and the commands in
 # scripts/example-commands.txt, with two builds of elbowroom, and says whether
 # each gave the same bytes: standard output, standard error, exit status and
 # every file written. Used to show that a refactoring changes no behaviour.
@@ -18,7 +18,7 @@ old=$(realpath "$1"); new=$(realpath "$2")
 scratch=$(mktemp -d)
 trap 'rm -rf "$scratch"' EXIT
 {
-    sed -n 's/^\$ elbowroom //p' README.md
+    sed -n 's/^\$ elbowroom //p' README.md docs/*.md
     grep -v '^#' scripts/example-commands.txt | grep -v '^$'
 } > "$scratch/commands"
 run() { # binary, folder, command line

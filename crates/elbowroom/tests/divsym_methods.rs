@@ -186,23 +186,29 @@ fn a_canceled_divided_symmetrization_stops() {
     use elbowroom::math::hessenberg::divsym::divided_symmetrize_with;
     use elbowroom::math::{MathError, Progress};
     use std::sync::Arc;
-    use std::time::{Duration, Instant};
+    use std::sync::mpsc;
+    use std::time::Instant;
     // DS_8 of (x1 + … + x8)^9 goes through f·Q_h: 11 440 terms of f (C(16, 7)) times
-    // the terms of Q_h, a product of 21 linear factors; cancelled mid-run it stops
-    // with `Canceled`. The bound is loose (debug build on a shared machine).
+    // the terms of Q_h, a product of 21 linear factors, seconds of work; cancelled
+    // once the computation has been entered, it stops with `Canceled` (had it run
+    // to its end it would be `Ok`). The time the stop took is printed, not bounded:
+    // a wall-clock bound on a shared machine proves nothing.
     let h = HessenbergFn::default_for(8).unwrap();
     let f =
         elbowroom::math::poly::parse::parse_poly("(x1+x2+x3+x4+x5+x6+x7+x8)^9", Some(8)).unwrap();
     let progress = Arc::new(Progress::default());
     let p = progress.clone();
-    let work = std::thread::spawn(move || divided_symmetrize_with(&f, &h, &p).map(|_| ()));
-    std::thread::sleep(Duration::from_millis(300));
+    let (entered, started) = mpsc::channel();
+    let work = std::thread::spawn(move || {
+        entered.send(()).unwrap();
+        divided_symmetrize_with(&f, &h, &p).map(|_| ())
+    });
+    started.recv().unwrap();
     let asked = Instant::now();
     progress.cancel();
     let result = work.join().unwrap();
-    let took = asked.elapsed();
+    eprintln!("stopped {:?} after the cancel", asked.elapsed());
     assert_eq!(result, Err(MathError::Canceled));
-    assert!(took < Duration::from_millis(1000), "stopped after {took:?}");
     // cancelled before the start, a non-default h: nothing is computed
     let p = Progress::default();
     p.cancel();
