@@ -82,13 +82,15 @@ def test_the_gil_is_released_while_computing():
         before = ticks[0]
         start = time.monotonic()
         er.quotient_basis(8)  # builds the basis of J_8 (or finds it built)
-        er.hessenberg(12, [2, 3, 4, 5, 6, 7, 8, 9, 10, 12, 12, 12])
+        er.hessenberg(12, [2, 3, 4, 5, 6, 7, 8, 9, 10, 12, 12, 12])  # used by no other test
         elapsed = time.monotonic() - start
         during = ticks[0] - before
     finally:
         stop.set()
         t.join()
-    # a thread that sleeps 1 ms per tick gets about elapsed/1 ms ticks when the
-    # GIL is free; with the GIL held throughout it would get almost none
-    if elapsed > 0.2:
-        assert during > 0.2 * elapsed / 0.001 * 0.1
+    if elapsed < 0.2:
+        pytest.skip(f"the computations took {elapsed:.2f} s, too short to tell")
+    # a thread that sleeps 1 ms per tick gets up to elapsed/1 ms ticks when the
+    # GIL is free (fewer on a loaded machine); with the GIL held throughout it
+    # would get a handful at most (one per switch interval, 5 ms, at best)
+    assert during > 20 * elapsed
