@@ -97,6 +97,13 @@ pub const SCHUBERT_TERM_LIMIT: u128 = 2_000_000;
 /// within a few seconds.
 pub const VOLUME_DIGIT_LIMIT: u64 = 1_500;
 
+/// The most rows of a Hessenberg table collected whole, as the Python module
+/// returns it (a dictionary from permutations to integers, about 300 bytes a
+/// row in Python): the default h of n = 15 (11 333 950 rows, about 3.5 GB) is
+/// accepted, that of n = 16 (43 874 857 rows) is refused; the command line
+/// streams its rows and is not bound by this.
+pub const COLLECTED_ROWS_LIMIT: u128 = 12_000_000;
+
 /// The most bumpless pipe dreams listed at once (they are found all together
 /// as a closure under droop moves, so all are held in memory): the same
 /// value as the `dreams --bumpless` listing and the explorer.
