@@ -291,7 +291,46 @@ fn choosing_ds_h_keeps_the_normal_form_and_expansions_at_the_workbenchs_n() {
     settle(&mut h, |h| has(h, "DS_h(f)"));
     // the demo's n is 5: the normal form is still modulo J_5 and the
     // expansion in H*(Fl_5), not at the n = 8 of h
-    let running: Vec<String> = h.state().engine.running().into_iter().map(|r| r.label).collect();
+    let running: Vec<String> = h
+        .state()
+        .engine
+        .running()
+        .into_iter()
+        .map(|r| r.label)
+        .collect();
     assert!(running.iter().all(|l| !l.contains("J_8")), "{running:?}");
     assert!(h.query_all_by_label_contains("J_8").next().is_none());
+}
+
+#[test]
+fn the_export_proposes_a_file_named_after_w_and_the_dream_shown() {
+    let mut h = harness();
+    settle(&mut h, |h| has(h, "1 of 14"));
+    h.key_press(egui::Key::ArrowRight);
+    h.step();
+    h.step();
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::E);
+    h.step();
+    h.step();
+    let proposed = h.state().files.path.clone();
+    assert!(
+        proposed.ends_with("pipe-dream-2-of-14-of-w-15432.svg"),
+        "{proposed}"
+    );
+}
+
+#[test]
+fn an_old_message_goes_when_the_user_moves_on() {
+    let mut h = harness();
+    h.step();
+    h.state_mut().message = Some("cannot save /nowhere/x.ron: no such directory".into());
+    h.step();
+    h.step();
+    assert!(has(&h, "cannot save /nowhere"));
+    // another view: the message was about what was in front before
+    h.state_mut().session.view = elbowroom::session::model::View::Words;
+    h.step();
+    h.step();
+    assert!(h.state().message.is_none());
+    assert!(!has(&h, "cannot save /nowhere"));
 }

@@ -41,6 +41,9 @@ pub struct DreamsView {
     pub shown: Option<PipeDream>,
     /// Where the canvas was drawn in the last frame: its rectangle and screen points per figure unit.
     pub canvas: Option<(egui::Rect, f32)>,
+    /// Which dream is on screen, in words for the export's name
+    /// ("pipe dream 3 of 14 of w = 15432").
+    shown_name: String,
 }
 
 /// What the scene on screen draws.
@@ -184,7 +187,7 @@ impl DreamsView {
                     marked,
                     marks,
                 };
-                ("the pipe dream shown".to_string(), item)
+                (format!("the {}", self.shown_name), item)
             })
             .collect()
     }
@@ -249,6 +252,10 @@ impl DreamsView {
             ui.weak(format!("only the first {DREAM_LIMIT} dreams are listed"));
         }
         let dream = self.moved_off_list.unwrap_or(dreams[place.index]);
+        self.shown_name = match self.moved_off_list {
+            Some(_) => format!("pipe dream of w = {w} reached by a move"),
+            None => format!("pipe dream {} of {total} of w = {w}", place.index + 1),
+        };
         if self.note_for != Some(dream) {
             // another dream (a step, another permutation): the note was about an older one
             self.click_note = None;
@@ -350,6 +357,10 @@ impl DreamsView {
         let mut none = None;
         stepper(ui, &mut place.index, total, &mut none);
         let d = &list[place.index];
+        self.shown_name = format!(
+            "bumpless pipe dream {} of {total} of w = {w}",
+            place.index + 1
+        );
         let key = SceneKey::Bumpless(w.clone(), place.index, look);
         let scene = self.scene_for(key, || (bumpless_scene(d, &look), None));
         ui.horizontal_top(|ui| {
