@@ -334,3 +334,37 @@ fn an_old_message_goes_when_the_user_moves_on() {
     assert!(h.state().message.is_none());
     assert!(!has(&h, "cannot save /nowhere"));
 }
+
+#[test]
+fn the_default_turn_of_the_permutohedron_keeps_its_vertices_apart() {
+    use elbowroom::math::permutohedra::permutohedron::Permutohedron;
+    use num_bigint::BigInt;
+    use num_rational::BigRational;
+    let place = Session::default().solid;
+    let lambda: Vec<BigRational> = place
+        .lambda
+        .iter()
+        .map(|t| BigRational::from_integer(t.parse::<BigInt>().unwrap()))
+        .collect();
+    let p = Permutohedron::new(&lambda).unwrap();
+    let vertices = p.vertices(24).unwrap();
+    assert_eq!(vertices.len(), 24, "P_(3,2,1,0) has 4! vertices");
+    let coords = Permutohedron::drawing_coordinates(&vertices);
+    let shown: Vec<(f64, f64)> = coords
+        .iter()
+        .map(|c| {
+            let (x, y, _) = elbowroom::figure::permutohedron::rotate(c, place.yaw, place.pitch);
+            (x, y)
+        })
+        .collect();
+    // its edges have length √2 (λ has unit gaps); no two vertices on screen
+    // closer than a third of that (the old turn (0.6, 0.35) put pairs 0.105 apart)
+    let mut closest = f64::INFINITY;
+    for a in 0..shown.len() {
+        for b in a + 1..shown.len() {
+            let d = ((shown[a].0 - shown[b].0).powi(2) + (shown[a].1 - shown[b].1).powi(2)).sqrt();
+            closest = closest.min(d);
+        }
+    }
+    assert!(closest > 2f64.sqrt() / 3.0, "{closest}");
+}
