@@ -368,3 +368,31 @@ fn the_default_turn_of_the_permutohedron_keeps_its_vertices_apart() {
     }
     assert!(closest > 2f64.sqrt() / 3.0, "{closest}");
 }
+
+#[test]
+fn the_volume_plot_reads_out_the_exact_sample_under_the_pointer() {
+    let mut h = harness();
+    h.state_mut().session.view = elbowroom::session::model::View::Permutohedron;
+    settle(&mut h, |h| has(h, "exact: Vol at t = 0"));
+    let below = h
+        .query_all_by_label_contains("exact: Vol at t = 0")
+        .next()
+        .unwrap()
+        .rect();
+    // away from the plot: no readout
+    h.input_mut()
+        .events
+        .push(egui::Event::PointerMoved(egui::pos2(10.0, 790.0)));
+    h.step();
+    h.step();
+    assert!(!has(&h, "under the pointer: t = "));
+    // the plot is the 200 points above that line
+    let at = egui::pos2(below.min.x + 150.0, below.min.y - 100.0);
+    h.input_mut().events.push(egui::Event::PointerMoved(at));
+    h.step();
+    h.step();
+    assert!(
+        has(&h, "under the pointer: t = "),
+        "no readout under the pointer"
+    );
+}

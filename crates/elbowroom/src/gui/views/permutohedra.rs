@@ -280,7 +280,7 @@ fn volume_line(ui: &mut egui::Ui, slot: &mut Slot, engine: &Engine, lambda: &[Bi
 /// The volume along the segment as a plot of the exact samples, and the exact end values.
 fn segment_plot(ui: &mut egui::Ui, samples: &[(BigRational, BigRational)], pts: Vec<[f64; 2]>) {
     let y_label = Typeset::new().symbol("Vol P_λ(t)").job(ui);
-    Plot::new("volume_segment")
+    let plot = Plot::new("volume_segment")
         .height(200.0)
         .x_axis_label("t")
         .y_axis_label(y_label)
@@ -289,8 +289,26 @@ fn segment_plot(ui: &mut egui::Ui, samples: &[(BigRational, BigRational)], pts: 
         .show(ui, |p| {
             p.line(Line::new("volume", pts.clone()).width(2.0));
             p.points(Points::new("exact samples", pts).radius(2.5));
+            p.pointer_coordinate()
         });
-    if let (Some(first), Some(last)) = (samples.first(), samples.last()) {
+    // the readout under the pointer: the exact sample nearest in t
+    let hovered = plot.response.hovered();
+    let nearest = plot.inner.filter(|_| hovered).and_then(|at| {
+        samples.iter().min_by(|a, b| {
+            let da = (rational_to_f64(&a.0) - at.x).abs();
+            let db = (rational_to_f64(&b.0) - at.x).abs();
+            da.total_cmp(&db)
+        })
+    });
+    if let Some((t, v)) = nearest {
+        typeset::label(
+            ui,
+            &Typeset::new().symbol(format!(
+                "under the pointer: t = {t}, Vol P_λ(t) = {v} (≈ {:.4})",
+                rational_to_f64(v)
+            )),
+        );
+    } else if let (Some(first), Some(last)) = (samples.first(), samples.last()) {
         ui.weak(format!(
             "exact: Vol at t = 0 is {}, at t = 1 is {}",
             first.1, last.1
