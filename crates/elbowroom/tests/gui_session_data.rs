@@ -396,3 +396,21 @@ fn the_volume_plot_reads_out_the_exact_sample_under_the_pointer() {
         "no readout under the pointer"
     );
 }
+
+#[test]
+fn the_pipe_dream_keeps_its_size_at_150_percent_with_the_notes_open() {
+    use elbowroom::gui::views::dreams::DreamsView;
+    let mut h = harness();
+    h.ctx.set_zoom_factor(1.5);
+    h.state_mut().notes.open = true;
+    settle(&mut h, |h| {
+        h.state()
+            .find_view::<DreamsView>()
+            .is_some_and(|d| d.canvas.is_some())
+    });
+    h.step();
+    let (rect, _) = h.state().find_view::<DreamsView>().unwrap().canvas.unwrap();
+    // 1280×800 at 150 % is 853×533 points; with the left panel and the notes
+    // open the drawing had shrunk to its floor of 160 points
+    assert!(rect.width() > 200.0, "{rect:?}");
+}

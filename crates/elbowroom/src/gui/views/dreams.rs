@@ -391,8 +391,11 @@ impl DreamsView {
     /// Draws the dream's canvas (square, beside room for the facts) with the
     /// hovered pipe lit, and notes which pipe the pointer is on.
     fn show_canvas(&mut self, ui: &mut egui::Ui, scene: &Scene) -> SceneResponse {
+        // the facts beside the drawing take at most 300 points, less in a
+        // narrow window (a large zoom, the notes open): the drawing keeps most
+        let facts = (ui.available_width() * 0.3).min(300.0);
         let side = (ui.available_height() - 8.0)
-            .min(ui.available_width() - 300.0)
+            .min(ui.available_width() - facts)
             .max(160.0);
         let opts = PaintOptions {
             highlight: self.hover_pipe.map(Tag::Pipe).into_iter().collect(),
