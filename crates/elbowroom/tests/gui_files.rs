@@ -177,7 +177,10 @@ fn a_pipe_dream_exports_without_its_move_dots_unless_asked() {
     );
     let dir = scratch("dream");
     let clean = dir.join("clean.svg");
-    export_to(&mut h, "the pipe dream shown", &clean);
+    // the export is named after the dream: its place in the list and w
+    // (15432 has 14 reduced pipe dreams)
+    export_to(&mut h, "the pipe dream 1 of 14 of w = 15432", &clean);
+    assert!(h.state().files.path.ends_with("clean.svg"));
     let text = std::fs::read_to_string(&clean).unwrap();
     // a reduced pipe dream is drawn with paths and labels only; the dots are circles
     assert_eq!(text.matches("<circle").count(), 0, "{text}");
@@ -328,7 +331,7 @@ fn a_wiring_diagram_exports_without_the_lit_crossing_unless_asked() {
     h.step();
     let dir = scratch("wiring");
     let clean = dir.join("clean.svg");
-    export_to(&mut h, "the wiring diagram shown", &clean);
+    export_to(&mut h, "the wiring diagram of word 1 of w = 15432", &clean);
     let text = std::fs::read_to_string(&clean).unwrap();
     // one marker per letter of the word, none emphasised
     assert_eq!(text.matches("<circle").count(), 6, "{text}");

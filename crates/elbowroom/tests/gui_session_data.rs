@@ -291,7 +291,126 @@ fn choosing_ds_h_keeps_the_normal_form_and_expansions_at_the_workbenchs_n() {
     settle(&mut h, |h| has(h, "DS_h(f)"));
     // the demo's n is 5: the normal form is still modulo J_5 and the
     // expansion in H*(Fl_5), not at the n = 8 of h
-    let running: Vec<String> = h.state().engine.running().into_iter().map(|r| r.label).collect();
+    let running: Vec<String> = h
+        .state()
+        .engine
+        .running()
+        .into_iter()
+        .map(|r| r.label)
+        .collect();
     assert!(running.iter().all(|l| !l.contains("J_8")), "{running:?}");
     assert!(h.query_all_by_label_contains("J_8").next().is_none());
+}
+
+#[test]
+fn the_export_proposes_a_file_named_after_w_and_the_dream_shown() {
+    let mut h = harness();
+    settle(&mut h, |h| has(h, "1 of 14"));
+    h.key_press(egui::Key::ArrowRight);
+    h.step();
+    h.step();
+    h.key_press_modifiers(egui::Modifiers::COMMAND, egui::Key::E);
+    h.step();
+    h.step();
+    let proposed = h.state().files.path.clone();
+    assert!(
+        proposed.ends_with("pipe-dream-2-of-14-of-w-15432.svg"),
+        "{proposed}"
+    );
+}
+
+#[test]
+fn an_old_message_goes_when_the_user_moves_on() {
+    let mut h = harness();
+    h.step();
+    h.state_mut().message = Some("cannot save /nowhere/x.ron: no such directory".into());
+    h.step();
+    h.step();
+    assert!(has(&h, "cannot save /nowhere"));
+    // another view: the message was about what was in front before
+    h.state_mut().session.view = elbowroom::session::model::View::Words;
+    h.step();
+    h.step();
+    assert!(h.state().message.is_none());
+    assert!(!has(&h, "cannot save /nowhere"));
+}
+
+#[test]
+fn the_default_turn_of_the_permutohedron_keeps_its_vertices_apart() {
+    use elbowroom::math::permutohedra::permutohedron::Permutohedron;
+    use num_bigint::BigInt;
+    use num_rational::BigRational;
+    let place = Session::default().solid;
+    let lambda: Vec<BigRational> = place
+        .lambda
+        .iter()
+        .map(|t| BigRational::from_integer(t.parse::<BigInt>().unwrap()))
+        .collect();
+    let p = Permutohedron::new(&lambda).unwrap();
+    let vertices = p.vertices(24).unwrap();
+    assert_eq!(vertices.len(), 24, "P_(3,2,1,0) has 4! vertices");
+    let coords = Permutohedron::drawing_coordinates(&vertices);
+    let shown: Vec<(f64, f64)> = coords
+        .iter()
+        .map(|c| {
+            let (x, y, _) = elbowroom::figure::permutohedron::rotate(c, place.yaw, place.pitch);
+            (x, y)
+        })
+        .collect();
+    // its edges have length √2 (λ has unit gaps); no two vertices on screen
+    // closer than a third of that (the old turn (0.6, 0.35) put pairs 0.105 apart)
+    let mut closest = f64::INFINITY;
+    for a in 0..shown.len() {
+        for b in a + 1..shown.len() {
+            let d = ((shown[a].0 - shown[b].0).powi(2) + (shown[a].1 - shown[b].1).powi(2)).sqrt();
+            closest = closest.min(d);
+        }
+    }
+    assert!(closest > 2f64.sqrt() / 3.0, "{closest}");
+}
+
+#[test]
+fn the_volume_plot_reads_out_the_exact_sample_under_the_pointer() {
+    let mut h = harness();
+    h.state_mut().session.view = elbowroom::session::model::View::Permutohedron;
+    settle(&mut h, |h| has(h, "exact: Vol at t = 0"));
+    let below = h
+        .query_all_by_label_contains("exact: Vol at t = 0")
+        .next()
+        .unwrap()
+        .rect();
+    // away from the plot: no readout
+    h.input_mut()
+        .events
+        .push(egui::Event::PointerMoved(egui::pos2(10.0, 790.0)));
+    h.step();
+    h.step();
+    assert!(!has(&h, "under the pointer: t = "));
+    // the plot is the 200 points above that line
+    let at = egui::pos2(below.min.x + 150.0, below.min.y - 100.0);
+    h.input_mut().events.push(egui::Event::PointerMoved(at));
+    h.step();
+    h.step();
+    assert!(
+        has(&h, "under the pointer: t = "),
+        "no readout under the pointer"
+    );
+}
+
+#[test]
+fn the_pipe_dream_keeps_its_size_at_150_percent_with_the_notes_open() {
+    use elbowroom::gui::views::dreams::DreamsView;
+    let mut h = harness();
+    h.ctx.set_zoom_factor(1.5);
+    h.state_mut().notes.open = true;
+    settle(&mut h, |h| {
+        h.state()
+            .find_view::<DreamsView>()
+            .is_some_and(|d| d.canvas.is_some())
+    });
+    h.step();
+    let (rect, _) = h.state().find_view::<DreamsView>().unwrap().canvas.unwrap();
+    // 1280×800 at 150 % is 853×533 points; with the left panel and the notes
+    // open the drawing had shrunk to its floor of 160 points
+    assert!(rect.width() > 200.0, "{rect:?}");
 }

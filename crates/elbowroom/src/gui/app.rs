@@ -41,6 +41,9 @@ pub struct Explorer {
     pub close_asked: bool,
     /// The window title last sent to the window system.
     pub title_shown: String,
+    /// The view and permutation in front when the message was given: the
+    /// message goes once either changes.
+    message_for: Option<(crate::session::model::View, Vec<usize>)>,
     times: FrameTimes,
     frame_log: FrameLog,
 }
@@ -104,6 +107,7 @@ impl Explorer {
             closing,
             close_asked: false,
             title_shown,
+            message_for: None,
             times: FrameTimes::default(),
             frame_log: FrameLog::from_env(),
         }
@@ -135,6 +139,7 @@ impl Explorer {
     /// Draws the whole window into `ui`.
     pub fn show(&mut self, ui: &mut egui::Ui) {
         let started = Instant::now();
+        let message_before = self.message.clone();
         theme::apply(ui.ctx(), self.session.dark);
         self.shortcuts(ui);
         if let Some(a) = self.status_line(ui) {
@@ -180,9 +185,22 @@ impl Explorer {
             ui.ctx().request_repaint_after(Duration::from_millis(50));
         }
         self.update_title(ui.ctx());
+        self.age_message(message_before);
         let took = started.elapsed();
         self.times.record(took);
         self.log_frame(ui, took);
+    }
+
+    /// Keeps the status line's message while the user stays where it was
+    /// given (the same view and permutation), and lets it go after that.
+    fn age_message(&mut self, before: Option<String>) {
+        let here = (self.session.view, self.session.current.clone());
+        if self.message != before || self.message_for.is_none() {
+            self.message_for = self.message.is_some().then_some(here);
+        } else if self.message.is_some() && self.message_for.as_ref() != Some(&here) {
+            self.message = None;
+            self.message_for = None;
+        }
     }
 
     /// Sends the window title when it changed: the session's title (escaped)

@@ -1,6 +1,6 @@
 //! Where elbowroom keeps its own files, in the platform's directories (the
 //! `directories` crate): the recent-sessions list is configuration
-//! (`$XDG_CONFIG_HOME/elbowroom`, `~/Library/Preferences/…` on macOS,
+//! (`$XDG_CONFIG_HOME/elbowroom`, `~/Library/Application Support/…` on macOS,
 //! `%APPDATA%\…\config` on Windows); the autosave is state
 //! (`$XDG_STATE_HOME/elbowroom`, else `~/.local/state/elbowroom`; the local
 //! data directory where the platform has no state directory).

@@ -41,6 +41,9 @@ pub struct DreamsView {
     pub shown: Option<PipeDream>,
     /// Where the canvas was drawn in the last frame: its rectangle and screen points per figure unit.
     pub canvas: Option<(egui::Rect, f32)>,
+    /// Which dream is on screen, in words for the export's name
+    /// ("pipe dream 3 of 14 of w = 15432").
+    shown_name: String,
 }
 
 /// What the scene on screen draws.
@@ -184,7 +187,7 @@ impl DreamsView {
                     marked,
                     marks,
                 };
-                ("the pipe dream shown".to_string(), item)
+                (format!("the {}", self.shown_name), item)
             })
             .collect()
     }
@@ -249,6 +252,10 @@ impl DreamsView {
             ui.weak(format!("only the first {DREAM_LIMIT} dreams are listed"));
         }
         let dream = self.moved_off_list.unwrap_or(dreams[place.index]);
+        self.shown_name = match self.moved_off_list {
+            Some(_) => format!("pipe dream of w = {w} reached by a move"),
+            None => format!("pipe dream {} of {total} of w = {w}", place.index + 1),
+        };
         if self.note_for != Some(dream) {
             // another dream (a step, another permutation): the note was about an older one
             self.click_note = None;
@@ -350,6 +357,10 @@ impl DreamsView {
         let mut none = None;
         stepper(ui, &mut place.index, total, &mut none);
         let d = &list[place.index];
+        self.shown_name = format!(
+            "bumpless pipe dream {} of {total} of w = {w}",
+            place.index + 1
+        );
         let key = SceneKey::Bumpless(w.clone(), place.index, look);
         let scene = self.scene_for(key, || (bumpless_scene(d, &look), None));
         ui.horizontal_top(|ui| {
@@ -380,8 +391,11 @@ impl DreamsView {
     /// Draws the dream's canvas (square, beside room for the facts) with the
     /// hovered pipe lit, and notes which pipe the pointer is on.
     fn show_canvas(&mut self, ui: &mut egui::Ui, scene: &Scene) -> SceneResponse {
+        // the facts beside the drawing take at most 300 points, less in a
+        // narrow window (a large zoom, the notes open): the drawing keeps most
+        let facts = (ui.available_width() * 0.3).min(300.0);
         let side = (ui.available_height() - 8.0)
-            .min(ui.available_width() - 300.0)
+            .min(ui.available_width() - facts)
             .max(160.0);
         let opts = PaintOptions {
             highlight: self.hover_pipe.map(Tag::Pipe).into_iter().collect(),

@@ -262,8 +262,10 @@ impl HessenbergView {
                 let h = ctx.session.hessenberg.h.clone();
                 if let Some(scene) = self.figure_for(&h, look) {
                     ui.weak("the staircase of h (Ctrl+E exports it)");
+                    // larger for a larger n, so that the labels stay readable
+                    let side = (26.0 * h.len() as f32).max(200.0);
                     let opts = PaintOptions {
-                        size: Some(egui::vec2(200.0, 200.0)),
+                        size: Some(egui::vec2(side, side)),
                         ..PaintOptions::default()
                     };
                     scene_painter::show(ui, &scene, &opts);

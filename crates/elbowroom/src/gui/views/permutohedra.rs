@@ -109,26 +109,35 @@ fn rational_fields(
     typing.sync(v);
     let mut changed = false;
     let read: Vec<Option<BigRational>> = v.iter().map(|s| parse_rational(s).ok()).collect();
-    ui.horizontal_wrapped(|ui| {
-        for k in 0..v.len() {
-            ui.vertical(|ui| {
-                let s = &mut typing.shown[k];
-                let bad = parse_rational(s).is_err();
-                let mut edit = egui::TextEdit::singleline(s)
-                    .id_salt((id, k))
-                    .desired_width(54.0);
-                if bad {
-                    edit = edit.text_color(crate::gui::theme::alert());
-                }
-                changed |= ui.add(edit).changed();
-                if sliders && let Some(h) = half_step_slider(ui, k, &read) {
-                    let text = halves_text(h);
-                    typing.shown[k] = text;
-                    changed = true;
-                }
-            });
-        }
-    });
+    // as many fields to a row as fit (the fields wrap: n goes up to 16)
+    let item = if sliders {
+        ui.spacing().slider_width.max(54.0)
+    } else {
+        54.0
+    } + 2.0 * ui.spacing().item_spacing.x;
+    let per_row = ((ui.available_width() / item).floor() as usize).max(1);
+    for row in (0..v.len()).collect::<Vec<_>>().chunks(per_row) {
+        ui.horizontal(|ui| {
+            for &k in row {
+                ui.vertical(|ui| {
+                    let s = &mut typing.shown[k];
+                    let bad = parse_rational(s).is_err();
+                    let mut edit = egui::TextEdit::singleline(s)
+                        .id_salt((id, k))
+                        .desired_width(54.0);
+                    if bad {
+                        edit = edit.text_color(crate::gui::theme::alert());
+                    }
+                    changed |= ui.add(edit).changed();
+                    if sliders && let Some(h) = half_step_slider(ui, k, &read) {
+                        let text = halves_text(h);
+                        typing.shown[k] = text;
+                        changed = true;
+                    }
+                });
+            }
+        });
+    }
     typing.commit(v);
     changed
 }
@@ -254,6 +263,17 @@ fn eulerian_refusal(n: usize) -> Option<String> {
     })
 }
 
+/// A decimal approximation: six decimals, or six significant digits with an
+/// exponent for a large or tiny value.
+fn approx(v: &BigRational) -> String {
+    let x = rational_to_f64(v);
+    if x != 0.0 && !(1e-3..1e7).contains(&x.abs()) {
+        format!("{x:.6e}")
+    } else {
+        format!("{x:.6}")
+    }
+}
+
 /// The exact volume of P_λ, with a decimal approximation.
 fn volume_line(ui: &mut egui::Ui, slot: &mut Slot, engine: &Engine, lambda: &[BigRational]) {
     match slot.fetch(engine, JobKey::Volume(lambda.to_vec())) {
@@ -264,7 +284,11 @@ fn volume_line(ui: &mut egui::Ui, slot: &mut Slot, engine: &Engine, lambda: &[Bi
                     ui,
                     &Typeset::new()
                         .symbol("Vol P_λ")
-                        .plain(format!(" = {exact}  (≈ {:.6})", rational_to_f64(v)))
+                        .plain(format!(
+                            " = {}  (≈ {})",
+                            super::super::typeset::grouped(&exact),
+                            approx(v)
+                        ))
                         .strong(),
                     &exact,
                 );
@@ -280,7 +304,7 @@ fn volume_line(ui: &mut egui::Ui, slot: &mut Slot, engine: &Engine, lambda: &[Bi
 /// The volume along the segment as a plot of the exact samples, and the exact end values.
 fn segment_plot(ui: &mut egui::Ui, samples: &[(BigRational, BigRational)], pts: Vec<[f64; 2]>) {
     let y_label = Typeset::new().symbol("Vol P_λ(t)").job(ui);
-    Plot::new("volume_segment")
+    let plot = Plot::new("volume_segment")
         .height(200.0)
         .x_axis_label("t")
         .y_axis_label(y_label)
@@ -289,8 +313,26 @@ fn segment_plot(ui: &mut egui::Ui, samples: &[(BigRational, BigRational)], pts: 
         .show(ui, |p| {
             p.line(Line::new("volume", pts.clone()).width(2.0));
             p.points(Points::new("exact samples", pts).radius(2.5));
+            p.pointer_coordinate()
         });
-    if let (Some(first), Some(last)) = (samples.first(), samples.last()) {
+    // the readout under the pointer: the exact sample nearest in t
+    let hovered = plot.response.hovered();
+    let nearest = plot.inner.filter(|_| hovered).and_then(|at| {
+        samples.iter().min_by(|a, b| {
+            let da = (rational_to_f64(&a.0) - at.x).abs();
+            let db = (rational_to_f64(&b.0) - at.x).abs();
+            da.total_cmp(&db)
+        })
+    });
+    if let Some((t, v)) = nearest {
+        typeset::label(
+            ui,
+            &Typeset::new().symbol(format!(
+                "under the pointer: t = {t}, Vol P_λ(t) = {v} (≈ {:.4})",
+                rational_to_f64(v)
+            )),
+        );
+    } else if let (Some(first), Some(last)) = (samples.first(), samples.last()) {
         ui.weak(format!(
             "exact: Vol at t = 0 is {}, at t = 1 is {}",
             first.1, last.1
@@ -416,13 +458,15 @@ impl PermutohedronView {
             ui,
             &Typeset::new().symbol("Volume along the segment from λ_a to λ_b"),
         );
-        ui.horizontal(|ui| {
+        ui.horizontal_top(|ui| {
             typeset::label(ui, &Typeset::new().symbol("λ_a"));
-            rational_fields(ui, "from", &mut self.from_typing, &mut place.from, false);
+            ui.vertical(|ui| {
+                rational_fields(ui, "from", &mut self.from_typing, &mut place.from, false)
+            });
         });
-        ui.horizontal(|ui| {
+        ui.horizontal_top(|ui| {
             typeset::label(ui, &Typeset::new().symbol("λ_b"));
-            rational_fields(ui, "to", &mut self.to_typing, &mut place.to, false);
+            ui.vertical(|ui| rational_fields(ui, "to", &mut self.to_typing, &mut place.to, false));
         });
         let (a, b) = match (parse_rationals(&place.from), parse_rationals(&place.to)) {
             (Ok(a), Ok(b)) => (a, b),

@@ -34,6 +34,10 @@ pub struct WordsView {
     /// The same diagram as on screen, lit crossing included, for an export
     /// that keeps the marks.
     wiring_marked: Option<(WiringKey, Arc<Scene>)>,
+    /// A move selected another word: the list scrolls to it once.
+    scroll_to_selected: bool,
+    /// Which word's diagram is on screen, for the export's name.
+    shown_name: String,
 }
 
 /// What a wiring diagram is drawn for: the word, n, the look, the lit crossing.
@@ -99,7 +103,7 @@ impl WordsView {
             marked,
             marks: "the lit crossing",
         };
-        vec![("the wiring diagram shown".to_string(), item)]
+        vec![(format!("the {}", self.shown_name), item)]
     }
 
     /// Draws the view.
@@ -139,6 +143,10 @@ impl WordsView {
             .moved_off_page
             .clone()
             .unwrap_or_else(|| words[in_page].clone());
+        self.shown_name = match self.moved_off_page {
+            Some(_) => format!("wiring diagram of a reduced word of w = {w}"),
+            None => format!("wiring diagram of word {} of w = {w}", *index + 1),
+        };
         self.page_bar(ui, &page, index, total);
         ui.separator();
         ui.horizontal_top(|ui| {
@@ -168,6 +176,7 @@ impl WordsView {
             Fetch::Ready(out) => {
                 if let Some(rank) = out.count().and_then(|c| usize::try_from(c).ok()) {
                     self.select(index, rank);
+                    self.scroll_to_selected = true;
                 }
             }
             // a word of another permutation (w changed meanwhile), or canceled
@@ -269,24 +278,29 @@ impl WordsView {
             ui.set_width(260.0);
             ui.weak("word · content");
             let row_h = ui.spacing().interact_size.y;
-            egui::ScrollArea::vertical()
+            let mut list = egui::ScrollArea::vertical()
                 .id_salt("word_list")
-                .max_height(ui.available_height() - 4.0)
-                .show_rows(ui, row_h, page.words.len(), |ui, rows| {
-                    for r in rows {
-                        let wd = &page.words[r];
-                        let text = egui::RichText::new(format!(
-                            "{}   ({})",
-                            word_text(wd),
-                            content_text(wd, n, ",")
-                        ))
-                        .monospace();
-                        let selected = r == in_page && self.moved_off_page.is_none();
-                        if ui.selectable_label(selected, text).clicked() {
-                            self.select(index, page.index_of(r));
-                        }
+                .max_height(ui.available_height() - 4.0);
+            if std::mem::take(&mut self.scroll_to_selected) {
+                // the selected row a few rows from the top
+                let step = row_h + ui.spacing().item_spacing.y;
+                list = list.vertical_scroll_offset(in_page.saturating_sub(3) as f32 * step);
+            }
+            list.show_rows(ui, row_h, page.words.len(), |ui, rows| {
+                for r in rows {
+                    let wd = &page.words[r];
+                    let text = egui::RichText::new(format!(
+                        "{}   ({})",
+                        word_text(wd),
+                        content_text(wd, n, ",")
+                    ))
+                    .monospace();
+                    let selected = r == in_page && self.moved_off_page.is_none();
+                    if ui.selectable_label(selected, text).clicked() {
+                        self.select(index, page.index_of(r));
                     }
-                });
+                }
+            });
         });
     }
 
@@ -370,6 +384,7 @@ impl WordsView {
             Some(k) => self.select(index, page.index_of(k)),
             None => self.moved_off_page = Some(next),
         }
+        self.scroll_to_selected = true;
     }
 }
 
