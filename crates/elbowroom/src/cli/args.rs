@@ -50,6 +50,28 @@ pub enum Command {
     Session(SessionArgs),
     /// Draws a figure and writes it as PNG, SVG or TikZ (`figure dream 1432 --out f.png`).
     Figure(FigureArgs),
+    /// Forest polynomials: P_F of a code, the forest expansion of S_w or of a polynomial.
+    Forest(ForestArgs),
+}
+
+/// Arguments of `elbowroom forest`.
+#[derive(Args, Debug)]
+pub struct ForestArgs {
+    /// The permutation W whose Schubert polynomial is expanded: 1432, "1 4 3 2" or 1,4,3,2.
+    #[arg(allow_hyphen_values = true, conflicts_with_all = ["code", "poly"])]
+    pub perm: Option<String>,
+    /// The code of an indexed forest, c1,c2,… (e.g. 1,0,2): prints P_F.
+    #[arg(long, allow_hyphen_values = true, conflicts_with = "poly")]
+    pub code: Option<String>,
+    /// A polynomial in x1..xN to expand in forest polynomials (with --n).
+    #[arg(long, allow_hyphen_values = true, requires = "n")]
+    pub poly: Option<String>,
+    /// The number of variables N of --poly.
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
+    pub n: Option<usize>,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
 }
 
 /// Arguments of `elbowroom perm`.
@@ -273,6 +295,9 @@ pub struct ReduceArgs {
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
+    /// Also give the class in the forest basis (the forests with leaves in [n]).
+    #[arg(long)]
+    pub forest: bool,
 }
 
 /// Arguments of `elbowroom survey`.
@@ -343,6 +368,8 @@ pub enum FigureKind {
     Volume,
     /// The staircase diagram of a Hessenberg function h (--h, or --n for h(i) = i + 1).
     Hessenberg,
+    /// An indexed forest on the number line (--code c1,c2,…).
+    Forest,
 }
 
 impl FigureKind {
@@ -356,6 +383,7 @@ impl FigureKind {
             FigureKind::Permutohedron => "permutohedron",
             FigureKind::Volume => "volume",
             FigureKind::Hessenberg => "hessenberg",
+            FigureKind::Forest => "forest",
         }
     }
 }
@@ -409,6 +437,9 @@ pub struct FigureArgs {
     /// wiring: draw this reduced word (letters 1..n-1, e.g. 121 or 1,2,1) instead of one of w's.
     #[arg(long, allow_hyphen_values = true)]
     pub word: Option<String>,
+    /// forest: the code of the forest, c1,c2,… (e.g. 2,0,1).
+    #[arg(long, allow_hyphen_values = true)]
+    pub code: Option<String>,
     /// paths: the polynomial to reduce instead of the reversed Schubert polynomial.
     #[arg(long, allow_hyphen_values = true)]
     pub poly: Option<String>,
