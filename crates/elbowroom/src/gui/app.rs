@@ -10,8 +10,9 @@ use super::picker::Picker;
 use super::status::{self, FrameTimes};
 use super::theme;
 use super::views::{
-    self, dreams::DreamsView, hessenberg::HessenbergView, permutohedra::PermutohedronView,
-    products::ProductsView, quotient::QuotientView, words::WordsView, workbench::WorkbenchView,
+    self, dreams::DreamsView, forests::ForestView, hessenberg::HessenbergView,
+    permutohedra::PermutohedronView, products::ProductsView, quotient::QuotientView,
+    words::WordsView, workbench::WorkbenchView,
 };
 use crate::engine::Engine;
 use crate::session::Session;
@@ -45,6 +46,8 @@ pub struct Explorer {
     pub workbench: WorkbenchView,
     /// The products and expansions view.
     pub products: ProductsView,
+    /// The forest polynomials view.
+    pub forests: ForestView,
     /// The save / open / export window.
     pub files: FilePanel,
     /// The panel of the session's title and notes.
@@ -117,6 +120,7 @@ impl Explorer {
             permutohedron: PermutohedronView::default(),
             workbench: WorkbenchView::default(),
             products: ProductsView::default(),
+            forests: ForestView::default(),
             files: FilePanel::default(),
             notes: NotesPanel::default(),
             autosave: Autosave::default(),
@@ -270,6 +274,7 @@ impl Explorer {
                 View::Permutohedron => self.permutohedron.ui(ui, &mut ctx),
                 View::Workbench => self.workbench.ui(ui, &mut ctx),
                 View::Products => self.products.ui(ui, &mut ctx),
+                View::Forests => self.forests.ui(ui, &mut ctx),
                 _ => self.dreams.ui(ui, &mut ctx),
             }
         });
@@ -300,6 +305,7 @@ impl Explorer {
             View::Words => return self.words.figures(),
             View::Quotient if !survey => self.quotient.figures(),
             View::Permutohedron => self.permutohedron.figures(),
+            View::Forests => self.forests.figures(),
             _ => Vec::new(),
         };
         let tables = match self.session.view {

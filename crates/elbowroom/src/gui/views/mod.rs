@@ -3,6 +3,7 @@
 //! mathematics, the figures' look.
 
 pub mod dreams;
+pub mod forests;
 pub mod hessenberg;
 pub mod permutohedra;
 pub mod products;
@@ -29,11 +30,12 @@ pub fn title(v: View) -> &'static str {
         View::Permutohedron => "Permutohedra",
         View::Workbench => "Polynomial workbench",
         View::Products => "Products & expansions",
+        View::Forests => "Forest polynomials",
     }
 }
 
 /// The views in tab order.
-pub const ORDER: [View; 7] = [
+pub const ORDER: [View; 8] = [
     View::Dreams,
     View::Words,
     View::Hessenberg,
@@ -41,6 +43,7 @@ pub const ORDER: [View; 7] = [
     View::Permutohedron,
     View::Workbench,
     View::Products,
+    View::Forests,
 ];
 
 /// Whether arrow keys belong to the view (no text field has the keyboard).
