@@ -8,8 +8,8 @@
 //! with suffix sums; P_F is the product over the trees of Σ_a Q_root(a).
 
 use crate::error::{MathError, MathResult};
-use crate::forest::indexed::{Child, Forest};
-use crate::poly::mono::Mono;
+use crate::forest::indexed::{Child, Forest, code_text};
+use crate::poly::mono::{MAX_VARS, Mono};
 use crate::poly::polynomial::{IntPoly, Poly};
 use crate::progress::Progress;
 use num_bigint::{BigInt, BigUint};
@@ -21,15 +21,40 @@ use num_traits::{One, Zero};
 /// 100 MB and a few seconds.
 pub const FOREST_LABELING_LIMIT: u128 = 2_000_000;
 
+/// The largest label each node takes in some labeling: e(v) = min(ρ(v),
+/// e(left), e(right) − 1) over its internal children (κ(left) ≥ κ(v) and
+/// κ(right) > κ(v)); every e(v) ≥ 1, and P_F lies in x_1..x_m, m = max e(v).
+///
+/// ```
+/// use elbowroom_math::forest::{indexed::Forest, polynomial::label_bounds};
+/// // (0,2) is 1((2 3)4): ρ = 2 and 3, but the root's label is at most its left child's
+/// assert_eq!(label_bounds(&Forest::from_code(&[0, 2]).unwrap()), vec![2, 2]);
+/// ```
+pub fn label_bounds(f: &Forest) -> Vec<usize> {
+    let mut e: Vec<usize> = Vec::with_capacity(f.size());
+    for v in f.nodes() {
+        let mut b = v.rho;
+        if let Child::Node(k) = v.left {
+            b = b.min(e[k]);
+        }
+        if let Child::Node(k) = v.right {
+            b = b.min(e[k].saturating_sub(1));
+        }
+        e.push(b);
+    }
+    e
+}
+
 /// P_F(1, …, 1): the number of labelings of F, counted by the same recursion
 /// on integers (saturating at `u128::MAX`).
 pub fn labeling_count(f: &Forest) -> u128 {
     let nodes = f.nodes();
+    let bounds = label_bounds(f);
     // counts[k][a-1] = labelings of the subtree at k with κ(k) = a
     let mut counts: Vec<Vec<u128>> = Vec::with_capacity(nodes.len());
-    for v in nodes {
-        let mut row = Vec::with_capacity(v.rho);
-        for a in 1..=v.rho {
+    for (v, &e) in nodes.iter().zip(&bounds) {
+        let mut row = Vec::with_capacity(e);
+        for a in 1..=e {
             let l = side_count(&counts, v.left, a);
             let r = side_count(&counts, v.right, a + 1);
             row.push(l.saturating_mul(r));
@@ -65,17 +90,25 @@ pub fn forest_polynomial(f: &Forest, progress: &Progress) -> MathResult<IntPoly>
     let count = labeling_count(f);
     if count > FOREST_LABELING_LIMIT {
         return Err(MathError::OutOfRange(format!(
-            "P_F of the forest {f} has {count} labelings; at most {FOREST_LABELING_LIMIT} are accepted"
+            "P_F of the code {} has {count} labelings; at most {FOREST_LABELING_LIMIT} are accepted",
+            code_text(f.code())
         )));
     }
     let nodes = f.nodes();
-    let nvars = nodes.iter().map(|v| v.rho).max().unwrap_or(0).max(1);
+    let bounds = label_bounds(f);
+    let nvars = bounds.iter().copied().max().unwrap_or(0).max(1);
+    if nvars > MAX_VARS {
+        return Err(MathError::OutOfRange(format!(
+            "P_F of the code {} uses x{nvars}; at most x{MAX_VARS}",
+            code_text(f.code())
+        )));
+    }
     // suffix[k][a-1] = Σ_{b ≥ a} Q_k(b)
     let mut suffix: Vec<Vec<IntPoly>> = Vec::with_capacity(nodes.len());
-    for v in nodes {
+    for (v, &e) in nodes.iter().zip(&bounds) {
         progress.check()?;
-        let mut q: Vec<IntPoly> = Vec::with_capacity(v.rho);
-        for a in 1..=v.rho {
+        let mut q: Vec<IntPoly> = Vec::with_capacity(e);
+        for a in 1..=e {
             let l = side_poly(&suffix, v.left, a, nvars);
             let r = side_poly(&suffix, v.right, a + 1, nvars);
             let lr = l.mul_with(&r, progress)?;
@@ -113,10 +146,11 @@ fn side_poly(suffix: &[Vec<IntPoly>], c: Child, from: usize, nvars: usize) -> In
 /// P_F(1, …, 1) as an exact count (the number of labelings).
 pub fn labeling_count_exact(f: &Forest) -> BigUint {
     let nodes = f.nodes();
+    let bounds = label_bounds(f);
     let mut counts: Vec<Vec<BigUint>> = Vec::with_capacity(nodes.len());
-    for v in nodes {
-        let mut row = Vec::with_capacity(v.rho);
-        for a in 1..=v.rho {
+    for (v, &e) in nodes.iter().zip(&bounds) {
+        let mut row = Vec::with_capacity(e);
+        for a in 1..=e {
             let side = |c: Child, from: usize| match c {
                 Child::Leaf(_) => BigUint::one(),
                 Child::Node(k) => counts[k]

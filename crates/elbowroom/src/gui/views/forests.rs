@@ -36,6 +36,8 @@ pub struct ForestView {
     expansion: Slot,
     /// The scene on screen, keyed by code and look.
     figure: Option<(Vec<usize>, Look, Arc<Scene>)>,
+    /// Where the forest was drawn last frame and at what scale (screen points per figure unit).
+    pub canvas: Option<(egui::Rect, f32)>,
 }
 
 /// Reads a code typed as `1,0,2` or `1 0 2` (empty: the empty forest).
@@ -139,6 +141,11 @@ pub fn forest_rows(
 }
 
 impl ForestView {
+    /// The code of the forest shown (None before the view first opens).
+    pub fn code(&self) -> Option<&[usize]> {
+        self.code.as_deref()
+    }
+
     /// The figures this view can export: the forest shown.
     pub fn figures(&self) -> Vec<(String, Arc<Scene>)> {
         self.figure
@@ -288,6 +295,7 @@ impl ForestView {
             size: Some(egui::vec2(width, 260.0)),
         };
         let resp = scene_painter::show(ui, &scene, &opts);
+        self.canvas = Some((resp.response.rect, resp.scale));
         if let Some(Tag::Node(k)) = resp.clicked_where(|t| matches!(t, Tag::Node(_)))
             && let Some(v) = forest.nodes().get(k)
             && v.is_terminal()

@@ -1,0 +1,93 @@
+//! Timings of the forest computations (ignored by default; run with
+//! `cargo test --release --test forest_speed -- --ignored --nocapture`):
+//! the forest expansion of every S_w in S_8, some S_w in S_10, and the class
+//! modulo J_10 in the forest basis (by trimming, no Gröbner basis) against the
+//! normal form through the Gröbner basis, with the two classes compared.
+
+use elbowroom::math::forest::quotient::forest_normal_form;
+use elbowroom::math::forest::schubert::schubert_forest_expansion;
+use elbowroom::math::forest::{indexed::Forest, polynomial::forest_polynomial};
+use elbowroom::math::quotient::normal_form::{groebner_basis, normal_form};
+use elbowroom::math::schubert::polynomial::schubert;
+use elbowroom::math::{Perm, PolyBuilder, Progress, RatPoly};
+use std::time::Instant;
+
+#[test]
+#[ignore]
+fn forest_expansions_of_s8_and_s10() {
+    let start = Instant::now();
+    let mut worst = (0.0f64, Perm::identity(8));
+    let mut forests = 0usize;
+    for w in Perm::all(8) {
+        let t = Instant::now();
+        let e = schubert_forest_expansion(&w, &Progress::default()).unwrap();
+        forests += e.len();
+        let s = t.elapsed().as_secs_f64();
+        if s > worst.0 {
+            worst = (s, w);
+        }
+    }
+    println!(
+        "S_8: all 40320 expansions in {:.1} s ({forests} forests); slowest {} in {:.3} s",
+        start.elapsed().as_secs_f64(),
+        worst.1,
+        worst.0
+    );
+    assert!(worst.0 < 1.0);
+    for text in [
+        "1,10,2,9,3,8,4,7,5,6",
+        "4,8,2,10,6,1,9,3,7,5",
+        "5,10,4,9,3,8,2,7,1,6",
+        "2,1,4,3,6,5,8,7,10,9",
+    ] {
+        let w = Perm::parse(text).unwrap();
+        let t = Instant::now();
+        let e = schubert_forest_expansion(&w, &Progress::default()).unwrap();
+        println!(
+            "S_{w} (ℓ = {}, {} terms): {} forests in {:.3} s",
+            w.length(),
+            schubert(&w).len(),
+            e.len(),
+            t.elapsed().as_secs_f64()
+        );
+    }
+}
+
+#[test]
+#[ignore]
+fn quotient_classes_at_n10_by_forests_and_by_groebner() {
+    let n = 10;
+    let t = Instant::now();
+    let q = groebner_basis(n).unwrap();
+    println!("Gröbner basis of J_10: {:.1} s", t.elapsed().as_secs_f64());
+    for text in [
+        "3,1,7,2,9,4,10,5,8,6",
+        "2,5,1,8,3,10,4,6,9,7",
+        "1,3,5,7,9,2,4,6,8,10",
+    ] {
+        let w = Perm::parse(text).unwrap();
+        let f = schubert(&w).reverse_vars().to_rational();
+        let t = Instant::now();
+        let nf = normal_form(&q, &f).unwrap();
+        let tg = t.elapsed().as_secs_f64();
+        let t = Instant::now();
+        let forest = forest_normal_form(&f, n, &Progress::default()).unwrap();
+        let tf = t.elapsed().as_secs_f64();
+        // the two classes agree: Σ c_F P_F reduces to NF(f)
+        let mut b = PolyBuilder::new(n);
+        for (code, c) in &forest {
+            let p =
+                forest_polynomial(&Forest::from_code(code).unwrap(), &Progress::default()).unwrap();
+            b.add_scaled(&p.to_rational().with_nvars(n).unwrap(), c);
+        }
+        let back: RatPoly = b.build();
+        assert_eq!(normal_form(&q, &back).unwrap(), nf);
+        println!(
+            "S_{w}(x10..x1), ℓ = {}, {} terms: Gröbner normal form {tg:.3} s ({} standard monomials), forest class {tf:.3} s ({} forests)",
+            w.length(),
+            f.len(),
+            nf.coefficients.len(),
+            forest.len()
+        );
+    }
+}
