@@ -448,3 +448,17 @@ fn ctrl_c_while_the_basis_of_the_quotient_is_built_is_answered_with_a_message() 
     assert!(err.contains("the basis of J_10 canceled after"), "{err}");
     assert!(out.stdout.is_empty());
 }
+
+#[test]
+fn forests_past_their_limits_are_refused() {
+    refused(&["forest", "--code", "300"], &["300 internal nodes", "255"]);
+    refused(
+        &["forest", "--code", "0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,20"],
+        &["3247943160 labelings", "2000000"],
+    );
+    refused(&["forest", WIDE_16], &["268435456 terms", "2000000"]);
+    refused(
+        &["forest", "--poly", "x1^30*x12^30", "--n", "12"],
+        &["monomials", "2000000"],
+    );
+}

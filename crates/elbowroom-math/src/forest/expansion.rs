@@ -115,9 +115,8 @@ struct Walk<'a, C> {
 impl<C: Coeff> Walk<'_, C> {
     fn visit(&mut self, g: &Poly<C>, seq: &mut Vec<usize>) -> MathResult<()> {
         self.steps += 1;
-        if self.steps.is_multiple_of(256) {
-            self.progress.check()?;
-        }
+        self.progress.check()?;
+        self.progress.advance(1);
         if self.steps > FOREST_STEP_LIMIT {
             return Err(MathError::OutOfRange(format!(
                 "the forest expansion took more than {FOREST_STEP_LIMIT} steps and was stopped"

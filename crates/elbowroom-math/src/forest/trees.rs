@@ -31,8 +31,8 @@ pub struct TreeTerm {
 /// ```
 /// use elbowroom_math::forest::trees::a_w_by_trees;
 /// use elbowroom_math::{Perm, Progress};
-/// // w = 1432 in S_4: S_w = P_(0,2,1) + P_(1,2); only (1,2) is a tree on 1..4:
-/// // ((1 (2 3)) 4) with h = 3, 2, 1... its labelings 3!/(3·2·1) = 1, so a_1432 = 1
+/// // w = 1432 in S_4: S_w = P_(1,2) + P_(0,2,1); only (1,2) is a tree on 1..4:
+/// // (1((2 3)4)) with h_v = 3, 2, 1 has 3!/(3·2·1) = 1 labeling, so a_1432 = 1
 /// let t = a_w_by_trees(&Perm::parse("1432").unwrap(), &Progress::default()).unwrap();
 /// assert_eq!(t.len(), 1);
 /// assert_eq!(t[0].code, vec![1, 2]);

@@ -12,6 +12,7 @@ use crate::math::forest::expansion::{ForestTerms, check_expansion_size, forest_e
 use crate::math::forest::indexed::{Forest, code_text};
 use crate::math::forest::polynomial::forest_polynomial;
 use crate::math::forest::schubert::{is_single, schubert_forest_expansion};
+use crate::math::forest::trees::{a_w_by_trees, a_w_sum};
 use crate::math::poly::mono::MAX_VARS;
 use crate::math::poly::parse::parse_poly;
 use crate::math::{Coeff, Perm};
@@ -103,7 +104,33 @@ fn run_perm(text: &str, as_json: bool) -> Result<String, CliError> {
             "not a single forest polynomial"
         }
     ));
+    if w.length() + 1 == w.n() && w.n() >= 2 {
+        out.push('\n');
+        out.push_str(&trees_text(&w)?);
+    }
     Ok(out)
+}
+
+/// `a_w = DS_n(S_w) by trees: Σ c·labelings = …` for ℓ(w) = n − 1.
+fn trees_text(w: &Perm) -> Result<String, CliError> {
+    let trees = interrupt::run_interruptible("a_w by trees", "steps", 0, |progress| {
+        a_w_by_trees(w, progress)
+    })?;
+    let parts: Vec<String> = trees
+        .iter()
+        .map(|t| format!("{}·{} [{}]", t.coefficient, t.labelings, code_text(&t.code)))
+        .collect();
+    let sum = if parts.is_empty() {
+        "0".to_string()
+    } else {
+        parts.join(" + ")
+    };
+    Ok(format!(
+        "a_w = DS_{}(S_w) by trees on the leaves 1..{}, c_(w,T)·(n-1)!/Π h_v [code of T]: {sum} = {}",
+        w.n(),
+        w.n(),
+        a_w_sum(&trees)
+    ))
 }
 
 fn run_poly(text: &str, n: usize, as_json: bool) -> Result<String, CliError> {

@@ -16,6 +16,7 @@ use crate::gui::scene_painter::{self, PaintOptions};
 use crate::gui::typeset::{self, Typeset};
 use crate::math::Perm;
 use crate::math::forest::indexed::{Forest, code_text};
+use crate::math::forest::polynomial::label_bounds;
 use eframe::egui;
 use num_traits::Signed;
 use std::sync::Arc;
@@ -311,9 +312,10 @@ impl ForestView {
         } else if let Some(Tag::Node(k)) = resp.hovered_where(|t| matches!(t, Tag::Node(_)))
             && let Some(v) = forest.nodes().get(k)
         {
+            let top = label_bounds(forest).get(k).copied().unwrap_or(v.rho);
             let mut line = format!(
-                "node over the leaves {}..{}: its label κ(v) runs over 1..{} (ρ(v) = {})",
-                v.lo, v.hi, v.rho, v.rho
+                "node over the leaves {}..{}: κ(v) ≤ ρ(v) = {}; in the labelings κ(v) takes the values 1..{top}",
+                v.lo, v.hi, v.rho
             );
             if v.is_terminal() {
                 line.push_str(&format!(
