@@ -3,10 +3,12 @@
 //! the forest expansion of every S_w in S_8, some S_w in S_10, and the class
 //! modulo J_10 in the forest basis (by trimming, no Gröbner basis) against the
 //! normal form through the Gröbner basis, with the two classes compared.
+#![allow(clippy::unwrap_used)]
 
 use elbowroom::math::forest::quotient::forest_normal_form;
 use elbowroom::math::forest::schubert::schubert_forest_expansion;
 use elbowroom::math::forest::{indexed::Forest, polynomial::forest_polynomial};
+use elbowroom::math::poly::parse::parse_poly;
 use elbowroom::math::quotient::normal_form::{groebner_basis, normal_form};
 use elbowroom::math::schubert::polynomial::schubert;
 use elbowroom::math::{Perm, PolyBuilder, Progress, RatPoly};
@@ -60,13 +62,21 @@ fn quotient_classes_at_n10_by_forests_and_by_groebner() {
     let t = Instant::now();
     let q = groebner_basis(n).unwrap();
     println!("Gröbner basis of J_10: {:.1} s", t.elapsed().as_secs_f64());
+    // degrees below n (every polynomial of degree n or more lies in J_n)
+    let mut inputs: Vec<(String, RatPoly)> = Vec::new();
     for text in [
-        "3,1,7,2,9,4,10,5,8,6",
-        "2,5,1,8,3,10,4,6,9,7",
-        "1,3,5,7,9,2,4,6,8,10",
+        "2,5,1,7,3,4,6,10,8,9",
+        "4,1,3,2,7,5,6,9,8,10",
+        "10,1,2,3,4,5,6,7,8,9",
     ] {
         let w = Perm::parse(text).unwrap();
         let f = schubert(&w).reverse_vars().to_rational();
+        inputs.push((format!("S_{w}(x10..x1), ℓ = {}", w.length()), f));
+    }
+    for text in ["(x1 + 2*x4 - x7 + x10)^9", "(x1*x5 - x3*x10 + x2 + x9)^4"] {
+        inputs.push((text.to_string(), parse_poly(text, Some(n)).unwrap()));
+    }
+    for (what, f) in inputs {
         let t = Instant::now();
         let nf = normal_form(&q, &f).unwrap();
         let tg = t.elapsed().as_secs_f64();

@@ -83,8 +83,8 @@ fn side_count(counts: &[Vec<u128>], c: Child, from: usize) -> u128 {
 /// use elbowroom_math::Progress;
 /// // Nadeau–Tewari's small examples: P_(0,2) = x1^2 + x1 x2 + x2^2, P_(1,0,1) = x1 (x1 + x2 + x3)
 /// let p = |c: &[usize]| forest_polynomial(&Forest::from_code(c).unwrap(), &Progress::default()).unwrap();
-/// assert_eq!(p(&[0, 2]).to_text(), "x1^2 + x1*x2 + x2^2");
-/// assert_eq!(p(&[1, 0, 1]).to_text(), "x1^2 + x1*x2 + x1*x3");
+/// assert_eq!(p(&[0, 2]).to_text(), "x1^2 + x1 x2 + x2^2");
+/// assert_eq!(p(&[1, 0, 1]).to_text(), "x1^2 + x1 x2 + x1 x3");
 /// ```
 pub fn forest_polynomial(f: &Forest, progress: &Progress) -> MathResult<IntPoly> {
     let count = labeling_count(f);

@@ -54,7 +54,7 @@ pub fn r_op<C: Coeff>(f: &Poly<C>, i: usize) -> Poly<C> {
 /// assert!(trim(&f, 1).is_zero());
 /// ```
 pub fn trim<C: Coeff>(f: &Poly<C>, i: usize) -> Poly<C> {
-    if i == 0 || i >= MAX_VARS + 1 {
+    if i == 0 || i > MAX_VARS {
         return Poly::zero(f.nvars());
     }
     let a = i - 1;
