@@ -142,7 +142,11 @@ fn p_by_enumeration(code: &[usize]) -> IntPoly {
 #[test]
 fn forest_polynomials_agree_with_the_enumerated_labelings() {
     for code in forests_in(6) {
-        assert_eq!(widen(&p(&code)), widen(&p_by_enumeration(&code)), "P_{code:?}");
+        assert_eq!(
+            widen(&p(&code)),
+            widen(&p_by_enumeration(&code)),
+            "P_{code:?}"
+        );
     }
 }
 
