@@ -16,6 +16,8 @@
 //! 6. [`hessenberg`]: Hessenberg functions, divided symmetrization, tables.
 //! 7. [`quotient`]: the quasisymmetric quotient Q[x]/J_n, lattice paths, surveys.
 //! 8. [`permutohedra`]: permutohedron volumes and mixed Eulerian numbers.
+//! 9. [`forest`]: forest polynomials, trimming, forest expansions, the forest
+//!    basis of the quotient and a_w by trees.
 
 pub mod error;
 pub mod excerpt;
@@ -35,6 +37,8 @@ pub mod hessenberg;
 pub mod quotient;
 
 pub mod permutohedra;
+
+pub mod forest;
 
 pub use error::{MathError, MathResult};
 pub use perms::perm::{MAX_N, Perm};

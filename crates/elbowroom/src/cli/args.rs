@@ -60,7 +60,6 @@ pub enum Command {
 
 /// The commit the program was built from ("unknown" outside a git checkout).
 pub const BUILD: &str = env!("ELBOWROOM_COMMIT");
-
 /// What `--version` prints after the name: the version, the commit and the
 /// optional features built in.
 #[cfg(feature = "gui")]
@@ -70,17 +69,8 @@ pub const VERSION_LINE: &str = concat!(
     env!("ELBOWROOM_COMMIT"),
     "; features: gui)"
 );
-
-/// What `--version` prints after the name: the version, the commit and the
-/// optional features built in.
 #[cfg(not(feature = "gui"))]
-pub const VERSION_LINE: &str = concat!(
-    env!("CARGO_PKG_VERSION"),
-    " (commit ",
-    env!("ELBOWROOM_COMMIT"),
     "; features: none)"
-);
-
 impl Command {
     /// The file given with `--out` for a command whose output (otherwise on
     /// standard output) goes there instead.
@@ -95,8 +85,6 @@ impl Command {
             _ => None,
         }
     }
-}
-
 /// The shells `elbowroom completions` writes scripts for.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
 pub enum ShellArg {
@@ -106,16 +94,12 @@ pub enum ShellArg {
     Zsh,
     /// fish
     Fish,
-}
-
 /// Arguments of `elbowroom completions`.
 #[derive(Args, Debug)]
 pub struct CompletionsArgs {
     /// The shell.
     #[arg(value_enum)]
     pub shell: ShellArg,
-}
-
 /// `--out FILE`: the output written to FILE instead of standard output,
 /// through a temporary file renamed to FILE only when complete.
 #[derive(Args, Debug, Default)]
@@ -124,6 +108,25 @@ pub struct OutFile {
     /// only when complete (a stopped run leaves no file).
     #[arg(long, value_name = "FILE")]
     pub out: Option<PathBuf>,
+    /// Forest polynomials: P_F of a code, the forest expansion of S_w or of a polynomial.
+    Forest(ForestArgs),
+/// Arguments of `elbowroom forest`.
+pub struct ForestArgs {
+    /// The permutation W whose Schubert polynomial is expanded: 1432, "1 4 3 2" or 1,4,3,2.
+    #[arg(allow_hyphen_values = true, conflicts_with_all = ["code", "poly"])]
+    pub perm: Option<String>,
+    /// The code of an indexed forest, c1,c2,… (e.g. 1,0,2): prints P_F.
+    #[arg(long, allow_hyphen_values = true, conflicts_with = "poly")]
+    pub code: Option<String>,
+    /// A polynomial in x1..xN to expand in forest polynomials (with --n).
+    #[arg(long, allow_hyphen_values = true, requires = "n")]
+    pub poly: Option<String>,
+    /// The number of variables N of --poly.
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
+    pub n: Option<usize>,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
 }
 
 /// Arguments of `elbowroom perm`.
@@ -360,6 +363,9 @@ pub struct ReduceArgs {
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
+    /// Also give the class in the forest basis (the forests with leaves in [n]).
+    #[arg(long)]
+    pub forest: bool,
 }
 
 /// Arguments of `elbowroom survey`.
@@ -435,6 +441,8 @@ pub enum FigureKind {
     Volume,
     /// The staircase diagram of a Hessenberg function h (--h, or --n for h(i) = i + 1).
     Hessenberg,
+    /// An indexed forest on the number line (--code c1,c2,…).
+    Forest,
 }
 
 impl FigureKind {
@@ -448,6 +456,7 @@ impl FigureKind {
             FigureKind::Permutohedron => "permutohedron",
             FigureKind::Volume => "volume",
             FigureKind::Hessenberg => "hessenberg",
+            FigureKind::Forest => "forest",
         }
     }
 }
@@ -501,6 +510,9 @@ pub struct FigureArgs {
     /// wiring: draw this reduced word (letters 1..n-1, e.g. 121 or 1,2,1) instead of one of w's.
     #[arg(long, allow_hyphen_values = true)]
     pub word: Option<String>,
+    /// forest: the code of the forest, c1,c2,… (e.g. 2,0,1).
+    #[arg(long, allow_hyphen_values = true)]
+    pub code: Option<String>,
     /// paths: the polynomial to reduce instead of the reversed Schubert polynomial.
     #[arg(long, allow_hyphen_values = true)]
     pub poly: Option<String>,

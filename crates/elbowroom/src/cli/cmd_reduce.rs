@@ -1,10 +1,13 @@
 //! `elbowroom reduce POLY --n N`: the normal form of a polynomial modulo J_n and its
-//! coefficients on the standard monomials (the lattice-path basis).
+//! coefficients on the standard monomials (the lattice-path basis); with
+//! `--forest`, also its class in the forest basis.
 
 use super::args::ReduceArgs;
+use super::cmd_forest::{sum_text, table_text, terms_json};
 use super::error::CliError;
 use super::interrupt;
 use super::json;
+use crate::math::forest::quotient::forest_normal_form;
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::normal_form::{groebner_basis_with, normal_form};
@@ -23,19 +26,33 @@ pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
         groebner_basis_with(n, progress)
     })?;
     let nf = normal_form(&q, &f)?;
+    let forest = if args.forest {
+        Some(interrupt::run_interruptible(
+            "the class in the forest basis",
+            "steps",
+            0,
+            |progress| forest_normal_form(&f, n, progress),
+        )?)
+    } else {
+        None
+    };
     if args.json {
         let coefficients: Vec<_> = nf
             .coefficients
             .iter()
             .map(|(i, m, c)| json!({"monomial": m.exps(n), "basis_index": i, "value": c.to_string()}))
             .collect();
-        return Ok(json::render(&json!({
+        let mut doc = json!({
             "n": n,
             "input": json::poly(&f),
             "normal_form": json::poly(&nf.poly),
             "coefficients": coefficients,
             "sum": nf.coefficient_sum().to_string(),
-        })));
+        });
+        if let (Some(terms), Some(object)) = (&forest, doc.as_object_mut()) {
+            object.insert("forest".into(), terms_json(terms, "value"));
+        }
+        return Ok(json::render(&doc));
     }
     let mut out = format!("f        = {f}\nNF(f)    = {}\n", nf.poly);
     out.push_str(&format!(
@@ -44,6 +61,13 @@ pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
     ));
     for (_, m, c) in &nf.coefficients {
         out.push_str(&format!("{:>11}  {}\n", c.to_string(), m.text(n)));
+    }
+    if let Some(terms) = &forest {
+        out.push_str(&format!(
+            "\nin the forest basis (forests with leaves in 1..{n}): {}\n",
+            sum_text(terms)
+        ));
+        out.push_str(&table_text(terms, "value"));
     }
     Ok(out)
 }

@@ -18,6 +18,7 @@ pub mod cmd_dreams;
 pub mod cmd_eulerian;
 pub mod cmd_expand;
 pub mod cmd_figure;
+pub mod cmd_forest;
 pub mod cmd_hessenberg;
 pub mod cmd_merge;
 pub mod cmd_perm;
@@ -208,6 +209,7 @@ pub fn execute(command: &Command, sink: &mut Sink<'_>) -> Result<(), CliError> {
         Command::Figure(a) => cmd_figure::run(a),
         Command::Completions(a) => completions(a.shell),
         Command::Man => manual_page(),
+        Command::Forest(a) => cmd_forest::run(a),
     }?;
     sink.whole(&whole)
 }

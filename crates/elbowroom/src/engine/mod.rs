@@ -5,6 +5,7 @@
 //! - [`job`]: a handle on one running computation (progress, cancel, result channel).
 //! - [`cache`]: finished results, shared as `Arc`s, keyed by their inputs.
 //! - [`worker`]: the [`Engine`] that starts jobs on background threads and lists the running ones.
+//! - [`forest_jobs`]: P_F, forest expansions and forest classes, for the forest and quotient views.
 //! - [`layout`]: a Hessenberg table's summary and row order, for the view.
 //! - [`slot`]: one view's standing request; a new key cancels the stale job.
 //!
@@ -12,6 +13,7 @@
 //! `repaint` callback.
 
 pub mod cache;
+pub mod forest_jobs;
 pub mod job;
 pub mod layout;
 pub mod requests;

@@ -1,6 +1,7 @@
 //! What the explorer can ask for, keyed by its inputs, and how each answer is
 //! computed (always by the same `math` functions the command line uses).
 
+use super::forest_jobs::{ForestRows, forest_class, forest_poly, schubert_forests};
 use super::layout::{TableLayout, table_layout};
 use crate::math::hessenberg::coefficients::coefficient_table;
 use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize_with};
@@ -90,6 +91,12 @@ pub enum JobKey {
     /// A typed polynomial (as typed) in n variables, read and written back
     /// (the first [`TYPED_SHOWN`] characters) with its number of terms.
     Typed(String, usize),
+    /// The forest polynomial P_F of the forest with this code.
+    ForestPolynomial(Vec<usize>),
+    /// The forest expansion of S_w.
+    ForestExpansion(Perm),
+    /// The class modulo J_n of what the quotient view reduces, in the forest basis.
+    ForestClass(QuotientInput),
 }
 
 /// What the quotient view reduces.
@@ -174,6 +181,9 @@ impl JobKey {
                 format!("arranging the table of h = {}", h_text(h))
             }
             JobKey::WordRank(w, _) => format!("finding a reduced word of {w} in the list"),
+            JobKey::ForestPolynomial(c) => format!("P_F of the code {}", h_text(c)),
+            JobKey::ForestExpansion(w) => format!("forest expansion of S_{w}"),
+            JobKey::ForestClass(_) => "class modulo J_n in the forest basis".to_string(),
         }
     }
 }
@@ -223,6 +233,8 @@ pub enum Output {
     Terms(Terms),
     /// A Hessenberg table's summary and row order.
     Layout(TableLayout),
+    /// Forest terms (code, coefficient).
+    Forests(ForestRows),
 }
 
 impl Output {
@@ -306,6 +318,14 @@ impl Output {
         }
     }
 
+    /// The forest terms, if these are.
+    pub fn forests(&self) -> Option<&ForestRows> {
+        match self {
+            Output::Forests(f) => Some(f),
+            _ => None,
+        }
+    }
+
     /// The text, if this is text.
     pub fn text(&self) -> Option<&str> {
         match self {
@@ -351,6 +371,9 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
             let table = coefficient_table(&HessenbergFn::new(h)?, &|_| true, progress)?;
             table_layout(&table, column, *descending, progress).map(Output::Layout)
         }
+        JobKey::ForestPolynomial(code) => forest_poly(code, progress).map(Output::Poly),
+        JobKey::ForestExpansion(w) => schubert_forests(w, progress).map(Output::Forests),
+        JobKey::ForestClass(input) => forest_class(input, progress).map(Output::Forests),
     }
 }
 

@@ -12,6 +12,7 @@ pub mod tikz;
 pub use scene::{Anchor, Color, Item, ItemKind, PathCmd, Pt, Scene, Stroke, Tag};
 pub mod bumpless;
 pub mod dream;
+pub mod forest;
 pub mod hessenberg;
 pub mod look;
 pub mod math_text;

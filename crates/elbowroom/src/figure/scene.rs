@@ -108,6 +108,8 @@ pub enum Tag {
     Panel(usize),
     /// A vertex of a polytope (0-based).
     Vertex(usize),
+    /// An internal node of an indexed forest, by its index in the forest's node list (0-based).
+    Node(usize),
     /// A text label.
     Label,
 }

@@ -139,6 +139,7 @@ fn tag_attributes(tag: Tag) -> String {
         Tag::Crossing(k) => format!(" class=\"crossing\" data-crossing=\"{k}\""),
         Tag::Panel(k) => format!(" class=\"panel\" data-panel=\"{k}\""),
         Tag::Vertex(k) => format!(" class=\"vertex\" data-vertex=\"{k}\""),
+        Tag::Node(k) => format!(" class=\"node\" data-node=\"{k}\""),
         Tag::Label => " class=\"label\"".into(),
     }
 }

@@ -197,6 +197,7 @@ fn tag_comment(tag: Tag) -> String {
         Tag::Crossing(k) => format!(" % crossing {k}"),
         Tag::Panel(k) => format!(" % panel {k}"),
         Tag::Vertex(k) => format!(" % vertex {k}"),
+        Tag::Node(k) => format!(" % node {k}"),
         Tag::Label => " % label".into(),
     }
 }

@@ -91,6 +91,8 @@ pub enum View {
     Workbench,
     /// Products of Schubert classes and Schubert expansions.
     Products,
+    /// Forest polynomials and forest expansions.
+    Forests,
 }
 
 /// How the permutation browser filters and sorts S_n.

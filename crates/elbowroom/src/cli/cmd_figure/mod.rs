@@ -12,6 +12,7 @@
 //! - `permutohedron --lambda L [--yaw A --pitch B]`: P_λ for n <= 5.
 //! - `volume --from A --to B [--samples M]`: Vol P_λ along λ(t) = (1 - t)A + tB.
 //! - `hessenberg --h 2,3,3` (or `--n N` for h(i) = i + 1): the staircase of h.
+//! - `forest --code 2,0,1`: an indexed forest standing on the number line.
 //!
 //! With `--all`, `--out` is a directory (created if missing) and the files are
 //! named `KIND-W-K.EXT` with `--format` (svg by default).
@@ -19,6 +20,7 @@
 //! One file per kind of figure builds its scenes; [`pick`] chooses the items
 //! of an enumeration and names their files; this file writes them.
 
+mod forest;
 mod hessenberg;
 mod paths;
 mod permutohedron;
@@ -209,6 +211,7 @@ fn scenes(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
         FigureKind::Permutohedron => permutohedron::drawing(args, look),
         FigureKind::Volume => volume::plot(args, look),
         FigureKind::Hessenberg => hessenberg::staircase(args, look),
+        FigureKind::Forest => forest::drawing(args, look),
     }
 }
 

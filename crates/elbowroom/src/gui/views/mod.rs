@@ -3,6 +3,7 @@
 //! mathematics, the figures' look.
 
 pub mod dreams;
+pub mod forests;
 pub mod hessenberg;
 pub mod permutohedra;
 pub mod products;
@@ -57,6 +58,7 @@ pub fn all() -> Vec<Box<dyn View>> {
         Box::new(permutohedra::PermutohedronView::default()),
         Box::new(workbench::WorkbenchView::default()),
         Box::new(products::ProductsView::default()),
+        Box::new(forests::ForestView::default()),
     ]
 }
 

@@ -35,6 +35,9 @@ pub struct QuotientView {
     pub survey: SurveyPanel,
     /// The permutation last picked from the survey's rows, while its normal form is shown.
     picked_from_survey: Option<Perm>,
+    /// Show the class in the forest basis instead of the lattice paths.
+    pub forest_basis: bool,
+    forest_class: Slot,
 }
 
 /// The lattice-path panels of a normal form in `n` variables: one per
@@ -276,6 +279,23 @@ impl QuotientView {
         let Some(input) = quotient_input(ui, &mut ctx.session.quotient, &w) else {
             return;
         };
+        ui.horizontal(|ui| {
+            ui.label("basis:");
+            ui.radio_value(
+                &mut self.forest_basis,
+                false,
+                "lattice paths (standard monomials)",
+            );
+            ui.radio_value(
+                &mut self.forest_basis,
+                true,
+                "forest basis (forests with leaves in 1..n)",
+            );
+        });
+        if self.forest_basis {
+            self.forest_basis_rows(ui, ctx, input);
+            return;
+        }
         let key = JobKey::NormalForm(input);
         let Some(out) = fetch_or_explain(
             ui,
@@ -312,6 +332,37 @@ impl QuotientView {
                     .show(ui, |ui| legend(ui, r.n, &mut self.figure_without_legend));
             });
         });
+    }
+
+    /// The class modulo J_n in the forest basis: P_F over the forests whose
+    /// nontrivial trees have their leaves in [n] (computed by trimming, with no
+    /// Gröbner basis).
+    fn forest_basis_rows(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, input: QuotientInput) {
+        let key = JobKey::ForestClass(input);
+        let Some(out) = fetch_or_explain(
+            ui,
+            &mut self.forest_class,
+            ctx.engine,
+            key,
+            "expanding in the forest basis",
+        ) else {
+            return;
+        };
+        let Some(rows) = out.forests() else {
+            return;
+        };
+        if rows.is_empty() {
+            typeset::label(ui, &Typeset::new().symbol("The class is 0: f lies in J_n."));
+            return;
+        }
+        let look = figure_look(ctx.session);
+        super::forests::forest_rows(
+            ui,
+            "quotient_forests",
+            rows,
+            "the class of f: Σ c_F P_F",
+            &look,
+        );
     }
 
     /// The grid of lattice paths of `r`, built again only when the normal form
