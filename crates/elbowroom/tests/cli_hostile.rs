@@ -467,12 +467,17 @@ fn scratch(name: &str) -> std::path::PathBuf {
     let _ = std::fs::remove_dir_all(&dir);
     std::fs::create_dir_all(&dir).unwrap();
     dir
+}
+
 fn names_in(dir: &std::path::Path) -> Vec<String> {
     let mut v: Vec<String> = std::fs::read_dir(dir)
+        .unwrap()
         .map(|e| e.unwrap().file_name().to_string_lossy().to_string())
         .collect();
     v.sort();
     v
+}
+
 #[test]
 fn sigterm_and_sighup_cancel_like_ctrl_c_with_128_plus_the_signal() {
     // the Hessenberg table of n = 12 streams for many seconds in the debug build
@@ -495,10 +500,15 @@ fn sigterm_and_sighup_cancel_like_ctrl_c_with_128_plus_the_signal() {
                 err.contains(&format!("canceled after {rows} of ")),
                 "{rows} rows written: {err}"
             );
+            assert!(
                 err.contains(&format!("cut short after {rows} rows")),
                 "{err}"
+            );
         }
     }
+}
+
+#[test]
 fn a_signal_leaves_no_out_file_and_no_temporary() {
     let dir = scratch("term-out");
     let out_path = dir.join("t.csv");
@@ -515,6 +525,10 @@ fn a_signal_leaves_no_out_file_and_no_temporary() {
     );
     assert_eq!(out.status.code(), Some(143));
     assert!(names_in(&dir).is_empty(), "{:?}", names_in(&dir));
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
 fn ctrl_c_on_a_command_that_watches_nothing_says_canceled() {
     // `perm` of a large permutation has no long run registered: the signal ends it at once
     let mut child = Command::new(env!("CARGO_BIN_EXE_elbowroom"))
@@ -523,6 +537,7 @@ fn ctrl_c_on_a_command_that_watches_nothing_says_canceled() {
             "dream",
             "1,3,5,7,9,11,2,4,6,8,10,12",
             "--all",
+            "--out",
         ])
         .arg(std::env::temp_dir().join(format!("elbowroom-hostile-all-{}", std::process::id())))
         .stdout(Stdio::piped())
@@ -536,46 +551,75 @@ fn ctrl_c_on_a_command_that_watches_nothing_says_canceled() {
     let out = child.wait_with_output().unwrap();
     let _ = std::fs::remove_dir_all(
         std::env::temp_dir().join(format!("elbowroom-hostile-all-{}", std::process::id())),
+    );
     let err = String::from_utf8_lossy(&out.stderr);
     if out.status.success() {
         return; // finished before the signal came
+    }
     assert!(
         out.status.code() == Some(130) || out.status.code() == Some(2),
         "{:?}: {err}",
         out.status
+    );
     assert!(err.contains("canceled") || err.contains("at most"), "{err}");
+}
+
+#[test]
 fn a_file_size_limit_is_a_clean_failure_with_a_message() {
     if !prlimit_available() {
         return;
+    }
     let dir = scratch("efbig");
     let script = format!(
         "cd {} && prlimit --fsize=1000 \"$B\" hessenberg --n 8 > f; echo \"status $?\"; \
          prlimit --fsize=1000 \"$B\" hessenberg --n 8 --csv --out g.csv; echo \"status $?\"",
         dir.display()
+    );
     let out = shell(&script);
     let said = String::from_utf8_lossy(&out.stdout);
+    let err = String::from_utf8_lossy(&out.stderr);
     // exit 1 (a failed write), not death by SIGXFSZ (153)
     assert_eq!(said.matches("status 1").count(), 2, "{said} / {err}");
     assert!(err.contains("cannot write standard output"), "{err}");
     assert!(err.contains("cannot write g.csv"), "{err}");
+    assert!(
         !err.contains(".writing"),
         "no temporary name in the message: {err}"
+    );
     // the --out file never appeared, and no temporary is left
     assert_eq!(names_in(&dir), ["f"]);
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
 fn a_closed_standard_output_is_a_failure() {
     for cmd in ["perm 312", "survey --n 3 --csv", "--version", "--help"] {
         let out = shell(&format!("\"$B\" {cmd} >&-"));
+        let err = String::from_utf8_lossy(&out.stderr);
         assert_eq!(out.status.code(), Some(1), "{cmd}: {err}");
         assert!(err.contains("cannot write standard output"), "{cmd}: {err}");
+    }
     // `> /dev/null` is not closed
     let out = shell("\"$B\" perm 312 > /dev/null");
     assert_eq!(out.status.code(), Some(0));
+}
+
+#[test]
 fn help_and_version_to_a_full_device_are_failures() {
     if !std::path::Path::new("/dev/full").exists() {
+        return;
+    }
     for flag in ["--help", "--version", "completions bash", "man"] {
         let out = shell(&format!("\"$B\" {flag} > /dev/full"));
         assert_eq!(out.status.code(), Some(1), "{flag}");
+    }
+}
+
+#[test]
 fn refusals_survive_an_unwritable_standard_error() {
+    if !std::path::Path::new("/dev/full").exists() {
+        return;
+    }
     // the message cannot be written; the status still says why (no panic: 101)
     let out = shell("\"$B\" perm 1a 2>/dev/full");
     assert_eq!(out.status.code(), Some(2));
@@ -584,6 +628,9 @@ fn refusals_survive_an_unwritable_standard_error() {
     // stderr on a pipe whose reader has gone
     let out = shell("\"$B\" perm 1a 2>&1 >/dev/null | true; echo done");
     assert!(String::from_utf8_lossy(&out.stdout).contains("done"));
+}
+
+#[test]
 fn messages_quote_inputs_as_one_short_line() {
     let long = "7".repeat(131_000);
     let with_newline = "1\n2";
@@ -591,31 +638,65 @@ fn messages_quote_inputs_as_one_short_line() {
     for bad in [long.as_str(), with_newline, escape] {
         let err = refused(&["perm", bad], &[]);
         assert!(!err.contains('\u{1b}'), "escaped: {err:?}");
+    }
     let err = refused(&["perm", with_newline], &["'1\\n2'"]);
     assert!(err.len() < 300, "{err}");
     let shard = format!("1/{}", "9".repeat(100_000));
     refused(
         &["hessenberg", "--n", "4", "--shard", &shard, "--json"],
         &["--shard"],
+    );
+}
+
+#[test]
 fn figure_kinds_take_only_their_own_flags() {
+    refused(
+        &[
             "figure", "dream", "1432", "--lambda", "1,2,3", "--out", "x.svg",
+        ],
         &["figure dream takes no --lambda"],
+    );
+    refused(
+        &[
+            "figure",
             "permutohedron",
             "--lambda",
             "3,2,1",
             "--samples",
             "5",
+            "--out",
             "x.svg",
+        ],
         &["figure permutohedron takes no --samples"],
+    );
+    refused(
+        &[
             "figure", "volume", "1432", "--from", "1,0", "--to", "0,1", "--out", "x.svg",
+        ],
         &["figure volume takes no a permutation"],
+    );
+}
+
+#[test]
 fn a_split_into_more_pieces_than_rows_is_refused_when_the_piece_is_made() {
+    refused(
+        &[
+            "hessenberg",
+            "--n",
             "4",
             "--shard",
             "1/18446744073709551615",
             "--json",
+        ],
         &["beyond the listing"],
+    );
+    refused(
         &["survey", "--n", "3", "--shard", "1/99999999999", "--json"],
+        &["beyond the listing"],
+    );
+}
+
+#[test]
 fn out_writes_the_whole_file_or_none() {
     let dir = scratch("out");
     let path = dir.join("e.csv");
@@ -633,9 +714,20 @@ fn out_writes_the_whole_file_or_none() {
     assert_eq!(std::fs::read(&path).unwrap(), direct.stdout);
     // a refused run leaves the old file as it was and no temporary
     let refused_run = bounded(&[
+        "eulerian",
+        "--n",
         "0",
+        "--csv",
+        "--out",
+        path.to_str().unwrap(),
+    ]);
     assert_eq!(refused_run.status.code(), Some(2));
+    assert_eq!(std::fs::read(&path).unwrap(), direct.stdout);
     assert_eq!(names_in(&dir), ["e.csv"]);
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
 fn concurrent_figure_writes_are_reported_honestly() {
     let dir = scratch("concurrent");
     let path = dir.join("f.svg");
@@ -650,9 +742,11 @@ fn concurrent_figure_writes_are_reported_honestly() {
                 .spawn()
                 .unwrap()
         })
+        .collect();
     let outs: Vec<Output> = children
         .into_iter()
         .map(|c| c.wait_with_output().unwrap())
+        .collect();
     // every run either says it wrote the file or says another run replaced it
     for o in &outs {
         let err = String::from_utf8_lossy(&o.stderr);
@@ -661,28 +755,43 @@ fn concurrent_figure_writes_are_reported_honestly() {
             "{:?}: {err}",
             o.status
         );
+    }
     assert!(outs.iter().any(|o| o.status.success()));
     // one whole figure and no temporary file
     assert_eq!(names_in(&dir), ["f.svg"]);
     let svg = std::fs::read_to_string(&path).unwrap();
     assert!(svg.trim_end().ends_with("</svg>"));
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
 fn version_names_the_build_and_completions_and_manual_are_printed() {
     let out = bounded(&["--version"]);
     let text = String::from_utf8_lossy(&out.stdout);
+    assert!(
         text.starts_with(&format!("elbowroom {} (commit ", env!("CARGO_PKG_VERSION"))),
         "{text}"
+    );
     assert!(text.contains("features:"), "{text}");
     for shell in ["bash", "zsh", "fish"] {
         let out = bounded(&["completions", shell]);
         assert!(out.status.success());
         let script = String::from_utf8_lossy(&out.stdout);
+        assert!(
             script.contains("hessenberg") && script.contains("shard"),
             "{shell}"
+        );
+    }
     let man = bounded(&["man"]);
     let page = String::from_utf8_lossy(&man.stdout);
+    assert!(
         page.contains(".TH elbowroom 1") && page.contains("hessenberg"),
         "{page}"
+    );
     refused(&["completions", "tcsh"], &["tcsh"]);
+}
+
+#[test]
 fn session_check_escapes_titles_and_speaks_no_ron() {
     let dir = scratch("session-words");
     let escape = dir.join("escape.ron");
@@ -692,23 +801,41 @@ fn session_check_escapes_titles_and_speaks_no_ron() {
     )
     .unwrap();
     let out = bounded(&["session", "check", escape.to_str().unwrap()]);
+    assert!(
         out.status.success(),
         "{}",
         String::from_utf8_lossy(&out.stderr)
+    );
+    let text = String::from_utf8_lossy(&out.stdout);
     assert!(!text.contains('\u{1b}'), "{text:?}");
     assert!(text.contains("a\\u{1b}[31mred"), "{text}");
     let number = dir.join("number.ron");
+    std::fs::write(
         &number,
         "(format: \"elbowroom-session\", version: 1, session: (title: \"x\", view: 0.35))",
+    )
+    .unwrap();
     let err = refused(
         &["session", "check", number.to_str().unwrap()],
         &["`0.35` is not accepted here"],
+    );
+    assert!(
         !err.contains("raw identifier") && !err.contains("std identifier"),
         "{err}"
+    );
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[test]
 fn forests_past_their_limits_are_refused() {
     refused(&["forest", "--code", "300"], &["300 internal nodes", "255"]);
+    refused(
         &["forest", "--code", "0,0,0,0,0,0,0,0,0,0,0,0,0,0,0,20"],
         &["3247943160 labelings", "2000000"],
+    );
     refused(&["forest", WIDE_16], &["268435456 terms", "2000000"]);
+    refused(
         &["forest", "--poly", "x1^30*x12^30", "--n", "12"],
         &["monomials", "2000000"],
+    );
+}

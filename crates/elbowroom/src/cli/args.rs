@@ -56,10 +56,13 @@ pub enum Command {
     Completions(CompletionsArgs),
     /// Prints the manual page (roff; `elbowroom man > elbowroom.1`).
     Man,
+    /// Forest polynomials: P_F of a code, the forest expansion of S_w or of a polynomial.
+    Forest(ForestArgs),
 }
 
 /// The commit the program was built from ("unknown" outside a git checkout).
 pub const BUILD: &str = env!("ELBOWROOM_COMMIT");
+
 /// What `--version` prints after the name: the version, the commit and the
 /// optional features built in.
 #[cfg(feature = "gui")]
@@ -69,8 +72,17 @@ pub const VERSION_LINE: &str = concat!(
     env!("ELBOWROOM_COMMIT"),
     "; features: gui)"
 );
+
+/// What `--version` prints after the name: the version, the commit and the
+/// optional features built in.
 #[cfg(not(feature = "gui"))]
+pub const VERSION_LINE: &str = concat!(
+    env!("CARGO_PKG_VERSION"),
+    " (commit ",
+    env!("ELBOWROOM_COMMIT"),
     "; features: none)"
+);
+
 impl Command {
     /// The file given with `--out` for a command whose output (otherwise on
     /// standard output) goes there instead.
@@ -85,6 +97,8 @@ impl Command {
             _ => None,
         }
     }
+}
+
 /// The shells `elbowroom completions` writes scripts for.
 #[derive(Clone, Copy, Debug, PartialEq, Eq, ValueEnum)]
 pub enum ShellArg {
@@ -94,12 +108,16 @@ pub enum ShellArg {
     Zsh,
     /// fish
     Fish,
+}
+
 /// Arguments of `elbowroom completions`.
 #[derive(Args, Debug)]
 pub struct CompletionsArgs {
     /// The shell.
     #[arg(value_enum)]
     pub shell: ShellArg,
+}
+
 /// `--out FILE`: the output written to FILE instead of standard output,
 /// through a temporary file renamed to FILE only when complete.
 #[derive(Args, Debug, Default)]
@@ -108,9 +126,10 @@ pub struct OutFile {
     /// only when complete (a stopped run leaves no file).
     #[arg(long, value_name = "FILE")]
     pub out: Option<PathBuf>,
-    /// Forest polynomials: P_F of a code, the forest expansion of S_w or of a polynomial.
-    Forest(ForestArgs),
+}
+
 /// Arguments of `elbowroom forest`.
+#[derive(Args, Debug)]
 pub struct ForestArgs {
     /// The permutation W whose Schubert polynomial is expanded: 1432, "1 4 3 2" or 1,4,3,2.
     #[arg(allow_hyphen_values = true, conflicts_with_all = ["code", "poly"])]

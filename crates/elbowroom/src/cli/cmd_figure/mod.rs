@@ -92,6 +92,7 @@ fn kind_flags(kind: FigureKind) -> &'static [(&'static str, &'static str)] {
         ],
         FigureKind::Volume => &[("from", "--from"), ("to", "--to"), ("samples", "--samples")],
         FigureKind::Hessenberg => &[("h", "--h"), ("n", "--n")],
+        FigureKind::Forest => &[("code", "--code")],
     }
 }
 
@@ -118,6 +119,7 @@ pub fn foreign_flags(matches: &clap::ArgMatches) -> Result<(), CliError> {
         ("pitch", "--pitch"),
         ("from", "--from"),
         ("to", "--to"),
+        ("code", "--code"),
         ("samples", "--samples"),
         ("h", "--h"),
     ];
