@@ -39,6 +39,18 @@ pub fn parse_rational(text: &str) -> MathResult<BigRational> {
     Ok(BigRational::from_integer(v))
 }
 
+/// An unsigned number as the polynomial reader's lexer cuts it out of a typed
+/// polynomial: ASCII digits with at most one point, a digit after the point
+/// (`3`, `0.25`, `.5`; `1.` and `1.2.3` are refused). Its decimal part is read
+/// by the same [`decimal`] as [`parse_rational`]'s.
+pub(crate) fn unsigned_number(text: &str) -> Option<BigRational> {
+    match text.split_once('.') {
+        None => text.parse::<BigInt>().ok().map(BigRational::from_integer),
+        Some((_, frac)) if frac.contains('.') => None,
+        Some((whole, frac)) => decimal(whole, frac),
+    }
+}
+
 /// `whole.frac` with at least one digit in `frac` (`whole` may be empty or `-`).
 fn decimal(whole: &str, frac: &str) -> Option<BigRational> {
     let negative = whole.trim_start().starts_with('-');
@@ -84,5 +96,25 @@ mod tests {
             assert_eq!(read(t), format!("error: '{t}' {bad}"), "{t:?}");
         }
         assert_eq!(read("2/0"), "error: '2/0' divides by zero");
+    }
+
+    #[test]
+    fn unsigned_numbers_of_the_polynomial_reader() {
+        let read = |t: &str| unsigned_number(t).map(|r| r.to_string());
+        assert_eq!(read("3").as_deref(), Some("3"));
+        assert_eq!(read("0.25").as_deref(), Some("1/4"));
+        assert_eq!(read(".5").as_deref(), Some("1/2"));
+        assert_eq!(read("007.50").as_deref(), Some("15/2"));
+        for t in ["1.", ".", "1.2.3", "..5", ""] {
+            assert_eq!(read(t), None, "{t:?}");
+        }
+        // the same value as the rational reader wherever both read the text
+        for t in ["12", "0.125", "3.0", "10.01"] {
+            assert_eq!(
+                unsigned_number(t).unwrap(),
+                parse_rational(t).unwrap(),
+                "{t:?}"
+            );
+        }
     }
 }
