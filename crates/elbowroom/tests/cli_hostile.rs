@@ -588,6 +588,15 @@ fn a_file_size_limit_is_a_clean_failure_with_a_message() {
     );
     // the --out file never appeared, and no temporary is left
     assert_eq!(names_in(&dir), ["f"]);
+    // a figure past the limit: a failed write (1), and no `.NAME.…writing` left behind
+    let out = shell(&format!(
+        "cd {} && prlimit --fsize=200 \"$B\" figure dream 1432 --out d.svg",
+        dir.display()
+    ));
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert_eq!(out.status.code(), Some(1), "{err}");
+    assert!(err.contains("File too large"), "{err}");
+    assert_eq!(names_in(&dir), ["f"]);
     let _ = std::fs::remove_dir_all(&dir);
 }
 
@@ -824,4 +833,12 @@ fn session_check_escapes_titles_and_speaks_no_ron() {
         "{err}"
     );
     let _ = std::fs::remove_dir_all(&dir);
+}
+
+#[cfg(feature = "gui")]
+#[test]
+fn a_start_without_a_display_and_without_stderr_does_not_panic() {
+    let out = shell("env -u DISPLAY -u WAYLAND_DISPLAY -u WAYLAND_SOCKET \"$B\" 2>/dev/full");
+    // the window cannot open: a failure (1), not a panic (101)
+    assert_eq!(out.status.code(), Some(1));
 }
