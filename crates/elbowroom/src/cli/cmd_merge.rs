@@ -20,7 +20,7 @@ use super::error::CliError;
 use super::interrupt;
 use super::json;
 use super::json_reader::JsonReader;
-use super::merge_survey::merge_surveys;
+use super::merge_survey::{SurveyPiece, merge_survey_pieces};
 use super::output::Sink;
 use super::shard::Shard;
 use crate::math::hessenberg::function::HessenbergFn;
@@ -63,11 +63,14 @@ pub fn run(args: &MergeArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     match kind.as_str() {
         HESSENBERG_KIND => merge_hessenberg(&args.files, sink),
         SURVEY_KIND => {
-            let mut values = Vec::new();
+            let mut pieces = Vec::new();
             for path in &args.files {
-                values.push(read_whole(path)?);
+                pieces.push(read_survey(path)?);
             }
-            sink.whole(&json::render(&merge_surveys(&values)?))
+            let merged = merge_survey_pieces(pieces)?;
+            let text = serde_json::to_string(&merged)
+                .map_err(|e| CliError::Failed(format!("cannot write the merge: {e}")))?;
+            sink.whole(&text)
         }
         other => Err(CliError::Input(format!(
             "cannot merge files of kind '{other}'; accepted kinds: {HESSENBERG_KIND}, {SURVEY_KIND}"
@@ -122,7 +125,9 @@ fn kind_of(path: &Path) -> Result<String, CliError> {
     Ok(String::new())
 }
 
-fn read_whole(path: &Path) -> Result<Value, CliError> {
+/// A survey piece read with serde as it streams from the file (the text is
+/// never held whole).
+fn read_survey(path: &Path) -> Result<SurveyPiece, CliError> {
     let len = std::fs::metadata(path).map(|m| m.len()).unwrap_or(0);
     if len > SURVEY_FILE_LIMIT {
         return Err(CliError::Input(format!(
@@ -130,11 +135,10 @@ fn read_whole(path: &Path) -> Result<Value, CliError> {
             shown(path)
         )));
     }
-    let mut text = String::new();
-    File::open(path)
-        .and_then(|f| f.take(SURVEY_FILE_LIMIT + 1).read_to_string(&mut text))
+    let file = File::open(path)
         .map_err(|e| CliError::Input(format!("cannot read {}: {e}", shown(path))))?;
-    serde_json::from_str(&text).map_err(|e| not_json(path, &e.to_string()))
+    let reader = BufReader::with_capacity(1 << 16, file.take(SURVEY_FILE_LIMIT + 1));
+    serde_json::from_reader(reader).map_err(|e| not_json(path, &e.to_string()))
 }
 
 /// One Hessenberg piece as read from its head and the end of its file.

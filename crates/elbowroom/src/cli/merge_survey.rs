@@ -1,17 +1,108 @@
 //! Merging the shards of a survey (`elbowroom survey --shard K/N --json`) back
 //! into one survey, as if it had been run whole.
+//!
+//! Pieces are read with serde into typed records ([`SurveyPiece`]): each
+//! result keeps its normal form as the text it was read from (a
+//! `RawValue`, not a tree of values), so a piece takes about its own size in
+//! memory, whatever the order of its fields.
 
 use super::documents::SURVEY_KIND;
 use super::error::CliError;
 use super::shard::Shard;
-use serde_json::{Value, json};
-use std::cmp::Ordering;
+use serde::{Deserialize, Serialize};
+use serde_json::Value;
+use serde_json::value::RawValue;
 
-fn perm_key(v: &Value) -> Vec<u64> {
-    v.get("perm")
-        .and_then(Value::as_array)
-        .map(|a| a.iter().filter_map(Value::as_u64).collect())
-        .unwrap_or_default()
+/// One piece of a survey as `survey --json` writes it. Fields that old pieces
+/// may lack are optional, so that the merge names what is missing.
+#[derive(Debug, Deserialize)]
+pub struct SurveyPiece {
+    /// `"quotient_survey"`.
+    pub kind: Option<String>,
+    /// The n of S_n.
+    pub n: Option<u64>,
+    /// `"K/N"`.
+    pub shard: Option<String>,
+    /// The number of results the piece says it has.
+    pub count: Option<u64>,
+    /// Whether the piece says it has no counterexample.
+    pub all_nonnegative: Option<bool>,
+    /// One record per permutation of the piece, in listing order.
+    pub results: Option<Vec<SurveyResult>>,
+    /// The results with a negative coefficient.
+    pub counterexamples: Option<Vec<Counterexample>>,
+    /// The package version (from n = 9 on).
+    pub version: Option<String>,
+    /// The build (the commit) of a piece.
+    pub build: Option<String>,
+    /// The size of the whole listing (from n = 9 on).
+    pub listed_total: Option<u64>,
+    /// Which permutations the listing holds (from n = 9 on).
+    pub listing: Option<String>,
+}
+
+/// One result of a survey.
+#[derive(Debug, Deserialize, Serialize)]
+pub struct SurveyResult {
+    /// w in one-line notation.
+    pub perm: Vec<u64>,
+    /// ℓ(w).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub length: Option<u64>,
+    /// Whether every coefficient of the normal form is nonnegative.
+    pub nonnegative: bool,
+    /// The number of terms of the normal form.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub terms: Option<u64>,
+    /// The sum of the coefficients, as a string.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub sum: Option<String>,
+    /// The normal form, kept as read and written compact.
+    #[serde(skip_serializing_if = "Option::is_none", serialize_with = "compact")]
+    pub normal_form: Option<Box<RawValue>>,
+}
+
+/// One counterexample of a survey.
+#[derive(Debug, Deserialize, Serialize)]
+pub struct Counterexample {
+    /// w in one-line notation.
+    pub perm: Vec<u64>,
+    /// The negative coefficients, as read.
+    #[serde(serialize_with = "compact_value")]
+    pub negative_coefficients: Box<RawValue>,
+}
+
+/// The merged survey: the object a whole run prints, with `"merged_from"`.
+#[derive(Debug, Serialize)]
+pub struct MergedSurvey {
+    kind: &'static str,
+    n: u64,
+    shard: &'static str,
+    merged_from: usize,
+    count: usize,
+    all_nonnegative: bool,
+    results: Vec<SurveyResult>,
+    counterexamples: Vec<Counterexample>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    version: Option<String>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    listed_total: Option<u64>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    listing: Option<String>,
+}
+
+/// A kept JSON text written compact (as a whole run writes it), whatever white
+/// space the piece had.
+fn compact<S: serde::Serializer>(raw: &Option<Box<RawValue>>, s: S) -> Result<S::Ok, S::Error> {
+    match raw {
+        Some(r) => compact_value(r, s),
+        None => s.serialize_none(),
+    }
+}
+
+fn compact_value<S: serde::Serializer>(raw: &RawValue, s: S) -> Result<S::Ok, S::Error> {
+    let v: Value = serde_json::from_str(raw.get()).map_err(serde::ser::Error::custom)?;
+    v.serialize(s)
 }
 
 fn bad(msg: String) -> CliError {
@@ -41,13 +132,13 @@ fn listing_of(n: Option<u64>) -> Result<Vec<Vec<u64>>, CliError> {
 
 /// The re-checks of one piece (number `number`, piece `shard`): its results are
 /// exactly the permutations of the listing that belong to it, in order (no
-/// duplicate, no foreign permutation, none left out); each result says whether
-/// it is nonnegative; the counterexamples are exactly the results that are not,
-/// in order; and `"all_nonnegative"` agrees with them.
+/// duplicate, no foreign permutation, none left out); the counterexamples are
+/// exactly the results that are not nonnegative, in order; and
+/// `"all_nonnegative"` agrees with them.
 fn check_piece(
-    doc: &Value,
-    results: &[Value],
-    counterexamples: &[Value],
+    piece: &SurveyPiece,
+    results: &[SurveyResult],
+    counterexamples: &[Counterexample],
     listing: &[Vec<u64>],
     shard: Shard,
     number: usize,
@@ -58,28 +149,20 @@ fn check_piece(
         .enumerate()
         .filter(|(i, _)| shard.selects(*i))
         .map(|(_, w)| w);
-    let mut negative: Vec<Vec<u64>> = Vec::new();
+    let mut negative: Vec<&[u64]> = Vec::new();
     for (j, (r, want)) in results.iter().zip(mine).enumerate() {
-        let got = perm_key(r);
-        if &got != want {
+        if &r.perm != want {
             return Err(bad(format!(
                 "{label}: result {} is {}, but that place of the listing holds {want:?}; the piece does not follow the listing (a row repeated, foreign or left out)",
                 j + 1,
-                excerpt(&r.get("perm").map_or("missing".into(), |v| v.to_string()))
+                excerpt(&format!("{:?}", r.perm))
             )));
         }
-        match r.get("nonnegative").and_then(Value::as_bool) {
-            Some(true) => {}
-            Some(false) => negative.push(got),
-            None => {
-                return Err(bad(format!(
-                    "{label}: result {} has no \"nonnegative\": true or false",
-                    j + 1
-                )));
-            }
+        if !r.nonnegative {
+            negative.push(&r.perm);
         }
     }
-    let listed: Vec<Vec<u64>> = counterexamples.iter().map(perm_key).collect();
+    let listed: Vec<&[u64]> = counterexamples.iter().map(|c| c.perm.as_slice()).collect();
     if listed != negative {
         return Err(bad(format!(
             "{label}: its counterexamples ({}) are not its results with \"nonnegative\": false ({}); the piece is not consistent",
@@ -87,7 +170,7 @@ fn check_piece(
             negative.len()
         )));
     }
-    if doc.get("all_nonnegative").and_then(Value::as_bool) != Some(negative.is_empty()) {
+    if piece.all_nonnegative != Some(negative.is_empty()) {
         return Err(bad(format!(
             "{label}: \"all_nonnegative\" is not {}, though it has {} counterexamples; the piece is not consistent",
             negative.is_empty(),
@@ -97,77 +180,102 @@ fn check_piece(
     Ok(())
 }
 
-/// Merges survey documents (`"kind": "quotient_survey"`) of the same n whose shards
-/// K/N cover 1..N exactly once. Results and counterexamples come back in listing order
-/// (lex order of the permutations), with `"shard": "1/1"` and `"merged_from": N`.
+/// [`merge_survey_pieces`] on JSON values (for callers holding documents).
 pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
+    let mut pieces = Vec::with_capacity(docs.len());
+    for (i, d) in docs.iter().enumerate() {
+        let piece: SurveyPiece = serde_json::from_str(&d.to_string()).map_err(|e| {
+            bad(format!(
+                "piece {} is not a survey piece: {}",
+                i + 1,
+                excerpt(&e.to_string())
+            ))
+        })?;
+        pieces.push(piece);
+    }
+    let merged = merge_survey_pieces(pieces)?;
+    serde_json::to_value(&merged)
+        .map_err(|e| CliError::Failed(format!("cannot write the merge: {e}")))
+}
+
+/// Merges survey pieces (`"kind": "quotient_survey"`) of the same n, version and
+/// build whose shards K/N cover 1..N exactly once, after re-checking each one
+/// ([`check_piece`]). Results and counterexamples come back in listing order
+/// (lex order of the permutations), with `"shard": "1/1"` and `"merged_from": N`.
+pub fn merge_survey_pieces(docs: Vec<SurveyPiece>) -> Result<MergedSurvey, CliError> {
     let Some(first) = docs.first() else {
         return Err(bad(
             "nothing to merge: give the JSON files of the pieces".into()
         ));
     };
-    let n = first.get("n").and_then(Value::as_u64);
-    let version = first.get("version").and_then(Value::as_str);
-    let build = first.get("build").and_then(Value::as_str);
+    let n = first.n;
+    let version = first.version.clone();
+    let build = first.build.clone();
+    let listing_name = first.listing.clone();
     let listing = listing_of(n)?;
     // pieces of n <= 8 carry no "listed_total": they list all of S_n
-    let full = |d: &Value| {
-        d.get("listed_total").and_then(Value::as_u64).or_else(|| {
-            let m = d.get("n").and_then(Value::as_u64)?;
+    let full = |d: &SurveyPiece| {
+        d.listed_total.or_else(|| {
+            let m = d.n?;
             (m <= 8).then(|| (1..=m).product())
         })
     };
     let listed_total = full(first);
+    let stated_total = first.listed_total;
     let mut seen: Vec<bool> = Vec::new();
     let mut count: Option<usize> = None;
-    let mut results: Vec<Value> = Vec::new();
-    let mut counterexamples: Vec<Value> = Vec::new();
-    for (i, doc) in docs.iter().enumerate() {
-        if doc.get("kind").and_then(Value::as_str) != Some(SURVEY_KIND) {
+    let mut results: Vec<SurveyResult> = Vec::new();
+    let mut counterexamples: Vec<Counterexample> = Vec::new();
+    for (i, doc) in docs.into_iter().enumerate() {
+        if doc.kind.as_deref() != Some(SURVEY_KIND) {
             return Err(bad(format!(
                 "piece {} is not a quotient survey (its \"kind\" is not \"quotient_survey\")",
                 i + 1
             )));
         }
-        let shard = doc.get("shard").and_then(Value::as_str).unwrap_or("");
-        let its_n = doc.get("n").and_then(Value::as_u64);
-        if its_n != n {
+        let shard = excerpt(doc.shard.as_deref().unwrap_or(""));
+        if doc.n != n {
             return Err(bad(format!(
                 "piece {} ({shard}) surveys n = {}, the first piece n = {}; merge pieces of one run",
                 i + 1,
-                its_n.map_or("?".into(), |v| v.to_string()),
+                doc.n.map_or("?".into(), |v| v.to_string()),
                 n.map_or("?".into(), |v| v.to_string())
             )));
         }
-        let its_version = doc.get("version").and_then(Value::as_str);
-        if its_version != version {
+        if doc.version != version {
             return Err(bad(format!(
                 "piece {} ({shard}) was written by version {}, the first piece by {}; rerun the pieces with one version",
                 i + 1,
-                its_version.unwrap_or("(none)"),
-                version.unwrap_or("(none)")
+                doc.version.as_deref().map_or("(none)".into(), excerpt),
+                version.as_deref().map_or("(none)".into(), excerpt)
             )));
         }
-        let its_build = doc.get("build").and_then(Value::as_str);
-        if its_build != build {
+        if doc.build != build {
             return Err(bad(format!(
-                "piece {} ({}) was made by build {}, the first piece by build {}; rerun the pieces with one build",
+                "piece {} ({shard}) was made by build {}, the first piece by build {}; rerun the pieces with one build",
                 i + 1,
-                excerpt(shard),
-                its_build.map_or("(none)".into(), excerpt),
-                build.map_or("(none)".into(), excerpt)
+                doc.build.as_deref().map_or("(none)".into(), excerpt),
+                build.as_deref().map_or("(none)".into(), excerpt)
             )));
         }
-        if full(doc) != listed_total {
+        if full(&doc) != listed_total {
             return Err(bad(format!(
                 "piece {} ({shard}) splits a listing of a different size; merge pieces of one run",
                 i + 1
             )));
         }
-        let parsed = Shard::parse(shard)
+        let parsed = Shard::parse(doc.shard.as_deref().unwrap_or(""))
             .map_err(|_| bad(format!("piece {} has no valid \"shard\": \"K/N\"", i + 1)))?;
         match count {
             None => {
+                if parsed.count > listing.len().max(1) {
+                    return Err(bad(format!(
+                        "piece {} ({shard}) is one of {} pieces, more than the {} permutations of the listing",
+                        i + 1,
+                        parsed.count,
+                        listing.len()
+                    )));
+                }
                 count = Some(parsed.count);
                 seen = vec![false; parsed.count];
             }
@@ -181,18 +289,16 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
             _ => {}
         }
         if std::mem::replace(&mut seen[parsed.index - 1], true) {
-            return Err(bad(format!("piece {} is given twice", excerpt(shard))));
+            return Err(bad(format!("piece {shard} is given twice")));
         }
-        let (Some(r), Some(c)) = (
-            doc.get("results").and_then(Value::as_array),
-            doc.get("counterexamples").and_then(Value::as_array),
-        ) else {
+        let stated = doc.count;
+        let all_nonnegative = doc.all_nonnegative;
+        let (Some(r), Some(c)) = (doc.results, doc.counterexamples) else {
             return Err(bad(format!(
                 "piece {} lacks \"results\" or \"counterexamples\"",
                 i + 1
             )));
         };
-        let stated = doc.get("count").and_then(Value::as_u64);
         let expected = listed_total.map(|t| {
             let (t, k, c) = (t as usize, parsed.index, parsed.count);
             if t >= k { (t - k) / c + 1 } else { 0 }
@@ -205,9 +311,15 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
                 expected.or(stated.map(|s| s as usize)).unwrap_or(0)
             )));
         }
-        check_piece(doc, r, c, &listing, parsed, i + 1)?;
-        results.extend(r.iter().cloned());
-        counterexamples.extend(c.iter().cloned());
+        let checked = SurveyPiece {
+            all_nonnegative,
+            results: None,
+            counterexamples: None,
+            ..SurveyPiece::empty()
+        };
+        check_piece(&checked, &r, &c, &listing, parsed, i + 1)?;
+        results.extend(r);
+        counterexamples.extend(c);
     }
     if let Some(missing) = seen.iter().position(|s| !s) {
         return Err(bad(format!(
@@ -216,32 +328,45 @@ pub fn merge_surveys(docs: &[Value]) -> Result<Value, CliError> {
             seen.len()
         )));
     }
-    let by_perm = |a: &Value, b: &Value| -> Ordering { perm_key(a).cmp(&perm_key(b)) };
-    results.sort_by(by_perm);
-    counterexamples.sort_by(by_perm);
-    let mut merged = json!({
-        "kind": SURVEY_KIND,
-        "n": n,
-        "shard": "1/1",
-        "merged_from": seen.len(),
-        "count": results.len(),
-        "all_nonnegative": counterexamples.is_empty(),
-        "results": results,
-        "counterexamples": counterexamples,
-    });
-    if let Some(obj) = merged.as_object_mut() {
-        for key in ["version", "listed_total", "listing"] {
-            if let Some(v) = first.get(key) {
-                obj.insert(key.into(), v.clone());
-            }
+    results.sort_by(|a, b| a.perm.cmp(&b.perm));
+    counterexamples.sort_by(|a, b| a.perm.cmp(&b.perm));
+    Ok(MergedSurvey {
+        kind: SURVEY_KIND,
+        n: n.unwrap_or(0),
+        shard: "1/1",
+        merged_from: seen.len(),
+        count: results.len(),
+        all_nonnegative: counterexamples.is_empty(),
+        results,
+        counterexamples,
+        version,
+        listed_total: stated_total,
+        listing: listing_name,
+    })
+}
+
+impl SurveyPiece {
+    fn empty() -> SurveyPiece {
+        SurveyPiece {
+            kind: None,
+            n: None,
+            shard: None,
+            count: None,
+            all_nonnegative: None,
+            results: None,
+            counterexamples: None,
+            version: None,
+            build: None,
+            listed_total: None,
+            listing: None,
         }
     }
-    Ok(merged)
 }
 
 #[cfg(test)]
 mod tests {
     use super::*;
+    use serde_json::json;
 
     #[test]
     fn shards_must_cover_once() {

@@ -56,8 +56,7 @@ impl<'a> Sink<'a> {
 
     /// Writes one JSON value, compact (serde_json's own text, as [`super::json::render`]).
     pub fn json(&mut self, v: &Value) -> Result<(), CliError> {
-        let text = serde_json::to_string(v).unwrap_or_else(|_| "null".into());
-        self.text(&text)
+        self.text(&v.to_string())
     }
 
     /// Writes the JSON object `head` with one more field, `key`, last: an array
