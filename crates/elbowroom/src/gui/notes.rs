@@ -91,12 +91,10 @@ impl NotesPanel {
                     );
                     title_changed = title.changed();
                 }
-                if title_changed {
-                    if at_limit(&session.title, TITLE_LIMIT) {
-                        self.notice = Some(format!(
-                            "a title holds at most {TITLE_LIMIT} characters; what went past that was not taken"
-                        ));
-                    }
+                if title_changed && at_limit(&session.title, TITLE_LIMIT) {
+                    self.notice = Some(format!(
+                        "a title holds at most {TITLE_LIMIT} characters; what went past that was not taken"
+                    ));
                 }
                 ui.label("notes (saved with the session)");
                 if let Some(had) = long_notes {
