@@ -13,9 +13,10 @@ use elbowroom::engine::requests::QuotientInput;
 use elbowroom::figure::forest::node_center;
 use elbowroom::gui::Explorer;
 use elbowroom::gui::views::forests::ForestView;
+use elbowroom::gui::views::quotient::QuotientView;
 use elbowroom::math::forest::indexed::{Forest, code_text};
 use elbowroom::math::{Perm, Progress};
-use window_harness::{harness, has, settle};
+use window_harness::{ViewOf, harness, has, settle};
 
 fn go_to(h: &mut Harness<'static, Explorer>, text: &str) {
     h.state_mut().picker.text = text.to_string();
@@ -48,7 +49,9 @@ fn the_forest_view_trims_and_opens_forests() {
     let mut h = harness();
     go_to(&mut h, "1432");
     h.get_by_label("Forest polynomials").click();
-    settle(&mut h, |h| h.state().view::<ForestView>().code() == Some(&[0, 2, 1][..]));
+    settle(&mut h, |h| {
+        h.state().view::<ForestView>().code() == Some(&[0, 2, 1][..])
+    });
     settle(&mut h, |h| has(h, "(1,2)  (1((2 3)4))"));
     assert!(has(&h, "(0,2,1)  1((2(3 4))5)"));
     settle(&mut h, |h| h.state().view::<ForestView>().canvas.is_some());
@@ -79,7 +82,7 @@ fn the_quotient_view_offers_the_forest_basis() {
     h.step();
     h.get_by_label_contains("forest basis").click();
     h.step();
-    assert!(h.state().quotient.forest_basis);
+    assert!(h.state().view::<QuotientView>().forest_basis);
     for (code, _) in &rows {
         let f = Forest::from_code(code).unwrap();
         let label = format!("{}  {f}", code_text(code));
