@@ -16,6 +16,7 @@
 //! 6. [`hessenberg`]: Hessenberg functions, divided symmetrization, tables.
 //! 7. [`quotient`]: the quasisymmetric quotient Q[x]/J_n, lattice paths, surveys.
 //! 8. [`permutohedra`]: permutohedron volumes and mixed Eulerian numbers.
+//! 9. [`explain`]: why a_w is what it is (reduced words, rules, q-analogues).
 
 pub mod error;
 pub mod limits;
@@ -33,6 +34,8 @@ pub mod hessenberg;
 pub mod quotient;
 
 pub mod permutohedra;
+
+pub mod explain;
 
 pub use error::{MathError, MathResult};
 pub use perms::perm::{MAX_N, Perm};

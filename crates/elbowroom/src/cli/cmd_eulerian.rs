@@ -8,6 +8,9 @@ use super::interrupt;
 use super::json;
 use crate::math::limits::{EULERIAN_WORK_LIMIT, binomial, monomials_of_degree};
 use crate::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
+use crate::math::permutohedra::remixed::remixed_eulerian;
+use crate::math::poly::qpoly::QPoly;
+use crate::math::{MathResult, Progress};
 use crate::tables::results::eulerian_table;
 use num_bigint::BigInt;
 use serde_json::{Value, json};
@@ -38,10 +41,27 @@ pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
     if let Some(out) = args.output.table(|| eulerian_table(args.n, &numbers)) {
         return Ok(out);
     }
+    let q_values = if args.q {
+        Some(interrupt::run_interruptible(
+            "the q-analogues",
+            "compositions",
+            0,
+            |progress| remixed_all(&numbers, progress),
+        )?)
+    } else {
+        None
+    };
     if args.output.json {
         let list: Vec<Value> = numbers
             .iter()
-            .map(|(c, v)| json!({"c": c, "value": json::exact(v)}))
+            .enumerate()
+            .map(|(k, (c, v))| {
+                let mut row = json!({"c": c, "value": json::exact(v)});
+                if let Some(q) = &q_values {
+                    row["q"] = json!(q[k].coeff_strings());
+                }
+                row
+            })
             .collect();
         return Ok(json::render(&json!({
             "n": args.n,
@@ -63,9 +83,30 @@ pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
         args.n - 1,
         args.n - 1
     );
-    for (c, v) in &numbers {
-        out.push_str(&format!("{:<width$}  {v}\n", format!("{c:?}")));
+    for (k, (c, v)) in numbers.iter().enumerate() {
+        match &q_values {
+            Some(q) => out.push_str(&format!(
+                "{:<width$}  {v}  A_c(q) = {}\n",
+                format!("{c:?}"),
+                q[k]
+            )),
+            None => out.push_str(&format!("{:<width$}  {v}\n", format!("{c:?}"))),
+        }
     }
     out.push_str(&format!("sum = {sum}\n"));
     Ok(out)
+}
+
+/// A_c(q) for every c of the table, in its order.
+fn remixed_all(numbers: &[(Vec<u32>, BigInt)], progress: &Progress) -> MathResult<Vec<QPoly>> {
+    progress.set_total(numbers.len() as u64);
+    numbers
+        .iter()
+        .map(|(c, _)| {
+            progress.check()?;
+            let q = remixed_eulerian(c)?;
+            progress.advance(1);
+            Ok(q)
+        })
+        .collect()
 }

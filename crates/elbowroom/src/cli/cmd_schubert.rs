@@ -5,6 +5,7 @@ use super::error::CliError;
 use super::json;
 use crate::math::limits::SCHUBERT_TERM_LIMIT;
 use crate::math::pipes::dream::term_bound;
+use crate::math::schubert::principal::principal_specialization;
 use crate::math::{Perm, schubert::polynomial::schubert};
 use serde_json::json;
 
@@ -19,14 +20,27 @@ pub fn run(args: &SchubertArgs) -> Result<String, CliError> {
         )));
     }
     let s = schubert(&w);
+    let principal = args.principal.then(|| principal_specialization(&s));
     if args.json {
-        return Ok(json::render(&json!({
+        let mut v = json!({
             "perm": w.one_line(),
             "polynomial": json::poly(&s),
-        })));
+        });
+        if let Some(p) = &principal {
+            v["principal"] = json!(p.coeff_strings());
+            v["at_ones"] = json::exact(&p.at_one());
+        }
+        return Ok(json::render(&v));
     }
+    let tail = match &principal {
+        Some(p) => format!(
+            "\nS_{w}(1, q, q^2, ...) = {p}\nS_{w}(1, ..., 1) = {}",
+            p.at_one()
+        ),
+        None => String::new(),
+    };
     if args.latex {
-        return Ok(format!("\\mathfrak{{S}}_{{{w}}} = {}", s.to_latex()));
+        return Ok(format!("\\mathfrak{{S}}_{{{w}}} = {}{tail}", s.to_latex()));
     }
-    Ok(format!("S_{w} = {s}"))
+    Ok(format!("S_{w} = {s}{tail}"))
 }
