@@ -3,6 +3,7 @@
 //! mathematics, the figures' look.
 
 pub mod dreams;
+pub mod explain_panel;
 pub mod hessenberg;
 pub mod permutohedra;
 pub mod products;

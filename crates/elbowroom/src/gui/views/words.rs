@@ -3,6 +3,7 @@
 //! letters, and the commutation and braid moves available from it. The lit
 //! crossing is a mark for the canvas: an export leaves it out unless asked for.
 
+use super::explain_panel::{ExplainPanel, PanelAction, open_eulerian};
 use super::{arrow_step, fetch_ready, figure_look};
 use crate::engine::requests::WORD_PAGE;
 use crate::engine::{Engine, Fetch, JobKey, Slot};
@@ -34,6 +35,8 @@ pub struct WordsView {
     /// The same diagram as on screen, lit crossing included, for an export
     /// that keeps the marks.
     wiring_marked: Option<(WiringKey, Arc<Scene>)>,
+    /// The panel "a_w from the words of w".
+    explain: ExplainPanel,
 }
 
 /// What a wiring diagram is drawn for: the word, n, the look, the lit crossing.
@@ -87,8 +90,12 @@ impl WordsView {
     /// The figures this view can export: the wiring diagram on screen,
     /// without the lit crossing unless the export asks for it.
     pub fn figures(&self) -> Exports {
+        let table = self
+            .explain
+            .table()
+            .map(|(name, t)| (name, Exportable::Table(t)));
         let Some((_, clean)) = &self.wiring_shown else {
-            return Vec::new();
+            return table.into_iter().collect();
         };
         let marked = self
             .wiring_marked
@@ -99,7 +106,9 @@ impl WordsView {
             marked,
             marks: "the lit crossing",
         };
-        vec![("the wiring diagram shown".to_string(), item)]
+        std::iter::once(("the wiring diagram shown".to_string(), item))
+            .chain(table)
+            .collect()
     }
 
     /// Draws the view.
@@ -107,6 +116,15 @@ impl WordsView {
         let w = ctx.perm();
         let n = w.n();
         self.heading_with_count(ui, ctx.engine, &w);
+        let panel = egui::CollapsingHeader::new("a_w from the words of w")
+            .default_open(true)
+            .show(ui, |ui| self.explain.ui(ui, ctx.engine, &w));
+        match panel.body_returned.flatten() {
+            Some(PanelAction::GoTo(u)) => ctx.go_to(u),
+            Some(PanelAction::Eulerian(c)) => open_eulerian(ctx.session, &c),
+            None => {}
+        }
+        ui.separator();
         let total = self.total();
         let look = figure_look(ctx.session);
         let index = &mut ctx.session.words.index;
@@ -265,6 +283,15 @@ impl WordsView {
         n: usize,
         index: &mut usize,
     ) {
+        // a content chosen in the panel keeps only the words of that content
+        let shown: Vec<usize> = (0..page.words.len())
+            .filter(|&r| {
+                self.explain
+                    .filter
+                    .as_ref()
+                    .is_none_or(|c| content(&page.words[r], n) == *c)
+            })
+            .collect();
         ui.vertical(|ui| {
             ui.set_width(260.0);
             ui.weak("word · content");
@@ -272,8 +299,8 @@ impl WordsView {
             egui::ScrollArea::vertical()
                 .id_salt("word_list")
                 .max_height(ui.available_height() - 4.0)
-                .show_rows(ui, row_h, page.words.len(), |ui, rows| {
-                    for r in rows {
+                .show_rows(ui, row_h, shown.len(), |ui, rows| {
+                    for r in rows.map(|k| shown[k]) {
                         let wd = &page.words[r];
                         let text = egui::RichText::new(format!(
                             "{}   ({})",
