@@ -22,6 +22,7 @@ pub use crate::perms::perm::MAX_N;
 pub use crate::perms::words::{LAYER_LIMIT, RANK_LIMIT};
 pub use crate::permutohedra::drawing::MAX_DRAWN_N;
 pub use crate::permutohedra::permutohedron::POLYNOMIAL_MAX_N;
+pub use crate::permutohedra::remixed::REMIXED_TABLE_WORK_LIMIT;
 pub use crate::poly::mono::{MAX_EXP, MAX_VARS};
 pub use crate::poly::parse::MAX_NESTING;
 pub use crate::poly::polynomial::TERM_LIMIT;

@@ -81,7 +81,7 @@ fn reduced_word_formula_equals_the_class_method_up_to_n_9() {
     // Nadeau–Tewari, IMRN 2023 (arXiv 2005.12194): a_w = (1/(n−1)!) Σ_{a ∈ Red(w)} A_{c(a)},
     // against the class of the permutohedral variety expanded by Monk's rule
     // (Anderson–Tymoczko 2010), for every w with ℓ(w) = n − 1.
-    let top = if cfg!(debug_assertions) { 8 } else { 9 };
+    let top = 9;
     for n in 2..=top {
         let table = class_table(n);
         let mut checked = 0;
@@ -192,7 +192,7 @@ fn symmetries_and_the_cyclic_sum_up_to_n_8() {
     // a_w = a_{w^{-1}} = a_{w0 w w0}, and Σ_j a_{w^{(j)}} = |Red(w)| (from the formula and
     // the cyclic sum of mixed Eulerian numbers, Postnikov IMRN 2009 §16), n ≤ 8,
     // every value read from the class method
-    let top = if cfg!(debug_assertions) { 7 } else { 8 };
+    let top = 8;
     for n in 2..=top {
         let table = class_table(n);
         for (w, value) in &table {
@@ -224,8 +224,8 @@ fn symmetries_and_the_cyclic_sum_up_to_n_8() {
 #[test]
 fn other_h_by_the_transpose() {
     // a^h_w = a^{h*}_{w0 w w0}, h* the transpose of h in the antidiagonal, every h, n ≤ 7
-    // (n ≤ 6 in the test build); values from the class method for both sides
-    let top = if cfg!(debug_assertions) { 6 } else { 7 };
+    // values from the class method for both sides
+    let top = 7;
     for n in 1..=top {
         for h in HessenbergFn::all(n) {
             let star = transpose_hessenberg(&h).unwrap();
@@ -365,7 +365,7 @@ fn remixed_numbers_properties_up_to_n_8() {
     // A_c(1) = A_c (Postnikov's mixed Eulerian numbers, the walk of the permutohedra view);
     // palindromic, unimodal, nonnegative; Π [i]_q^{c_i} for parking c; A_{(1,…,1)}(q) = [n−1]_q!
     // (these are the properties of the remixed Eulerian numbers, Nadeau–Tewari 2023)
-    let top = if cfg!(debug_assertions) { 7 } else { 8 };
+    let top = 8;
     for n in 2..=top {
         for (c, a) in mixed_eulerian_numbers(n, &go()).unwrap() {
             let aq = remixed_eulerian(&c).unwrap();
@@ -468,8 +468,8 @@ fn functional_of_schubert(w: &Perm) -> QPoly {
 
 #[test]
 fn q_coefficients_are_nonnegative_polynomials() {
-    // verified independently for n ≤ 5; here n ≤ 7 in the test build, n ≤ 8 in release
-    let top = if cfg!(debug_assertions) { 7 } else { 8 };
+    // verified independently for n ≤ 5 (with the definition); here every w with n ≤ 8
+    let top = 8;
     let exceptions = q_survey(top);
     assert!(exceptions.is_empty(), "{exceptions:?}");
 }

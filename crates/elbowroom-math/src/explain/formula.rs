@@ -19,9 +19,10 @@ use rayon::prelude::*;
 pub const EXPLAIN_MAX_N: usize = 14;
 
 /// The most work the reduced-word formula may take before it starts, counted as
-/// (a bound on the contents that occur) × n^4, the steps of one A_c: the contents
-/// are at most min(|Red(w)|, C(2n−3, n−2)). At n = 12 the largest is 7.3·10^9
-/// (a few seconds on two cores); beyond 2·10^10 is refused.
+/// (a bound on the contents that occur) × the steps of one A_c (n^4 at q = 1, n^6 for
+/// A_c(q)). Every letter of w's support (k letters) occurs in every reduced word, so the
+/// contents are compositions of n − 1 into k positive parts: at most
+/// min(|Red(w)|, C(n − 2, k − 1)) of them (252 at n = 12, 1 716 at n = 14).
 pub const WORD_FORMULA_WORK_LIMIT: u128 = 20_000_000_000;
 
 /// One row of the formula: a content c, its number of reduced words N_w(c),
@@ -96,7 +97,8 @@ pub fn size_word_formula(
         )));
     }
     let words = count_reduced_words_with(w, progress)?;
-    let compositions = crate::limits::binomial(2 * n as u64 - 3, n as u64 - 2);
+    let letters = crate::explain::symmetry::support(w).len() as u64;
+    let compositions = crate::limits::binomial(n as u64 - 2, letters.saturating_sub(1));
     let contents = u128::try_from(&words)
         .unwrap_or(u128::MAX)
         .min(compositions);

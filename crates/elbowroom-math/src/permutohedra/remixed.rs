@@ -27,6 +27,17 @@ use crate::perms::perm::MAX_N;
 use crate::poly::qpoly::QPoly;
 use num_bigint::BigInt;
 
+/// The most work a table of A_c(q) for every c of one n may take, counted as
+/// compositions × n^6 (the steps of one A_c(q)): n = 9 is 3.4·10^9 (seconds in a
+/// release build), n = 10 is 2.4·10^10 and refused.
+pub const REMIXED_TABLE_WORK_LIMIT: u128 = 5_000_000_000;
+
+/// The work of the table of A_c(q) for n: C(2n − 3, n − 2) compositions × n^6.
+pub fn remixed_table_work(n: usize) -> u128 {
+    let n = n.max(2) as u64;
+    crate::limits::binomial(2 * n - 3, n - 2).saturating_mul(u128::from(n).pow(6))
+}
+
 /// A_c(q) for a weak composition c of n − 1 into n − 1 parts (2 ≤ n ≤ 16), exactly.
 ///
 /// ```

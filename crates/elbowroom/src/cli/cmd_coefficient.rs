@@ -9,6 +9,7 @@ use super::error::CliError;
 use super::interrupt;
 use super::json;
 use crate::math::explain::explanation::{Explanation, explain};
+use crate::math::explain::formula::{WORD_FORMULA_WORK_LIMIT, size_word_formula};
 use crate::math::explain::qvalue::{QCoefficient, q_coefficient};
 use crate::math::explain::rules::Rule;
 use crate::math::hessenberg::divsym::HessenbergFunctional;
@@ -135,6 +136,11 @@ pub fn run(args: &CoefficientArgs) -> Result<String, CliError> {
         return other_h(args, &w, &h);
     }
     let (e, q) = interrupt::run_interruptible("the explanation", "contents", 0, |progress| {
+        if args.q {
+            // a_w(q) is sized before anything is computed
+            let steps = (n as u128).pow(6);
+            size_word_formula(&w, steps, WORD_FORMULA_WORK_LIMIT, progress)?;
+        }
         let e = explain(&w, progress)?;
         let q = if args.q {
             Some(q_coefficient(&w, progress)?)

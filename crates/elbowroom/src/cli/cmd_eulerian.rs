@@ -6,9 +6,10 @@ use super::args::EulerianArgs;
 use super::error::CliError;
 use super::interrupt;
 use super::json;
+use crate::math::limits::REMIXED_TABLE_WORK_LIMIT;
 use crate::math::limits::{EULERIAN_WORK_LIMIT, binomial, monomials_of_degree};
 use crate::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
-use crate::math::permutohedra::remixed::remixed_eulerian;
+use crate::math::permutohedra::remixed::{remixed_eulerian, remixed_table_work};
 use crate::math::poly::qpoly::QPoly;
 use crate::math::{MathResult, Progress};
 use crate::tables::results::eulerian_table;
@@ -32,6 +33,13 @@ pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
             "mixed Eulerian numbers at n = {n}: {compositions} compositions, each over {} monomials of degree {}, is {work} steps; at most {EULERIAN_WORK_LIMIT} are accepted (n <= 10)",
             monomials_of_degree(n - 1, n),
             n - 1
+        )));
+    }
+    if args.q && remixed_table_work(args.n) > REMIXED_TABLE_WORK_LIMIT {
+        return Err(CliError::Input(format!(
+            "A_c(q) at n = {n}: {compositions} compositions, each {} steps, is {} steps; at most {REMIXED_TABLE_WORK_LIMIT} are accepted (n <= 9)",
+            n.pow(6),
+            remixed_table_work(args.n)
         )));
     }
     let numbers = interrupt::run_interruptible("the computation", "compositions", 0, |progress| {
