@@ -181,7 +181,7 @@ fn place(
     steps: &mut u64,
 ) -> MathResult<()> {
     *steps += 1;
-    if *steps % 4096 == 0 {
+    if (*steps).is_multiple_of(4096) {
         progress.check()?;
     }
     if used > wanted {

@@ -576,6 +576,30 @@ fn browse(b: &BrowseKey, progress: &Progress) -> MathResult<Vec<Perm>> {
     Ok(out)
 }
 
+/// a_w explained; a_w(q) and S_w(1, q, …) are left out (with the reason) when
+/// they are over their limits, the rest is refused as a whole.
+fn explained(w: &Perm, progress: &Progress) -> MathResult<Explained> {
+    let explanation = explain(w, progress)?;
+    let q = match q_coefficient(w, progress) {
+        Ok(q) => Ok(q),
+        Err(MathError::Canceled) => return Err(MathError::Canceled),
+        Err(e) => Err(e.to_string()),
+    };
+    let bound = term_bound(w);
+    let principal = if bound > SCHUBERT_TERM_LIMIT {
+        Err(format!(
+            "S_{w} may have up to {bound} terms; at most {SCHUBERT_TERM_LIMIT} are expanded"
+        ))
+    } else {
+        Ok(principal_specialization(&schubert(w)))
+    };
+    Ok(Explained {
+        explanation,
+        q,
+        principal,
+    })
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -633,28 +657,4 @@ mod tests {
         assert_eq!(d, PolytopeDrawing::of(&Permutohedron::new(&b)?)?);
         Ok(())
     }
-}
-
-/// a_w explained; a_w(q) and S_w(1, q, …) are left out (with the reason) when
-/// they are over their limits, the rest is refused as a whole.
-fn explained(w: &Perm, progress: &Progress) -> MathResult<Explained> {
-    let explanation = explain(w, progress)?;
-    let q = match q_coefficient(w, progress) {
-        Ok(q) => Ok(q),
-        Err(MathError::Canceled) => return Err(MathError::Canceled),
-        Err(e) => Err(e.to_string()),
-    };
-    let bound = term_bound(w);
-    let principal = if bound > SCHUBERT_TERM_LIMIT {
-        Err(format!(
-            "S_{w} may have up to {bound} terms; at most {SCHUBERT_TERM_LIMIT} are expanded"
-        ))
-    } else {
-        Ok(principal_specialization(&schubert(w)))
-    };
-    Ok(Explained {
-        explanation,
-        q,
-        principal,
-    })
 }
