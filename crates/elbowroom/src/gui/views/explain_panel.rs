@@ -212,7 +212,7 @@ fn draw_tableau(ui: &mut egui::Ui, rows: &[Vec<usize>]) {
 fn relatives(ui: &mut egui::Ui, e: &Explained, action: &mut Option<PanelAction>) {
     let x = &e.explanation;
     ui.horizontal_wrapped(|ui| {
-        typeset::label(ui, &Typeset::new().symbol("a_w = a_{w⁻¹} = a_{w0 w w0}:"));
+        ui.label("a_w = a_(w^-1) = a_(w0 w w0):");
         for (u, v) in [&x.inverse, &x.conjugate] {
             if ui.link(format!("{u} ({v})")).clicked() {
                 *action = Some(PanelAction::GoTo(u.clone()));
