@@ -18,6 +18,7 @@
 //! 8. [`permutohedra`]: permutohedron volumes and mixed Eulerian numbers.
 //! 9. [`forest`]: forest polynomials, trimming, forest expansions, the forest
 //!    basis of the quotient and a_w by trees.
+//! 9. [`explain`]: why a_w is what it is (reduced words, rules, q-analogues).
 
 pub mod error;
 pub mod excerpt;
@@ -39,6 +40,7 @@ pub mod quotient;
 pub mod permutohedra;
 
 pub mod forest;
+pub mod explain;
 
 pub use error::{MathError, MathResult};
 pub use perms::perm::{MAX_N, Perm};

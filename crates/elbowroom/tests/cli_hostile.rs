@@ -147,6 +147,30 @@ fn mixed_eulerian_numbers_past_the_budget_are_refused_at_once() {
 }
 
 #[test]
+fn explanations_past_their_limits_are_refused_at_once() {
+    // A_c(q) at n = 10: C(17, 8) = 24 310 compositions of n^6 steps each
+    refused(
+        &["eulerian", "--n", "10", "--q"],
+        &["24310 compositions", "5000000000"],
+    );
+    // n = 15 is past EXPLAIN_MAX_N = 14
+    refused(
+        &["coefficient", "2,3,4,5,6,7,8,9,10,11,12,13,14,15,1"],
+        &["n = 15", "n <= 14"],
+    );
+}
+
+#[test]
+fn ctrl_c_in_an_explanation_is_answered_with_a_message() {
+    // a_w and a_w(q) for w in S_12 of length 11 with many words: seconds in the debug build
+    let out = common::interrupted(&["coefficient", "4,3,2,1,7,6,5,9,8,11,10,12", "--q"]);
+    assert_eq!(out.status.code(), Some(130));
+    let err = String::from_utf8_lossy(&out.stderr);
+    assert!(err.contains("canceled after"), "{err}");
+    assert!(out.stdout.is_empty());
+}
+
+#[test]
 fn divided_symmetrization_past_the_budget_is_refused() {
     // DS_6(x1^100) is symmetric of degree 95 in 6 variables: C(100, 5) = 75 287 520 monomials
     refused(

@@ -451,6 +451,85 @@ pub fn counts_by_content_with(
     Ok(out)
 }
 
+/// The reduced words of w by content and by comaj: for each content c, the
+/// polynomial Σ_{a ∈ Red(w), c(a) = c} q^{comaj(a)} as its coefficients (comaj(a) =
+/// Σ of the positions i with a_i < a_{i+1}), by the layered propagation of
+/// [`counts_by_content_with`] that also keeps the letter last placed (words are built
+/// from their last letter back). [`MathError::OutOfRange`] beyond [`LAYER_LIMIT`].
+///
+/// ```
+/// use elbowroom_math::{Perm, Progress, perms::words::counts_by_content_and_comaj_with};
+/// // 1432: 232 (comaj 1) and 323 (comaj 2)
+/// let by = counts_by_content_and_comaj_with(&Perm::parse("1432").unwrap(), &Progress::default()).unwrap();
+/// assert_eq!(by[&vec![0, 2, 1]], vec![0, 1]);
+/// assert_eq!(by[&vec![0, 1, 2]], vec![0, 0, 1]);
+/// ```
+pub fn counts_by_content_and_comaj_with(
+    w: &Perm,
+    progress: &Progress,
+) -> MathResult<BTreeMap<Vec<usize>, Vec<u64>>> {
+    let n = w.n();
+    let length = w.length();
+    if length > 255 {
+        return Err(MathError::OutOfRange(format!(
+            "ℓ(w) = {length}; contents are counted for lengths up to 255"
+        )));
+    }
+    let overflow = || MathError::OutOfRange("a count of reduced words left 64-bit integers".into());
+    progress.set_total(length as u64);
+    // key: packed permutation, packed content, last letter placed (0: none yet)
+    let mut layer: PackedMap<(u64, u128, u8), Vec<u64>> = PackedMap::default();
+    layer.insert((pack(w), 0, 0), vec![1]);
+    for placed in 0..length {
+        progress.check()?;
+        let position = length - placed; // 1-based position of the letter placed now
+        let mut next: PackedMap<(u64, u128, u8), Vec<u64>> = PackedMap::default();
+        for (&(p, content, last), poly) in &layer {
+            check_layer(next.len())?;
+            for i in 0..n.saturating_sub(1) {
+                if nibble(p, i) > nibble(p, i + 1) {
+                    let letter = (i + 1) as u8;
+                    let shift = if last != 0 && letter < last {
+                        position
+                    } else {
+                        0
+                    };
+                    let key = (swap_adjacent(p, i), content + (1u128 << (8 * i)), letter);
+                    let entry = next.entry(key).or_default();
+                    if entry.len() < poly.len() + shift {
+                        entry.resize(poly.len() + shift, 0);
+                    }
+                    for (e, &v) in poly.iter().enumerate() {
+                        entry[e + shift] = entry[e + shift].checked_add(v).ok_or_else(overflow)?;
+                    }
+                }
+            }
+        }
+        check_layer(next.len())?;
+        layer = next;
+        progress.advance(1);
+    }
+    let mut out: BTreeMap<Vec<usize>, Vec<u64>> = BTreeMap::new();
+    for ((_, content, _), poly) in layer {
+        let v: Vec<usize> = (0..n.saturating_sub(1))
+            .map(|i| ((content >> (8 * i)) & 0xff) as usize)
+            .collect();
+        let entry = out.entry(v).or_default();
+        if entry.len() < poly.len() {
+            entry.resize(poly.len(), 0);
+        }
+        for (e, &c) in poly.iter().enumerate() {
+            entry[e] = entry[e].checked_add(c).ok_or_else(overflow)?;
+        }
+    }
+    for poly in out.values_mut() {
+        while poly.last() == Some(&0) {
+            poly.pop();
+        }
+    }
+    Ok(out)
+}
+
 /// The content of a word: c_i = number of letters equal to i, for i = 1..n-1.
 pub fn content(word: &[usize], n: usize) -> Vec<usize> {
     let mut c = vec![0; n.saturating_sub(1)];

@@ -8,3 +8,5 @@ pub mod segment;
 pub mod drawing;
 
 pub mod mixed_eulerian;
+
+pub mod remixed;

@@ -9,6 +9,7 @@ pub mod mono;
 pub mod polynomial;
 
 pub mod compositions;
+pub mod qpoly;
 pub mod quasisym;
 pub mod symmetric;
 

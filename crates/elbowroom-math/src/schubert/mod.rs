@@ -2,6 +2,7 @@
 //!
 //! - [`transition`]: the transition step, written once.
 //! - [`polynomial`]: Schubert polynomials by transition (memoized) and by divided differences.
+//! - [`principal`]: the principal specialization S_w(1, q, q², …).
 //! - [`vector`]: sparse vectors Σ c_w S_w (stable or in H*(Fl_n)) and Monk's rule.
 //! - [`expansion`]: the Schubert expansion of a polynomial, and of a product of linear forms.
 //! - [`product`]: structure constants S_u · S_v = Σ c^w_{uv} S_w.
@@ -9,6 +10,7 @@
 pub mod transition;
 
 pub mod polynomial;
+pub mod principal;
 
 pub mod vector;
 

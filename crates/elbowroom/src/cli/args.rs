@@ -36,6 +36,8 @@ pub enum Command {
     Volume(VolumeArgs),
     /// Mixed Eulerian numbers A_c.
     Eulerian(EulerianArgs),
+    /// Why a^h_w is what it is: the reduced-word formula by content, rules, symmetries, a_w(q).
+    Coefficient(CoefficientArgs),
     /// The Schubert expansion of a polynomial: in H*(Fl_n), or stably with --stable.
     Expand(ExpandArgs),
     /// Structure constants: S_u · S_v = Σ c^w_{uv} S_w, stably or in H*(Fl_n) with --n.
@@ -171,6 +173,9 @@ pub struct SchubertArgs {
     /// Print the polynomial in LaTeX instead of plain text.
     #[arg(long, conflicts_with = "json")]
     pub latex: bool,
+    /// Also give the principal specialization S_w(1, q, q², …) and S_w(1, …, 1).
+    #[arg(long)]
+    pub principal: bool,
 }
 
 /// Arguments of `elbowroom words`.
@@ -185,6 +190,9 @@ pub struct WordsArgs {
     /// Only count; list no words.
     #[arg(long)]
     pub count: bool,
+    /// The number of reduced words of each content c (c_i = number of letters i), no words listed.
+    #[arg(long, conflicts_with = "count")]
+    pub by_content: bool,
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
@@ -308,9 +316,29 @@ pub struct EulerianArgs {
     /// The number of variables n (compositions of n-1 into n-1 parts).
     #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: usize,
+    /// Also give A_c(q), the q-analogue read in the algebra K_n(q) (text and JSON).
+    #[arg(long, conflicts_with_all = ["csv", "latex"])]
+    pub q: bool,
     /// How to print the table.
     #[command(flatten)]
     pub output: TableOutput,
+}
+
+/// Arguments of `elbowroom coefficient`.
+#[derive(Args, Debug)]
+pub struct CoefficientArgs {
+    /// The permutation w, of length |h| = Σ (h(i) − i) (n − 1 for the default h).
+    #[arg(allow_hyphen_values = true)]
+    pub perm: String,
+    /// A Hessenberg function h(1),...,h(n) (default h(i) = i+1: the permutahedral class).
+    #[arg(long, allow_hyphen_values = true)]
+    pub h: Option<String>,
+    /// Also give the q-analogue a_w(q) (default h only).
+    #[arg(long)]
+    pub q: bool,
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
 }
 
 /// How a command that makes a table prints it: readable text by default, or

@@ -6,7 +6,11 @@ use super::args::EulerianArgs;
 use super::error::CliError;
 use super::interrupt;
 use super::json;
+use crate::math::limits::{REMIXED_TABLE_WORK_LIMIT, binomial};
 use crate::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
+use crate::math::permutohedra::remixed::{remixed_eulerian, remixed_table_work};
+use crate::math::poly::qpoly::QPoly;
+use crate::math::{MathResult, Progress};
 use crate::tables::results::eulerian_table;
 use num_bigint::BigInt;
 use serde_json::{Value, json};
@@ -21,6 +25,15 @@ pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
         )));
     }
     crate::math::sizing::check_eulerian(args.n)?;
+    let n = args.n as u64;
+    let compositions = binomial(2 * n - 3, n - 2);
+    if args.q && remixed_table_work(args.n) > REMIXED_TABLE_WORK_LIMIT {
+        return Err(CliError::Input(format!(
+            "A_c(q) at n = {n}: {compositions} compositions, each {} steps, is {} steps; at most {REMIXED_TABLE_WORK_LIMIT} are accepted (n <= 9)",
+            n.pow(6),
+            remixed_table_work(args.n)
+        )));
+    }
     let numbers = interrupt::run_interruptible("the computation", "compositions", 0, |progress| {
         mixed_eulerian_numbers(args.n, progress)
     })?;
@@ -28,10 +41,27 @@ pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
     if let Some(out) = args.output.table(|| eulerian_table(args.n, &numbers)) {
         return Ok(out);
     }
+    let q_values = if args.q {
+        Some(interrupt::run_interruptible(
+            "the q-analogues",
+            "compositions",
+            0,
+            |progress| remixed_all(&numbers, progress),
+        )?)
+    } else {
+        None
+    };
     if args.output.json {
         let list: Vec<Value> = numbers
             .iter()
-            .map(|(c, v)| json!({"c": c, "value": json::exact(v)}))
+            .enumerate()
+            .map(|(k, (c, v))| {
+                let mut row = json!({"c": c, "value": json::exact(v)});
+                if let Some(q) = &q_values {
+                    row["q"] = json!(q[k].coeff_strings());
+                }
+                row
+            })
             .collect();
         return Ok(json::render(&json!({
             "n": args.n,
@@ -53,9 +83,30 @@ pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
         args.n - 1,
         args.n - 1
     );
-    for (c, v) in &numbers {
-        out.push_str(&format!("{:<width$}  {v}\n", format!("{c:?}")));
+    for (k, (c, v)) in numbers.iter().enumerate() {
+        match &q_values {
+            Some(q) => out.push_str(&format!(
+                "{:<width$}  {v}  A_c(q) = {}\n",
+                format!("{c:?}"),
+                q[k]
+            )),
+            None => out.push_str(&format!("{:<width$}  {v}\n", format!("{c:?}"))),
+        }
     }
     out.push_str(&format!("sum = {sum}\n"));
     Ok(out)
+}
+
+/// A_c(q) for every c of the table, in its order.
+fn remixed_all(numbers: &[(Vec<u32>, BigInt)], progress: &Progress) -> MathResult<Vec<QPoly>> {
+    progress.set_total(numbers.len() as u64);
+    numbers
+        .iter()
+        .map(|(c, _)| {
+            progress.check()?;
+            let q = remixed_eulerian(c)?;
+            progress.advance(1);
+            Ok(q)
+        })
+        .collect()
 }

@@ -9,7 +9,7 @@ use super::error::CliError;
 use super::interrupt;
 use super::json;
 use super::output::Sink;
-use crate::math::perms::words::{count_reduced_words_with, reduced_words};
+use crate::math::perms::words::{count_reduced_words_with, counts_by_content_with, reduced_words};
 use crate::math::{MathError, Perm, Progress};
 use num_bigint::BigUint;
 use serde_json::json;
@@ -18,6 +18,9 @@ use std::sync::Arc;
 /// Runs the command.
 pub fn run(args: &WordsArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let w = args.perm.clone();
+    if args.by_content {
+        return sink.whole(&by_content(args, &w)?);
+    }
     let progress = Arc::new(Progress::new(0));
     let _watch = interrupt::watch(progress.clone());
     let count = count_reduced_words_with(&w, &progress).map_err(|e| match e {
@@ -80,4 +83,36 @@ fn list(
         }
     }
     sink.text("\n")
+}
+
+/// `--by-content`: the number of reduced words of each content, contents in
+/// decreasing lexicographic order (n − 1 entries, n the length of w as typed).
+fn by_content(args: &WordsArgs, w: &Perm) -> Result<String, CliError> {
+    let (count, by) = interrupt::run_interruptible("the count by content", "letters", 0, |p| {
+        let count = count_reduced_words_with(w, p)?;
+        Ok((count, counts_by_content_with(w, p)?))
+    })?;
+    if args.json {
+        let rows: Vec<serde_json::Value> = by
+            .iter()
+            .rev()
+            .map(|(c, k)| json!({"content": c, "words": json::exact(k)}))
+            .collect();
+        return Ok(json::render(&json!({
+            "perm": w.one_line(),
+            "length": w.length(),
+            "count": json::exact(&count),
+            "by_content": rows,
+        })));
+    }
+    let mut out = format!(
+        "{count} reduced word{} of {w} (length {}) by content c (c_i = number of letters i):",
+        if count == 1u8.into() { "" } else { "s" },
+        w.length()
+    );
+    let width = by.keys().map(|c| format!("{c:?}").len()).max().unwrap_or(0);
+    for (c, k) in by.iter().rev() {
+        out.push_str(&format!("\n  {:<width$}  {k}", format!("{c:?}")));
+    }
+    Ok(out)
 }

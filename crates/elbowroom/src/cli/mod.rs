@@ -13,6 +13,7 @@
 //! the output goes through) and [`error`].
 
 pub mod args;
+pub mod cmd_coefficient;
 pub mod cmd_divsym;
 pub mod cmd_dreams;
 pub mod cmd_eulerian;
@@ -199,6 +200,7 @@ pub fn execute(command: &Command, sink: &mut Sink<'_>) -> Result<(), CliError> {
         Command::Divsym(a) => cmd_divsym::run(a),
         Command::Volume(a) => cmd_volume::run(a),
         Command::Eulerian(a) => cmd_eulerian::run(a),
+        Command::Coefficient(a) => cmd_coefficient::run(a),
         Command::Expand(a) => cmd_expand::run(a),
         Command::Product(a) => cmd_product::run(a),
         Command::Merge(a) => return cmd_merge::run(a, sink),

@@ -3,10 +3,13 @@
 
 use super::forest_jobs::{ForestRows, forest_class, forest_poly, schubert_forests};
 use super::layout::{TableLayout, table_layout};
+use crate::math::explain::explanation::{Explanation, explain};
+use crate::math::explain::qvalue::{QCoefficient, q_coefficient};
 use crate::math::hessenberg::coefficients::coefficient_table;
 use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize_with};
 use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::hessenberg::table::HessenbergTable;
+use crate::math::limits::SCHUBERT_TERM_LIMIT;
 use crate::math::perms::class::PermClass;
 use crate::math::perms::words::{count_reduced_words_with, reduced_words};
 pub use crate::math::permutohedra::drawing::PolytopeDrawing;
@@ -14,8 +17,10 @@ use crate::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
 use crate::math::permutohedra::permutohedron::Permutohedron;
 use crate::math::permutohedra::segment::volume_along_segment;
 use crate::math::pipes::bumpless::{BumplessDream, bumpless_dreams};
+use crate::math::pipes::dream::term_bound;
 use crate::math::pipes::dream::{PipeDream, count_pipe_dreams, pipe_dreams};
 use crate::math::poly::parse::parse_poly_with;
+use crate::math::poly::qpoly::QPoly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::normal_form::{
     NormalForm, groebner_basis_with, hilbert_series, normal_form,
@@ -23,12 +28,15 @@ use crate::math::quotient::normal_form::{
 use crate::math::quotient::survey::{SurveyEntry, survey, survey_listing};
 use crate::math::schubert::expansion::expand_typed;
 use crate::math::schubert::polynomial::SchubertTable;
+use crate::math::schubert::polynomial::schubert;
+use crate::math::schubert::principal::principal_specialization;
 use crate::math::schubert::product::schubert_product;
 use crate::math::schubert::vector::Space;
 use crate::math::{IntPoly, MathError, MathResult, Perm, Progress};
 use num_bigint::{BigInt, BigUint};
 use num_rational::BigRational;
 use num_traits::Signed;
+use std::sync::Arc;
 
 /// How the permutation browser filters and orders S_n.
 #[derive(Clone, Debug, PartialEq, Eq, Hash)]
@@ -97,6 +105,20 @@ pub enum JobKey {
     ForestExpansion(Perm),
     /// The class modulo J_n of what the quotient view reduces, in the forest basis.
     ForestClass(QuotientInput),
+    /// Why a_w is what it is (ℓ(w) = n − 1): the reduced-word formula, rules,
+    /// symmetries, a_w(q) and S_w(1, q, …).
+    Explain(Perm),
+}
+
+/// a_w explained, for the words view's panel.
+#[derive(Clone, Debug)]
+pub struct Explained {
+    /// The formula, rules, symmetries and cyclic orbit.
+    pub explanation: Explanation,
+    /// a_w(q), or why it was not computed (too large).
+    pub q: Result<QCoefficient, String>,
+    /// S_w(1, q, q², …), or why it was not computed.
+    pub principal: Result<QPoly, String>,
 }
 
 /// What the quotient view reduces.
@@ -184,6 +206,7 @@ impl JobKey {
             JobKey::ForestPolynomial(c) => format!("P_F of the code {}", h_text(c)),
             JobKey::ForestExpansion(w) => format!("forest expansion of S_{w}"),
             JobKey::ForestClass(_) => "class modulo J_n in the forest basis".to_string(),
+            JobKey::Explain(w) => format!("explaining a_{w} by its reduced words"),
         }
     }
 }
@@ -235,6 +258,8 @@ pub enum Output {
     Layout(TableLayout),
     /// Forest terms (code, coefficient).
     Forests(ForestRows),
+    /// a_w explained.
+    Explain(Arc<Explained>),
 }
 
 impl Output {
@@ -366,6 +391,7 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
             .map(|e| Output::Terms(Terms { terms: e.terms })),
         JobKey::Typed(text, n) => typed(text, *n, progress).map(Output::Text),
         JobKey::WordRank(w, word) => word_rank(w, word, progress).map(Output::Count),
+        JobKey::Explain(w) => explained(w, progress).map(|e| Output::Explain(Arc::new(e))),
         JobKey::HessenbergLayout(h, column, descending) => {
             // the view passes the table it has; from the key alone it is computed again
             let table = coefficient_table(&HessenbergFn::new(h)?, &|_| true, progress)?;
@@ -588,6 +614,30 @@ fn browse(b: &BrowseKey, progress: &Progress) -> MathResult<Vec<Perm>> {
         out.sort_by_cached_key(|w| w.length());
     }
     Ok(out)
+}
+
+/// a_w explained; a_w(q) and S_w(1, q, …) are left out (with the reason) when
+/// they are over their limits, the rest is refused as a whole.
+fn explained(w: &Perm, progress: &Progress) -> MathResult<Explained> {
+    let explanation = explain(w, progress)?;
+    let q = match q_coefficient(w, progress) {
+        Ok(q) => Ok(q),
+        Err(MathError::Canceled) => return Err(MathError::Canceled),
+        Err(e) => Err(e.to_string()),
+    };
+    let bound = term_bound(w);
+    let principal = if bound > SCHUBERT_TERM_LIMIT {
+        Err(format!(
+            "S_{w} may have up to {bound} terms; at most {SCHUBERT_TERM_LIMIT} are expanded"
+        ))
+    } else {
+        Ok(principal_specialization(&schubert(w)))
+    };
+    Ok(Explained {
+        explanation,
+        q,
+        principal,
+    })
 }
 
 #[cfg(test)]

@@ -144,7 +144,7 @@ fn table_row(
     current: &Perm,
     row_h: f32,
     widths: [f32; 3],
-) -> bool {
+) -> (bool, bool) {
     let [perm_w, length_w, value_w] = widths;
     ui.horizontal(|ui| {
         let sel = ui.add_sized(
@@ -168,7 +168,14 @@ fn table_row(
         };
         let cell = ui.add_sized([value_w, row_h], egui::Label::new(value.job(ui)));
         typeset::named(&cell, egui::Role::Label, &value);
-        sel.clicked()
+        let mut open_words = false;
+        sel.context_menu(|ui| {
+            if ui.button("open its words").clicked() {
+                open_words = true;
+                ui.close();
+            }
+        });
+        (sel.clicked() || open_words, open_words)
     })
     .inner
 }
@@ -355,8 +362,11 @@ impl HessenbergView {
         let place = &mut ctx.session.hessenberg;
         let widths = column_widths(ui, layout.perm_chars, layout.value_chars);
         sort_headers(ui, place, &column, widths);
-        if let Some(w) = rows_list(ui, table, &layout.rows, &current, widths) {
+        if let Some((w, open_words)) = rows_list(ui, table, &layout.rows, &current, widths) {
             ctx.go_to(w);
+            if open_words {
+                ctx.session.view = crate::session::model::View::Words;
+            }
         }
     }
 
@@ -526,8 +536,8 @@ fn rows_list(
     order: &[usize],
     current: &Perm,
     widths: [f32; 3],
-) -> Option<Perm> {
-    let mut chosen: Option<Perm> = None;
+) -> Option<(Perm, bool)> {
+    let mut chosen: Option<(Perm, bool)> = None;
     let row_h = ui.spacing().interact_size.y;
     egui::ScrollArea::vertical()
         .id_salt("hessenberg_rows")
@@ -537,8 +547,9 @@ fn rows_list(
                 let Some(entry) = order.get(r).and_then(|&i| table.entries.get(i)) else {
                     continue;
                 };
-                if table_row(ui, entry, current, row_h, widths) {
-                    chosen = Some(entry.perm.clone());
+                let (clicked, open_words) = table_row(ui, entry, current, row_h, widths);
+                if clicked {
+                    chosen = Some((entry.perm.clone(), open_words));
                 }
             }
         });

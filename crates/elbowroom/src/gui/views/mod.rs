@@ -4,6 +4,7 @@
 
 pub mod dreams;
 pub mod forests;
+pub mod explain_panel;
 pub mod hessenberg;
 pub mod permutohedra;
 pub mod products;

@@ -3,6 +3,7 @@
 //! letters, and the commutation and braid moves available from it. The lit
 //! crossing is a mark for the canvas: an export leaves it out unless asked for.
 
+use super::explain_panel::{ExplainPanel, PanelAction, open_eulerian};
 use super::{arrow_step, fetch_ready, figure_look};
 use crate::engine::requests::WORD_PAGE;
 use crate::engine::{Engine, Fetch, JobKey, Slot};
@@ -38,6 +39,8 @@ pub struct WordsView {
     scroll_to_selected: bool,
     /// Which word's diagram is on screen, for the export's name.
     shown_name: String,
+    /// The panel "a_w from the words of w".
+    explain: ExplainPanel,
 }
 
 /// What a wiring diagram is drawn for: the word, n, the look, the lit crossing.
@@ -91,8 +94,12 @@ impl WordsView {
     /// The figures this view can export: the wiring diagram on screen,
     /// without the lit crossing unless the export asks for it.
     pub fn figures(&self) -> Exports {
+        let table = self
+            .explain
+            .table()
+            .map(|(name, t)| (name, Exportable::Table(t)));
         let Some((_, clean)) = &self.wiring_shown else {
-            return Vec::new();
+            return table.into_iter().collect();
         };
         let marked = self
             .wiring_marked
@@ -103,7 +110,9 @@ impl WordsView {
             marked,
             marks: "the lit crossing",
         };
-        vec![(format!("the {}", self.shown_name), item)]
+        std::iter::once((format!("the {}", self.shown_name), item))
+            .chain(table)
+            .collect()
     }
 
     /// Draws the view.
@@ -111,6 +120,15 @@ impl WordsView {
         let w = ctx.perm();
         let n = w.n();
         self.heading_with_count(ui, ctx.engine, &w);
+        let panel = egui::CollapsingHeader::new("a_w from the words of w")
+            .default_open(true)
+            .show(ui, |ui| self.explain.ui(ui, ctx.engine, &w));
+        match panel.body_returned.flatten() {
+            Some(PanelAction::GoTo(u)) => ctx.go_to(u),
+            Some(PanelAction::Eulerian(c)) => open_eulerian(ctx.session, &c),
+            None => {}
+        }
+        ui.separator();
         let total = self.total();
         let look = figure_look(ctx.session);
         let index = &mut ctx.session.words.index;
@@ -274,6 +292,15 @@ impl WordsView {
         n: usize,
         index: &mut usize,
     ) {
+        // a content chosen in the panel keeps only the words of that content
+        let shown: Vec<usize> = (0..page.words.len())
+            .filter(|&r| {
+                self.explain
+                    .filter
+                    .as_ref()
+                    .is_none_or(|c| content(&page.words[r], n) == *c)
+            })
+            .collect();
         ui.vertical(|ui| {
             ui.set_width(260.0);
             ui.weak("word · content");
@@ -284,10 +311,11 @@ impl WordsView {
             if std::mem::take(&mut self.scroll_to_selected) {
                 // the selected row a few rows from the top
                 let step = row_h + ui.spacing().item_spacing.y;
-                list = list.vertical_scroll_offset(in_page.saturating_sub(3) as f32 * step);
+                let at = shown.iter().position(|&r| r == in_page).unwrap_or(0);
+                list = list.vertical_scroll_offset(at.saturating_sub(3) as f32 * step);
             }
-            list.show_rows(ui, row_h, page.words.len(), |ui, rows| {
-                for r in rows {
+            list.show_rows(ui, row_h, shown.len(), |ui, rows| {
+                for r in rows.map(|k| shown[k]) {
                     let wd = &page.words[r];
                     let text = egui::RichText::new(format!(
                         "{}   ({})",

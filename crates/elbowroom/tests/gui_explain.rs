@@ -1,0 +1,58 @@
+//! The words view's panel "a_w from the words of w", driven headlessly: the contents
+//! of 1432 with the sum (A_021 + A_012)/3! = (4 + 2)/6 = 1 (Nadeau–Tewari, IMRN 2023),
+//! a content filtering the word list, the cyclic orbit going to 3214, and A_c opening
+//! the permutohedra view at u = c.
+#![cfg(feature = "gui")]
+#![allow(clippy::unwrap_used)]
+
+mod window_harness;
+use egui_kittest::Harness;
+use egui_kittest::kittest::Queryable;
+use elbowroom::gui::Explorer;
+use elbowroom::gui::views::explain_panel::open_eulerian;
+use elbowroom::session::model::View;
+use window_harness::{harness, has, settle};
+
+fn type_and_go(h: &mut Harness<'static, Explorer>, text: &str) {
+    h.state_mut().picker.text = text.to_string();
+    h.step();
+    h.get_by_label("go").click();
+    h.step();
+    h.step();
+}
+
+#[test]
+fn the_panel_explains_a_1432() {
+    let mut h = harness();
+    h.state_mut().session.n = 4;
+    h.state_mut().session.current = vec![1, 2, 3, 4];
+    h.step();
+    type_and_go(&mut h, "1432");
+    assert_eq!(h.state().session.current, vec![1, 4, 3, 2]);
+    h.get_by_label("Reduced words & wiring").click();
+    settle(&mut h, |h| has(h, "[0, 2, 1]"));
+    assert!(has(&h, "[0, 1, 2]"));
+    assert!(has(&h, "sum 6/3! = 1"));
+    // a_w(q) = q^2 and S_w(1, q, q^2, …) = q + 2q^2 + q^3 + q^4 (Macdonald's S_1432)
+    assert!(has(&h, "q + 2q^2 + q^3 + q^4"));
+    // both words are listed; a click on the content (0, 2, 1) keeps only 2 3 2
+    settle(&mut h, |h| has(h, "3 2 3"));
+    h.get_by_label("[0, 2, 1]").click();
+    settle(&mut h, |h| !has(h, "3 2 3"));
+    assert!(has(&h, "2 3 2"));
+    assert!(has(&h, "the list shows the words of content [0, 2, 1]"));
+    h.get_by_label("show all").click();
+    settle(&mut h, |h| has(h, "3 2 3"));
+    // the cyclic orbit: 3214 (a = 1)
+    h.get_all_by_label("3214 (1)").next().unwrap().click();
+    settle(&mut h, |h| h.state().session.current == vec![3, 2, 1, 4]);
+    settle(&mut h, |h| has(h, "Reduced words of w = 3214"));
+    // 3214 = s1 s2 s1 = s2 s1 s2: contents (2,1,0) and (1,2,0), A = 2 and 4
+    settle(&mut h, |h| has(h, "[2, 1, 0]"));
+    assert!(has(&h, "[1, 2, 0]"));
+    // a click on A_c opens the permutohedra view at λ with λ_i − λ_{i+1} = c_i
+    open_eulerian(&mut h.state_mut().session, &[2, 1, 0]);
+    h.step();
+    assert_eq!(h.state().session.view, View::Permutohedron);
+    assert_eq!(h.state().session.solid.lambda, vec!["3", "1", "0", "0"]);
+}
