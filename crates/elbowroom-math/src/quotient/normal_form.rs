@@ -71,6 +71,24 @@ pub fn groebner_basis_with(n: usize, progress: &Progress) -> MathResult<Arc<Quas
     Ok(q)
 }
 
+/// The basis of J_n if this process already holds it (built or shared), without building it.
+pub fn built_basis(n: usize) -> Option<Arc<QuasiGroebner>> {
+    CACHE.get(n).and_then(|c| c.get()).cloned()
+}
+
+/// Shares a basis obtained elsewhere (for instance read back by
+/// [`crate::quotient::basis_bytes::from_bytes`] and certified) with every later call of
+/// [`groebner_basis`] for its n in this process; returns the basis now shared (the one
+/// already held, if another was shared or built first).
+pub fn share_basis(q: QuasiGroebner) -> Arc<QuasiGroebner> {
+    let n = q.n();
+    let q = Arc::new(q);
+    match CACHE.get(n) {
+        Some(cell) => cell.get_or_init(|| q).clone(),
+        None => q,
+    }
+}
+
 /// A normal form: the reduced polynomial and its coefficients on the standard monomials.
 #[derive(Clone, Debug, PartialEq)]
 pub struct NormalForm {
