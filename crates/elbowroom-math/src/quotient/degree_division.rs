@@ -3,7 +3,7 @@
 //! [`crate::quotient::groebner`] from degree-d polynomials onto the span V_d of the
 //! standard monomials and corners of degree d.
 //!
-//! Terms are taken largest first from a binary heap of positions; a monomial of V_d is
+//! Terms are taken largest first from a two-level bitset of positions; a monomial of V_d is
 //! kept, any other is replaced by −t·(tail of G_c) with c its first corner
 //! ([`crate::quotient::division::first_corner`]); every new term is smaller, so each
 //! position is taken at most once. Coefficients are checked `i128`.
@@ -12,7 +12,7 @@ use crate::error::{MathError, MathResult};
 use crate::poly::mono::Mono;
 use crate::quotient::division::first_corner;
 use crate::quotient::modp::DegreeIndex;
-use std::collections::{BinaryHeap, HashMap};
+use std::collections::HashMap;
 
 /// A row over V_d: (position in V_d, coefficient), sorted by position.
 pub type Row = Vec<(u32, i128)>;
@@ -25,11 +25,65 @@ pub struct DegreeDivision<'a> {
     tails: &'a HashMap<Mono, Vec<(Mono, i128)>>,
 }
 
-/// Working space of one thread: the dense coefficients, which positions are queued, the heap.
+/// Working space of one thread: the dense coefficients and the positions queued.
 pub struct Scratch {
     vals: Vec<i128>,
-    queued: Vec<bool>,
-    heap: BinaryHeap<u32>,
+    queued: Queue,
+}
+
+/// A set of positions, taken largest first: a bit per position and a bit per word of 64.
+struct Queue {
+    words: Vec<u64>,
+    summary: Vec<u64>,
+    /// No summary word above this one is nonzero.
+    top: usize,
+}
+
+impl Queue {
+    fn new(len: usize) -> Queue {
+        let words = len.div_ceil(64);
+        Queue {
+            words: vec![0; words],
+            summary: vec![0; words.div_ceil(64).max(1)],
+            top: 0,
+        }
+    }
+
+    /// Adds i; false if it was there already.
+    #[inline]
+    fn insert(&mut self, i: usize) -> bool {
+        let (w, b) = (i >> 6, 1u64 << (i & 63));
+        if self.words[w] & b != 0 {
+            return false;
+        }
+        self.words[w] |= b;
+        let s = w >> 6;
+        self.summary[s] |= 1u64 << (w & 63);
+        self.top = self.top.max(s);
+        true
+    }
+
+    /// Removes and returns the largest position.
+    #[inline]
+    fn pop(&mut self) -> Option<usize> {
+        loop {
+            let sw = self.summary[self.top];
+            if sw != 0 {
+                let w = (self.top << 6) + 63 - sw.leading_zeros() as usize;
+                let bits = self.words[w];
+                let b = 63 - bits.leading_zeros() as usize;
+                self.words[w] &= !(1u64 << b);
+                if self.words[w] == 0 {
+                    self.summary[self.top] &= !(1u64 << (w & 63));
+                }
+                return Some((w << 6) + b);
+            }
+            if self.top == 0 {
+                return None;
+            }
+            self.top -= 1;
+        }
+    }
 }
 
 const NONE: u32 = u32::MAX;
@@ -61,8 +115,7 @@ impl<'a> DegreeDivision<'a> {
     pub fn scratch(&self) -> Scratch {
         Scratch {
             vals: vec![0; self.index.monos.len()],
-            queued: vec![false; self.index.monos.len()],
-            heap: BinaryHeap::new(),
+            queued: Queue::new(self.index.monos.len()),
         }
     }
 
@@ -82,9 +135,8 @@ impl<'a> DegreeDivision<'a> {
     ) -> MathResult<Option<Row>> {
         let out = self.image_inner(terms, s, check);
         // leave the space clean whatever happened
-        while let Some(i) = s.heap.pop() {
-            s.vals[i as usize] = 0;
-            s.queued[i as usize] = false;
+        while let Some(i) = s.queued.pop() {
+            s.vals[i] = 0;
         }
         out
     }
@@ -101,17 +153,12 @@ impl<'a> DegreeDivision<'a> {
                 return Ok(None);
             };
             s.vals[i] = v;
-            if !s.queued[i] {
-                s.queued[i] = true;
-                s.heap.push(i as u32);
-            }
+            s.queued.insert(i);
         }
         let mut out = Vec::new();
         let mut steps = 0u32;
-        while let Some(i) = s.heap.pop() {
-            let i = i as usize;
+        while let Some(i) = s.queued.pop() {
             let x = std::mem::take(&mut s.vals[i]);
-            s.queued[i] = false;
             steps = steps.wrapping_add(1);
             if steps.is_multiple_of(1024) {
                 check()?;
@@ -137,13 +184,31 @@ impl<'a> DegreeDivision<'a> {
                     return Ok(None);
                 };
                 s.vals[j] = v;
-                if !s.queued[j] {
-                    s.queued[j] = true;
-                    s.heap.push(j as u32);
-                }
+                s.queued.insert(j);
             }
         }
         out.sort_unstable_by_key(|t| t.0);
         Ok(Some(out))
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::Queue;
+
+    #[test]
+    fn the_queue_gives_positions_largest_first_once_each() {
+        let mut q = Queue::new(10_000);
+        for i in [5, 9_999, 64, 4_096, 4_095, 5, 0, 63] {
+            q.insert(i);
+        }
+        let mut out = Vec::new();
+        while let Some(i) = q.pop() {
+            out.push(i);
+            if i == 4_096 {
+                q.insert(100);
+            }
+        }
+        assert_eq!(out, [9_999, 4_096, 4_095, 100, 64, 63, 5, 0]);
     }
 }

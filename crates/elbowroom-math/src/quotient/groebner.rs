@@ -24,24 +24,30 @@
 //! [`crate::quotient::division`]) gives an exact linear map φ from degree-d
 //! polynomials onto the span V_d of the standard monomials and corners of degree d. We
 //! then push genuine elements of J_n through φ (first the M_α with |α| = d, then t·G_c
-//! for lower corners c and monomials t) and row-reduce their images, stored sparse,
+//! for lower corners c and monomials t; [`crate::quotient::degree_division`] divides them
+//! on a dense array of the degree's monomials, a batch at a time in parallel) and absorb
+//! their images, in that order, into an echelon form ([`crate::quotient::elimination`]),
 //! stopping as soon as every corner of degree d leads a row. The row reduction runs
-//! modulo the prime p = 2^61 − 1 (exact integer elimination outgrows 128 bits at
-//! n = 10); the reduced rows are lifted to the integers of least absolute value and then
-//! checked exactly: every exact row r that made a pivot equals Σ_c r_c·G_c. Those rows
-//! are independent modulo p, hence over Q, one per corner, so they span the same space
-//! as the G_c, and every G_c is a rational combination of elements of J_n. A row whose
-//! leading monomial were standard would contradict the theorem above; that is reported as
-//! an error rather than ignored. In degree n there is no standard monomial, so G_c = c.
+//! modulo the prime p = 2^61 − 1 by shifts and adds ([`crate::quotient::modp`]; exact
+//! integer elimination outgrows 128 bits at n = 10); the reduced rows are lifted to the
+//! integers of least absolute value and then checked exactly: every exact row r that made
+//! a pivot equals Σ_c r_c·G_c. Those rows are independent modulo p, hence over Q, one per
+//! corner, so they span the same space as the G_c, and every G_c is a rational
+//! combination of elements of J_n. A row whose leading monomial were standard would
+//! contradict the theorem above; that is reported as an error rather than ignored. In
+//! degree n there is no standard monomial, so G_c = c.
 //! Nothing of size (monomials × standard monomials) is stored: normal forms are computed
 //! on demand by division ([`QuasiGroebner::reduce_small`]), whose work is bounded by the
 //! number of monomials of the degree.
 //!
 //! # Why the result is the reduced basis of J_n
-//! (1) Each G_c lies in J_n (construction). (2) Every generator M_α, |α| <= n, reduces to
-//! 0 modulo {G_c}, checked at the end of every construction; generators of larger degree
-//! lie in the ideal since all monomials of degree >= n are divisible by a corner. Hence
-//! (G) = J_n. (3) The leading monomials of J_n are then exactly the multiples of corners:
+//! (1) Each G_c lies in J_n (construction, exact). (2) Every generator M_α, |α| <= n,
+//! reduces to 0 modulo {G_c}: at the end of every construction (and whenever a basis is
+//! read back from bytes) this is certified by one random combination of the generators
+//! per degree, modulo p ([`crate::quotient::certificate`]: a wrong basis passes with
+//! probability at most (n − 1)/p); the tests divide every generator exactly
+//! ([`QuasiGroebner::check_every_generator`]). Generators of degree >= n reduce to 0
+//! whatever the basis, since no standard monomial has degree >= n. Hence (G) = J_n. (3) The leading monomials of J_n are then exactly the multiples of corners:
 //! by the dimension theorem of Aval–Bergeron–Bergeron, or, independently of it, by
 //! Buchberger's criterion, which the tests check for n <= 6 (all S-pairs reduce to 0).
 //! The tests also recompute J_n's graded pieces by plain linear algebra for n <= 5.

@@ -7,7 +7,9 @@
 //!
 //! Caching: the Gröbner data of each n is computed once per process and kept in a
 //! `std::sync::OnceLock` per n ([`groebner_basis`], [`groebner_basis_with`]); it holds no
-//! thread and no file, only the basis, so the mathematics stays pure. [`QuasiGroebner::compute`] builds a fresh
+//! thread and no file, only the basis, so the mathematics stays pure. A program that keeps
+//! bases between runs ([`crate::quotient::basis_bytes`]) hands one back with
+//! [`share_basis`] and asks first with [`built_basis`]. [`QuasiGroebner::compute`] builds a fresh
 //! copy for callers who want no sharing (benchmarks).
 
 use crate::error::{MathError, MathResult};
