@@ -259,3 +259,20 @@ fn commands_print_the_same_cold_warm_and_after_damage() {
         assert_eq!(found(dir.path(), 6), fresh(6));
     }
 }
+
+#[test]
+fn no_cache_neither_reads_nor_writes() {
+    let dir = tempfile::tempdir().unwrap();
+    let path = file_for(dir.path(), 5);
+    let without = cli(dir.path(), &["reduce", "x1 x3^2", "--n", "5", "--no-cache"]);
+    assert!(without.status.success());
+    assert!(!path.exists(), "--no-cache wrote the cache");
+    // a file that would be refused is not even read: same output, file left alone
+    std::fs::write(&path, b"not a basis").unwrap();
+    let again = cli(dir.path(), &["reduce", "x1 x3^2", "--n", "5", "--no-cache"]);
+    assert_eq!(without.stdout, again.stdout);
+    assert_eq!(std::fs::read(&path).unwrap(), b"not a basis");
+    let cached = cli(dir.path(), &["reduce", "x1 x3^2", "--n", "5"]);
+    assert_eq!(without.stdout, cached.stdout);
+    assert_eq!(found(dir.path(), 5), fresh(5));
+}

@@ -259,6 +259,9 @@ pub struct QuotientArgs {
     /// Draw every basis path in the text output (by default only for n <= 4).
     #[arg(long, conflicts_with = "json")]
     pub draw: bool,
+    /// Neither read nor write the basis of J_n in the cache directory (build it afresh).
+    #[arg(long)]
+    pub no_cache: bool,
 }
 
 /// Arguments of `elbowroom reduce`.
@@ -273,6 +276,9 @@ pub struct ReduceArgs {
     /// Print one JSON object instead of text.
     #[arg(long)]
     pub json: bool,
+    /// Neither read nor write the basis of J_n in the cache directory (build it afresh).
+    #[arg(long)]
+    pub no_cache: bool,
 }
 
 /// Arguments of `elbowroom survey`.
@@ -296,6 +302,9 @@ pub struct SurveyArgs {
     /// Leave out the per-permutation normal forms.
     #[arg(long)]
     pub summary: bool,
+    /// Neither read nor write the basis of J_n in the cache directory (build it afresh).
+    #[arg(long)]
+    pub no_cache: bool,
     /// Run only piece K of N of the listing (item i goes to piece (i mod N) + 1).
     #[arg(long, value_name = "K/N")]
     pub shard: Option<String>,

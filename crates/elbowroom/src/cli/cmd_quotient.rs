@@ -25,6 +25,9 @@ pub fn path_json(p: &LatticePath) -> Value {
 
 /// Runs the command.
 pub fn run(args: &QuotientArgs) -> Result<String, CliError> {
+    if args.no_cache {
+        crate::basis_cache::disable();
+    }
     let n = args.n;
     if n == 0 || n > MAX_QUOTIENT_N {
         return Err(CliError::Input(format!(

@@ -12,6 +12,9 @@ use serde_json::json;
 
 /// Runs the command.
 pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
+    if args.no_cache {
+        crate::basis_cache::disable();
+    }
     let n = args.n;
     if n == 0 || n > MAX_QUOTIENT_N {
         return Err(CliError::Input(format!(

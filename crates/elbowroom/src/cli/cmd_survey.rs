@@ -62,6 +62,9 @@ enum Format {
 
 /// Runs the command, writing the survey through `sink`.
 pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
+    if args.no_cache {
+        crate::basis_cache::disable();
+    }
     let shard = Shard::of_arg(args.shard.as_deref())?;
     let (n, perms): (usize, Vec<Perm>) = match (&args.perm, args.n) {
         (Some(text), _) => {
