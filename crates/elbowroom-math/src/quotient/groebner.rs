@@ -135,8 +135,8 @@ pub fn corner_count(d: usize) -> u64 {
 /// the monomials of degree d (their index and two threads' dense working space, 64 bytes
 /// each), the pivot rows modulo p, one per corner of degree d, filled from their leading
 /// column on, half of V_d on average (12 bytes a term), and beside each the exact row
-/// that made it, a quarter of V_d on average (32 bytes a term). At n = 10 this gives
-/// 129 MB against a measured peak of 123 MB; at n = 12 about 18 GB.
+/// that made it, a third of V_d on average (32 bytes a term). This gives 153 MB at n = 10
+/// and 1.77 GB at n = 11 against measured peaks of 123 MB and 1.65 GB; at n = 12, 21 GB.
 ///
 /// ```
 /// use elbowroom_math::quotient::groebner::{MAX_CONSTRUCTION_BYTES, construction_estimate};
@@ -148,7 +148,7 @@ pub fn construction_estimate(n: usize) -> u64 {
     for d in 1..n {
         let monos = binomial((n + d - 1) as u64, d as u64);
         let v = standard_count(n, d) + corner_count(d);
-        let rows = corner_count(d) * ((v / 2 + 1) * 12 + (v / 4 + 1) * 32);
+        let rows = corner_count(d) * ((v / 2 + 1) * 12 + (v / 3 + 1) * 32);
         peak = peak.max(monos * 64 + rows + v * 48);
     }
     peak
