@@ -24,24 +24,30 @@
 //! [`crate::quotient::division`]) gives an exact linear map φ from degree-d
 //! polynomials onto the span V_d of the standard monomials and corners of degree d. We
 //! then push genuine elements of J_n through φ (first the M_α with |α| = d, then t·G_c
-//! for lower corners c and monomials t) and row-reduce their images, stored sparse,
+//! for lower corners c and monomials t; [`crate::quotient::degree_division`] divides them
+//! on a dense array of the degree's monomials, a batch at a time in parallel) and absorb
+//! their images, in that order, into an echelon form ([`crate::quotient::elimination`]),
 //! stopping as soon as every corner of degree d leads a row. The row reduction runs
-//! modulo the prime p = 2^61 − 1 (exact integer elimination outgrows 128 bits at
-//! n = 10); the reduced rows are lifted to the integers of least absolute value and then
-//! checked exactly: every exact row r that made a pivot equals Σ_c r_c·G_c. Those rows
-//! are independent modulo p, hence over Q, one per corner, so they span the same space
-//! as the G_c, and every G_c is a rational combination of elements of J_n. A row whose
-//! leading monomial were standard would contradict the theorem above; that is reported as
-//! an error rather than ignored. In degree n there is no standard monomial, so G_c = c.
+//! modulo the prime p = 2^61 − 1 by shifts and adds ([`crate::quotient::modp`]; exact
+//! integer elimination outgrows 128 bits at n = 10); the reduced rows are lifted to the
+//! integers of least absolute value and then checked exactly: every exact row r that made
+//! a pivot equals Σ_c r_c·G_c. Those rows are independent modulo p, hence over Q, one per
+//! corner, so they span the same space as the G_c, and every G_c is a rational
+//! combination of elements of J_n. A row whose leading monomial were standard would
+//! contradict the theorem above; that is reported as an error rather than ignored. In
+//! degree n there is no standard monomial, so G_c = c.
 //! Nothing of size (monomials × standard monomials) is stored: normal forms are computed
 //! on demand by division ([`QuasiGroebner::reduce_small`]), whose work is bounded by the
 //! number of monomials of the degree.
 //!
 //! # Why the result is the reduced basis of J_n
-//! (1) Each G_c lies in J_n (construction). (2) Every generator M_α, |α| <= n, reduces to
-//! 0 modulo {G_c}, checked at the end of every construction; generators of larger degree
-//! lie in the ideal since all monomials of degree >= n are divisible by a corner. Hence
-//! (G) = J_n. (3) The leading monomials of J_n are then exactly the multiples of corners:
+//! (1) Each G_c lies in J_n (construction, exact). (2) Every generator M_α, |α| <= n,
+//! reduces to 0 modulo {G_c}: at the end of every construction (and whenever a basis is
+//! read back from bytes) this is certified by one random combination of the generators
+//! per degree, modulo p ([`crate::quotient::certificate`]: a wrong basis passes with
+//! probability at most (n − 1)/p); the tests divide every generator exactly
+//! ([`QuasiGroebner::check_every_generator`]). Generators of degree >= n reduce to 0
+//! whatever the basis, since no standard monomial has degree >= n. Hence (G) = J_n. (3) The leading monomials of J_n are then exactly the multiples of corners:
 //! by the dimension theorem of Aval–Bergeron–Bergeron, or, independently of it, by
 //! Buchberger's criterion, which the tests check for n <= 6 (all S-pairs reduce to 0).
 //! The tests also recompute J_n's graded pieces by plain linear algebra for n <= 5.
@@ -56,7 +62,10 @@ use crate::poly::compositions::{compositions, monomials_of_degree};
 use crate::poly::mono::Mono;
 use crate::poly::quasisym::monomial_qsym;
 use crate::progress::Progress;
+use crate::quotient::degree_division::{DegreeDivision, Row};
 use crate::quotient::division::{Step, divide, first_corner};
+use crate::quotient::elimination::{Absorbed, Echelon};
+use crate::quotient::modp::{lift, to_mod};
 use crate::quotient::standard::{is_corner, is_standard};
 use num_bigint::BigInt;
 use num_traits::{ToPrimitive, Zero};
@@ -80,7 +89,7 @@ pub struct GroebnerElement {
 
 /// The reduced lex Gröbner basis of J_n and its standard monomials: all a normal form
 /// needs (normal forms are computed on demand by division, see [`crate::quotient::division`]).
-#[derive(Clone, Debug)]
+#[derive(Clone, Debug, PartialEq, Eq)]
 pub struct QuasiGroebner {
     n: usize,
     elements: Vec<GroebnerElement>,
@@ -123,113 +132,41 @@ pub fn corner_count(d: usize) -> u64 {
 }
 
 /// The memory the construction plans to use, in bytes, before it starts: per degree d,
-/// the monomials of degree d (one lookup entry each, 48 bytes) and the pivot rows, one
-/// per corner of degree d with room for a tenth of the standard monomials and corners of
-/// that degree (24 bytes a term; the rows measured at n <= 10 fill less than that).
+/// the monomials of degree d (their index and two threads' dense working space, 64 bytes
+/// each), the pivot rows modulo p, one per corner of degree d, filled from their leading
+/// column on, half of V_d on average (12 bytes a term), and beside each the exact row
+/// that made it, a third of V_d on average (32 bytes a term). This gives 153 MB at n = 10
+/// and 1.77 GB at n = 11 against measured peaks of 123 MB and 1.65 GB; at n = 12, 21 GB.
 ///
 /// ```
 /// use elbowroom_math::quotient::groebner::{MAX_CONSTRUCTION_BYTES, construction_estimate};
 /// assert!(construction_estimate(11) < MAX_CONSTRUCTION_BYTES);
+/// assert!(construction_estimate(12) > MAX_CONSTRUCTION_BYTES);
 /// ```
 pub fn construction_estimate(n: usize) -> u64 {
     let mut peak = 0u64;
     for d in 1..n {
         let monos = binomial((n + d - 1) as u64, d as u64);
         let v = standard_count(n, d) + corner_count(d);
-        let rows = corner_count(d) * (v / 10 + 1) * 24;
-        peak = peak.max(monos * 48 + rows + v * 48);
+        let rows = corner_count(d) * ((v / 2 + 1) * 12 + (v / 3 + 1) * 32);
+        peak = peak.max(monos * 64 + rows + v * 48);
     }
     peak
 }
 
-/// A sparse row over the positions of V_d, sorted by position (position 0 = the largest monomial).
-type Row = Vec<(u32, i128)>;
-
-/// A sparse row with entries modulo [`PRIME`].
-type ModRow = Vec<(u32, u64)>;
-
 /// The basis elements of one degree: (corner, tail).
 type CornerTail = (Mono, Vec<(Mono, i128)>);
 
-/// The prime 2^61 − 1: the row reduction runs modulo it, and its answer is then lifted
-/// and checked exactly (see [`DegreeSpace::reduced_tails`]).
-const PRIME: u64 = (1 << 61) - 1;
+/// How many candidate elements of J_n are divided in parallel before their rows are
+/// absorbed in order (the work past the last row needed is at most one batch).
+const BATCH: usize = 64;
 
-fn mul_mod(a: u64, b: u64) -> u64 {
-    ((a as u128 * b as u128) % PRIME as u128) as u64
-}
-
-fn inv_mod(a: u64) -> u64 {
-    let (mut base, mut e, mut acc) = (a, PRIME - 2, 1u64);
-    while e > 0 {
-        if e & 1 == 1 {
-            acc = mul_mod(acc, base);
-        }
-        base = mul_mod(base, base);
-        e >>= 1;
-    }
-    acc
-}
-
-fn to_mod(x: i128) -> u64 {
-    x.rem_euclid(PRIME as i128) as u64
-}
-
-/// The integer in (−p/2, p/2) congruent to x.
-fn lift(x: u64) -> i128 {
-    if x > PRIME / 2 {
-        x as i128 - PRIME as i128
-    } else {
-        x as i128
-    }
-}
-
-/// row − c·p modulo the prime, merged by position; entries that cancel are dropped.
-fn sub_scaled(row: &ModRow, c: u64, p: &ModRow) -> ModRow {
-    let mut out = Vec::with_capacity(row.len() + p.len());
-    let (mut i, mut j) = (0, 0);
-    let neg = |y: u64| (PRIME - mul_mod(c, y)) % PRIME;
-    while i < row.len() || j < p.len() {
-        let (col, v) = match (row.get(i), p.get(j)) {
-            (Some(&(a, x)), Some(&(b, y))) if a == b => {
-                i += 1;
-                j += 1;
-                (a, (x + neg(y)) % PRIME)
-            }
-            (Some(&(a, x)), Some(&(b, _))) if a < b => {
-                i += 1;
-                (a, x)
-            }
-            (Some(&(a, x)), None) => {
-                i += 1;
-                (a, x)
-            }
-            (_, Some(&(b, y))) => {
-                j += 1;
-                (b, neg(y))
-            }
-            (None, None) => break,
-        };
-        if v != 0 {
-            out.push((col, v));
-        }
-    }
-    out
-}
-
-/// Clears the entry at column k of `row` with the pivot `p` (entry 1 at k).
-fn clear(row: &ModRow, p: &ModRow, k: u32) -> ModRow {
-    match row.binary_search_by_key(&k, |t| t.0) {
-        Ok(i) => sub_scaled(row, row[i].1, p),
-        Err(_) => row.clone(),
-    }
-}
-
-/// The pivot rows of one degree: modulo the prime, each with entry 1 at its leading
-/// column, beside the exact element of J_n (its image in V_d) that created it.
-struct Pivots {
-    rows: HashMap<u32, ModRow>,
-    exact: HashMap<u32, Row>,
+/// A genuine element of J_n of degree d, before its image is taken.
+enum Candidate {
+    /// M_α.
+    Qsym(Vec<u32>),
+    /// t·G_c for a lower corner c.
+    Shift(Mono, Mono),
 }
 
 /// The monomials of one degree d and the space V_d spanned by its standard monomials and
@@ -276,129 +213,110 @@ impl DegreeSpace {
         }
     }
 
-    /// φ: the image in V_d of Σ a·m under division by the basis elements of lower degree.
-    fn image(
+    /// The terms of a candidate element of J_n.
+    fn candidate_terms(
         &self,
-        terms: impl IntoIterator<Item = (Mono, i128)>,
+        cand: &Candidate,
         tails: &HashMap<Mono, Vec<(Mono, i128)>>,
-        check: &dyn Fn() -> MathResult<()>,
-    ) -> MathResult<Row> {
-        let n = self.n;
-        let step = |m: Mono| -> MathResult<Step<'_>> {
-            if let Some(&i) = self.vidx.get(&m) {
-                return Ok(Step::Keep(i));
+    ) -> MathResult<Vec<(Mono, i128)>> {
+        Ok(match cand {
+            Candidate::Qsym(alpha) => monomial_qsym(alpha, self.n)?
+                .terms()
+                .iter()
+                .map(|(m, c)| (*m, c.to_i128().unwrap_or(0)))
+                .collect(),
+            Candidate::Shift(c, t) => {
+                let tail = tails.get(c).map_or(&[][..], |t| t);
+                std::iter::once((Mono(c.0 + t.0), 1i128))
+                    .chain(tail.iter().map(|&(s, a)| (Mono(s.0 + t.0), a)))
+                    .collect()
             }
-            let tail = first_corner(m, n).and_then(|c| tails.get(&c).map(|t| (c, t)));
-            let Some((c, tail)) = tail else {
-                return Err(MathError::InvalidInput(format!(
-                    "internal: {m:?} is neither standard, a corner, nor divisible by a lower corner"
-                )));
-            };
-            Ok(Step::Divide(m.divided_by(c), tail))
-        };
-        divide(terms, &step, check)?.ok_or_else(overflow)
+        })
     }
 
     /// Pushes genuine elements of J_n of degree d through φ (first the M_α with |α| = d,
-    /// then t·G_c for lower corners c, higher degrees of c first) and row-reduces them,
-    /// sparse and modulo the prime, until every corner of degree d leads a row; returns the
-    /// pivots and how many elements were used.
+    /// then t·G_c for lower corners c, higher degrees of c first; the images of a batch in
+    /// parallel) and absorbs their rows, in that order, into an echelon form modulo the
+    /// prime, until every corner of degree d leads a row; returns the echelon form, the
+    /// exact row that made each pivot, and how many elements were absorbed.
     fn corner_rows(
         &self,
         lower: &[Mono],
         tails: &HashMap<Mono, Vec<(Mono, i128)>>,
         progress: &Progress,
-    ) -> MathResult<(Pivots, usize)> {
+    ) -> MathResult<(Echelon, HashMap<u32, Row>, usize)> {
         let (n, d) = (self.n, self.d);
         let check = || progress.check();
-        let mut pivots = Pivots {
-            rows: HashMap::new(),
-            exact: HashMap::new(),
-        };
+        let division = DegreeDivision::new(n, d, &self.vidx, tails);
+        let mut echelon = Echelon::new(self.v.len());
+        let mut exact: HashMap<u32, Row> = HashMap::new();
         let mut missing = self.corners.len();
         let mut used = 0usize;
-        let mut absorb = |exact: Row, pivots: &mut Pivots| -> MathResult<bool> {
-            used += 1;
-            let mut row: ModRow = exact
-                .iter()
-                .map(|&(c, x)| (c, to_mod(x)))
-                .filter(|t| t.1 != 0)
-                .collect();
-            let mut steps = 0u32;
-            loop {
-                let Some(&(lead, x)) = row.first() else {
-                    return Ok(missing == 0);
-                };
-                if let Some(p) = pivots.rows.get(&lead) {
-                    row = sub_scaled(&row, x, p);
-                    steps += 1;
-                    if steps.is_multiple_of(64) {
-                        progress.check()?;
-                    }
-                    continue;
-                }
-                if !self.is_corner_col[lead as usize] {
-                    return Err(MathError::InvalidInput(format!(
-                        "the standard monomial {:?} leads an element of J_{n}; \
-                         this contradicts the expected basis",
-                        self.v[lead as usize]
-                    )));
-                }
-                let inv = inv_mod(x);
-                for t in row.iter_mut() {
-                    t.1 = mul_mod(t.1, inv);
-                }
-                pivots.rows.insert(lead, row);
-                pivots.exact.insert(lead, exact);
-                missing -= 1;
-                progress.advance(1);
-                return Ok(missing == 0);
-            }
-        };
-        let mut done = self.corners.is_empty();
-        if !done {
-            for alpha in compositions(d) {
-                if alpha.len() > n {
-                    continue;
-                }
-                check()?;
-                let m_alpha = monomial_qsym(&alpha, n)?;
-                let terms = m_alpha
-                    .terms()
-                    .iter()
-                    .map(|(m, c)| (*m, c.to_i128().unwrap_or(0)));
-                let row = self.image(terms, tails, &check)?;
-                if absorb(row, &mut pivots)? {
-                    done = true;
-                    break;
-                }
-            }
+        if missing == 0 {
+            return Ok((echelon, exact, used));
         }
-        if !done {
-            'outer: for dd in (1..d).rev() {
-                let shifts = monomials_of_degree(n, d - dd);
-                for &c in lower.iter().filter(|c| c.degree() == dd) {
-                    let tail = tails.get(&c).map_or(&[][..], |t| t);
-                    for &t in &shifts {
-                        check()?;
-                        let terms = std::iter::once((Mono(c.0 + t.0), 1i128))
-                            .chain(tail.iter().map(|&(s, a)| (Mono(s.0 + t.0), a)));
-                        let row = self.image(terms, tails, &check)?;
-                        if absorb(row, &mut pivots)? {
-                            done = true;
-                            break 'outer;
+        let is_corner_col = |c: u32| self.is_corner_col[c as usize];
+        let mut levels: Vec<Vec<Candidate>> = vec![
+            compositions(d)
+                .into_iter()
+                .filter(|a| a.len() <= n)
+                .map(Candidate::Qsym)
+                .collect(),
+        ];
+        for dd in (1..d).rev() {
+            let shifts = monomials_of_degree(n, d - dd);
+            let mut level = Vec::new();
+            for &c in lower.iter().filter(|c| c.degree() == dd) {
+                level.extend(shifts.iter().map(|&t| Candidate::Shift(c, t)));
+            }
+            levels.push(level);
+        }
+        for level in levels {
+            for batch in level.chunks(BATCH) {
+                check()?;
+                let rows: Vec<MathResult<Row>> = batch
+                    .par_iter()
+                    .map_init(
+                        || division.scratch(),
+                        |scratch, cand| {
+                            let terms = self.candidate_terms(cand, tails)?;
+                            division.image(terms, scratch, &check)?.ok_or_else(overflow)
+                        },
+                    )
+                    .collect();
+                for row in rows {
+                    let row = row?;
+                    used += 1;
+                    let residues: Vec<(u32, u64)> = row
+                        .iter()
+                        .map(|&(c, x)| (c, to_mod(x)))
+                        .filter(|t| t.1 != 0)
+                        .collect();
+                    match echelon.absorb(&residues, &is_corner_col, progress)? {
+                        Ok(Absorbed::Dependent) => {}
+                        Ok(Absorbed::Pivot(col)) => {
+                            exact.insert(col, row);
+                            missing -= 1;
+                            progress.advance(1);
+                            if missing == 0 {
+                                return Ok((echelon, exact, used));
+                            }
+                        }
+                        Err(col) => {
+                            return Err(MathError::InvalidInput(format!(
+                                "the standard monomial {:?} leads an element of J_{n}; \
+                                 this contradicts the expected basis",
+                                self.v[col as usize]
+                            )));
                         }
                     }
                 }
             }
         }
-        if !done {
-            return Err(MathError::InvalidInput(format!(
-                "some corner of degree {d} leads no element of J_{n}; \
-                 this contradicts the expected basis"
-            )));
-        }
-        Ok((pivots, used))
+        Err(MathError::InvalidInput(format!(
+            "some corner of degree {d} leads no element of J_{n}; \
+             this contradicts the expected basis"
+        )))
     }
 
     /// The reduced echelon form of the pivot rows (every other corner column cleared), read
@@ -408,70 +326,74 @@ impl DegreeSpace {
     /// Those rows are independent modulo the prime, hence over Q, one per corner; so they
     /// span exactly the span of the G_c, and every G_c is a rational combination of
     /// elements of J_n. A failed check (a tail too large to lift) is an error.
-    fn reduced_tails(&self, pivots: Pivots, progress: &Progress) -> MathResult<Vec<CornerTail>> {
-        let Pivots { mut rows, exact } = pivots;
-        let mut cols: Vec<u32> = rows.keys().copied().collect();
-        cols.sort_unstable();
-        for &j in cols.iter().rev() {
-            progress.check()?;
-            let Some(mut row) = rows.remove(&j) else {
-                continue;
-            };
-            while let Some(&(k, _)) = row
-                .iter()
-                .find(|&&(k, _)| k > j && self.is_corner_col[k as usize])
-            {
-                let Some(p) = rows.get(&k) else {
-                    return Err(MathError::InvalidInput(format!(
-                        "internal: the corner {:?} leads no row",
-                        self.v[k as usize]
-                    )));
-                };
-                row = clear(&row, p, k);
-            }
-            rows.insert(j, row);
-        }
-        let lifted: HashMap<u32, Row> = rows
-            .iter()
-            .map(|(&j, row)| {
-                let tail = row
-                    .iter()
-                    .filter(|t| t.0 != j)
-                    .map(|&(k, x)| (k, lift(x)))
-                    .collect();
-                (j, tail)
-            })
-            .collect();
-        for (&j, r) in &exact {
-            progress.check()?;
-            let mut acc: HashMap<u32, i128> = r.iter().copied().collect();
-            for &(c, rc) in r.iter().filter(|t| self.is_corner_col[t.0 as usize]) {
-                acc.remove(&c);
-                for &(k, a) in lifted.get(&c).map_or(&[][..], |t| t) {
-                    let e = acc.entry(k).or_insert(0);
-                    *e = rc
-                        .checked_mul(a)
-                        .and_then(|p| e.checked_sub(p))
-                        .ok_or_else(overflow)?;
-                }
-            }
-            if acc.values().any(|&x| x != 0) {
-                return Err(MathError::OutOfRange(format!(
-                    "the basis element led by {:?} could not be recovered exactly \
-                     (a coefficient beyond 2^60)",
-                    self.v[j as usize]
+    fn reduced_tails(
+        &self,
+        echelon: Echelon,
+        exact: HashMap<u32, Row>,
+        progress: &Progress,
+    ) -> MathResult<Vec<CornerTail>> {
+        let rows = echelon.back_substitute(&|k| self.is_corner_col[k as usize], progress)?;
+        let mut lifted: Vec<Option<Row>> = vec![None; self.v.len()];
+        for (j, row) in &rows {
+            if !self.is_corner_col[*j as usize] {
+                return Err(MathError::InvalidInput(format!(
+                    "internal: the standard monomial {:?} leads a row",
+                    self.v[*j as usize]
                 )));
             }
+            lifted[*j as usize] = Some(
+                row.iter()
+                    .filter(|t| t.0 != *j)
+                    .map(|&(k, x)| (k, lift(x)))
+                    .collect(),
+            );
         }
-        let mut new_tails = Vec::with_capacity(cols.len());
-        for &j in &cols {
-            let tail = lifted.get(&j).map_or(&[][..], |t| t);
-            new_tails.push((
-                self.v[j as usize],
-                tail.iter().map(|&(k, a)| (self.v[k as usize], a)).collect(),
-            ));
-        }
-        Ok(new_tails)
+        let exact: Vec<(u32, Row)> = exact.into_iter().collect();
+        exact.par_iter().try_for_each_init(
+            || vec![0i128; self.v.len()],
+            |acc, (j, r)| -> MathResult<()> {
+                progress.check()?;
+                for &(k, x) in r {
+                    acc[k as usize] = x;
+                }
+                let mut ok = true;
+                for &(c, rc) in r.iter().filter(|t| self.is_corner_col[t.0 as usize]) {
+                    acc[c as usize] = 0;
+                    let Some(tail) = &lifted[c as usize] else {
+                        ok = false;
+                        continue;
+                    };
+                    for &(k, a) in tail {
+                        let e = &mut acc[k as usize];
+                        match rc.checked_mul(a).and_then(|p| e.checked_sub(p)) {
+                            Some(v) => *e = v,
+                            None => ok = false,
+                        }
+                    }
+                }
+                ok &= acc.iter().all(|&x| x == 0);
+                acc.iter_mut().for_each(|x| *x = 0);
+                if ok {
+                    Ok(())
+                } else {
+                    Err(MathError::OutOfRange(format!(
+                        "the basis element led by {:?} could not be recovered exactly \
+                         (a coefficient beyond 2^60)",
+                        self.v[*j as usize]
+                    )))
+                }
+            },
+        )?;
+        Ok(rows
+            .iter()
+            .map(|(j, _)| {
+                let tail = lifted[*j as usize].as_deref().unwrap_or(&[]);
+                (
+                    self.v[*j as usize],
+                    tail.iter().map(|&(k, a)| (self.v[k as usize], a)).collect(),
+                )
+            })
+            .collect())
     }
 }
 
@@ -505,7 +427,7 @@ impl QuasiGroebner {
         let own = Progress::new(0);
         let progress = progress.unwrap_or(&own);
         let found: u64 = (1..n).map(corner_count).sum();
-        progress.set_total(found + generator_count(n));
+        progress.set_total(found + n as u64 - 1);
         let mut g = QuasiGroebner {
             n,
             elements: Vec::new(),
@@ -518,9 +440,9 @@ impl QuasiGroebner {
         for d in 1..n as u32 {
             progress.check()?;
             let space = DegreeSpace::new(n, d);
-            let (pivots, used) = space.corner_rows(&lower, &g.tails, progress)?;
+            let (echelon, exact, used) = space.corner_rows(&lower, &g.tails, progress)?;
             g.rows_used.push(used);
-            let new_tails = space.reduced_tails(pivots, progress)?;
+            let new_tails = space.reduced_tails(echelon, exact, progress)?;
             g.add_standard_monomials(&space);
             for (c, tail) in new_tails {
                 lower.push(c);
@@ -545,8 +467,50 @@ impl QuasiGroebner {
         }
         g.rows_used.push(0);
         g.elements.sort_by_key(|e| std::cmp::Reverse(e.corner));
-        g.check_generators_reduce_to_zero(progress)?;
+        g.certify(progress)?;
         Ok(g)
+    }
+
+    /// The standard monomials of n variables: by increasing degree, each degree in
+    /// decreasing lex order (the order of [`Self::basis`]).
+    pub(crate) fn standard_basis(n: usize) -> Vec<Mono> {
+        let mut basis = Vec::new();
+        for d in 0..n as u32 {
+            let mut of_d: Vec<Mono> = monomials_of_degree(n, d)
+                .into_iter()
+                .filter(|m| is_standard(&m.exps(n)))
+                .collect();
+            of_d.sort_unstable_by(|a, b| b.cmp(a));
+            basis.extend(of_d);
+        }
+        basis
+    }
+
+    /// A basis from its parts, as [`crate::quotient::basis_bytes::from_bytes`] reads them
+    /// (`elements` sorted by decreasing corner, `basis` from [`Self::standard_basis`]).
+    pub(crate) fn from_parts(
+        n: usize,
+        elements: Vec<GroebnerElement>,
+        basis: Vec<Mono>,
+        rows_used: Vec<usize>,
+    ) -> QuasiGroebner {
+        let basis_index = basis
+            .iter()
+            .enumerate()
+            .map(|(i, &m)| (m, i as u32))
+            .collect();
+        let tails = elements
+            .iter()
+            .map(|e| (e.corner, e.tail.clone()))
+            .collect();
+        QuasiGroebner {
+            n,
+            elements,
+            basis,
+            basis_index,
+            tails,
+            rows_used,
+        }
     }
 
     /// Appends the standard monomials of one degree to the basis, in
@@ -560,9 +524,22 @@ impl QuasiGroebner {
         }
     }
 
-    /// (2) of the module doc: every generator M_α with |α| <= n reduces to zero
-    /// (in parallel on rayon's pool).
-    fn check_generators_reduce_to_zero(&self, progress: &Progress) -> MathResult<()> {
+    /// (2) of the module doc, probabilistically: one random combination of the generators
+    /// of each degree reduces to zero modulo the prime 2^61 − 1; a wrong basis passes with
+    /// probability at most (n − 1)/(2^61 − 1) (see [`crate::quotient::certificate`] for
+    /// exactly what this proves). Counts one unit per degree 1..n−1 on `progress`.
+    pub fn certify(&self, progress: &Progress) -> MathResult<()> {
+        crate::quotient::certificate::certify(self, progress)
+    }
+
+    /// The tail of G_c for a corner c (empty in degree n), or `None` when c is no corner.
+    pub fn tail(&self, c: Mono) -> Option<&[(Mono, i128)]> {
+        self.tails.get(&c).map(|t| t.as_slice())
+    }
+
+    /// (2) of the module doc, exactly: every generator M_α with |α| <= n reduces to zero
+    /// (in parallel on rayon's pool; 2^n − 1 divisions, for the tests).
+    pub fn check_every_generator(&self, progress: &Progress) -> MathResult<()> {
         let n = self.n;
         let alphas: Vec<Vec<u32>> = (1..=n as u32)
             .flat_map(compositions)
@@ -710,9 +687,4 @@ impl QuasiGroebner {
         }
         self.normal_form_checked(terms, progress)
     }
-}
-
-/// The number of generators M_α, |α| <= n, with at most n parts: 2^n − 1.
-fn generator_count(n: usize) -> u64 {
-    (1u64 << n) - 1
 }

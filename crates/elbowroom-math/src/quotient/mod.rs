@@ -4,9 +4,14 @@
 
 pub mod standard;
 
+pub mod basis_bytes;
+pub mod certificate;
+pub mod degree_division;
 pub mod division;
+pub mod elimination;
 pub mod groebner;
 pub mod lattice_path;
+pub mod modp;
 
 pub mod normal_form;
 

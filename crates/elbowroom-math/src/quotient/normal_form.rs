@@ -7,7 +7,9 @@
 //!
 //! Caching: the Gröbner data of each n is computed once per process and kept in a
 //! `std::sync::OnceLock` per n ([`groebner_basis`], [`groebner_basis_with`]); it holds no
-//! thread and no file, only the basis, so the mathematics stays pure. [`QuasiGroebner::compute`] builds a fresh
+//! thread and no file, only the basis, so the mathematics stays pure. A program that keeps
+//! bases between runs ([`crate::quotient::basis_bytes`]) hands one back with
+//! [`share_basis`] and asks first with [`built_basis`]. [`QuasiGroebner::compute`] builds a fresh
 //! copy for callers who want no sharing (benchmarks).
 
 use crate::error::{MathError, MathResult};
@@ -69,6 +71,24 @@ pub fn groebner_basis_with(n: usize, progress: &Progress) -> MathResult<Arc<Quas
     let q = Arc::new(QuasiGroebner::compute(n, Some(progress))?);
     let _ = CACHE[n].set(q.clone());
     Ok(q)
+}
+
+/// The basis of J_n if this process already holds it (built or shared), without building it.
+pub fn built_basis(n: usize) -> Option<Arc<QuasiGroebner>> {
+    CACHE.get(n).and_then(|c| c.get()).cloned()
+}
+
+/// Shares a basis obtained elsewhere (for instance read back by
+/// [`crate::quotient::basis_bytes::from_bytes`] and certified) with every later call of
+/// [`groebner_basis`] for its n in this process; returns the basis now shared (the one
+/// already held, if another was shared or built first).
+pub fn share_basis(q: QuasiGroebner) -> Arc<QuasiGroebner> {
+    let n = q.n();
+    let q = Arc::new(q);
+    match CACHE.get(n) {
+        Some(cell) => cell.get_or_init(|| q).clone(),
+        None => q,
+    }
 }
 
 /// A normal form: the reduced polynomial and its coefficients on the standard monomials.

@@ -575,9 +575,9 @@ fn run<E: Clone, X: From<MathError>>(
         ))
         .into());
     }
-    let before = progress.done();
     let q = groebner_basis_with(n, progress)?;
-    progress.set_total(progress.done() - before + perms.len() as u64);
+    // everything counted so far (the basis, here or by the caller) plus one per permutation
+    progress.set_total(progress.done() + perms.len() as u64);
     progress.check()?;
     let mut table = SchubertTable::new();
     // by level: which of the requested permutations have each length

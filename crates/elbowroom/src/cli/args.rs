@@ -396,6 +396,9 @@ pub struct QuotientArgs {
     /// Draw every basis path in the text output (by default only for n <= 4).
     #[arg(long, conflicts_with = "json")]
     pub draw: bool,
+    /// Neither read nor write the basis of J_n in the cache directory (build it afresh).
+    #[arg(long)]
+    pub no_cache: bool,
 }
 
 /// Arguments of `elbowroom reduce`.
@@ -413,6 +416,9 @@ pub struct ReduceArgs {
     /// Also give the class in the forest basis (the forests with leaves in [n]).
     #[arg(long)]
     pub forest: bool,
+    /// Neither read nor write the basis of J_n in the cache directory (build it afresh).
+    #[arg(long)]
+    pub no_cache: bool,
 }
 
 /// Arguments of `elbowroom survey`.
@@ -441,6 +447,9 @@ pub struct SurveyArgs {
     /// one {"counterexample": ...} per counterexample, then a summary object.
     #[arg(long, conflicts_with_all = ["json", "csv", "latex"])]
     pub jsonl: bool,
+    /// Neither read nor write the basis of J_n in the cache directory (build it afresh).
+    #[arg(long)]
+    pub no_cache: bool,
     /// Run only piece K of N of the listing (item i goes to piece (i mod N) + 1).
     #[arg(long, value_name = "K/N", value_parser = shard_arg)]
     pub shard: Option<Shard>,

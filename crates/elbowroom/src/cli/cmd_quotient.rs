@@ -7,7 +7,7 @@ use super::interrupt;
 use super::json;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::lattice_path::{LatticePath, Step};
-use crate::math::quotient::normal_form::{groebner_basis_with, hilbert_series};
+use crate::math::quotient::normal_form::hilbert_series;
 use serde_json::{Value, json};
 
 /// The steps of a path as JSON: the word and, per step, the variable it carries (or null).
@@ -25,6 +25,9 @@ pub fn path_json(p: &LatticePath) -> Value {
 
 /// Runs the command.
 pub fn run(args: &QuotientArgs) -> Result<String, CliError> {
+    if args.no_cache {
+        crate::basis_cache::disable();
+    }
     let n = args.n;
     if n == 0 || n > MAX_QUOTIENT_N {
         return Err(CliError::Input(format!(
@@ -32,7 +35,7 @@ pub fn run(args: &QuotientArgs) -> Result<String, CliError> {
         )));
     }
     let q = interrupt::run_interruptible(&format!("the basis of J_{n}"), "steps", 0, |progress| {
-        groebner_basis_with(n, progress)
+        crate::basis_cache::basis_with(n, progress)
     })?;
     let hilbert = hilbert_series(&q);
     let basis: Vec<Vec<u32>> = q.basis().iter().map(|m| m.exps(n)).collect();

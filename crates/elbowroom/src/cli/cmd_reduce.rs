@@ -10,11 +10,14 @@ use super::json;
 use crate::math::forest::quotient::forest_normal_form;
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::{groebner_basis_with, normal_form};
+use crate::math::quotient::normal_form::normal_form;
 use serde_json::json;
 
 /// Runs the command.
 pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
+    if args.no_cache {
+        crate::basis_cache::disable();
+    }
     let n = args.n;
     if n == 0 || n > MAX_QUOTIENT_N {
         return Err(CliError::Input(format!(
@@ -23,7 +26,7 @@ pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
     }
     let f = parse_poly(&args.poly, Some(n))?;
     let q = interrupt::run_interruptible(&format!("the basis of J_{n}"), "steps", 0, |progress| {
-        groebner_basis_with(n, progress)
+        crate::basis_cache::basis_with(n, progress)
     })?;
     let nf = normal_form(&q, &f)?;
     let forest = if args.forest {

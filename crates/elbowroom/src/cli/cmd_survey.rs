@@ -23,7 +23,6 @@ use super::json;
 use super::output::{Reorder, Sink};
 use super::shard::Shard;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::groebner_basis_with;
 use crate::math::quotient::survey::{
     FULL_LISTING_MAX_N, SurveyEntry, SurveyRecord, survey_each, survey_listing,
     survey_summaries_each,
@@ -65,6 +64,9 @@ enum Format {
 
 /// Runs the command, writing the survey through `sink`.
 pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
+    if args.no_cache {
+        crate::basis_cache::disable();
+    }
     let shard = args.shard.unwrap_or(Shard::WHOLE);
     let (n, perms): (usize, Vec<Perm>) = match (&args.perm, args.n) {
         (Some(w), _) => {
@@ -153,7 +155,7 @@ fn basis_first(n: usize, listed: usize) -> Result<(), CliError> {
     }
     let progress = Arc::new(Progress::default());
     let watching = interrupt::watch_before_output(progress.clone());
-    let built = groebner_basis_with(n, &progress);
+    let built = crate::basis_cache::basis_with(n, &progress);
     drop(watching);
     match built {
         Ok(_) => Ok(()),

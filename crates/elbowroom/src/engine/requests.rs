@@ -22,9 +22,7 @@ use crate::math::pipes::dream::{PipeDream, count_pipe_dreams, pipe_dreams};
 use crate::math::poly::parse::parse_poly_with;
 use crate::math::poly::qpoly::QPoly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::{
-    NormalForm, groebner_basis_with, hilbert_series, normal_form,
-};
+use crate::math::quotient::normal_form::{NormalForm, hilbert_series, normal_form};
 use crate::math::quotient::survey::{SurveyEntry, survey, survey_listing};
 use crate::math::schubert::expansion::expand_typed;
 use crate::math::schubert::polynomial::SchubertTable;
@@ -553,6 +551,7 @@ fn survey_of_all(n: usize, progress: &Progress) -> MathResult<Vec<SurveyEntry>> 
             "surveys run for n from 1 to {MAX_QUOTIENT_N}"
         )));
     }
+    crate::basis_cache::basis_with(n, progress)?;
     let perms: Vec<Perm> = survey_listing(n);
     progress.set_total(perms.len() as u64);
     survey(&perms, progress)
@@ -568,7 +567,7 @@ fn reduce(input: &QuotientInput, progress: &Progress) -> MathResult<Reduced> {
         }
         QuotientInput::Typed(text, n) => (*n, parse_poly_with(text, Some(*n), progress)?),
     };
-    let q = groebner_basis_with(n, progress)?;
+    let q = crate::basis_cache::basis_with(n, progress)?;
     progress.advance(1);
     progress.check()?;
     let normal = normal_form(&q, &f)?;

@@ -12,7 +12,7 @@ use crate::figure::paths::{panels_of_normal_form, path_grid_scene, with_legend};
 use crate::math::RatPoly;
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::{groebner_basis_with, normal_form};
+use crate::math::quotient::normal_form::normal_form;
 use crate::math::schubert::polynomial::schubert;
 
 /// The one figure of panels, named `paths-W` or `paths-poly`.
@@ -54,7 +54,7 @@ fn paths_scene(
         )));
     }
     let q = interrupt::run_interruptible(&format!("the basis of J_{n}"), "steps", 0, |progress| {
-        groebner_basis_with(n, progress)
+        crate::basis_cache::basis_with(n, progress)
     })?;
     let nf = normal_form(&q, f)?;
     let panels = panels_of_normal_form(&nf, n).map_err(|e| CliError::Failed(e.to_string()))?;
