@@ -39,8 +39,8 @@ pub mod quotient;
 
 pub mod permutohedra;
 
-pub mod forest;
 pub mod explain;
+pub mod forest;
 
 pub use error::{MathError, MathResult};
 pub use perms::perm::{MAX_N, Perm};

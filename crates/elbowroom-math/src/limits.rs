@@ -10,12 +10,12 @@
 //! `cli::cmd_dreams::BUMPLESS_LIMIT` (200 000), and the piece sizes `merge`
 //! reads (`cli::cmd_merge::{MERGE_FILE_LIMIT, SURVEY_FILE_LIMIT}`).
 
+pub use crate::explain::formula::{EXPLAIN_MAX_N, WORD_FORMULA_WORK_LIMIT};
+pub use crate::explain::rules::TABLEAUX_LISTED;
 pub use crate::forest::expansion::{FOREST_MONOMIAL_LIMIT, FOREST_STEP_LIMIT};
 pub use crate::forest::indexed::{FOREST_MAX_LEN, FOREST_MAX_NODES};
 pub use crate::forest::polynomial::FOREST_LABELING_LIMIT;
 pub use crate::forest::quotient::FOREST_BASIS_MAX_N;
-pub use crate::explain::formula::{EXPLAIN_MAX_N, WORD_FORMULA_WORK_LIMIT};
-pub use crate::explain::rules::TABLEAUX_LISTED;
 pub use crate::hessenberg::class::CLASS_TERM_LIMIT;
 pub use crate::hessenberg::divsym::PAIR_LIMIT;
 pub use crate::hessenberg::function::COMPLEMENT_TERM_BOUND;

@@ -12,6 +12,8 @@ use crate::math::explain::explanation::{Explanation, explain};
 use crate::math::explain::formula::{WORD_FORMULA_WORK_LIMIT, size_word_formula};
 use crate::math::explain::qvalue::{QCoefficient, q_coefficient};
 use crate::math::explain::rules::Rule;
+use crate::math::forest::indexed::code_text;
+use crate::math::forest::trees::{TreeTerm, a_w_by_trees};
 use crate::math::hessenberg::divsym::HessenbergFunctional;
 use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::limits::SCHUBERT_TERM_LIMIT;
@@ -47,9 +49,24 @@ pub struct CoefficientRecord {
     /// The cyclic orbit and its sum.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub cyclic: Option<Cyclic>,
+    /// a_w by trees: Σ_T c_{w,T}·(n−1)!/Π_v h_v over the binary trees on the
+    /// leaves 1..n (the forest expansion of S_w).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub by_trees: Option<Vec<TreeRow>>,
     /// a_w(q) by power of q.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub q_value: Option<Vec<String>>,
+}
+
+/// One tree of a_w by trees.
+#[derive(Serialize, Debug)]
+pub struct TreeRow {
+    /// The code of the tree T, without trailing zeros.
+    pub code: Vec<usize>,
+    /// c_{w,T}, the coefficient of P_T in S_w.
+    pub coefficient: String,
+    /// (n − 1)!/Π_v h_v, the increasing labelings of T.
+    pub labelings: String,
 }
 
 /// One content of the formula.
@@ -135,25 +152,28 @@ pub fn run(args: &CoefficientArgs) -> Result<String, CliError> {
         }
         return other_h(args, &w, &h);
     }
-    let (e, q) = interrupt::run_interruptible("the explanation", "contents", 0, |progress| {
-        if args.q {
-            // a_w(q) is sized before anything is computed
-            let steps = (n as u128).pow(6);
-            size_word_formula(&w, steps, WORD_FORMULA_WORK_LIMIT, progress)?;
-        }
-        let e = explain(&w, progress)?;
-        let q = if args.q {
-            Some(q_coefficient(&w, progress)?)
-        } else {
-            None
-        };
-        Ok((e, q))
-    })?;
-    let record = record(&w, &h, &e, q.as_ref());
+    let (e, q, trees) =
+        interrupt::run_interruptible("the explanation", "contents", 0, |progress| {
+            if args.q {
+                // a_w(q) is sized before anything is computed
+                let steps = (n as u128).pow(6);
+                size_word_formula(&w, steps, WORD_FORMULA_WORK_LIMIT, progress)?;
+            }
+            let e = explain(&w, progress)?;
+            let q = if args.q {
+                Some(q_coefficient(&w, progress)?)
+            } else {
+                None
+            };
+            let trees = a_w_by_trees(&w, progress)?;
+            Ok((e, q, trees))
+        })?;
+    let record = record(&w, &h, &e, q.as_ref(), &trees);
     if args.json {
-        return Ok(serde_json::to_string(&record).unwrap_or_else(|_| "{}".into()));
+        return serde_json::to_string(&record)
+            .map_err(|e| CliError::Input(format!("the record could not be written as JSON: {e}")));
     }
-    Ok(text(&w, &e, q.as_ref()))
+    Ok(text(&w, &e, q.as_ref(), &trees))
 }
 
 fn join(v: &[usize]) -> String {
@@ -176,6 +196,7 @@ pub fn record(
     h: &HessenbergFn,
     e: &Explanation,
     q: Option<&QCoefficient>,
+    trees: &[TreeTerm],
 ) -> CoefficientRecord {
     let f = &e.formula;
     CoefficientRecord {
@@ -201,11 +222,21 @@ pub fn record(
             sum: e.orbit_sum.to_string(),
             reduced_words: f.reduced_words.to_string(),
         }),
+        by_trees: Some(
+            trees
+                .iter()
+                .map(|t| TreeRow {
+                    code: t.code.clone(),
+                    coefficient: t.coefficient.to_string(),
+                    labelings: t.labelings.to_string(),
+                })
+                .collect(),
+        ),
         q_value: q.and_then(|q| q.value.as_ref().map(|v| v.coeff_strings())),
     }
 }
 
-fn text(w: &Perm, e: &Explanation, q: Option<&QCoefficient>) -> String {
+fn text(w: &Perm, e: &Explanation, q: Option<&QCoefficient>, trees: &[TreeTerm]) -> String {
     let f = &e.formula;
     let n = w.n();
     let mut out = format!(
@@ -285,6 +316,18 @@ fn text(w: &Perm, e: &Explanation, q: Option<&QCoefficient>) -> String {
         e.orbit_sum,
         f.reduced_words
     ));
+    let terms: Vec<String> = trees
+        .iter()
+        .map(|t| format!("{}·{} {}", t.coefficient, t.labelings, code_text(&t.code)))
+        .collect();
+    out.push_str(&format!(
+        "by trees: a_w = Σ_T c_(w,T)·(n-1)!/Π h_v = {}\n",
+        if terms.is_empty() {
+            "0".to_string()
+        } else {
+            terms.join(" + ")
+        }
+    ));
     if let Some(q) = q {
         match &q.value {
             Some(v) => out.push_str(&format!("a_w(q) = {v}\n")),
@@ -320,9 +363,11 @@ fn other_h(args: &CoefficientArgs, w: &Perm, h: &HessenbergFn) -> Result<String,
             conjugate: None,
             rules: None,
             cyclic: None,
+            by_trees: None,
             q_value: None,
         };
-        return Ok(serde_json::to_string(&record).unwrap_or_else(|_| "{}".into()));
+        return serde_json::to_string(&record)
+            .map_err(|e| CliError::Input(format!("the record could not be written as JSON: {e}")));
     }
     Ok(format!(
         "a^h_{w} = {value} (h = {}; coefficient of S_(w0 w) in the class of the Hessenberg variety)",

@@ -3,8 +3,8 @@
 //! mathematics, the figures' look.
 
 pub mod dreams;
-pub mod forests;
 pub mod explain_panel;
+pub mod forests;
 pub mod hessenberg;
 pub mod permutohedra;
 pub mod products;
