@@ -250,6 +250,8 @@ pub trait Coefficient: Clone + Ord + fmt::Debug + Send + Sync + 'static {
     fn neg_checked(&self) -> StepResult<Self>;
     /// Whether this is below 0.
     fn is_negative_value(&self) -> bool;
+    /// The value as an `i128`, or `None` when it does not fit.
+    fn to_i128_value(&self) -> Option<i128>;
 }
 
 /// Checked machine integers as coefficients: `i128` for most computations, and
@@ -297,6 +299,10 @@ macro_rules! machine_coefficient {
             fn is_negative_value(&self) -> bool {
                 *self < 0
             }
+            #[inline]
+            fn to_i128_value(&self) -> Option<i128> {
+                Some(i128::from(*self))
+            }
         }
     };
 }
@@ -335,6 +341,9 @@ impl Coefficient for BigInt {
     }
     fn is_negative_value(&self) -> bool {
         num_traits::Signed::is_negative(self)
+    }
+    fn to_i128_value(&self) -> Option<i128> {
+        self.to_i128()
     }
 }
 

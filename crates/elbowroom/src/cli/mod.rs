@@ -13,6 +13,7 @@
 //! the output goes through) and [`error`].
 
 pub mod args;
+pub mod class_file;
 pub mod cmd_divsym;
 pub mod cmd_dreams;
 pub mod cmd_eulerian;
