@@ -329,12 +329,24 @@ pub fn for_each_class_value<E: From<MathError>>(
     let listed = size_class_table(h)?;
     progress.set_total(class_factors(h).len() as u64 + listed as u64);
     let class = flat_class(h, progress)?;
-    match &class {
-        FlatClass::Word(v) => read_rows(v, h, select, progress, visit)?,
-        FlatClass::Wide(v) => read_rows(v, h, select, progress, visit)?,
-        FlatClass::Big(v) => read_rows(v, h, select, progress, visit)?,
-    }
+    for_each_row_of(&class, h, select, progress, visit)?;
     Ok(listed as usize)
+}
+
+/// The rows of [`for_each_class_value`] read off a class already expanded
+/// (`class` = Q_h for this h, from [`flat_class`]) by one backward merge.
+pub fn for_each_row_of<E: From<MathError>>(
+    class: &FlatClass,
+    h: &HessenbergFn,
+    select: &(dyn Fn(usize) -> bool + Sync),
+    progress: &Progress,
+    visit: &mut dyn FnMut(ValueRow<'_>) -> Result<(), E>,
+) -> Result<(), E> {
+    match class {
+        FlatClass::Word(v) => read_rows(v, h, select, progress, visit),
+        FlatClass::Wide(v) => read_rows(v, h, select, progress, visit),
+        FlatClass::Big(v) => read_rows(v, h, select, progress, visit),
+    }
 }
 
 /// Calls `visit` with a^h_w for every w of length |h| whose listing index passes

@@ -90,7 +90,7 @@ pub fn execute(command: &Command, sink: &mut Sink<'_>) -> Result<(), CliError> {
         Command::Divsym(a) => cmd_divsym::run(a),
         Command::Volume(a) => cmd_volume::run(a),
         Command::Eulerian(a) => cmd_eulerian::run(a),
-        Command::Expand(a) => cmd_expand::run(a),
+        Command::Expand(a) => return cmd_expand::run(a, sink),
         Command::Product(a) => cmd_product::run(a),
         Command::Merge(a) => return cmd_merge::run(a, sink),
         Command::Quotient(a) => cmd_quotient::run(a),
