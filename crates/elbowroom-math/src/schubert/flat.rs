@@ -228,7 +228,10 @@ impl<C: Coefficient> FlatVector<C> {
         let buckets: Vec<Vec<(LexKey, C)>> = if workers == 1 {
             pieces.into_iter().map(gather).collect::<StepResult<_>>()?
         } else {
-            pieces.into_par_iter().map(gather).collect::<StepResult<_>>()?
+            pieces
+                .into_par_iter()
+                .map(gather)
+                .collect::<StepResult<_>>()?
         };
         let out = FlatVector { n, buckets };
         let len = out.len() as u128;
@@ -327,9 +330,7 @@ fn spray_group<C: Coefficient>(
                     1 => &one,
                     _ => &minus_one,
                 };
-                let pushed = c
-                    .mul_checked(factor)
-                    .and_then(|t| spray.push(target, t));
+                let pushed = c.mul_checked(factor).and_then(|t| spray.push(target, t));
                 if let Err(e) = pushed {
                     failure = Some(e);
                 }
@@ -444,10 +445,7 @@ mod tests {
                     .times_difference((i, j), &Progress::default(), u128::MAX)
                     .unwrap();
                 map = map
-                    .times_linear(
-                        &LinearForm::difference(i, j).unwrap(),
-                        &Progress::default(),
-                    )
+                    .times_linear(&LinearForm::difference(i, j).unwrap(), &Progress::default())
                     .unwrap();
                 assert_eq!(flat.len(), map.len(), "n = {n}, factor ({i}, {j})");
                 for (w, c) in map.iter() {

@@ -13,9 +13,9 @@
 
 use super::error::CliError;
 use crate::atomic_write;
+use crate::math::Progress;
 use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::hessenberg::rows::{RowValue, for_each_class_value};
-use crate::math::Progress;
 use std::fs::File;
 use std::io::{BufReader, BufWriter, Read, Seek, SeekFrom, Write};
 use std::path::{Path, PathBuf};
@@ -150,7 +150,10 @@ pub struct Saved {
 /// temporary file beside it).
 pub fn save(path: &Path, h: &HessenbergFn, progress: &Progress) -> Result<Saved, CliError> {
     let failed = |e: &dyn std::fmt::Display| {
-        CliError::Failed(format!("cannot write the class file {}: {e}", path.display()))
+        CliError::Failed(format!(
+            "cannot write the class file {}: {e}",
+            path.display()
+        ))
     };
     let temp = atomic_write::temp_path(path, "saving").map_err(|e| failed(&e))?;
     let result = (|| -> Result<Saved, CliError> {
@@ -189,7 +192,9 @@ pub fn save(path: &Path, h: &HessenbergFn, progress: &Progress) -> Result<Saved,
             return Err(failed(&e));
         }
         let values = written? as u64;
-        let mut file = out.into_inner().map_err(|e| failed(&e.error().to_string()))?;
+        let mut file = out
+            .into_inner()
+            .map_err(|e| failed(&e.error().to_string()))?;
         let head = header_bytes(h, listed, sum.value());
         file.seek(SeekFrom::Start(0)).map_err(|e| failed(&e))?;
         file.write_all(&head).map_err(|e| failed(&e))?;
@@ -237,7 +242,9 @@ impl ClassReader {
         if &fixed[..16] != MAGIC {
             return Err(refuse("is not a class file written by elbowroom".into()));
         }
-        let word = |at: usize| u32::from_le_bytes([fixed[at], fixed[at + 1], fixed[at + 2], fixed[at + 3]]);
+        let word = |at: usize| {
+            u32::from_le_bytes([fixed[at], fixed[at + 1], fixed[at + 2], fixed[at + 3]])
+        };
         if word(16) != FORMAT {
             return Err(refuse(format!(
                 "has format {}; this build reads format {FORMAT}",
@@ -299,7 +306,9 @@ impl ClassReader {
             last = chunk[k - 1];
         }
         if sum.value() != saved_sum || count != listed || (listed > 0 && last & 0x80 != 0) {
-            return Err(refuse("is damaged (its checksum or its count of values is wrong)".into()));
+            return Err(refuse(
+                "is damaged (its checksum or its count of values is wrong)".into(),
+            ));
         }
         reader
             .seek(SeekFrom::Start(start))
@@ -347,7 +356,18 @@ mod tests {
 
     #[test]
     fn varints_round_trip() {
-        for v in [0i128, 1, -1, 63, 64, -64, -65, 1 << 40, i128::MAX, i128::MIN] {
+        for v in [
+            0i128,
+            1,
+            -1,
+            63,
+            64,
+            -64,
+            -65,
+            1 << 40,
+            i128::MAX,
+            i128::MIN,
+        ] {
             let mut buf = [0u8; 19];
             let k = encode(v, &mut buf);
             let mut z: u128 = 0;

@@ -3,7 +3,6 @@
 //! one by one as they are found (at most `--limit`); Ctrl-C stops the listing with
 //! a "canceled after ..." line and exit status 130.
 
-use std::fmt::Write as _;
 use super::args::DreamsArgs;
 use super::error::CliError;
 use super::interrupt;
@@ -15,6 +14,7 @@ use crate::math::poly::mono::exponents_text;
 use crate::math::{Perm, Progress};
 use num_bigint::BigUint;
 use serde_json::json;
+use std::fmt::Write as _;
 use std::sync::Arc;
 
 /// The most bumpless pipe dreams the command will generate (they are found all at
@@ -89,7 +89,12 @@ fn reduced(
     for (k, d) in dreams.enumerate() {
         progress.check()?;
         buf.clear();
-        let _ = write!(buf, "\n\n#{}  {}  word ", k + 1, exponents_text(&d.monomial()));
+        let _ = write!(
+            buf,
+            "\n\n#{}  {}  word ",
+            k + 1,
+            exponents_text(&d.monomial())
+        );
         let word = d.reading_word();
         if word.is_empty() {
             buf.push_str("(empty)");
@@ -153,7 +158,12 @@ fn bumpless(
     for (k, d) in dreams.iter().enumerate() {
         progress.check()?;
         buf.clear();
-        let _ = write!(buf, "\n\n#{}  {}\n{d}", k + 1, exponents_text(&d.monomial()));
+        let _ = write!(
+            buf,
+            "\n\n#{}  {}\n{d}",
+            k + 1,
+            exponents_text(&d.monomial())
+        );
         sink.text(&buf)?;
         progress.advance(1);
         *written += 1;

@@ -27,7 +27,11 @@ pub fn run(args: &ExpandArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let mut buf = String::with_capacity(FLUSH_AT + 256);
     if args.json {
         // {"n":N,"stable":B,"terms":[{"perm":[...],"coefficient":"c"},...],"nonnegative":B}
-        let _ = write!(buf, "{{\"n\":{},\"stable\":{},\"terms\":[", args.n, args.stable);
+        let _ = write!(
+            buf,
+            "{{\"n\":{},\"stable\":{},\"terms\":[",
+            args.n, args.stable
+        );
         for (k, (w, c)) in terms.iter().enumerate() {
             if k > 0 {
                 buf.push(',');

@@ -345,12 +345,7 @@ impl<'h> RowStream<'h> {
         }
     }
 
-    fn row(
-        &mut self,
-        sink: &mut Sink<'_>,
-        line: &[u8],
-        value: &RowValue,
-    ) -> Result<(), CliError> {
+    fn row(&mut self, sink: &mut Sink<'_>, line: &[u8], value: &RowValue) -> Result<(), CliError> {
         if !self.started {
             self.start(sink)?;
         }
