@@ -46,7 +46,7 @@ pub fn run(args: &ExpandArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
             let _ = write!(buf, "],\"coefficient\":\"{c}\"}}");
             flush_when_full(&mut buf, sink)?;
         }
-        let _ = write!(buf, "],\"nonnegative\":{}}}\n", expansion.is_nonnegative());
+        let _ = writeln!(buf, "],\"nonnegative\":{}}}", expansion.is_nonnegative());
         return sink.text(&buf);
     }
     let space = if args.stable {

@@ -130,6 +130,9 @@ fn save_class(h: &HessenbergFn, path: &Path, sink: &mut Sink<'_>) -> Result<(), 
     ))
 }
 
+/// What a row read from a class file is handed to: (w, a^h_w).
+type RowVisitor<'a> = dyn FnMut(&[u8], RowValue) -> Result<(), CliError> + 'a;
+
 /// Calls `visit` with (w, a^h_w) for the w of the piece, in listing order, the
 /// values read from a class file (every value is read; only the piece's rows are
 /// handed on).
@@ -138,7 +141,7 @@ fn rows_from_file(
     shard: Shard,
     reader: &mut ClassReader,
     progress: &Progress,
-    visit: &mut dyn FnMut(&[u8], RowValue) -> Result<(), CliError>,
+    visit: &mut RowVisitor<'_>,
 ) -> Result<(), CliError> {
     let mut failure: Option<CliError> = None;
     let mut pending = 0usize;
