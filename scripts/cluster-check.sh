@@ -1,15 +1,17 @@
 #!/bin/sh
 # A real cluster run on this machine: a one-node Slurm (slurmctld, slurmd and
 # munged, all on localhost, configured in a private directory) runs the
-# array jobs of docs/cluster.md, then `elbowroom merge` puts the pieces back together and
+# README's array jobs, then `elbowroom merge` puts the pieces back together and
 # the result is compared with the single run.
 #
 #   scripts/cluster-check.sh [path/to/elbowroom]
 #
-# Jobs: the default Hessenberg table of n = 12 in 4 pieces, and the survey of
-# n = 6 in 4 pieces. The Hessenberg merge must equal the single run byte for
-# byte; the survey merge must equal it in every field but "shard" and
-# "merged_from", which say that it was merged.
+# Jobs: the default Hessenberg table of n = 12 as a two-stage job (one task
+# writes the class file with --save-class, then an array of 4 pieces, held
+# until it succeeds, each reads it with --class), and the survey of n = 6 in 4
+# pieces. The Hessenberg merge must equal the single run byte for byte; the
+# survey merge must equal it in every field but "shard" and "merged_from",
+# which say that it was merged.
 #
 # Needs the Debian packages slurm-wlm and munge: installed with apt-get when
 # run as root, otherwise the script says it is skipped and exits 0 (set
@@ -108,13 +110,20 @@ echo "one-node Slurm up: $(sinfo -h -o '%P %D %t %c CPUs %m MB')"
 TIME=""
 if [ -x /usr/bin/time ]; then TIME="/usr/bin/time -f %e_s_%M_KB"; fi
 
-# the array jobs of docs/cluster.md: each task one piece (memory and time per piece there)
-sbatch --quiet --wait --array=1-4 --mem=500M --time=10 --job-name=hessenberg \
-    --output="$OUT/hessenberg-%a.json" --error="$OUT/hessenberg-%a.err" \
-    --wrap "$TIME $BIN hessenberg --n 12 --shard \$SLURM_ARRAY_TASK_ID/4 --json"
+# the cluster recipe (docs/cluster.md): a preparation task writes the class
+# once; the array of pieces starts when it has succeeded, each piece reading
+# the class file instead of expanding the class again
+PREP=$(sbatch --parsable --mem=500M --time=10 --job-name=hessenberg-class \
+    --output="$OUT/class.out" --error="$OUT/class.err" \
+    --wrap "$TIME $BIN hessenberg --n 12 --save-class $OUT/class-n12.bin")
+sbatch --quiet --wait --dependency="afterok:$PREP" --kill-on-invalid-dep=yes \
+    --array=1-4 --mem=500M --time=10 --job-name=hessenberg \
+    --output="$OUT/hessenberg-%a.out" --error="$OUT/hessenberg-%a.err" \
+    --wrap "$TIME $BIN hessenberg --n 12 --shard \$SLURM_ARRAY_TASK_ID/4 --class $OUT/class-n12.bin --json --out $OUT/hessenberg-\$SLURM_ARRAY_TASK_ID.json"
+echo "preparation: $(cat "$OUT/class.out") ($(cat "$OUT/class.err"))"
 sbatch --quiet --wait --array=1-4 --mem=500M --time=10 --job-name=survey \
-    --output="$OUT/survey-%a.json" --error="$OUT/survey-%a.err" \
-    --wrap "$TIME $BIN survey --n 6 --shard \$SLURM_ARRAY_TASK_ID/4 --json"
+    --output="$OUT/survey-%a.out" --error="$OUT/survey-%a.err" \
+    --wrap "$TIME $BIN survey --n 6 --shard \$SLURM_ARRAY_TASK_ID/4 --json --out $OUT/survey-\$SLURM_ARRAY_TASK_ID.json"
 for k in 1 2 3 4; do
     echo "piece $k/4: hessenberg $(cat "$OUT/hessenberg-$k.err"), survey $(cat "$OUT/survey-$k.err")"
 done

@@ -5,7 +5,7 @@
 use criterion::{Criterion, criterion_group, criterion_main};
 use elbowroom::math::hessenberg::divsym::{divided_symmetrize, divided_symmetrize_at};
 use elbowroom::math::hessenberg::function::HessenbergFn;
-use elbowroom::math::hessenberg::table::{
+use elbowroom::math::hessenberg::reference::{
     coefficient_table_by_divsym, coefficient_table_by_polynomials,
 };
 use elbowroom::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;

@@ -6,9 +6,9 @@
 
 use criterion::{Criterion, criterion_group, criterion_main};
 use elbowroom::math::hessenberg::function::HessenbergFn;
+use elbowroom::math::hessenberg::reference::coefficient_table_by_divsym;
 use elbowroom::math::hessenberg::rows::coefficient_table_by_class;
 use elbowroom::math::hessenberg::sweep::sweep_every_h;
-use elbowroom::math::hessenberg::table::coefficient_table_by_divsym;
 use elbowroom::math::poly::parse::{parse_linear_factors, parse_poly};
 use elbowroom::math::schubert::expansion::{expand_linear_factors, schubert_expansion};
 use elbowroom::math::schubert::product::{product_by_polynomials, schubert_product};

@@ -5,7 +5,7 @@
 use elbowroom::math::hessenberg::coefficients::coefficient_table;
 use elbowroom::math::hessenberg::divsym::divided_symmetrize_number_by_definition;
 use elbowroom::math::hessenberg::function::HessenbergFn;
-use elbowroom::math::hessenberg::table::coefficient_table_by_divsym;
+use elbowroom::math::hessenberg::reference::coefficient_table_by_divsym;
 use elbowroom::math::perms::listing::perms_of_length;
 use elbowroom::math::perms::words;
 use elbowroom::math::permutohedra::mixed_eulerian::mixed_eulerian_numbers;
@@ -206,7 +206,7 @@ fn shards_partition_the_table_and_cancel_stops_the_work() {
 
 #[test]
 fn transition_values_agree_with_schubert_polynomials() {
-    use elbowroom::math::hessenberg::table::coefficient_table_by_polynomials;
+    use elbowroom::math::hessenberg::reference::coefficient_table_by_polynomials;
     let mut cases: Vec<HessenbergFn> = (1..=5).flat_map(HessenbergFn::all).collect();
     cases.extend((6..=8).map(|n| HessenbergFn::default_for(n).unwrap()));
     cases.push(HessenbergFn::new(&[3, 3, 4, 6, 6, 6]).unwrap());

@@ -14,7 +14,6 @@ use crate::progress::Progress;
 use num_bigint::BigUint;
 use num_traits::Zero;
 use std::collections::{BTreeMap, HashMap};
-use std::hash::{BuildHasherDefault, Hasher};
 
 /// The reduced words of w in lexicographic order, produced one at a time.
 ///
@@ -102,33 +101,9 @@ impl Iterator for ReducedWords {
     }
 }
 
-/// A multiply-rotate hasher for the packed keys of the layered counts, with a
-/// final mix (SipHash would dominate the run time).
-#[derive(Default, Clone, Copy)]
-struct PackedHasher(u64);
-
-impl Hasher for PackedHasher {
-    fn finish(&self) -> u64 {
-        // fold the high bits down: the table indexes buckets by the low bits,
-        // and a product's low bits see only the input's low bits
-        let h = self.0;
-        (h ^ (h >> 31)).wrapping_mul(0x94_d0_49_bb_13_31_11_eb) ^ (h >> 29)
-    }
-    fn write(&mut self, bytes: &[u8]) {
-        for &b in bytes {
-            self.write_u64(b as u64);
-        }
-    }
-    fn write_u64(&mut self, v: u64) {
-        self.0 = (self.0.rotate_left(5) ^ v).wrapping_mul(0x51_7c_c1_b7_27_22_0a_95);
-    }
-    fn write_u128(&mut self, v: u128) {
-        self.write_u64(v as u64);
-        self.write_u64((v >> 64) as u64);
-    }
-}
-
-type PackedMap<K, V> = HashMap<K, V, BuildHasherDefault<PackedHasher>>;
+/// The maps of the layered counts, keyed by packed words (Fx hashing: SipHash
+/// would dominate the run time).
+type PackedMap<K, V> = HashMap<K, V, rustc_hash::FxBuildHasher>;
 
 /// The largest weak-order layer the counts will hold (beyond it they give up
 /// with [`MathError::OutOfRange`] rather than exhaust memory).

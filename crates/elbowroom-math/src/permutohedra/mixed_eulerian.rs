@@ -235,14 +235,15 @@ fn walk(
         return Ok(());
     }
     let k = prefix.len() + 1; // the next factor is y_k, 1-based
-    let mut children = Vec::new();
-    let mut current = poly;
-    let mut next = Vec::new();
-    children.push((0u32, current.clone()));
+    // poly · y_k^e for e = 0, 1, ...: each written once, from the one before (no copies)
+    let mut children: Vec<(u32, Vec<u64>)> = Vec::with_capacity(top - degree + 1);
+    children.push((0u32, poly));
     for e in 1..=(top - degree) as u32 {
-        index.times_y(degree + e as usize - 1, k, &current, &mut next);
-        std::mem::swap(&mut current, &mut next);
-        children.push((e, current.clone()));
+        let mut next = Vec::new();
+        if let Some((_, current)) = children.last() {
+            index.times_y(degree + e as usize - 1, k, current, &mut next);
+        }
+        children.push((e, next));
     }
     // decreasing lexicographic order: larger parts first
     for (e, p) in children.into_iter().rev() {

@@ -79,7 +79,7 @@ pub const TERM_LIMIT: usize = 20_000_000;
 /// Accumulates terms in a hash map, then sorts them once into a [`Poly`].
 pub struct PolyBuilder<C> {
     nvars: usize,
-    map: HashMap<Mono, C>,
+    map: HashMap<Mono, C, rustc_hash::FxBuildHasher>,
 }
 
 impl<C: Coeff> PolyBuilder<C> {
@@ -87,7 +87,7 @@ impl<C: Coeff> PolyBuilder<C> {
     pub fn new(nvars: usize) -> Self {
         PolyBuilder {
             nvars,
-            map: HashMap::new(),
+            map: HashMap::default(),
         }
     }
 

@@ -32,9 +32,9 @@ use crate::perms::perm::{MAX_N, Perm};
 use crate::progress::Progress;
 use num_bigint::BigInt;
 use num_traits::{ToPrimitive, Zero};
+use rustc_hash::FxBuildHasher;
 use std::collections::HashMap;
 use std::fmt;
-use std::hash::{BuildHasherDefault, Hasher};
 
 /// How many terms a multiplication visits between two checks of the cancel flag.
 const CHECK_EVERY: usize = 1 << 12;
@@ -163,28 +163,8 @@ impl fmt::Debug for PackedPerm {
     }
 }
 
-/// A fast hasher for packed permutations: one 128-bit multiply, folded.
-#[derive(Default, Clone, Copy)]
-pub struct PermHasher(u64);
-
-impl Hasher for PermHasher {
-    fn finish(&self) -> u64 {
-        self.0
-    }
-    fn write(&mut self, bytes: &[u8]) {
-        for &b in bytes {
-            self.write_u64(u64::from(b));
-        }
-    }
-    #[inline]
-    fn write_u64(&mut self, x: u64) {
-        let p = u128::from(x ^ self.0).wrapping_mul(0x9E37_79B9_7F4A_7C15_F39C_C060_5CED_C835);
-        self.0 = (p as u64) ^ ((p >> 64) as u64);
-    }
-}
-
-/// The map type of a vector's terms.
-pub type TermMap<C> = HashMap<PackedPerm, C, BuildHasherDefault<PermHasher>>;
+/// The map type of a vector's terms (Fx hashing: one multiply a key).
+pub type TermMap<C> = HashMap<PackedPerm, C, FxBuildHasher>;
 
 /// Why a step in machine integers stopped.
 #[derive(Clone, Debug, PartialEq, Eq)]
@@ -250,6 +230,8 @@ pub trait Coefficient: Clone + Ord + fmt::Debug + Send + Sync + 'static {
     fn neg_checked(&self) -> StepResult<Self>;
     /// Whether this is below 0.
     fn is_negative_value(&self) -> bool;
+    /// The value as an `i128`, or `None` when it does not fit.
+    fn to_i128_value(&self) -> Option<i128>;
 }
 
 /// Checked machine integers as coefficients: `i128` for most computations, and
@@ -297,6 +279,10 @@ macro_rules! machine_coefficient {
             fn is_negative_value(&self) -> bool {
                 *self < 0
             }
+            #[inline]
+            fn to_i128_value(&self) -> Option<i128> {
+                Some(i128::from(*self))
+            }
         }
     };
 }
@@ -335,6 +321,9 @@ impl Coefficient for BigInt {
     }
     fn is_negative_value(&self) -> bool {
         num_traits::Signed::is_negative(self)
+    }
+    fn to_i128_value(&self) -> Option<i128> {
+        self.to_i128()
     }
 }
 

@@ -257,6 +257,17 @@ pub struct HessenbergArgs {
     /// them): dimension, total, nonzero entries, maximum, negative entries.
     #[arg(long, conflicts_with_all = ["h", "shard"])]
     pub every_h: bool,
+    /// Print JSON Lines: a head object, one object per row, a summary object.
+    #[arg(long, conflicts_with_all = ["json", "csv", "latex", "every_h"])]
+    pub jsonl: bool,
+    /// Compute the table once and write its values to FILE, for the pieces of a
+    /// split run (`--class FILE`); prints one line.
+    #[arg(long, value_name = "FILE", conflicts_with_all = ["shard", "every_h", "class", "json", "jsonl", "csv", "latex"])]
+    pub save_class: Option<PathBuf>,
+    /// Read the values from FILE (written by `--save-class` with the same build,
+    /// n and h) instead of expanding the class: each piece costs its share.
+    #[arg(long, value_name = "FILE", conflicts_with = "every_h")]
+    pub class: Option<PathBuf>,
     /// How to print the table.
     #[command(flatten)]
     pub output: TableOutput,

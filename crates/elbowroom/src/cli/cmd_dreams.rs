@@ -14,6 +14,7 @@ use crate::math::poly::mono::exponents_text;
 use crate::math::{Perm, Progress};
 use num_bigint::BigUint;
 use serde_json::json;
+use std::fmt::Write as _;
 use std::sync::Arc;
 
 /// The most bumpless pipe dreams the command will generate (they are found all at
@@ -83,19 +84,29 @@ fn reduced(
         );
     }
     sink.text(&heading(count, w, "reduced pipe dream", listed))?;
+    // each dream is formatted into one reused buffer
+    let mut buf = String::new();
     for (k, d) in dreams.enumerate() {
         progress.check()?;
-        let word: Vec<String> = d.reading_word().iter().map(|a| a.to_string()).collect();
-        sink.text(&format!(
-            "\n\n#{}  {}  word {}\n{d}",
+        buf.clear();
+        let _ = write!(
+            buf,
+            "\n\n#{}  {}  word ",
             k + 1,
-            exponents_text(&d.monomial()),
-            if word.is_empty() {
-                "(empty)".to_string()
-            } else {
-                word.join(" ")
+            exponents_text(&d.monomial())
+        );
+        let word = d.reading_word();
+        if word.is_empty() {
+            buf.push_str("(empty)");
+        }
+        for (i, a) in word.iter().enumerate() {
+            if i > 0 {
+                buf.push(' ');
             }
-        ))?;
+            let _ = write!(buf, "{a}");
+        }
+        let _ = write!(buf, "\n{d}");
+        sink.text(&buf)?;
         progress.advance(1);
         *written += 1;
     }
@@ -143,13 +154,17 @@ fn bumpless(
         );
     }
     sink.text(&heading(count, w, "bumpless pipe dream", dreams.len()))?;
+    let mut buf = String::new();
     for (k, d) in dreams.iter().enumerate() {
         progress.check()?;
-        sink.text(&format!(
+        buf.clear();
+        let _ = write!(
+            buf,
             "\n\n#{}  {}\n{d}",
             k + 1,
             exponents_text(&d.monomial())
-        ))?;
+        );
+        sink.text(&buf)?;
         progress.advance(1);
         *written += 1;
     }

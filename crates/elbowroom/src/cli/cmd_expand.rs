@@ -7,40 +7,96 @@
 
 use super::args::ExpandArgs;
 use super::error::CliError;
-use super::expansion_text::{sum_text, terms_json};
 use super::interrupt;
-use super::json;
+use super::output::Sink;
 use crate::math::schubert::expansion::expand_typed;
-use serde_json::json;
+use num_rational::BigRational;
+use num_traits::{One, Signed};
+use std::fmt::Write as _;
 
-/// Runs the command.
-pub fn run(args: &ExpandArgs) -> Result<String, CliError> {
+/// How many bytes of terms are gathered before they go to the sink.
+const FLUSH_AT: usize = 1 << 16;
+
+/// Runs the command, writing the terms one at a time into one reused buffer
+/// (the JSON object is never built as a tree).
+pub fn run(args: &ExpandArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let expansion = interrupt::run_interruptible("the expansion", "steps", 0, |progress| {
         expand_typed(&args.poly, args.n, args.stable, progress)
     })?;
+    let terms = &expansion.terms;
+    let mut buf = String::with_capacity(FLUSH_AT + 256);
     if args.json {
-        return Ok(json::render(&json!({
-            "n": args.n,
-            "stable": args.stable,
-            "terms": terms_json(&expansion.terms),
-            "nonnegative": expansion.is_nonnegative(),
-        })));
+        // {"n":N,"stable":B,"terms":[{"perm":[...],"coefficient":"c"},...],"nonnegative":B}
+        let _ = write!(
+            buf,
+            "{{\"n\":{},\"stable\":{},\"terms\":[",
+            args.n, args.stable
+        );
+        for (k, (w, c)) in terms.iter().enumerate() {
+            if k > 0 {
+                buf.push(',');
+            }
+            buf.push_str("{\"perm\":[");
+            for (i, v) in w.one_line().iter().enumerate() {
+                if i > 0 {
+                    buf.push(',');
+                }
+                let _ = write!(buf, "{v}");
+            }
+            let _ = write!(buf, "],\"coefficient\":\"{c}\"}}");
+            flush_when_full(&mut buf, sink)?;
+        }
+        let _ = writeln!(buf, "],\"nonnegative\":{}}}", expansion.is_nonnegative());
+        return sink.text(&buf);
     }
     let space = if args.stable {
         format!("in Q[x1..x{}], over S_∞", args.n)
     } else {
         format!("in H*(Fl_{})", args.n)
     };
-    let count = expansion.terms.len();
-    Ok(format!(
-        "{} = {}\n  ({space}; {count} {}, {})",
-        args.poly.trim(),
-        sum_text(&expansion.terms),
+    let _ = write!(buf, "{} = ", args.poly.trim());
+    if terms.is_empty() {
+        buf.push('0');
+    }
+    for (k, (w, c)) in terms.iter().enumerate() {
+        push_term(&mut buf, k, w, c);
+        flush_when_full(&mut buf, sink)?;
+    }
+    let count = terms.len();
+    let _ = writeln!(
+        buf,
+        "\n  ({space}; {count} {}, {})",
         if count == 1 { "term" } else { "terms" },
         if expansion.is_nonnegative() {
             "all coefficients nonnegative"
         } else {
             "some coefficient negative"
         }
-    ))
+    );
+    sink.text(&buf)
+}
+
+/// One term of Σ c_w S_w as text (the sign, |c| unless 1, `S_w`), as
+/// `expansion_text::sum_text` writes it.
+fn push_term(buf: &mut String, k: usize, w: &crate::math::Perm, c: &BigRational) {
+    let sign = match (k, c.is_negative()) {
+        (0, false) => "",
+        (0, true) => "-",
+        (_, false) => " + ",
+        (_, true) => " - ",
+    };
+    buf.push_str(sign);
+    let magnitude = c.abs();
+    if !magnitude.is_one() {
+        let _ = write!(buf, "{magnitude} ");
+    }
+    let _ = write!(buf, "S_{w}");
+}
+
+fn flush_when_full(buf: &mut String, sink: &mut Sink<'_>) -> Result<(), CliError> {
+    if buf.len() >= FLUSH_AT {
+        sink.text(buf)?;
+        buf.clear();
+    }
+    Ok(())
 }

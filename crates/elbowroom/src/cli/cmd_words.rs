@@ -72,12 +72,23 @@ fn list(
         } else {
             ":".to_string()
         })?;
+        // each word is formatted into one reused buffer
+        let mut line = String::new();
+        let mut digits = itoa::Buffer::new();
         for a in words {
             progress.check()?;
-            let text: Vec<String> = a.iter().map(|x| x.to_string()).collect();
-            sink.text("\n")?;
-            sink.text(if text.is_empty() { "(empty word)" } else { "" })?;
-            sink.text(&text.join(" "))?;
+            line.clear();
+            line.push('\n');
+            if a.is_empty() {
+                line.push_str("(empty word)");
+            }
+            for (k, x) in a.iter().enumerate() {
+                if k > 0 {
+                    line.push(' ');
+                }
+                line.push_str(digits.format(*x));
+            }
+            sink.text(&line)?;
             progress.advance(1);
             *written += 1;
         }

@@ -14,6 +14,7 @@
 
 pub mod args;
 pub mod cmd_coefficient;
+pub mod class_file;
 pub mod cmd_divsym;
 pub mod cmd_dreams;
 pub mod cmd_eulerian;
@@ -201,7 +202,7 @@ pub fn execute(command: &Command, sink: &mut Sink<'_>) -> Result<(), CliError> {
         Command::Volume(a) => cmd_volume::run(a),
         Command::Eulerian(a) => cmd_eulerian::run(a),
         Command::Coefficient(a) => cmd_coefficient::run(a),
-        Command::Expand(a) => cmd_expand::run(a),
+        Command::Expand(a) => return cmd_expand::run(a, sink),
         Command::Product(a) => cmd_product::run(a),
         Command::Merge(a) => return cmd_merge::run(a, sink),
         Command::Quotient(a) => cmd_quotient::run(a),

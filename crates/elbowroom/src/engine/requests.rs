@@ -54,7 +54,8 @@ pub struct BrowseKey {
 /// The inputs of one computation; equal keys give equal results.
 #[derive(Clone, Debug, PartialEq, Eq, Hash)]
 pub enum JobKey {
-    /// The Schubert polynomial S_w.
+    /// The Schubert polynomial S_w (a small job the engine's tests run; no view asks for it).
+    #[cfg(test)]
     Schubert(Perm),
     /// The permutations of S_n passing a filter, in order.
     Browse(BrowseKey),
@@ -177,6 +178,7 @@ impl JobKey {
     /// A short description for the status line.
     pub fn label(&self) -> String {
         match self {
+            #[cfg(test)]
             JobKey::Schubert(w) => format!("Schubert polynomial of {w}"),
             JobKey::Browse(b) => format!("listing S_{}", b.n),
             JobKey::Counts(ws) => format!("counting pipe dreams of {} permutations", ws.len()),
@@ -362,6 +364,7 @@ impl Output {
 /// `Canceled` when asked to. One function per kind of job below.
 pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
     match key {
+        #[cfg(test)]
         JobKey::Schubert(w) => schubert_polynomial(w, progress).map(Output::Poly),
         JobKey::Browse(b) => browse(b, progress).map(Output::Perms),
         JobKey::Counts(ws) => dream_counts(ws, progress).map(Output::Counts),
@@ -453,6 +456,7 @@ fn typed(text: &str, n: usize, progress: &Progress) -> MathResult<String> {
     Ok(format!("{head} … ({} terms in all)", f.len()))
 }
 
+#[cfg(test)]
 fn schubert_polynomial(w: &Perm, progress: &Progress) -> MathResult<IntPoly> {
     progress.set_total(1);
     // the same refusal as `elbowroom schubert`

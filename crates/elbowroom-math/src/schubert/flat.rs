@@ -1,0 +1,481 @@
+//! Classes in H*(Fl_n) as flat bucketed vectors of packed keys, and the Monk
+//! step λ · Σ c_w S_w for λ = x_i − x_j run on every core.
+//!
+//! A [`FlatVector`] holds its terms (w, c_w) in 256 buckets by the first two
+//! entries of w, each bucket a vector sorted by [`LexKey`], so that the buckets
+//! read in order list the terms in lexicographic order of one-line notation. A
+//! step never grows one big hash map (whose look-ups miss the cache once it
+//! outgrows it): each worker takes a contiguous share of the input, writes every
+//! term of Monk's rule into its own buffer of the target's bucket, and sorts and
+//! sums a buffer in place whenever it has doubled; then each target bucket is
+//! gathered from the workers' buffers, sorted and summed, on its own core. No
+//! two threads ever write the same buffer, so there are no locks.
+//!
+//! Monk's rule in Chevalley's form (Monk 1959; Fulton, *Young Tableaux*, §10):
+//! λ · S_w = Σ_{covers (a, b)} (λ_a − λ_b) S_{w t_{ab}} in H*(Fl_n), a cover being
+//! a < b ≤ n with w(a) < w(b) and no c between them with w(a) < w(c) < w(b). For
+//! λ = x_i − x_j only the covers meeting {i, j} count.
+//!
+//! Coefficients are checked machine integers or big integers ([`Coefficient`]);
+//! a step in machine integers stops with [`StepError::Overflow`] and the caller
+//! runs the product again in a wider type.
+
+use crate::error::MathError;
+use crate::perms::perm::MAX_N;
+use crate::progress::Progress;
+use crate::schubert::vector::{Coefficient, StepError, StepResult};
+use rayon::prelude::*;
+
+/// The number of buckets: one per value of the key's top byte (w(1), w(2)).
+const BUCKETS: usize = 256;
+
+/// How many terms a worker multiplies between two checks of the cancel flag.
+const CHECK_EVERY: usize = 1 << 12;
+
+/// Below this many terms a step runs on the calling thread alone.
+const PARALLEL_FROM: usize = 1 << 14;
+
+/// A worker's buffer of one bucket is sorted and summed in place when it
+/// reaches twice its size after the last such pass, and at least this size.
+const COMPACT_FROM: usize = 1 << 12;
+
+/// A permutation of S_n, n ≤ 16, packed so that integer order is lexicographic
+/// order of one-line notation: w(i) − 1 in the nibble at bits 60 − 4(i − 1).
+///
+/// ```
+/// use elbowroom_math::schubert::flat::LexKey;
+/// let a = LexKey::from_values(&[2, 1, 3]);
+/// let b = LexKey::from_values(&[2, 3, 1]);
+/// assert!(a < b);
+/// assert_eq!(&b.values(3)[1..=3], &[2, 3, 1]);
+/// // the key of w0 w, (w0 w)(i) = n + 1 − w(i), read from w
+/// assert_eq!(LexKey::of_reversed(&[2, 3, 1], 3), LexKey::from_values(&[2, 1, 3]));
+/// ```
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, PartialOrd, Ord, Hash)]
+pub struct LexKey(u64);
+
+impl LexKey {
+    /// The key of the one-line values w(1), ..., w(m) (1-based, m ≤ 16).
+    #[inline]
+    pub fn from_values(values: &[u8]) -> LexKey {
+        let mut key = 0u64;
+        for (k, &v) in values.iter().enumerate().take(MAX_N) {
+            key |= (u64::from(v.wrapping_sub(1)) & 15) << (60 - 4 * k);
+        }
+        LexKey(key)
+    }
+
+    /// The key of w0 w in S_n, (w0 w)(i) = n + 1 − w(i), from w(1), ..., w(n).
+    #[inline]
+    pub fn of_reversed(w: &[u8], n: usize) -> LexKey {
+        let mut key = 0u64;
+        for (k, &v) in w.iter().enumerate().take(MAX_N) {
+            key |= (((n as u64).wrapping_sub(u64::from(v))) & 15) << (60 - 4 * k);
+        }
+        LexKey(key)
+    }
+
+    /// w(1), ..., w(n) at indices 1..=n (index 0 unused).
+    #[inline]
+    pub fn values(self, n: usize) -> [u8; MAX_N + 1] {
+        let mut out = [0u8; MAX_N + 1];
+        for (k, slot) in out.iter_mut().skip(1).take(n).enumerate() {
+            *slot = ((self.0 >> (60 - 4 * k)) & 15) as u8 + 1;
+        }
+        out
+    }
+
+    /// The bucket of the key: its top byte, (w(1) − 1, w(2) − 1).
+    #[inline]
+    fn bucket(self) -> usize {
+        (self.0 >> 56) as usize
+    }
+
+    /// w t_{ab}: the entries in 1-based positions a and b swapped, given w(a), w(b).
+    #[inline]
+    fn swapped(self, a: usize, b: usize, va: u8, vb: u8) -> LexKey {
+        let x = u64::from(va ^ vb);
+        LexKey(self.0 ^ (x << (64 - 4 * a)) ^ (x << (64 - 4 * b)))
+    }
+
+    /// The raw packed key.
+    pub fn raw(self) -> u64 {
+        self.0
+    }
+}
+
+/// A vector Σ c_w S_w in H*(Fl_n) (n ≤ 16), its terms in 256 buckets by
+/// (w(1), w(2)), each sorted by [`LexKey`]; no zero coefficients.
+#[derive(Clone, Debug)]
+pub struct FlatVector<C> {
+    n: usize,
+    buckets: Vec<Vec<(LexKey, C)>>,
+}
+
+impl<C: Coefficient> FlatVector<C> {
+    /// S_id = 1 in H*(Fl_n); `OutOfRange` unless 1 ≤ n ≤ 16.
+    pub fn one(n: usize) -> Result<Self, MathError> {
+        if n == 0 || n > MAX_N {
+            return Err(MathError::OutOfRange(format!(
+                "H*(Fl_{n}): n must be between 1 and {MAX_N}"
+            )));
+        }
+        let mut buckets: Vec<Vec<(LexKey, C)>> = (0..BUCKETS).map(|_| Vec::new()).collect();
+        let id: Vec<u8> = (1..=n as u8).collect();
+        let key = LexKey::from_values(&id);
+        buckets[key.bucket()].push((key, C::from_i64(1)));
+        Ok(FlatVector { n, buckets })
+    }
+
+    /// The n of H*(Fl_n).
+    pub fn n(&self) -> usize {
+        self.n
+    }
+
+    /// The number of nonzero terms.
+    pub fn len(&self) -> usize {
+        self.buckets.iter().map(Vec::len).sum()
+    }
+
+    /// Whether the vector is 0.
+    pub fn is_empty(&self) -> bool {
+        self.buckets.iter().all(Vec::is_empty)
+    }
+
+    /// The terms in increasing lexicographic order of w.
+    pub fn iter(&self) -> impl DoubleEndedIterator<Item = &(LexKey, C)> {
+        self.buckets.iter().flat_map(|b| b.iter())
+    }
+
+    /// c_w (0 when absent), by binary search in the bucket of w.
+    pub fn coefficient(&self, key: LexKey) -> C {
+        let bucket = &self.buckets[key.bucket()];
+        match bucket.binary_search_by_key(&key, |t| t.0) {
+            Ok(k) => bucket[k].1.clone(),
+            Err(_) => C::zero_value(),
+        }
+    }
+
+    /// (x_i − x_j) · self in H*(Fl_n) by Monk's rule (module notes), consuming
+    /// self (each input bucket is freed once multiplied); stops with `OutOfRange`
+    /// when the result has more than `limit` terms, `Canceled` on a cancel.
+    ///
+    /// ```
+    /// use elbowroom_math::Progress;
+    /// use elbowroom_math::schubert::flat::{FlatVector, LexKey};
+    /// // (x_1 − x_3) · 1 = S_{132} + S_{213} in H*(Fl_3)
+    /// let one = FlatVector::<i64>::one(3).unwrap();
+    /// let v = one.times_difference((1, 3), &Progress::default(), 100).unwrap();
+    /// let terms: Vec<(u64, i64)> = v.iter().map(|(k, c)| (k.raw(), *c)).collect();
+    /// assert_eq!(terms, vec![
+    ///     (LexKey::from_values(&[1, 3, 2]).raw(), 1),
+    ///     (LexKey::from_values(&[2, 1, 3]).raw(), 1),
+    /// ]);
+    /// ```
+    pub fn times_difference(
+        self,
+        (i, j): (usize, usize),
+        progress: &Progress,
+        limit: u128,
+    ) -> StepResult<Self> {
+        let n = self.n;
+        if i == 0 || j == 0 || i == j || i > n || j > n {
+            return Err(StepError::Math(MathError::InvalidInput(format!(
+                "x_{i} - x_{j} is not a difference of two variables of H*(Fl_{n})"
+            ))));
+        }
+        let total = self.len();
+        let workers = if total < PARALLEL_FROM {
+            1
+        } else {
+            rayon::current_num_threads().max(1)
+        };
+        let groups = split_into_groups(self.buckets, total, workers);
+        let sprays: Vec<Spray<C>> = if workers == 1 {
+            groups
+                .into_iter()
+                .map(|g| spray_group(g, n, (i, j), progress))
+                .collect::<StepResult<_>>()?
+        } else {
+            groups
+                .into_par_iter()
+                .map(|g| spray_group(g, n, (i, j), progress))
+                .collect::<StepResult<_>>()?
+        };
+        progress.check()?;
+        // per target bucket, the workers' buffers
+        let mut pieces: Vec<Vec<Vec<(LexKey, C)>>> = (0..BUCKETS).map(|_| Vec::new()).collect();
+        for spray in sprays {
+            for (b, buf) in spray.buffers.into_iter().enumerate() {
+                if !buf.is_empty() {
+                    pieces[b].push(buf);
+                }
+            }
+        }
+        let gather = |parts: Vec<Vec<(LexKey, C)>>| -> StepResult<Vec<(LexKey, C)>> {
+            let mut parts = parts;
+            let Some(largest) = (0..parts.len()).max_by_key(|&k| parts[k].len()) else {
+                return Ok(Vec::new());
+            };
+            let mut base = parts.swap_remove(largest);
+            for p in parts {
+                base.extend(p);
+            }
+            combine(&mut base)?;
+            base.shrink_to_fit();
+            Ok(base)
+        };
+        let buckets: Vec<Vec<(LexKey, C)>> = if workers == 1 {
+            pieces.into_iter().map(gather).collect::<StepResult<_>>()?
+        } else {
+            pieces
+                .into_par_iter()
+                .map(gather)
+                .collect::<StepResult<_>>()?
+        };
+        let out = FlatVector { n, buckets };
+        let len = out.len() as u128;
+        if len > limit {
+            return Err(StepError::Math(MathError::OutOfRange(format!(
+                "the product in H*(Fl_{n}) reaches {len} Schubert terms, more than the {limit} accepted"
+            ))));
+        }
+        Ok(out)
+    }
+}
+
+/// The input buckets cut into `workers` runs of about equal terms, in order.
+fn split_into_groups<C>(
+    buckets: Vec<Vec<(LexKey, C)>>,
+    total: usize,
+    workers: usize,
+) -> Vec<Vec<Vec<(LexKey, C)>>> {
+    let share = total.div_ceil(workers.max(1)).max(1);
+    let mut groups = Vec::with_capacity(workers);
+    let mut current = Vec::new();
+    let mut size = 0usize;
+    for b in buckets {
+        if b.is_empty() {
+            continue;
+        }
+        size += b.len();
+        current.push(b);
+        if size >= share {
+            groups.push(std::mem::take(&mut current));
+            size = 0;
+        }
+    }
+    if !current.is_empty() {
+        groups.push(current);
+    }
+    groups
+}
+
+/// One worker's output: a buffer per target bucket.
+struct Spray<C> {
+    buffers: Vec<Vec<(LexKey, C)>>,
+    /// The length of each buffer after its last sort-and-sum.
+    clean: Vec<usize>,
+}
+
+impl<C: Coefficient> Spray<C> {
+    fn new() -> Self {
+        Spray {
+            buffers: (0..BUCKETS).map(|_| Vec::new()).collect(),
+            clean: vec![0; BUCKETS],
+        }
+    }
+
+    #[inline]
+    fn push(&mut self, key: LexKey, c: C) -> StepResult<()> {
+        let b = key.bucket();
+        let buf = &mut self.buffers[b];
+        buf.push((key, c));
+        if buf.len() >= (2 * self.clean[b]).max(COMPACT_FROM) {
+            combine(buf)?;
+            self.clean[b] = buf.len();
+        }
+        Ok(())
+    }
+}
+
+/// The terms of (x_i − x_j) · (one worker's share), into its own buffers; each
+/// input bucket is dropped once multiplied.
+fn spray_group<C: Coefficient>(
+    group: Vec<Vec<(LexKey, C)>>,
+    n: usize,
+    (i, j): (usize, usize),
+    progress: &Progress,
+) -> StepResult<Spray<C>> {
+    let mut spray = Spray::new();
+    let mut count = 0usize;
+    let two = C::from_i64(2);
+    let minus_two = C::from_i64(-2);
+    let one = C::from_i64(1);
+    let minus_one = C::from_i64(-1);
+    for bucket in group {
+        for (key, c) in bucket {
+            count += 1;
+            if count.is_multiple_of(CHECK_EVERY) {
+                progress.check()?;
+            }
+            let mut failure = None;
+            covers_of_difference(key, n, (i, j), |target, mult| {
+                if failure.is_some() {
+                    return;
+                }
+                let factor = match mult {
+                    2 => &two,
+                    -2 => &minus_two,
+                    1 => &one,
+                    _ => &minus_one,
+                };
+                let pushed = c.mul_checked(factor).and_then(|t| spray.push(target, t));
+                if let Err(e) = pushed {
+                    failure = Some(e);
+                }
+            });
+            if let Some(e) = failure {
+                return Err(e);
+            }
+        }
+    }
+    Ok(spray)
+}
+
+/// Calls `emit(w t_{ab}, λ_a − λ_b)` for every cover (a, b) of w in S_n with
+/// λ_a ≠ λ_b, for λ = x_i − x_j (λ_i = 1, λ_j = −1, else 0); the multiplier is
+/// ±1 or ±2.
+#[inline]
+pub fn covers_of_difference(
+    key: LexKey,
+    n: usize,
+    (i, j): (usize, usize),
+    mut emit: impl FnMut(LexKey, i8),
+) {
+    let v = key.values(n);
+    let lambda = |k: usize| -> i8 {
+        if k == i {
+            1
+        } else if k == j {
+            -1
+        } else {
+            0
+        }
+    };
+    for a in [i, j] {
+        // covers (a, b), b > a: w(a) < w(b) below every w(c) > w(a) in between
+        let va = v[a];
+        let mut ceiling = u8::MAX;
+        for (b, &vb) in v.iter().enumerate().take(n + 1).skip(a + 1) {
+            if vb > va && vb < ceiling {
+                ceiling = vb;
+                let mult = lambda(a) - lambda(b);
+                if mult != 0 {
+                    emit(key.swapped(a, b, va - 1, vb - 1), mult);
+                }
+                if ceiling == va + 1 {
+                    break;
+                }
+            }
+        }
+    }
+    for b in [i, j] {
+        // covers (a, b), a < b, a outside {i, j}: w(a) < w(b) above every w(c) < w(b) in between
+        let vb = v[b];
+        let mut floor = 0u8;
+        for a in (1..b).rev() {
+            let va = v[a];
+            if va < vb && va > floor {
+                floor = va;
+                if a != i && a != j {
+                    emit(key.swapped(a, b, va - 1, vb - 1), -lambda(b));
+                }
+                if floor + 1 == vb {
+                    break;
+                }
+            }
+        }
+    }
+}
+
+/// Sorts the terms by key and sums the repeated ones, dropping zeros.
+fn combine<C: Coefficient>(v: &mut Vec<(LexKey, C)>) -> StepResult<()> {
+    v.sort_unstable_by_key(|t| t.0);
+    let mut w = 0usize;
+    for r in 0..v.len() {
+        if w > 0 && v[w - 1].0 == v[r].0 {
+            let c = std::mem::replace(&mut v[r].1, C::zero_value());
+            v[w - 1].1.add_assign_checked(&c)?;
+        } else {
+            if w > 0 && v[w - 1].1.is_zero_value() {
+                w -= 1;
+            }
+            v.swap(w, r);
+            w += 1;
+        }
+    }
+    if w > 0 && v[w - 1].1.is_zero_value() {
+        w -= 1;
+    }
+    v.truncate(w);
+    Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::perms::perm::Perm;
+    use crate::schubert::vector::{LinearForm, SchubertVector, Space};
+
+    /// Every step of the flat product agrees with the hash-map product by Monk's
+    /// rule (`SchubertVector::times_linear`), factor by factor, for products of
+    /// differences in S_6 and S_7 (two methods written apart).
+    #[test]
+    fn flat_steps_agree_with_the_map_steps() {
+        for n in [4usize, 6, 7] {
+            let mut flat = FlatVector::<i64>::one(n).unwrap();
+            let mut map = SchubertVector::<i64>::one(Space::Flag(n));
+            let factors: Vec<(usize, usize)> = (1..=n)
+                .flat_map(|i| (i + 1..=n).rev().map(move |j| (i, j)))
+                .filter(|&(i, j)| j > i + 1)
+                .collect();
+            for (i, j) in factors {
+                flat = flat
+                    .times_difference((i, j), &Progress::default(), u128::MAX)
+                    .unwrap();
+                map = map
+                    .times_linear(&LinearForm::difference(i, j).unwrap(), &Progress::default())
+                    .unwrap();
+                assert_eq!(flat.len(), map.len(), "n = {n}, factor ({i}, {j})");
+                for (w, c) in map.iter() {
+                    let values = w.to_perm(n).unwrap();
+                    let key = LexKey::from_values(values.as_bytes());
+                    assert_eq!(flat.coefficient(key), *c);
+                }
+                let keys: Vec<LexKey> = flat.iter().map(|t| t.0).collect();
+                assert!(keys.windows(2).all(|p| p[0] < p[1]));
+            }
+        }
+    }
+
+    #[test]
+    fn keys_order_like_one_line_notation() {
+        let perms: Vec<Perm> = Perm::all(5).collect();
+        let keys: Vec<LexKey> = perms
+            .iter()
+            .map(|w| LexKey::from_values(w.as_bytes()))
+            .collect();
+        let mut sorted = perms.clone();
+        sorted.sort_by(|a, b| a.as_bytes().cmp(b.as_bytes()));
+        let mut by_key: Vec<(LexKey, &Perm)> = keys.iter().copied().zip(perms.iter()).collect();
+        by_key.sort();
+        assert!(by_key.iter().map(|t| t.1).eq(sorted.iter()));
+    }
+
+    #[test]
+    fn overflow_is_reported_not_wrapped() {
+        let mut v = vec![(LexKey(1), i64::MAX), (LexKey(1), 1)];
+        assert_eq!(combine(&mut v), Err(StepError::Overflow));
+    }
+}
