@@ -69,9 +69,44 @@ fn coefficient_of_1432() {
             "conjugate",
             "rules",
             "cyclic",
+            "by_trees",
             "q_value"
         ]
     );
+    // a_w by trees (Nadeau–Tewari, Adv. Math. 2024): S_1432 = P_(0,2,1) + P_(1,2),
+    // and only (1,2) is one tree on the leaves 1..4, with one increasing labeling
+    assert_eq!(
+        v["by_trees"],
+        serde_json::json!([{"code": [1, 2], "coefficient": "1", "labelings": "1"}])
+    );
+}
+
+/// Σ_T c_(w,T)·labelings = a_w for every w of S_5 with ℓ(w) = 4, read from the
+/// JSON the command prints (the trees against the reduced-word formula).
+#[test]
+fn trees_add_up_to_the_coefficient() {
+    let words = [
+        "13542", "14352", "14523", "15243", "15324", "21543", "23451", "23514", "24153", "24315",
+        "25134", "31452", "31524", "32154", "32415", "34125", "41253", "41325", "42135", "51234",
+    ];
+    for w in words {
+        let v = json(&["coefficient", w, "--json"]);
+        let Some(value) = v["value"].as_str() else {
+            panic!("{w}: no value in {v}");
+        };
+        let sum: i64 = v["by_trees"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .map(|t| {
+                let c: i64 = t["coefficient"].as_str().unwrap().parse().unwrap();
+                let l: i64 = t["labelings"].as_str().unwrap().parse().unwrap();
+                assert!(c > 0, "{w}: the forest expansion of S_w is positive");
+                c * l
+            })
+            .sum();
+        assert_eq!(sum.to_string(), value, "{w}");
+    }
 }
 
 #[test]

@@ -33,6 +33,14 @@ fn the_panel_explains_a_1432() {
     settle(&mut h, |h| has(h, "[0, 2, 1]"));
     assert!(has(&h, "[0, 1, 2]"));
     assert!(has(&h, "sum 6/3! = 1"));
+    // a_w by trees (Nadeau–Tewari 2024): S_1432 = P_(0,2,1) + P_(1,2), and only
+    // (1,2) is one tree on the leaves 1..4, with one labeling: 1·1 = a_1432
+    assert!(has(
+        &h,
+        "a_w by trees: Σ_T c_(w,T)·(n−1)!/Π h_v over 1 tree"
+    ));
+    assert!(has(&h, "1 · 1"));
+    assert!(has(&h, "(1,2)"));
     // a_w(q) = q^2 and S_w(1, q, q^2, …) = q + 2q^2 + q^3 + q^4 (Macdonald's S_1432)
     assert!(has(&h, "q + 2q^2 + q^3 + q^4"));
     // both words are listed; a click on the content (0, 2, 1) keeps only 2 3 2

@@ -13,8 +13,8 @@
 //! the output goes through) and [`error`].
 
 pub mod args;
-pub mod cmd_coefficient;
 pub mod class_file;
+pub mod cmd_coefficient;
 pub mod cmd_divsym;
 pub mod cmd_dreams;
 pub mod cmd_eulerian;

@@ -118,6 +118,8 @@ pub struct Explained {
     pub q: Result<QCoefficient, String>,
     /// S_w(1, q, q², …), or why it was not computed.
     pub principal: Result<QPoly, String>,
+    /// a_w by trees (code, c_{w,T}, labelings), or why it was not computed.
+    pub trees: Result<Vec<crate::math::forest::trees::TreeTerm>, String>,
 }
 
 /// What the quotient view reduces.
@@ -636,10 +638,16 @@ fn explained(w: &Perm, progress: &Progress) -> MathResult<Explained> {
     } else {
         Ok(principal_specialization(&schubert(w)))
     };
+    let trees = match crate::math::forest::trees::a_w_by_trees(w, progress) {
+        Ok(t) => Ok(t),
+        Err(MathError::Canceled) => return Err(MathError::Canceled),
+        Err(e) => Err(e.to_string()),
+    };
     Ok(Explained {
         explanation,
         q,
         principal,
+        trees,
     })
 }
 

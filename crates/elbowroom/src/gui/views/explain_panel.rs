@@ -80,6 +80,10 @@ impl ExplainPanel {
             return None;
         };
         let mut action = None;
+        let look = crate::figure::look::Look {
+            dark: ui.visuals().dark_mode,
+            labels: false,
+        };
         ui.horizontal_top(|ui| {
             ui.vertical(|ui| {
                 ui.set_max_width(440.0);
@@ -90,6 +94,7 @@ impl ExplainPanel {
                 rules(ui, e);
                 relatives(ui, e, &mut action);
                 q_values(ui, e);
+                trees(ui, e, &look);
             });
         });
         action
@@ -159,6 +164,30 @@ impl ExplainPanel {
                     self.filter = None;
                 }
             });
+        }
+    }
+}
+
+/// a_w by trees: Σ_T c_{w,T}·(n−1)!/Π_v h_v over the binary trees on the
+/// leaves 1..n in the forest expansion of S_w, each tree drawn small.
+fn trees(ui: &mut egui::Ui, e: &Explained, look: &crate::figure::look::Look) {
+    match &e.trees {
+        Err(why) => {
+            ui.weak(format!("a_w by trees: not computed ({why})"));
+        }
+        Ok(trees) => {
+            ui.label(format!(
+                "a_w by trees: Σ_T c_(w,T)·(n−1)!/Π h_v over {} tree{}",
+                trees.len(),
+                if trees.len() == 1 { "" } else { "s" }
+            ));
+            for t in trees {
+                ui.horizontal(|ui| {
+                    ui.monospace(format!("{} · {}", t.coefficient, t.labelings));
+                    super::forests::small_forest(ui, &t.code, 28.0, look);
+                    ui.monospace(crate::math::forest::indexed::code_text(&t.code));
+                });
+            }
         }
     }
 }
