@@ -5,28 +5,20 @@
 
 use elbowroom::math::explain::explanation::explain;
 use elbowroom::math::{MathError, Perm, Progress};
-use serde_json::Value;
-use std::process::Command;
 use std::sync::Arc;
 use std::time::{Duration, Instant};
 
+mod common;
+use common::json;
+
+/// The exit status, standard output and standard error of `elbowroom ARGS...`.
 fn run(args: &[&str]) -> (i32, String, String) {
-    let out = Command::new(env!("CARGO_BIN_EXE_elbowroom"))
-        .args(args)
-        .output()
-        .unwrap();
+    let out = common::run(args);
     (
         out.status.code().unwrap_or(-1),
         String::from_utf8(out.stdout).unwrap(),
         String::from_utf8(out.stderr).unwrap(),
     )
-}
-
-fn json(args: &[&str]) -> Value {
-    let (code, out, err) = run(args);
-    assert_eq!(code, 0, "stderr: {err}");
-    assert_eq!(out.lines().count(), 1, "one JSON object on one line");
-    serde_json::from_str(&out).unwrap()
 }
 
 #[test]
