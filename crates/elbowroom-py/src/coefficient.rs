@@ -146,8 +146,8 @@ fn default_record<'py>(
 /// gives it, with the same keys in the same order and exact values: w is a
 /// permutation of n (a tuple, list or string such as "1432") of length
 /// |h| = Σ (h(i) − i); h (a tuple, list or string "3,3,4,4") defaults to
-/// h(i) = i + 1, where a_w is Postnikov's mixed Eulerian-type coefficient of
-/// the permutahedral class and ℓ(w) = n − 1.
+/// h(i) = i + 1, the class of the permutahedral variety, where a_w = DS_n(S_w)
+/// (Postnikov's divided symmetrization) and ℓ(w) = n − 1.
 ///
 /// For the default h the dict is {"perm": tuple, "n": int, "h": tuple,
 /// "value": int, "by_content": [{"content": tuple (c_1..c_{n−1}), "words":
