@@ -17,6 +17,7 @@
 //! `__init__.py`.
 
 pub mod calculus;
+pub mod coefficient;
 pub mod hessenberg;
 pub mod long_run;
 pub mod permutohedra;
@@ -77,6 +78,8 @@ fn _elbowroom(m: &Bound<'_, PyModule>) -> PyResult<()> {
     m.add_function(wrap_pyfunction!(quotient::quotient_basis, m)?)?;
     m.add_function(wrap_pyfunction!(permutohedra::volume, m)?)?;
     m.add_function(wrap_pyfunction!(permutohedra::mixed_eulerian, m)?)?;
+    m.add_function(wrap_pyfunction!(coefficient::coefficient, m)?)?;
+    m.add_function(wrap_pyfunction!(coefficient::forest, m)?)?;
     m.add_function(wrap_pyfunction!(polynomial, m)?)?;
     m.add_class::<words::ReducedWordIterator>()?;
     m.add_class::<words::PipeDreamIterator>()?;

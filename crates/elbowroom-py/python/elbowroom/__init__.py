@@ -2,7 +2,8 @@
 
 Schubert polynomials, reduced words and pipe dreams, products and Schubert
 expansions, divided symmetrization and Hessenberg class tables, the
-quasisymmetric quotient Q[x1..xn]/J_n, and permutohedra: the functions the
+quasisymmetric quotient Q[x1..xn]/J_n, permutohedra, the coefficients a^h_w
+explained (``coefficient``) and forest expansions (``forest``): the functions the
 ``elbowroom`` commands call, with exact Python values.
 
 Conventions
@@ -27,9 +28,11 @@ import re as _re
 
 from ._elbowroom import (
     __version__,
+    coefficient,
     count_reduced_words,
     divsym,
     expand,
+    forest,
     hessenberg,
     mixed_eulerian,
     pipe_dreams,
@@ -43,9 +46,11 @@ from ._elbowroom import (
 )
 
 __all__ = [
+    "coefficient",
     "count_reduced_words",
     "divsym",
     "expand",
+    "forest",
     "from_sympy",
     "hessenberg",
     "mixed_eulerian",

@@ -1,6 +1,6 @@
 # Signatures of the native part of the module, for editors and type checkers.
 from fractions import Fraction
-from typing import Callable, Dict, Iterator, List, Optional, Sequence, Tuple, Union
+from typing import Any, Callable, Dict, Iterator, List, Optional, Sequence, Tuple, Union
 
 Perm = Tuple[int, ...]
 Exponents = Tuple[int, ...]
@@ -41,4 +41,12 @@ def reduce(poly: PolyInput, n: int, *, progress: Progress = None) -> Dict[Expone
 def quotient_basis(n: int, *, progress: Progress = None) -> List[Exponents]: ...
 def volume(lam: Union[str, Sequence[Exact]], *, progress: Progress = None) -> Fraction: ...
 def mixed_eulerian(n: int, *, progress: Progress = None) -> Dict[Exponents, int]: ...
+def coefficient(
+    w: PermInput,
+    h: Optional[Union[str, Sequence[int]]] = None,
+    q: bool = False,
+    *,
+    progress: Progress = None,
+) -> Dict[str, Any]: ...
+def forest(w: PermInput, *, progress: Progress = None) -> Dict[str, Any]: ...
 def polynomial(text: str, n: Optional[int] = None) -> Dict[Exponents, Fraction]: ...
