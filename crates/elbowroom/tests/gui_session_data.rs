@@ -414,3 +414,44 @@ fn the_pipe_dream_keeps_its_size_at_150_percent_with_the_notes_open() {
     // open the drawing had shrunk to its floor of 160 points
     assert!(rect.width() > 200.0, "{rect:?}");
 }
+
+/// The third route to DS_n (Postnikov, IMRN 2009, from memory): for a monomial
+/// x^c of degree n − 1, DS_n(x^c) = (−1)^{|S|} β_n(S) with
+/// S = {i : c_1 + ⋯ + c_i < i}. For x2^2 x4^2 at n = 5, S = {1, 3}; β_5({1, 3})
+/// is counted here by listing S_5, and the workbench's DS_5 says the same.
+#[test]
+fn the_workbench_shows_ds_of_a_monomial_by_descent_sets() {
+    let beta = permutations_with_descent_set(5, &[1, 3]);
+    assert_eq!(beta, 16);
+    let mut h = harness();
+    h.state_mut().session.view = elbowroom::session::model::View::Workbench;
+    h.state_mut().session.n = 5;
+    h.state_mut().session.workbench.use_h = false;
+    h.state_mut().session.workbench.poly = "x2^2 x4^2".into();
+    settle(&mut h, |h| has(h, "by descent sets"));
+    assert!(has(&h, "< i} = {1, 3}, "));
+    assert!(has(&h, &format!("β_5(S) = {beta}, so the value is {beta}")));
+    settle(&mut h, |h| has(h, &format!("DS_n(f) = {beta}")));
+    // a polynomial that is not one monomial gets no such line
+    h.state_mut().session.workbench.poly = "x2^2 x4^2 + x1^4".into();
+    settle(&mut h, |h| !has(h, "by descent sets"));
+}
+
+/// The permutations of [n] whose descent set is exactly `set`, by listing them.
+fn permutations_with_descent_set(n: usize, set: &[usize]) -> usize {
+    let mut count = 0;
+    let mut p: Vec<usize> = (1..=n).collect();
+    loop {
+        let d: Vec<usize> = (1..n).filter(|&i| p[i - 1] > p[i]).collect();
+        if d == set {
+            count += 1;
+        }
+        // next permutation in lexicographic order
+        let Some(i) = (0..n - 1).rev().find(|&i| p[i] < p[i + 1]) else {
+            return count;
+        };
+        let j = (i + 1..n).rev().find(|&j| p[j] > p[i]).unwrap();
+        p.swap(i, j);
+        p[i + 1..].reverse();
+    }
+}

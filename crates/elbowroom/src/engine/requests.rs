@@ -81,6 +81,9 @@ pub enum JobKey {
     Polytope(Vec<BigRational>),
     /// DS_h(f) for a typed polynomial f (as typed) and h(1), ..., h(n).
     DivSym(String, Vec<usize>),
+    /// DS_n of a typed single monomial x^c of degree n − 1 by the descent-set
+    /// formula DS_n(x^c) = (−1)^{|S(c)|} β_n(S(c)) (n = the `usize`).
+    MonomialRoute(String, usize),
     /// A normal form modulo J_n, with the Hilbert series of the quotient.
     NormalForm(QuotientInput),
     /// The positivity survey: the normal form of S_w(x_n, ..., x_1) for every w in S_n.
@@ -194,6 +197,7 @@ impl JobKey {
             JobKey::Eulerian(n) => format!("mixed Eulerian numbers of {n}"),
             JobKey::Polytope(_) => "vertices of P_λ".to_string(),
             JobKey::DivSym(_, h) => format!("divided symmetrization for h = {}", h_text(h)),
+            JobKey::MonomialRoute(_, n) => format!("DS_{n} of a monomial by descent sets"),
             JobKey::NormalForm(_) => "normal form modulo J_n".to_string(),
             JobKey::Survey(n) => format!("positivity survey of S_{n}"),
             JobKey::Product(u, v, None) => format!("S_{u} · S_{v}, stably"),
@@ -262,6 +266,8 @@ pub enum Output {
     Forests(ForestRows),
     /// a_w explained.
     Explain(Arc<Explained>),
+    /// DS_n of one monomial by the descent-set formula.
+    Monomial(crate::math::explain::monomials::MonomialValue),
 }
 
 impl Output {
@@ -387,6 +393,7 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
             PolytopeDrawing::of(&Permutohedron::new(lambda)?).map(Output::Polytope)
         }
         JobKey::DivSym(text, h) => divsym(text, h, progress).map(Output::DivSym),
+        JobKey::MonomialRoute(text, n) => monomial_route(text, *n, progress).map(Output::Monomial),
         JobKey::Survey(n) => survey_of_all(*n, progress).map(Output::Survey),
         JobKey::NormalForm(input) => reduce(input, progress).map(Output::Reduced),
         JobKey::Product(u, v, n) => product(u, v, *n, progress).map(Output::Terms),
@@ -548,6 +555,24 @@ fn divsym(text: &str, h: &[usize], progress: &Progress) -> MathResult<DividedSym
     let out = divided_symmetrize_with(&f, &h, progress)?;
     progress.advance(1);
     Ok(out)
+}
+
+/// DS_n(x^c) = (−1)^{|S(c)|} β_n(S(c)) for a typed polynomial that is one
+/// monomial x^c of degree n − 1 with coefficient 1 (anything else is refused).
+fn monomial_route(
+    text: &str,
+    n: usize,
+    progress: &Progress,
+) -> MathResult<crate::math::explain::monomials::MonomialValue> {
+    let f = parse_poly_with(text, Some(n), progress)?;
+    let [(mono, c)] = f.terms() else {
+        return Err(MathError::InvalidInput("not a single monomial".into()));
+    };
+    if !num_traits::One::is_one(c) {
+        return Err(MathError::InvalidInput("the coefficient is not 1".into()));
+    }
+    let exps: Vec<u32> = (0..n).map(|i| mono.exp(i)).collect();
+    crate::math::explain::monomials::monomial_value(&exps)
 }
 
 /// The positivity survey over all of S_n, in lexicographic order.

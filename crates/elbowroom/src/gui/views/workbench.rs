@@ -8,7 +8,7 @@
 use super::products::{terms_list, terms_summary};
 use super::{fetch_or_explain, typed_poly_fits};
 use crate::engine::requests::{Output, QuotientInput};
-use crate::engine::{Engine, JobKey, Slot};
+use crate::engine::{Engine, Fetch, JobKey, Slot};
 use crate::gui::AppCtx;
 use crate::gui::typeset::{self, Typeset};
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
@@ -20,6 +20,7 @@ use eframe::egui;
 pub struct WorkbenchView {
     typed: Slot,
     divsym: Slot,
+    monomial: Slot,
     normal_form: Slot,
     flag_expansion: Slot,
     stable_expansion: Slot,
@@ -92,6 +93,33 @@ fn show_divsym(ui: &mut egui::Ui, out: &Output, name: &str) {
         return;
     }
     let (line, plain) = symmetric_expansion(&d.symmetric);
+    typeset::math_label(ui, &line, &plain);
+}
+
+/// DS_n(x^c) = (−1)^{|S(c)|} β_n(S(c)) (Postnikov, IMRN 2009): S(c) the i ≤ n − 1
+/// with c_1 + ⋯ + c_i < i, β_n(S) the permutations of [n] with descent set S.
+fn show_monomial_route(
+    ui: &mut egui::Ui,
+    v: &crate::math::explain::monomials::MonomialValue,
+    n: usize,
+) {
+    let set: Vec<String> = v.descent_set.iter().map(|i| i.to_string()).collect();
+    let set = format!("{{{}}}", set.join(", "));
+    let sign = if v.descent_set.len() % 2 == 1 {
+        "−"
+    } else {
+        ""
+    };
+    let line = Typeset::new()
+        .plain("by descent sets: ")
+        .symbol(format!("DS_{n}(x^c) = (−1)^|S| β_{n}(S)"))
+        .plain(format!(", S = {{i : c_1 + ⋯ + c_i < i}} = {set}, "))
+        .symbol(format!("β_{n}(S)"))
+        .plain(format!(" = {}, so the value is {sign}{}", v.beta, v.beta));
+    let plain = format!(
+        "DS_{n}(x^c) = (-1)^|S| beta_{n}(S), S = {set}, beta_{n}(S) = {}, value {}",
+        v.beta, v.value
+    );
     typeset::math_label(ui, &line, &plain);
 }
 
@@ -204,6 +232,17 @@ impl WorkbenchView {
             "divided symmetrization",
             |ui, out| show_divsym(ui, out, name),
         );
+        if ctx.session.workbench.use_h {
+            self.monomial.clear();
+        } else {
+            // a single monomial of degree n − 1: the third route, by descent sets
+            let key = JobKey::MonomialRoute(text.to_string(), n);
+            if let Fetch::Ready(out) = self.monomial.fetch(ctx.engine, key)
+                && let Output::Monomial(v) = &**out
+            {
+                show_monomial_route(ui, v, n);
+            }
+        }
         let m = n;
         if m <= MAX_QUOTIENT_N {
             ui.separator();
@@ -296,6 +335,7 @@ impl WorkbenchView {
     /// Asks for nothing beyond reading the text (a running job stops).
     fn forget(&mut self) {
         self.divsym.clear();
+        self.monomial.clear();
         self.normal_form.clear();
         self.flag_expansion.clear();
         self.stable_expansion.clear();
