@@ -16,8 +16,8 @@ use std::time::Duration;
 fn coefficient(c: &mut Criterion) {
     let mut g = c.benchmark_group("coefficient");
     g.sample_size(10).measurement_time(Duration::from_secs(10));
-    // n = 10: w0 of S_5 followed by s_6 s_7 s_8 s_9 shifted in (many words, many contents)
-    for text in ["5,4,3,2,1,7,6,8,9,10", "2,5,4,3,1,7,6,9,8,10"] {
+    // n = 10, ℓ(w) = 9: w0 of S_4 times three commuting s_i (many words), and a mixed one
+    for text in ["4,3,2,1,6,5,8,7,10,9", "2,5,4,3,1,7,6,9,8,10"] {
         let w = Perm::parse(text).unwrap();
         g.bench_function(format!("explain {text}"), |b| {
             b.iter(|| explain(black_box(&w), &Progress::default()).unwrap())
