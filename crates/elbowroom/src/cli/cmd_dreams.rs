@@ -84,11 +84,7 @@ fn reduced(
         );
     }
     sink.text(&heading(count, w, "reduced pipe dream", listed))?;
-    // each dream is formatted into one reused buffer
-    let mut buf = String::new();
-    for (k, d) in dreams.enumerate() {
-        progress.check()?;
-        buf.clear();
+    write_each(sink, dreams, progress, written, |buf, k, d| {
         let _ = write!(
             buf,
             "\n\n#{}  {}  word ",
@@ -106,11 +102,7 @@ fn reduced(
             let _ = write!(buf, "{a}");
         }
         let _ = write!(buf, "\n{d}");
-        sink.text(&buf)?;
-        progress.advance(1);
-        *written += 1;
-    }
-    sink.end_line()
+    })
 }
 
 /// The bumpless pipe dreams: found all at once (at most [`BUMPLESS_LIMIT`]),
@@ -154,16 +146,31 @@ fn bumpless(
         );
     }
     sink.text(&heading(count, w, "bumpless pipe dream", dreams.len()))?;
-    let mut buf = String::new();
-    for (k, d) in dreams.iter().enumerate() {
-        progress.check()?;
-        buf.clear();
+    write_each(sink, dreams.iter(), progress, written, |buf, k, d| {
         let _ = write!(
             buf,
             "\n\n#{}  {}\n{d}",
             k + 1,
             exponents_text(&d.monomial())
         );
+    })
+}
+
+/// Writes the dreams as text, each formatted by `format` (given its 0-based
+/// place) into one reused buffer, then ends the last line; polls the cancel
+/// flag and counts what was written.
+fn write_each<T>(
+    sink: &mut Sink<'_>,
+    dreams: impl Iterator<Item = T>,
+    progress: &Progress,
+    written: &mut u64,
+    mut format: impl FnMut(&mut String, usize, &T),
+) -> Result<(), CliError> {
+    let mut buf = String::new();
+    for (k, d) in dreams.enumerate() {
+        progress.check()?;
+        buf.clear();
+        format(&mut buf, k, &d);
         sink.text(&buf)?;
         progress.advance(1);
         *written += 1;
