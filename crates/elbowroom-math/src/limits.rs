@@ -18,7 +18,7 @@ pub use crate::forest::polynomial::FOREST_LABELING_LIMIT;
 pub use crate::forest::quotient::FOREST_BASIS_MAX_N;
 pub use crate::hessenberg::class::CLASS_TERM_LIMIT;
 pub use crate::hessenberg::divsym::PAIR_LIMIT;
-pub use crate::hessenberg::function::COMPLEMENT_TERM_BOUND;
+pub use crate::hessenberg::function::{COMPLEMENT_TERM_BOUND, HESSENBERG_MAX_N};
 pub use crate::hessenberg::rows::{CLASS_HELD_LIMIT, CLASS_TABLE_LIMIT};
 pub use crate::hessenberg::sweep::SWEEP_MAX_N;
 pub use crate::hessenberg::table::TABLE_MAX_N;

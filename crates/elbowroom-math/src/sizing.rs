@@ -18,6 +18,7 @@ use crate::{MathError, MathResult, Perm, RatPoly};
 /// more than [`DIVSYM_PRODUCT_LIMIT`] terms (terms(f) times
 /// min(2^k, C(k + n − 1, n − 1)) for the k factors of Q_h).
 pub fn check_divsym(f: &RatPoly, h: &HessenbergFn) -> MathResult<()> {
+    h.require_polynomials()?;
     let n = h.n() as u64;
     let dim = h.dimension() as u64;
     let degree = u64::from(f.degree());

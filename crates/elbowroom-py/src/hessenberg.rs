@@ -17,13 +17,17 @@ use std::collections::HashMap;
 use std::sync::{Arc, Mutex};
 
 /// The Hessenberg function of the arguments `n` and `h`.
-fn hessenberg_args(n: &Bound<'_, PyAny>, h: Option<&Bound<'_, PyAny>>) -> PyResult<HessenbergFn> {
+fn hessenberg_args(
+    n: &Bound<'_, PyAny>,
+    h: Option<&Bound<'_, PyAny>>,
+    max_n: usize,
+) -> PyResult<HessenbergFn> {
     let n = size_arg(n, "n")?;
     let text = match h {
         Some(h) if !h.is_none() => Some(hessenberg_text(h)?),
         _ => None,
     };
-    sizes::hessenberg_fn(n, text.as_deref())
+    sizes::hessenberg_fn(n, text.as_deref(), max_n)
 }
 
 /// divsym(poly, n, h=None, *, progress=None) -> dict[exponents, Fraction]
@@ -43,7 +47,7 @@ pub fn divsym<'py>(
     h: Option<&Bound<'py, PyAny>>,
     progress: Option<&Bound<'py, PyAny>>,
 ) -> PyResult<Bound<'py, PyDict>> {
-    let h = hessenberg_args(n, h)?;
+    let h = hessenberg_args(n, h, elbowroom_math::MAX_N)?;
     let f = polynomial(poly, h.n())?;
     sizes::divsym(&f, &h)?;
     let ds = run_long(py, progress, |p| divided_symmetrize_with(&f, &h, p))?;
@@ -105,7 +109,7 @@ pub fn hessenberg<'py>(
     h: Option<&Bound<'py, PyAny>>,
     progress: Option<&Bound<'py, PyAny>>,
 ) -> PyResult<Bound<'py, PyDict>> {
-    let h = hessenberg_args(n, h)?;
+    let h = hessenberg_args(n, h, elbowroom_math::limits::HESSENBERG_MAX_N)?;
     let listed = size_class_table(&h).map_err(math_error)?;
     if listed > COLLECTED_ROWS_LIMIT {
         return Err(bad(format!(

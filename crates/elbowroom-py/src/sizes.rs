@@ -15,11 +15,12 @@ use elbowroom_math::{MAX_N, Perm, RatPoly};
 use num_rational::BigRational;
 use pyo3::PyResult;
 
-/// The Hessenberg function of `n` and `h` (default h(i) = i + 1), as `--n` and `--h` are read.
-pub fn hessenberg_fn(n: usize, h: Option<&str>) -> PyResult<HessenbergFn> {
-    if n == 0 || n > MAX_N {
+/// The Hessenberg function of `n` (1 to `max_n`) and `h` (default
+/// h(i) = i + 1), as `--n` and `--h` are read.
+pub fn hessenberg_fn(n: usize, h: Option<&str>, max_n: usize) -> PyResult<HessenbergFn> {
+    if n == 0 || n > max_n {
         return Err(bad(format!(
-            "--n {n} is out of range; 1 <= n <= {MAX_N} is accepted"
+            "--n {n} is out of range; 1 <= n <= {max_n} is accepted"
         )));
     }
     match h {

@@ -105,6 +105,17 @@ def test_hessenberg_point_count_and_full_flag():
         assert er.hessenberg(n, [n] * n) == {w0(n): 1}
 
 
+def test_hessenberg_at_n_17_reads_one_difference():
+    # h = (16, 17, ..., 17): Q_h = x_1 − x_17 = S_{s_1} + S_{s_16} in H*(Fl_17),
+    # as S_{s_k} = x_1 + ... + x_k and x_1 + ... + x_17 = 0 there (Fulton,
+    # Young Tableaux, §10); a^h_w is its coefficient of S_{w0 w}
+    table = er.hessenberg(17, [16] + [17] * 16)
+    assert len(table) == 16
+    ones = [w for w, c in table.items() if c == 1]
+    assert ones == [(16, 17, *range(15, 0, -1)), (*range(17, 2, -1), 1, 2)]
+    assert all(c == 0 for w, c in table.items() if w not in ones)
+
+
 def test_schubert_is_the_sum_over_pipe_dreams():
     # Billey–Jockusch–Stanley (J. Algebraic Combin. 1993): S_w = Σ over reduced
     # pipe dreams of Π x_i over the crosses (i, j)

@@ -2,7 +2,8 @@
 //! run: a Monk step (x_i − x_j) · P on the flat bucketed vector against the same
 //! step on one hash map (`SchubertVector::times_linear`), and the row reader (one
 //! backward merge of the listing with the sorted class) against a binary-search
-//! look-up per row.
+//! look-up per row. The Monk step also runs on the wide key (five bits an
+//! entry, what n = 17 needs) beside the 64-bit key, on the same input.
 #![allow(missing_docs, clippy::unwrap_used)]
 
 use criterion::{BatchSize, Criterion, criterion_group, criterion_main};
@@ -11,7 +12,7 @@ use elbowroom::math::hessenberg::class::class_factors;
 use elbowroom::math::hessenberg::function::HessenbergFn;
 use elbowroom::math::hessenberg::rows::{FlatClass, flat_class, for_each_row_of};
 use elbowroom::math::perms::listing::for_each_of_length;
-use elbowroom::math::schubert::flat::{FlatVector, LexKey};
+use elbowroom::math::schubert::flat::{FlatKey, FlatVector, LexKey, WideLexKey};
 use elbowroom::math::schubert::vector::{LinearForm, SchubertVector, Space};
 use std::hint::black_box;
 use std::time::Duration;
@@ -47,6 +48,26 @@ fn monk_step(c: &mut Criterion) {
         g.bench_function(format!("{label}/flat_buckets"), |b| {
             b.iter_batched(
                 || flat.clone(),
+                |v| black_box(v.times_difference((i, j), &Progress::default(), u128::MAX)),
+                BatchSize::LargeInput,
+            )
+        });
+        // the same input on the wide key: what packing for S_17 costs
+        let wide = {
+            let mut v = FlatVector::<i64, WideLexKey>::one(n).unwrap();
+            let h = HessenbergFn::default_for(n).unwrap();
+            let factors = class_factors(&h);
+            for &f in &factors[..factors.len() - left] {
+                v = v
+                    .times_difference(f, &Progress::default(), u128::MAX)
+                    .unwrap();
+            }
+            assert_eq!(v.len(), flat.len());
+            v
+        };
+        g.bench_function(format!("{label}/flat_buckets_wide_key"), |b| {
+            b.iter_batched(
+                || wide.clone(),
                 |v| black_box(v.times_difference((i, j), &Progress::default(), u128::MAX)),
                 BatchSize::LargeInput,
             )

@@ -379,6 +379,26 @@ fn negative_numbers_reach_their_readers() {
     );
     refused(&["eulerian", "--n", "17"], &["--n 17", "2 <= n <= 16"]);
     refused(&["divsym", "x1", "--n", "0"], &["--n 0", "1 <= n <= 16"]);
+    // the Hessenberg table reaches S_17 (its permutations on the wide key);
+    // the polynomial commands stop at 16 variables
+    refused(&["hessenberg", "--n", "18"], &["--n 18", "1 <= n <= 17"]);
+    refused(&["divsym", "x1", "--n", "17"], &["--n 17", "1 <= n <= 16"]);
+    refused(
+        &["hessenberg", "--n", "x"],
+        &["--n must be a whole number from 1 to 17; got x"],
+    );
+    // the default h of n = 17 is accepted, but a larger class of S_17 is
+    // refused before the work: M(17, 17) = 300 895 513 rows
+    let h17: Vec<String> = [3]
+        .into_iter()
+        .chain(3..=17)
+        .chain([17])
+        .map(|v| v.to_string())
+        .collect();
+    refused(
+        &["hessenberg", "--n", "17", "--h", &h17.join(",")],
+        &["300895513 permutations", "175000000 accepted"],
+    );
     refused(
         &["divsym", "x1", "--n", "x"],
         &["--n must be a whole number from 1 to 16; got x"],

@@ -36,9 +36,9 @@ const CHECK_EVERY: usize = 1 << 12;
 use num_bigint::BigInt;
 
 /// The most terms a vector may reach on the way to Q_h.
-/// M(16, 17) = 130 701 986 (the degree of the next-to-last partial product of the
-/// default h of n = 16, [`crate::hessenberg::rows`]) is accepted.
-pub const CLASS_TERM_LIMIT: u128 = 140_000_000;
+/// M(17, 17) = 300 895 513 (the Mahonian bound of the next-to-last partial
+/// product of the default h of n = 17, [`crate::hessenberg::rows`]) is accepted.
+pub const CLASS_TERM_LIMIT: u128 = 320_000_000;
 
 /// The factors x_i − x_j of Q_h in the order they are multiplied: rows i = 1, 2, ...
 /// from the top, and in each row j = n, n − 1, ..., h(i) + 1.

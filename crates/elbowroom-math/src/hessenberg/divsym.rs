@@ -147,6 +147,7 @@ pub enum HessenbergFunctional {
 impl HessenbergFunctional {
     /// Prepares DS_h for monomials of degree |h|.
     pub fn new(h: &HessenbergFn) -> MathResult<Self> {
+        h.require_polynomials()?;
         if h.is_default() {
             return Ok(HessenbergFunctional::Postnikov(PostnikovFunctional::new(
                 h.n(),
@@ -274,6 +275,7 @@ pub fn divided_symmetrize_with(
     h: &HessenbergFn,
     progress: &Progress,
 ) -> MathResult<DividedSymmetrization> {
+    h.require_polynomials()?;
     let n = h.n();
     let f = f.with_nvars(n)?;
     let d0 = h.dimension() as u32;

@@ -20,6 +20,12 @@ pub struct HessenbergFn {
     values: Vec<usize>,
 }
 
+/// The largest n of a Hessenberg function: one more than the polynomials'
+/// [`MAX_N`], for the tables read off the class alone
+/// ([`crate::hessenberg::rows`], whose keys hold S_17); every computation
+/// through polynomials in x_1, ..., x_n refuses n > [`MAX_N`] itself.
+pub const HESSENBERG_MAX_N: usize = MAX_N + 1;
+
 const ACCEPTED: &str = "a Hessenberg function h(1),...,h(n) is weakly increasing, with i <= h(i) <= n and h(n) = n (for example 2,3,4,4)";
 
 impl HessenbergFn {
@@ -31,9 +37,9 @@ impl HessenbergFn {
                 "empty Hessenberg function; {ACCEPTED}"
             )));
         }
-        if n > MAX_N {
+        if n > HESSENBERG_MAX_N {
             return Err(MathError::OutOfRange(format!(
-                "n = {n}; Hessenberg functions of size up to {MAX_N} are supported"
+                "n = {n}; Hessenberg functions of size up to {HESSENBERG_MAX_N} are supported"
             )));
         }
         for (k, &v) in values.iter().enumerate() {
@@ -105,6 +111,19 @@ impl HessenbergFn {
             extend(&mut Vec::new(), n, &mut out);
         }
         out
+    }
+
+    /// `OutOfRange` when n is beyond the polynomials' [`MAX_N`] variables
+    /// (n = 17 is accepted for the tables read off the class only).
+    pub fn require_polynomials(&self) -> MathResult<()> {
+        let n = self.n();
+        if n > MAX_N {
+            return Err(MathError::OutOfRange(format!(
+                "n = {n}; computations with polynomials in x_1, ..., x_n accept n <= {MAX_N} \
+                 (n = {HESSENBERG_MAX_N} is for the Hessenberg table alone)"
+            )));
+        }
+        Ok(())
     }
 
     /// The size n.
@@ -181,6 +200,7 @@ impl HessenbergFn {
     /// [`HessenbergFn::complement_product`], stopping with `Canceled` within a
     /// few thousand term products of a cancel of `progress`.
     pub fn complement_product_with(&self, progress: &Progress) -> MathResult<IntPoly> {
+        self.require_polynomials()?;
         let n = self.n();
         let k = self.complement_pairs().len();
         // a product of k linear forms has at most min(2^k, C(k+n-1, n-1)) terms

@@ -21,20 +21,26 @@ use crate::hessenberg::table::{HessenbergTable, TableEntry};
 use crate::perms::listing::{for_each_of_length, mahonian_row};
 use crate::perms::perm::Perm;
 use crate::progress::Progress;
-use crate::schubert::flat::{FlatVector, LexKey};
+use crate::schubert::flat::{FlatKey, FlatVector, LexKey, WideLexKey};
 use crate::schubert::vector::{Coefficient, StepError, StepResult, exactly};
 use num_bigint::BigInt;
 use num_traits::{Signed, Zero};
 
 /// The most permutations a table by class may list (the Mahonian number M(n, |h|));
-/// M(16, 15) = 43 874 857 (the default h of n = 16) is accepted.
-pub const CLASS_TABLE_LIMIT: u128 = 50_000_000;
+/// M(17, 16) = 170 193 528 (the default h of n = 17) is accepted.
+pub const CLASS_TABLE_LIMIT: u128 = 175_000_000;
 
 /// The most Schubert terms the expansion of Q_h may hold at once, as bounded
-/// before it starts ([`held_terms_bound`]). The default h of n = 16 is estimated
-/// at 207 595 673 (M(16, 16) + M(16, 17)) and accepted; measured, it holds far
-/// fewer (README, "Performance").
-pub const CLASS_HELD_LIMIT: u128 = 220_000_000;
+/// before it starts ([`held_terms_bound`]). The default h of n = 17 is estimated
+/// at 471 089 041 (M(17, 16) + M(17, 17)) and accepted; measured, it holds far
+/// fewer (docs/performance-tables.md).
+pub const CLASS_HELD_LIMIT: u128 = 480_000_000;
+
+/// The bytes a term of the expansion takes in S_n: a packed key and an `i64`
+/// (16 bytes with [`LexKey`], n ≤ 16; 24 with [`WideLexKey`]).
+pub fn bytes_per_term(n: usize) -> u128 {
+    if n <= LexKey::MAX_N { 16 } else { 24 }
+}
 
 /// How many rows are listed between two checks of the cancel flag.
 const CHECK_EVERY: usize = 1 << 12;
@@ -80,7 +86,7 @@ pub fn size_class_table(h: &HessenbergFn) -> MathResult<u128> {
         return Err(MathError::OutOfRange(format!(
             "the class of h = {h} in H*(Fl_{n}) is estimated to hold up to {held} Schubert \
              terms at once (about {} GB), more than the {CLASS_HELD_LIMIT} accepted",
-            held * 32 / 1_000_000_000
+            (held * bytes_per_term(n)).div_ceil(1_000_000_000)
         )));
     }
     Ok(listed)
@@ -200,17 +206,18 @@ pub struct ValueRow<'a> {
     pub value: RowValue,
 }
 
-/// The class Q_h in H*(Fl_n), sorted by w0 w, in whichever integers it fit.
-pub enum FlatClass {
+/// The class Q_h in H*(Fl_n), sorted by w0 w, in whichever integers it fit;
+/// keyed by [`LexKey`] (n ≤ 16) unless another key is named.
+pub enum FlatClass<K = LexKey> {
     /// Every coefficient of every partial product fit an `i64`.
-    Word(FlatVector<i64>),
+    Word(FlatVector<i64, K>),
     /// Every one fit an `i128`.
-    Wide(FlatVector<i128>),
+    Wide(FlatVector<i128, K>),
     /// Big integers.
-    Big(FlatVector<BigInt>),
+    Big(FlatVector<BigInt, K>),
 }
 
-impl FlatClass {
+impl<K: FlatKey> FlatClass<K> {
     /// The number of nonzero terms of Q_h (the nonzero a^h_w).
     pub fn len(&self) -> usize {
         match self {
@@ -226,12 +233,12 @@ impl FlatClass {
     }
 }
 
-fn product_in<C: Coefficient>(
+fn product_in<C: Coefficient, K: FlatKey>(
     n: usize,
     factors: &[(usize, usize)],
     progress: &Progress,
-) -> StepResult<FlatVector<C>> {
-    let mut v = FlatVector::<C>::one(n)?;
+) -> StepResult<FlatVector<C, K>> {
+    let mut v = FlatVector::<C, K>::one(n)?;
     for &pair in factors {
         v = v.times_difference(pair, progress, CLASS_TERM_LIMIT)?;
         progress.advance(1);
@@ -241,7 +248,9 @@ fn product_in<C: Coefficient>(
 
 /// Q_h = Π_{i<j, j>h(i)} (x_i − x_j) in H*(Fl_n) on flat vectors, every factor
 /// on every core, in `i64`, else `i128`, else big integers; progress advances
-/// once a factor. Not sized here: [`size_class_table`] first.
+/// once a factor. Not sized here: [`size_class_table`] first. Keyed by
+/// [`LexKey`], so n ≤ 16 (`OutOfRange` beyond); [`flat_class_keyed`] takes
+/// the key as a parameter.
 ///
 /// ```
 /// use elbowroom_math::Progress;
@@ -254,22 +263,42 @@ fn product_in<C: Coefficient>(
 /// assert_eq!(terms, vec![6]);
 /// ```
 pub fn flat_class(h: &HessenbergFn, progress: &Progress) -> MathResult<FlatClass> {
+    flat_class_keyed::<LexKey>(h, progress)
+}
+
+/// [`flat_class`] with the permutations packed in the key K (n ≤ `K::MAX_N`).
+///
+/// ```
+/// use elbowroom_math::Progress;
+/// use elbowroom_math::hessenberg::function::HessenbergFn;
+/// use elbowroom_math::hessenberg::rows::{FlatClass, flat_class_keyed};
+/// use elbowroom_math::schubert::flat::WideLexKey;
+/// // h = (2,3,3): Q_h = x_1 − x_3 = S_{132} + S_{213}, in either key
+/// let h = HessenbergFn::new(&[2, 3, 3]).unwrap();
+/// let q = flat_class_keyed::<WideLexKey>(&h, &Progress::default()).unwrap();
+/// let FlatClass::Word(v) = q else { panic!() };
+/// assert_eq!(v.iter().map(|t| t.1).collect::<Vec<i64>>(), vec![1, 1]);
+/// ```
+pub fn flat_class_keyed<K: FlatKey>(
+    h: &HessenbergFn,
+    progress: &Progress,
+) -> MathResult<FlatClass<K>> {
     let factors = class_factors(h);
     let n = h.n();
-    match product_in::<i64>(n, &factors, progress) {
+    match product_in::<i64, K>(n, &factors, progress) {
         Ok(v) => Ok(FlatClass::Word(v)),
         Err(StepError::Math(e)) => Err(e),
         Err(StepError::Overflow) => exactly(
-            || product_in::<i128>(n, &factors, progress).map(FlatClass::Wide),
-            || product_in::<BigInt>(n, &factors, progress).map(FlatClass::Big),
+            || product_in::<i128, K>(n, &factors, progress).map(FlatClass::Wide),
+            || product_in::<BigInt, K>(n, &factors, progress).map(FlatClass::Big),
         ),
     }
 }
 
 /// Calls `visit` with a^h_w for every w of length |h| whose listing index passes
 /// `select`, in listing order, read off `class` (= Q_h) by a backward merge.
-fn read_rows<C: Coefficient, E: From<MathError>>(
-    class: &FlatVector<C>,
+fn read_rows<C: Coefficient, K: FlatKey, E: From<MathError>>(
+    class: &FlatVector<C, K>,
     h: &HessenbergFn,
     select: &(dyn Fn(usize) -> bool + Sync),
     progress: &Progress,
@@ -289,7 +318,7 @@ fn read_rows<C: Coefficient, E: From<MathError>>(
         if !select(index) {
             return Ok(());
         }
-        let key = LexKey::of_reversed(line, n);
+        let key = K::of_reversed(line, n);
         while cursor.next_if(|t| t.0 > key).is_some() {}
         let value = match cursor.peek() {
             Some(t) if t.0 == key => RowValue::of(&t.1),
@@ -328,15 +357,20 @@ pub fn for_each_class_value<E: From<MathError>>(
 ) -> Result<usize, E> {
     let listed = size_class_table(h)?;
     progress.set_total(class_factors(h).len() as u64 + listed as u64);
-    let class = flat_class(h, progress)?;
-    for_each_row_of(&class, h, select, progress, visit)?;
+    if h.n() <= LexKey::MAX_N {
+        let class = flat_class_keyed::<LexKey>(h, progress)?;
+        for_each_row_of(&class, h, select, progress, visit)?;
+    } else {
+        let class = flat_class_keyed::<WideLexKey>(h, progress)?;
+        for_each_row_of(&class, h, select, progress, visit)?;
+    }
     Ok(listed as usize)
 }
 
 /// The rows of [`for_each_class_value`] read off a class already expanded
 /// (`class` = Q_h for this h, from [`flat_class`]) by one backward merge.
-pub fn for_each_row_of<E: From<MathError>>(
-    class: &FlatClass,
+pub fn for_each_row_of<K: FlatKey, E: From<MathError>>(
+    class: &FlatClass<K>,
     h: &HessenbergFn,
     select: &(dyn Fn(usize) -> bool + Sync),
     progress: &Progress,
@@ -447,6 +481,67 @@ mod tests {
                 .unwrap();
                 assert_eq!(rows as u128, mahonian_row(n)[h.dimension()]);
             }
+        }
+    }
+
+    fn table_of(h: &HessenbergFn) -> Vec<(Vec<u8>, RowValue)> {
+        let mut rows = Vec::new();
+        for_each_class_value(h, &|_| true, &Progress::default(), &mut |row| {
+            rows.push((row.line.to_vec(), row.value));
+            Ok::<(), MathError>(())
+        })
+        .unwrap();
+        rows
+    }
+
+    /// n = 17 runs on the wide key. Q_h for h = (16, 17, ..., 17) is
+    /// x_1 − x_17 = S_{s_1} + S_{s_16} in H*(Fl_17), since S_{s_k} = x_1 + ⋯ + x_k
+    /// and x_1 + ⋯ + x_n = 0 there (Fulton, *Young Tableaux*, §10): so a^h_w = 1
+    /// exactly for w0 w = s_1 and s_16, 0 for the other 14 w of length 135.
+    #[test]
+    fn n_17_reads_the_class_of_one_difference() {
+        let mut values = vec![17usize; 17];
+        values[0] = 16;
+        let h = HessenbergFn::new(&values).unwrap();
+        let rows = table_of(&h);
+        assert_eq!(rows.len() as u128, mahonian_row(17)[h.dimension()]);
+        assert_eq!(rows.len(), 16);
+        let ones: Vec<&Vec<u8>> = rows
+            .iter()
+            .filter(|(_, v)| *v == RowValue::Int(1))
+            .map(|(w, _)| w)
+            .collect();
+        let w0_s1: Vec<u8> = [16, 17].into_iter().chain((1..=15).rev()).collect();
+        let w0_s16: Vec<u8> = (3..=17).rev().chain([1, 2]).collect();
+        assert_eq!(ones, vec![&w0_s1, &w0_s16]);
+        assert!(rows.iter().all(|(_, v)| matches!(v, RowValue::Int(0 | 1))));
+    }
+
+    /// a^h_w = a^{h*}_{w0 w w0}, h* the transpose of h in the antidiagonal (the
+    /// symmetry of the class under the flip of the flag, from memory), on
+    /// classes of S_17 with a few factors each (at most six: the listing is
+    /// M(17, k) for k factors), whose keys use both words of the wide key.
+    #[test]
+    fn n_17_tables_have_the_antidiagonal_symmetry() {
+        use crate::explain::symmetry::transpose_hessenberg;
+        let cases: Vec<Vec<usize>> = vec![
+            [15, 16].into_iter().chain([17; 15]).collect(),
+            [14, 17].into_iter().chain([17; 15]).collect(),
+            [15, 15, 15].into_iter().chain([17; 14]).collect(),
+        ];
+        for values in cases {
+            let h = HessenbergFn::new(&values).unwrap();
+            let star = transpose_hessenberg(&h).unwrap();
+            let table = table_of(&h);
+            let flipped: std::collections::HashMap<Vec<u8>, RowValue> =
+                table_of(&star).into_iter().collect();
+            assert_eq!(table.len(), flipped.len(), "h = {h}");
+            for (w, v) in &table {
+                // (w0 w w0)(i) = 18 − w(18 − i)
+                let conj: Vec<u8> = (1..=17).map(|i| 18 - w[17 - i]).collect();
+                assert_eq!(flipped.get(&conj), Some(v), "h = {h}, w = {w:?}");
+            }
+            assert!(table.iter().any(|(_, v)| *v != RowValue::Int(0)));
         }
     }
 }

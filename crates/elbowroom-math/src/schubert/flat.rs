@@ -1,9 +1,11 @@
 //! Classes in H*(Fl_n) as flat bucketed vectors of packed keys, and the Monk
 //! step λ · Σ c_w S_w for λ = x_i − x_j run on every core.
 //!
-//! A [`FlatVector`] holds its terms (w, c_w) in 256 buckets by the first two
-//! entries of w, each bucket a vector sorted by [`LexKey`], so that the buckets
-//! read in order list the terms in lexicographic order of one-line notation. A
+//! A [`FlatVector`] holds its terms (w, c_w) in buckets by the first two
+//! entries of w, each bucket a vector sorted by a packed key ([`FlatKey`]:
+//! [`LexKey`], 64 bits, for n ≤ 16; [`WideLexKey`], 96 bits, for n ≤ 18), so
+//! that the buckets read in order list the terms in lexicographic order of
+//! one-line notation. A
 //! step never grows one big hash map (whose look-ups miss the cache once it
 //! outgrows it): each worker takes a contiguous share of the input, writes every
 //! term of Monk's rule into its own buffer of the target's bucket, and sorts and
@@ -21,13 +23,9 @@
 //! runs the product again in a wider type.
 
 use crate::error::MathError;
-use crate::perms::perm::MAX_N;
 use crate::progress::Progress;
 use crate::schubert::vector::{Coefficient, StepError, StepResult};
 use rayon::prelude::*;
-
-/// The number of buckets: one per value of the key's top byte (w(1), w(2)).
-const BUCKETS: usize = 256;
 
 /// How many terms a worker multiplies between two checks of the cancel flag.
 const CHECK_EVERY: usize = 1 << 12;
@@ -39,11 +37,42 @@ const PARALLEL_FROM: usize = 1 << 14;
 /// reaches twice its size after the last such pass, and at least this size.
 const COMPACT_FROM: usize = 1 << 12;
 
+/// The largest n any key holds ([`WideLexKey`]); arrays of one-line values
+/// are this long plus one (index 0 unused).
+pub const KEY_MAX_N: usize = 18;
+
+/// A permutation packed so that the order of keys is the lexicographic order
+/// of one-line notation, with the entries cheap to read and to swap.
+///
+/// Two widths: [`LexKey`] (8 bytes, n ≤ 16) and [`WideLexKey`] (12 bytes in a
+/// 16-byte slot, n ≤ 18); the flat vectors are generic over the key, so a table
+/// of n ≤ 16 keeps the narrow one and pays nothing for the wide.
+pub trait FlatKey:
+    Copy + Clone + Default + Ord + Eq + std::hash::Hash + std::fmt::Debug + Send + Sync
+{
+    /// The largest n whose permutations the key holds.
+    const MAX_N: usize;
+    /// The number of buckets (by a prefix of the key, so the buckets read in
+    /// order list the keys in order).
+    const BUCKETS: usize;
+    /// The key of the one-line values w(1), ..., w(m) (1-based, m ≤ `MAX_N`).
+    fn from_values(values: &[u8]) -> Self;
+    /// The key of w0 w in S_n, (w0 w)(i) = n + 1 − w(i), from w(1), ..., w(n).
+    fn of_reversed(w: &[u8], n: usize) -> Self;
+    /// w(1), ..., w(n) at indices 1..=n (index 0 unused).
+    fn values(self, n: usize) -> [u8; KEY_MAX_N + 1];
+    /// The bucket of the key (< `BUCKETS`).
+    fn bucket(self) -> usize;
+    /// w t_{ab}: the entries in 1-based positions a and b swapped, given
+    /// w(a) − 1 and w(b) − 1.
+    fn swapped(self, a: usize, b: usize, va: u8, vb: u8) -> Self;
+}
+
 /// A permutation of S_n, n ≤ 16, packed so that integer order is lexicographic
 /// order of one-line notation: w(i) − 1 in the nibble at bits 60 − 4(i − 1).
 ///
 /// ```
-/// use elbowroom_math::schubert::flat::LexKey;
+/// use elbowroom_math::schubert::flat::{FlatKey, LexKey};
 /// let a = LexKey::from_values(&[2, 1, 3]);
 /// let b = LexKey::from_values(&[2, 3, 1]);
 /// assert!(a < b);
@@ -54,75 +83,191 @@ const COMPACT_FROM: usize = 1 << 12;
 #[derive(Clone, Copy, Debug, Default, PartialEq, Eq, PartialOrd, Ord, Hash)]
 pub struct LexKey(u64);
 
-impl LexKey {
-    /// The key of the one-line values w(1), ..., w(m) (1-based, m ≤ 16).
+impl FlatKey for LexKey {
+    const MAX_N: usize = 16;
+    /// One per value of the top byte (w(1), w(2)).
+    const BUCKETS: usize = 256;
+
     #[inline]
-    pub fn from_values(values: &[u8]) -> LexKey {
+    fn from_values(values: &[u8]) -> LexKey {
         let mut key = 0u64;
-        for (k, &v) in values.iter().enumerate().take(MAX_N) {
+        for (k, &v) in values.iter().enumerate().take(Self::MAX_N) {
             key |= (u64::from(v.wrapping_sub(1)) & 15) << (60 - 4 * k);
         }
         LexKey(key)
     }
 
-    /// The key of w0 w in S_n, (w0 w)(i) = n + 1 − w(i), from w(1), ..., w(n).
     #[inline]
-    pub fn of_reversed(w: &[u8], n: usize) -> LexKey {
+    fn of_reversed(w: &[u8], n: usize) -> LexKey {
         let mut key = 0u64;
-        for (k, &v) in w.iter().enumerate().take(MAX_N) {
+        for (k, &v) in w.iter().enumerate().take(Self::MAX_N) {
             key |= (((n as u64).wrapping_sub(u64::from(v))) & 15) << (60 - 4 * k);
         }
         LexKey(key)
     }
 
-    /// w(1), ..., w(n) at indices 1..=n (index 0 unused).
     #[inline]
-    pub fn values(self, n: usize) -> [u8; MAX_N + 1] {
-        let mut out = [0u8; MAX_N + 1];
-        for (k, slot) in out.iter_mut().skip(1).take(n).enumerate() {
+    fn values(self, n: usize) -> [u8; KEY_MAX_N + 1] {
+        let mut out = [0u8; KEY_MAX_N + 1];
+        for (k, slot) in out.iter_mut().skip(1).take(n.min(Self::MAX_N)).enumerate() {
             *slot = ((self.0 >> (60 - 4 * k)) & 15) as u8 + 1;
         }
         out
     }
 
-    /// The bucket of the key: its top byte, (w(1) − 1, w(2) − 1).
     #[inline]
     fn bucket(self) -> usize {
         (self.0 >> 56) as usize
     }
 
-    /// w t_{ab}: the entries in 1-based positions a and b swapped, given w(a), w(b).
     #[inline]
     fn swapped(self, a: usize, b: usize, va: u8, vb: u8) -> LexKey {
         let x = u64::from(va ^ vb);
         LexKey(self.0 ^ (x << (64 - 4 * a)) ^ (x << (64 - 4 * b)))
     }
+}
 
+impl LexKey {
     /// The raw packed key.
     pub fn raw(self) -> u64 {
         self.0
     }
 }
 
-/// A vector Σ c_w S_w in H*(Fl_n) (n ≤ 16), its terms in 256 buckets by
-/// (w(1), w(2)), each sorted by [`LexKey`]; no zero coefficients.
-#[derive(Clone, Debug)]
-pub struct FlatVector<C> {
-    n: usize,
-    buckets: Vec<Vec<(LexKey, C)>>,
+/// A permutation of S_n, n ≤ 18, packed five bits an entry so that the order
+/// of keys is lexicographic order of one-line notation: w(i) − 1 for
+/// i = 1..12 in `high` at bits 59 − 5(i − 1) and up, for i = 13..18 in `low`
+/// at bits 27 − 5(i − 13) and up; compared as (high, low).
+///
+/// ```
+/// use elbowroom_math::schubert::flat::{FlatKey, WideLexKey};
+/// let w: Vec<u8> = (1..=17).rev().collect();
+/// let key = WideLexKey::from_values(&w);
+/// assert_eq!(&key.values(17)[1..=17], &w[..]);
+/// // swapping positions 1 and 17 of w0 gives 1 16 15 ... 2 17
+/// let swapped: Vec<u8> = [1].into_iter().chain((2..=16).rev()).chain([17]).collect();
+/// assert_eq!(
+///     key.swapped(1, 17, 16, 0),
+///     WideLexKey::from_values(&swapped)
+/// );
+/// assert!(WideLexKey::from_values(&swapped) < key);
+/// ```
+#[derive(Clone, Copy, Debug, Default, PartialEq, Eq, PartialOrd, Ord, Hash)]
+pub struct WideLexKey {
+    high: u64,
+    low: u32,
 }
 
-impl<C: Coefficient> FlatVector<C> {
-    /// S_id = 1 in H*(Fl_n); `OutOfRange` unless 1 ≤ n ≤ 16.
+impl WideLexKey {
+    /// Entries 1..=12 in `high`, 13..=18 in `low`.
+    const IN_HIGH: usize = 12;
+
+    /// The shift of the 1-based position `i` in its word.
+    #[inline]
+    fn shift(i: usize) -> u32 {
+        if i <= Self::IN_HIGH {
+            (64 - 5 * i) as u32
+        } else {
+            (32 - 5 * (i - Self::IN_HIGH)) as u32
+        }
+    }
+
+    #[inline]
+    fn set(&mut self, i: usize, v: u8) {
+        let v = v & 31;
+        if i <= Self::IN_HIGH {
+            self.high |= u64::from(v) << Self::shift(i);
+        } else {
+            self.low |= u32::from(v) << Self::shift(i);
+        }
+    }
+
+    #[inline]
+    fn get(self, i: usize) -> u8 {
+        if i <= Self::IN_HIGH {
+            ((self.high >> Self::shift(i)) & 31) as u8
+        } else {
+            ((self.low >> Self::shift(i)) & 31) as u8
+        }
+    }
+
+    #[inline]
+    fn toggle(&mut self, i: usize, x: u8) {
+        if i <= Self::IN_HIGH {
+            self.high ^= u64::from(x) << Self::shift(i);
+        } else {
+            self.low ^= u32::from(x) << Self::shift(i);
+        }
+    }
+}
+
+impl FlatKey for WideLexKey {
+    const MAX_N: usize = 18;
+    /// One per value of the top ten bits (w(1), w(2)).
+    const BUCKETS: usize = 1024;
+
+    #[inline]
+    fn from_values(values: &[u8]) -> WideLexKey {
+        let mut key = WideLexKey::default();
+        for (k, &v) in values.iter().enumerate().take(Self::MAX_N) {
+            key.set(k + 1, v.wrapping_sub(1));
+        }
+        key
+    }
+
+    #[inline]
+    fn of_reversed(w: &[u8], n: usize) -> WideLexKey {
+        let mut key = WideLexKey::default();
+        for (k, &v) in w.iter().enumerate().take(Self::MAX_N) {
+            key.set(k + 1, (n as u8).wrapping_sub(v));
+        }
+        key
+    }
+
+    #[inline]
+    fn values(self, n: usize) -> [u8; KEY_MAX_N + 1] {
+        let mut out = [0u8; KEY_MAX_N + 1];
+        for (i, slot) in out.iter_mut().enumerate().skip(1).take(n.min(Self::MAX_N)) {
+            *slot = self.get(i) + 1;
+        }
+        out
+    }
+
+    #[inline]
+    fn bucket(self) -> usize {
+        (self.high >> 54) as usize
+    }
+
+    #[inline]
+    fn swapped(self, a: usize, b: usize, va: u8, vb: u8) -> WideLexKey {
+        let x = va ^ vb;
+        let mut key = self;
+        key.toggle(a, x);
+        key.toggle(b, x);
+        key
+    }
+}
+
+/// A vector Σ c_w S_w in H*(Fl_n) (n ≤ `K::MAX_N`), its terms in buckets by
+/// (w(1), w(2)), each sorted by the key K; no zero coefficients.
+#[derive(Clone, Debug)]
+pub struct FlatVector<C, K = LexKey> {
+    n: usize,
+    buckets: Vec<Vec<(K, C)>>,
+}
+
+impl<C: Coefficient, K: FlatKey> FlatVector<C, K> {
+    /// S_id = 1 in H*(Fl_n); `OutOfRange` unless 1 ≤ n ≤ `K::MAX_N`.
     pub fn one(n: usize) -> Result<Self, MathError> {
-        if n == 0 || n > MAX_N {
+        if n == 0 || n > K::MAX_N {
             return Err(MathError::OutOfRange(format!(
-                "H*(Fl_{n}): n must be between 1 and {MAX_N}"
+                "H*(Fl_{n}): n must be between 1 and {}",
+                K::MAX_N
             )));
         }
-        let mut buckets: Vec<Vec<(LexKey, C)>> = (0..BUCKETS).map(|_| Vec::new()).collect();
+        let mut buckets: Vec<Vec<(K, C)>> = (0..K::BUCKETS).map(|_| Vec::new()).collect();
         let id: Vec<u8> = (1..=n as u8).collect();
-        let key = LexKey::from_values(&id);
+        let key = K::from_values(&id);
         buckets[key.bucket()].push((key, C::from_i64(1)));
         Ok(FlatVector { n, buckets })
     }
@@ -143,12 +288,12 @@ impl<C: Coefficient> FlatVector<C> {
     }
 
     /// The terms in increasing lexicographic order of w.
-    pub fn iter(&self) -> impl DoubleEndedIterator<Item = &(LexKey, C)> {
+    pub fn iter(&self) -> impl DoubleEndedIterator<Item = &(K, C)> {
         self.buckets.iter().flat_map(|b| b.iter())
     }
 
     /// c_w (0 when absent), by binary search in the bucket of w.
-    pub fn coefficient(&self, key: LexKey) -> C {
+    pub fn coefficient(&self, key: K) -> C {
         let bucket = &self.buckets[key.bucket()];
         match bucket.binary_search_by_key(&key, |t| t.0) {
             Ok(k) => bucket[k].1.clone(),
@@ -162,7 +307,7 @@ impl<C: Coefficient> FlatVector<C> {
     ///
     /// ```
     /// use elbowroom_math::Progress;
-    /// use elbowroom_math::schubert::flat::{FlatVector, LexKey};
+    /// use elbowroom_math::schubert::flat::{FlatKey, FlatVector, LexKey};
     /// // (x_1 − x_3) · 1 = S_{132} + S_{213} in H*(Fl_3)
     /// let one = FlatVector::<i64>::one(3).unwrap();
     /// let v = one.times_difference((1, 3), &Progress::default(), 100).unwrap();
@@ -191,7 +336,7 @@ impl<C: Coefficient> FlatVector<C> {
             rayon::current_num_threads().max(1)
         };
         let groups = split_into_groups(self.buckets, total, workers);
-        let sprays: Vec<Spray<C>> = if workers == 1 {
+        let sprays: Vec<Spray<C, K>> = if workers == 1 {
             groups
                 .into_iter()
                 .map(|g| spray_group(g, n, (i, j), progress))
@@ -204,7 +349,7 @@ impl<C: Coefficient> FlatVector<C> {
         };
         progress.check()?;
         // per target bucket, the workers' buffers
-        let mut pieces: Vec<Vec<Vec<(LexKey, C)>>> = (0..BUCKETS).map(|_| Vec::new()).collect();
+        let mut pieces: Vec<Vec<Vec<(K, C)>>> = (0..K::BUCKETS).map(|_| Vec::new()).collect();
         for spray in sprays {
             for (b, buf) in spray.buffers.into_iter().enumerate() {
                 if !buf.is_empty() {
@@ -212,7 +357,7 @@ impl<C: Coefficient> FlatVector<C> {
                 }
             }
         }
-        let gather = |parts: Vec<Vec<(LexKey, C)>>| -> StepResult<Vec<(LexKey, C)>> {
+        let gather = |parts: Vec<Vec<(K, C)>>| -> StepResult<Vec<(K, C)>> {
             let mut parts = parts;
             let Some(largest) = (0..parts.len()).max_by_key(|&k| parts[k].len()) else {
                 return Ok(Vec::new());
@@ -225,7 +370,7 @@ impl<C: Coefficient> FlatVector<C> {
             base.shrink_to_fit();
             Ok(base)
         };
-        let buckets: Vec<Vec<(LexKey, C)>> = if workers == 1 {
+        let buckets: Vec<Vec<(K, C)>> = if workers == 1 {
             pieces.into_iter().map(gather).collect::<StepResult<_>>()?
         } else {
             pieces
@@ -245,11 +390,11 @@ impl<C: Coefficient> FlatVector<C> {
 }
 
 /// The input buckets cut into `workers` runs of about equal terms, in order.
-fn split_into_groups<C>(
-    buckets: Vec<Vec<(LexKey, C)>>,
+fn split_into_groups<C, K>(
+    buckets: Vec<Vec<(K, C)>>,
     total: usize,
     workers: usize,
-) -> Vec<Vec<Vec<(LexKey, C)>>> {
+) -> Vec<Vec<Vec<(K, C)>>> {
     let share = total.div_ceil(workers.max(1)).max(1);
     let mut groups = Vec::with_capacity(workers);
     let mut current = Vec::new();
@@ -272,22 +417,22 @@ fn split_into_groups<C>(
 }
 
 /// One worker's output: a buffer per target bucket.
-struct Spray<C> {
-    buffers: Vec<Vec<(LexKey, C)>>,
+struct Spray<C, K> {
+    buffers: Vec<Vec<(K, C)>>,
     /// The length of each buffer after its last sort-and-sum.
     clean: Vec<usize>,
 }
 
-impl<C: Coefficient> Spray<C> {
+impl<C: Coefficient, K: FlatKey> Spray<C, K> {
     fn new() -> Self {
         Spray {
-            buffers: (0..BUCKETS).map(|_| Vec::new()).collect(),
-            clean: vec![0; BUCKETS],
+            buffers: (0..K::BUCKETS).map(|_| Vec::new()).collect(),
+            clean: vec![0; K::BUCKETS],
         }
     }
 
     #[inline]
-    fn push(&mut self, key: LexKey, c: C) -> StepResult<()> {
+    fn push(&mut self, key: K, c: C) -> StepResult<()> {
         let b = key.bucket();
         let buf = &mut self.buffers[b];
         buf.push((key, c));
@@ -301,12 +446,12 @@ impl<C: Coefficient> Spray<C> {
 
 /// The terms of (x_i − x_j) · (one worker's share), into its own buffers; each
 /// input bucket is dropped once multiplied.
-fn spray_group<C: Coefficient>(
-    group: Vec<Vec<(LexKey, C)>>,
+fn spray_group<C: Coefficient, K: FlatKey>(
+    group: Vec<Vec<(K, C)>>,
     n: usize,
     (i, j): (usize, usize),
     progress: &Progress,
-) -> StepResult<Spray<C>> {
+) -> StepResult<Spray<C, K>> {
     let mut spray = Spray::new();
     let mut count = 0usize;
     let two = C::from_i64(2);
@@ -347,11 +492,11 @@ fn spray_group<C: Coefficient>(
 /// λ_a ≠ λ_b, for λ = x_i − x_j (λ_i = 1, λ_j = −1, else 0); the multiplier is
 /// ±1 or ±2.
 #[inline]
-pub fn covers_of_difference(
-    key: LexKey,
+pub fn covers_of_difference<K: FlatKey>(
+    key: K,
     n: usize,
     (i, j): (usize, usize),
-    mut emit: impl FnMut(LexKey, i8),
+    mut emit: impl FnMut(K, i8),
 ) {
     let v = key.values(n);
     let lambda = |k: usize| -> i8 {
@@ -400,7 +545,7 @@ pub fn covers_of_difference(
 }
 
 /// Sorts the terms by key and sums the repeated ones, dropping zeros.
-fn combine<C: Coefficient>(v: &mut Vec<(LexKey, C)>) -> StepResult<()> {
+fn combine<C: Coefficient, K: Ord + Copy>(v: &mut Vec<(K, C)>) -> StepResult<()> {
     v.sort_unstable_by_key(|t| t.0);
     let mut w = 0usize;
     for r in 0..v.len() {
@@ -471,6 +616,93 @@ mod tests {
         let mut by_key: Vec<(LexKey, &Perm)> = keys.iter().copied().zip(perms.iter()).collect();
         by_key.sort();
         assert!(by_key.iter().map(|t| t.1).eq(sorted.iter()));
+    }
+
+    /// The wide key reads back, orders and swaps as one-line notation does,
+    /// on permutations of S_18 of every shape of swap (both positions in the
+    /// high word, both in the low word, one in each).
+    #[test]
+    fn wide_keys_read_order_and_swap_like_one_line_notation() {
+        let mut state = 0x9e37_79b9_7f4a_7c15u64;
+        let mut next = move || {
+            state ^= state << 13;
+            state ^= state >> 7;
+            state ^= state << 17;
+            state
+        };
+        let mut perms: Vec<Vec<u8>> = Vec::new();
+        for _ in 0..400 {
+            let mut w: Vec<u8> = (1..=18).collect();
+            for k in (1..w.len()).rev() {
+                w.swap(k, (next() % (k as u64 + 1)) as usize);
+            }
+            perms.push(w);
+        }
+        for w in &perms {
+            let key = WideLexKey::from_values(w);
+            assert_eq!(&key.values(18)[1..=18], &w[..]);
+            let reversed: Vec<u8> = w.iter().map(|&v| 19 - v).collect();
+            assert_eq!(
+                WideLexKey::of_reversed(w, 18),
+                WideLexKey::from_values(&reversed)
+            );
+            for (a, b) in [(1, 2), (3, 12), (12, 13), (5, 17), (13, 18), (1, 18)] {
+                let mut t = w.clone();
+                t.swap(a - 1, b - 1);
+                assert_eq!(
+                    key.swapped(a, b, w[a - 1] - 1, w[b - 1] - 1),
+                    WideLexKey::from_values(&t)
+                );
+            }
+        }
+        let mut by_key = perms.clone();
+        by_key.sort_by_key(|w| WideLexKey::from_values(w));
+        let mut by_line = perms;
+        by_line.sort();
+        assert_eq!(by_key, by_line);
+        // the buckets are a prefix of the key: increasing with the key
+        let mut keys: Vec<WideLexKey> =
+            by_line.iter().map(|w| WideLexKey::from_values(w)).collect();
+        keys.sort();
+        assert!(keys.windows(2).all(|p| p[0].bucket() <= p[1].bucket()));
+        assert!(keys.iter().all(|k| k.bucket() < WideLexKey::BUCKETS));
+    }
+
+    /// Products of differences on the wide key agree term by term with the
+    /// narrow key (each written on its own packing), in S_7 through every
+    /// factor, and in S_16 for a few factors meeting positions on both sides
+    /// of the wide key's two words.
+    #[test]
+    fn wide_and_narrow_keys_give_the_same_products() {
+        let cases: Vec<(usize, Vec<(usize, usize)>)> = vec![
+            (
+                7,
+                (1..=7)
+                    .flat_map(|i| (i + 1..=7).rev().map(move |j| (i, j)))
+                    .collect(),
+            ),
+            (
+                16,
+                vec![(1, 16), (12, 13), (3, 14), (13, 16), (2, 12), (11, 15)],
+            ),
+        ];
+        for (n, factors) in cases {
+            let mut narrow = FlatVector::<i64, LexKey>::one(n).unwrap();
+            let mut wide = FlatVector::<i64, WideLexKey>::one(n).unwrap();
+            for &f in &factors {
+                narrow = narrow
+                    .times_difference(f, &Progress::default(), u128::MAX)
+                    .unwrap();
+                wide = wide
+                    .times_difference(f, &Progress::default(), u128::MAX)
+                    .unwrap();
+                assert_eq!(narrow.len(), wide.len(), "n = {n}, factor {f:?}");
+                for ((kn, cn), (kw, cw)) in narrow.iter().zip(wide.iter()) {
+                    assert_eq!(kn.values(n), kw.values(n));
+                    assert_eq!(cn, cw);
+                }
+            }
+        }
     }
 
     #[test]

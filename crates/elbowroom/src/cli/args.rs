@@ -245,7 +245,7 @@ pub struct DivsymArgs {
 #[derive(Args, Debug)]
 pub struct HessenbergArgs {
     /// The number of variables n.
-    #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
+    #[arg(long, allow_hyphen_values = true, value_parser = table_n, help = format!("The number of variables n (1 to {})", crate::math::hessenberg::function::HESSENBERG_MAX_N))]
     pub n: usize,
     /// A Hessenberg function h(1),...,h(n) (default h(i) = i+1 for i < n).
     #[arg(long, allow_hyphen_values = true)]
@@ -665,6 +665,19 @@ pub fn whole_n(text: &str) -> Result<usize, String> {
         format!(
             "--n must be a whole number from 1 to {}; got {}",
             crate::math::MAX_N,
+            quoted(text)
+        )
+    })
+}
+
+/// `--n` of `hessenberg`: a whole number (its range, 1 to
+/// [`crate::math::hessenberg::function::HESSENBERG_MAX_N`], is checked where
+/// it is used).
+pub fn table_n(text: &str) -> Result<usize, String> {
+    text.trim().parse::<usize>().map_err(|_| {
+        format!(
+            "--n must be a whole number from 1 to {}; got {}",
+            crate::math::hessenberg::function::HESSENBERG_MAX_N,
             quoted(text)
         )
     })

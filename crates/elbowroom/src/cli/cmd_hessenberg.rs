@@ -48,7 +48,11 @@ pub fn run(args: &HessenbergArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     if args.every_h {
         return sink.whole(&every_h(args)?);
     }
-    let h = hessenberg_from_args(args.n, args.h.as_deref())?;
+    let h = hessenberg_from_args(
+        args.n,
+        args.h.as_deref(),
+        crate::math::hessenberg::function::HESSENBERG_MAX_N,
+    )?;
     let shard = args.shard.unwrap_or(Shard::WHOLE);
     if let Some(path) = &args.save_class {
         return save_class(&h, path, sink);
@@ -448,7 +452,7 @@ impl<'h> RowStream<'h> {
     }
 }
 
-/// One-line values (1 to 16) joined by `sep`, appended to `buf`.
+/// One-line values (1 to 17) joined by `sep`, appended to `buf`.
 #[inline]
 fn push_line(buf: &mut String, line: &[u8], sep: &str) {
     for (k, &v) in line.iter().enumerate() {

@@ -7,12 +7,16 @@ use crate::math::permutohedra::permutohedron::Permutohedron;
 use crate::math::poly::rational::parse_rational;
 use num_rational::BigRational;
 
-/// Reads `--n` and `--h` into a Hessenberg function (default h(i) = i + 1, [`HessenbergFn::default_for`]).
-pub fn hessenberg_from_args(n: usize, h: Option<&str>) -> Result<HessenbergFn, CliError> {
-    if n == 0 || n > crate::math::MAX_N {
+/// Reads `--n` (1 to `max_n`) and `--h` into a Hessenberg function (default
+/// h(i) = i + 1, [`HessenbergFn::default_for`]).
+pub fn hessenberg_from_args(
+    n: usize,
+    h: Option<&str>,
+    max_n: usize,
+) -> Result<HessenbergFn, CliError> {
+    if n == 0 || n > max_n {
         return Err(CliError::Input(format!(
-            "--n {n} is out of range; 1 <= n <= {} is accepted",
-            crate::math::MAX_N
+            "--n {n} is out of range; 1 <= n <= {max_n} is accepted"
         )));
     }
     Ok(match h {
