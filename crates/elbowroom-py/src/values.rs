@@ -30,21 +30,38 @@ pub fn bad(message: impl Into<String>) -> PyErr {
     PyValueError::new_err(message.into())
 }
 
+/// A string as it is, or the items of a tuple or list.
+enum TextOrItems<'py> {
+    Text(String),
+    Items(Vec<Bound<'py, PyAny>>),
+}
+
+/// `obj` as a string or as the items of a tuple or list; anything else is
+/// refused with `accepted()` followed by ", not as TYPE".
+fn text_or_items<'py>(
+    obj: &Bound<'py, PyAny>,
+    accepted: impl FnOnce() -> String,
+) -> PyResult<TextOrItems<'py>> {
+    if let Ok(s) = obj.cast::<PyString>() {
+        return Ok(TextOrItems::Text(s.to_cow()?.to_string()));
+    }
+    if let Ok(t) = obj.cast::<PyTuple>() {
+        return Ok(TextOrItems::Items(t.iter().collect()));
+    }
+    if let Ok(l) = obj.cast::<PyList>() {
+        return Ok(TextOrItems::Items(l.iter().collect()));
+    }
+    Err(bad(format!("{}, not as {}", accepted(), type_name(obj))))
+}
+
 /// The entries of a list or tuple of integers as `a,b,c`; a string as it is.
 /// `what` names the input in messages ("a permutation", "h", "λ").
 fn int_list_text(obj: &Bound<'_, PyAny>, what: &str, example: &str) -> PyResult<String> {
-    if let Ok(s) = obj.cast::<PyString>() {
-        return Ok(s.to_cow()?.to_string());
-    }
-    let items: Vec<Bound<'_, PyAny>> = if let Ok(t) = obj.cast::<PyTuple>() {
-        t.iter().collect()
-    } else if let Ok(l) = obj.cast::<PyList>() {
-        l.iter().collect()
-    } else {
-        return Err(bad(format!(
-            "{what} is given as a tuple or list of integers or as a string such as {example}, not as {}",
-            type_name(obj)
-        )));
+    let items = match text_or_items(obj, || {
+        format!("{what} is given as a tuple or list of integers or as a string such as {example}")
+    })? {
+        TextOrItems::Text(text) => return Ok(text),
+        TextOrItems::Items(items) => items,
     };
     let mut parts = Vec::with_capacity(items.len());
     for item in &items {
@@ -78,18 +95,11 @@ pub fn hessenberg_text(obj: &Bound<'_, PyAny>) -> PyResult<String> {
 /// λ's text from a list or tuple of `int`, `Fraction` or strings such as
 /// `"1/2"`, or from a string such as `"3,1/2,0"`.
 pub fn lambda_text(obj: &Bound<'_, PyAny>) -> PyResult<String> {
-    if let Ok(s) = obj.cast::<PyString>() {
-        return Ok(s.to_cow()?.to_string());
-    }
-    let items: Vec<Bound<'_, PyAny>> = if let Ok(t) = obj.cast::<PyTuple>() {
-        t.iter().collect()
-    } else if let Ok(l) = obj.cast::<PyList>() {
-        l.iter().collect()
-    } else {
-        return Err(bad(format!(
-            "λ is given as a tuple or list of exact numbers or as a string such as \"3,1/2,0\", not as {}",
-            type_name(obj)
-        )));
+    let items = match text_or_items(obj, || {
+        "λ is given as a tuple or list of exact numbers or as a string such as \"3,1/2,0\"".into()
+    })? {
+        TextOrItems::Text(text) => return Ok(text),
+        TextOrItems::Items(items) => items,
     };
     let mut parts = Vec::with_capacity(items.len());
     for item in &items {

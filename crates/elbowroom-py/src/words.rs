@@ -11,6 +11,7 @@ use elbowroom_math::schubert::polynomial::schubert as schubert_of;
 use num_bigint::BigUint;
 use pyo3::prelude::*;
 use pyo3::types::{PyDict, PyInt, PyTuple};
+use std::iter::Take;
 
 /// schubert(w, *, progress=None) -> dict
 ///
@@ -49,13 +50,13 @@ pub fn count_reduced_words(
     run_long(py, progress, |p| count_reduced_words_with(&w, p))
 }
 
-/// A `limit` argument: None (no limit) or a non-negative int.
-fn limit_arg(limit: Option<&Bound<'_, PyAny>>) -> PyResult<Option<usize>> {
+/// A `limit` argument: None (no limit, `usize::MAX`) or a non-negative int.
+fn limit_arg(limit: Option<&Bound<'_, PyAny>>) -> PyResult<usize> {
     let Some(l) = limit else {
-        return Ok(None);
+        return Ok(usize::MAX);
     };
     if l.is_none() {
-        return Ok(None);
+        return Ok(usize::MAX);
     }
     if !l.is_instance_of::<PyInt>() {
         return Err(bad("limit is None or a non-negative int"));
@@ -64,8 +65,8 @@ fn limit_arg(limit: Option<&Bound<'_, PyAny>>) -> PyResult<Option<usize>> {
         Ok(v) if v < 0 => Err(bad(format!(
             "limit = {v} is negative; give None or a non-negative int"
         ))),
-        Ok(v) => Ok(Some(usize::try_from(v).unwrap_or(usize::MAX))),
-        Err(_) => Ok(None),
+        Ok(v) => Ok(usize::try_from(v).unwrap_or(usize::MAX)),
+        Err(_) => Ok(usize::MAX),
     }
 }
 
@@ -82,16 +83,14 @@ pub fn reduced_words(
 ) -> PyResult<ReducedWordIterator> {
     let w = perm(w)?;
     Ok(ReducedWordIterator {
-        words: words_of(&w),
-        left: limit_arg(limit)?,
+        words: words_of(&w).take(limit_arg(limit)?),
     })
 }
 
 /// The reduced words of a permutation, one tuple at a time.
 #[pyclass(module = "elbowroom")]
 pub struct ReducedWordIterator {
-    words: ReducedWords,
-    left: Option<usize>,
+    words: Take<ReducedWords>,
 }
 
 #[pymethods]
@@ -104,16 +103,10 @@ impl ReducedWordIterator {
         mut slf: PyRefMut<'py, Self>,
         py: Python<'py>,
     ) -> PyResult<Option<Bound<'py, PyTuple>>> {
-        if slf.left == Some(0) {
-            return Ok(None);
-        }
-        let Some(word) = slf.words.next() else {
-            return Ok(None);
-        };
-        if let Some(k) = slf.left.as_mut() {
-            *k -= 1;
-        }
-        Ok(Some(PyTuple::new(py, word)?))
+        slf.words
+            .next()
+            .map(|word| PyTuple::new(py, word))
+            .transpose()
     }
 }
 
@@ -133,16 +126,14 @@ pub fn pipe_dreams(
 ) -> PyResult<PipeDreamIterator> {
     let w = perm(w)?;
     Ok(PipeDreamIterator {
-        dreams: dreams_of(&w),
-        left: limit_arg(limit)?,
+        dreams: dreams_of(&w).take(limit_arg(limit)?),
     })
 }
 
 /// The reduced pipe dreams of a permutation, one tuple of crosses at a time.
 #[pyclass(module = "elbowroom")]
 pub struct PipeDreamIterator {
-    dreams: PipeDreams,
-    left: Option<usize>,
+    dreams: Take<PipeDreams>,
 }
 
 #[pymethods]
@@ -155,15 +146,9 @@ impl PipeDreamIterator {
         mut slf: PyRefMut<'py, Self>,
         py: Python<'py>,
     ) -> PyResult<Option<Bound<'py, PyTuple>>> {
-        if slf.left == Some(0) {
-            return Ok(None);
-        }
         let Some(dream) = slf.dreams.next() else {
             return Ok(None);
         };
-        if let Some(k) = slf.left.as_mut() {
-            *k -= 1;
-        }
         let crosses: Vec<Bound<'py, PyTuple>> = dream
             .crosses()
             .into_iter()
