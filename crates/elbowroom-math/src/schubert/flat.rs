@@ -5,12 +5,12 @@
 //! entries of w, each bucket a vector sorted by a packed key ([`FlatKey`]:
 //! [`LexKey`], 64 bits, for n ≤ 16; [`WideLexKey`], 96 bits, for n ≤ 18), so
 //! that the buckets read in order list the terms in lexicographic order of
-//! one-line notation. A
-//! step never grows one big hash map (whose look-ups miss the cache once it
-//! outgrows it): each worker takes a contiguous share of the input, writes every
-//! term of Monk's rule into its own buffer of the target's bucket, and sorts and
-//! sums a buffer in place whenever it has doubled; then each target bucket is
-//! gathered from the workers' buffers, sorted and summed, on its own core. No
+//! one-line notation. A step never grows one big hash map (whose look-ups miss
+//! the cache once it outgrows it): each worker takes a contiguous share of the input, writes every
+//! term of Monk's rule into its own buffer of the target's bucket, and whenever a
+//! buffer has doubled sorts and sums its new part and merges it into the part
+//! already sorted (which is never sorted again); then each target bucket is
+//! gathered by merging the workers' sorted buffers, on its own core. No
 //! two threads ever write the same buffer, so there are no locks.
 //!
 //! Monk's rule in Chevalley's form (Monk 1959; Fulton, *Young Tableaux*, §10):
@@ -357,18 +357,19 @@ impl<C: Coefficient, K: FlatKey> FlatVector<C, K> {
                 }
             }
         }
+        // each part is sorted with distinct keys (the workers finish their
+        // buffers): the parts of a bucket are merged, never sorted again
         let gather = |parts: Vec<Vec<(K, C)>>| -> StepResult<Vec<(K, C)>> {
             let mut parts = parts;
             let Some(largest) = (0..parts.len()).max_by_key(|&k| parts[k].len()) else {
                 return Ok(Vec::new());
             };
-            let mut base = parts.swap_remove(largest);
-            for p in parts {
-                base.extend(p);
+            let mut merged = parts.swap_remove(largest);
+            for mut part in parts {
+                merge_into(&mut merged, &mut part)?;
             }
-            combine(&mut base)?;
-            base.shrink_to_fit();
-            Ok(base)
+            merged.shrink_to_fit();
+            Ok(merged)
         };
         let buckets: Vec<Vec<(K, C)>> = if workers == 1 {
             pieces.into_iter().map(gather).collect::<StepResult<_>>()?
@@ -419,6 +420,8 @@ fn split_into_groups<C, K>(
 /// One worker's output: a buffer per target bucket.
 struct Spray<C, K> {
     buffers: Vec<Vec<(K, C)>>,
+    /// Room for the unsorted rest of a buffer while it is compacted.
+    scratch: Vec<(K, C)>,
     /// The length of each buffer after its last sort-and-sum.
     clean: Vec<usize>,
 }
@@ -427,6 +430,7 @@ impl<C: Coefficient, K: FlatKey> Spray<C, K> {
     fn new() -> Self {
         Spray {
             buffers: (0..K::BUCKETS).map(|_| Vec::new()).collect(),
+            scratch: Vec::new(),
             clean: vec![0; K::BUCKETS],
         }
     }
@@ -437,9 +441,20 @@ impl<C: Coefficient, K: FlatKey> Spray<C, K> {
         let buf = &mut self.buffers[b];
         buf.push((key, c));
         if buf.len() >= (2 * self.clean[b]).max(COMPACT_FROM) {
-            combine(buf)?;
+            compact(buf, self.clean[b], &mut self.scratch)?;
             self.clean[b] = buf.len();
         }
+        Ok(())
+    }
+
+    /// Every buffer sorted with distinct keys and no zeros.
+    fn finish(&mut self) -> StepResult<()> {
+        for (buf, clean) in self.buffers.iter_mut().zip(&self.clean) {
+            if buf.len() > *clean {
+                compact(buf, *clean, &mut self.scratch)?;
+            }
+        }
+        self.scratch = Vec::new();
         Ok(())
     }
 }
@@ -485,6 +500,7 @@ fn spray_group<C: Coefficient, K: FlatKey>(
             }
         }
     }
+    spray.finish()?;
     Ok(spray)
 }
 
@@ -542,6 +558,68 @@ pub fn covers_of_difference<K: FlatKey>(
             }
         }
     }
+}
+
+/// A buffer whose first `clean` terms are sorted with distinct keys and no
+/// zeros made so entirely: the rest sorted and summed on its own, then merged
+/// into the clean run in place (the clean run is never sorted again).
+/// `scratch` holds the rest meanwhile (kept by the caller between calls, so
+/// a worker allocates it once).
+fn compact<C: Coefficient, K: FlatKey>(
+    buf: &mut Vec<(K, C)>,
+    clean: usize,
+    scratch: &mut Vec<(K, C)>,
+) -> StepResult<()> {
+    if clean == 0 {
+        return combine(buf);
+    }
+    scratch.clear();
+    scratch.extend(buf.drain(clean..));
+    combine(scratch)?;
+    merge_into(buf, scratch)
+}
+
+/// Merges the run `tail` into the run `head` (each sorted with distinct keys
+/// and no zeros) in place, from the back: equal keys summed, zeros dropped.
+/// `head` grows by at most `tail.len()`; no term is cloned; `tail` is left
+/// empty (its allocation kept).
+fn merge_into<C: Coefficient, K: FlatKey>(
+    head: &mut Vec<(K, C)>,
+    tail: &mut Vec<(K, C)>,
+) -> StepResult<()> {
+    let (h, t) = (head.len(), tail.len());
+    if t == 0 {
+        return Ok(());
+    }
+    head.reserve_exact(t);
+    head.resize_with(h + t, || (K::default(), C::zero_value()));
+    let (mut i, mut j, mut w) = (h, t, h + t);
+    let mut summed = false;
+    while j > 0 {
+        if i > 0 && head[i - 1].0 > tail[j - 1].0 {
+            head.swap(i - 1, w - 1);
+            i -= 1;
+        } else if i > 0 && head[i - 1].0 == tail[j - 1].0 {
+            head.swap(i - 1, w - 1);
+            head[w - 1].1.add_assign_checked(&tail[j - 1].1)?;
+            summed = true;
+            i -= 1;
+            j -= 1;
+        } else {
+            std::mem::swap(&mut head[w - 1], &mut tail[j - 1]);
+            j -= 1;
+        }
+        w -= 1;
+    }
+    tail.clear();
+    // head[..i] is in place; the merged terms start at w (a gap when keys met)
+    if w > i {
+        head.drain(i..w);
+    }
+    if summed {
+        head.retain(|term| !term.1.is_zero_value());
+    }
+    Ok(())
 }
 
 /// Sorts the terms by key and sums the repeated ones, dropping zeros.
@@ -702,6 +780,43 @@ mod tests {
                     assert_eq!(cn, cw);
                 }
             }
+        }
+    }
+
+    /// Merging a sorted run into another in place gives what sorting and
+    /// summing their concatenation gives, cancellations included.
+    #[test]
+    fn merging_runs_in_place_is_sorting_their_union() {
+        let mut state = 0x2545_f491_4f6c_dd1du64;
+        let mut next = move |m: u64| {
+            state ^= state << 13;
+            state ^= state >> 7;
+            state ^= state << 17;
+            state % m
+        };
+        for round in 0..300 {
+            let run = |len: u64, next: &mut dyn FnMut(u64) -> u64| {
+                let mut v: Vec<(LexKey, i64)> = (0..len)
+                    .map(|_| (LexKey(next(64)), next(5) as i64 - 2))
+                    .collect();
+                combine(&mut v).unwrap();
+                v
+            };
+            let head = run(next(40), &mut next);
+            let tail = run(next(40), &mut next);
+            let mut expected: Vec<(LexKey, i64)> = head.iter().chain(&tail).copied().collect();
+            combine(&mut expected).unwrap();
+            let mut merged = head.clone();
+            let mut rest = tail.clone();
+            merge_into(&mut merged, &mut rest).unwrap();
+            assert_eq!(merged, expected, "round {round}: {head:?} + {tail:?}");
+            assert!(rest.is_empty());
+            // and through a buffer with a clean prefix
+            let clean = head.len();
+            let mut buf = head;
+            buf.extend(tail.iter().rev().copied());
+            compact(&mut buf, clean, &mut rest).unwrap();
+            assert_eq!(buf, expected, "round {round}");
         }
     }
 
