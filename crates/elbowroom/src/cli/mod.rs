@@ -38,10 +38,10 @@ pub mod expansion_text;
 pub mod inputs;
 pub mod interrupt;
 pub mod json;
-pub mod json_reader;
 pub mod merge_survey;
 pub mod open_file;
 pub mod output;
+pub mod piece_reader;
 pub mod shard;
 
 pub use args::{Cli, Command};
