@@ -224,11 +224,24 @@ fn merge_rechecks_every_piece() {
         let v: serde_json::Value = serde_json::from_str(&texts[1]).unwrap();
         let obj = v.as_object().unwrap();
         let mut text = String::from("{");
-        for key in ["shard", "total", "version", "build", "nonzero", "max", "negative"] {
+        for key in [
+            "shard", "total", "version", "build", "nonzero", "max", "negative",
+        ] {
             text.push_str(&format!("\"{key}\":{},", obj[key]));
         }
-        text.push_str(&format!("\"all_nonnegative_integers\":{},", obj["all_nonnegative_integers"]));
-        for key in ["kind", "n", "h", "dimension", "order", "listed", "coefficients"] {
+        text.push_str(&format!(
+            "\"all_nonnegative_integers\":{},",
+            obj["all_nonnegative_integers"]
+        ));
+        for key in [
+            "kind",
+            "n",
+            "h",
+            "dimension",
+            "order",
+            "listed",
+            "coefficients",
+        ] {
             text.push_str(&format!("\"{key}\":{},", obj[key]));
         }
         text.pop();
@@ -253,7 +266,10 @@ fn merge_rechecks_every_piece() {
         "long.json",
         format!("{{\"notes\":\"{}\",{}", "x".repeat(70_000), &texts[1][1..]),
     );
-    rejects(&["merge", &files[0], &long, &files[2]], "longer than 65536 bytes");
+    rejects(
+        &["merge", &files[0], &long, &files[2]],
+        "longer than 65536 bytes",
+    );
     // a coefficient with a foreign w, and one list item too many
     let foreign = variant(
         "foreign.json",

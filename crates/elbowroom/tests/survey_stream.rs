@@ -348,7 +348,11 @@ fn a_canceled_survey_leaves_no_temporary_file() {
             seen += 1;
         }
     }
-    assert_eq!(entries_of(&dir), Vec::<String>::new(), "no name while running");
+    assert_eq!(
+        entries_of(&dir),
+        Vec::<String>::new(),
+        "no name while running"
+    );
     let killed = Command::new("kill")
         .args(["-INT", &child.id().to_string()])
         .status()

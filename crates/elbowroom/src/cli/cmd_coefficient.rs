@@ -126,7 +126,7 @@ pub fn run(args: &CoefficientArgs) -> Result<String, CliError> {
     let w = Perm::parse(&args.perm)?;
     let n = w.n();
     let h = match &args.h {
-        Some(text) => HessenbergFn::parse(text, None)?,
+        Some(typed) => typed.for_n(None)?,
         None => HessenbergFn::default_for(n)?,
     };
     if h.n() != n {
@@ -169,7 +169,7 @@ pub fn run(args: &CoefficientArgs) -> Result<String, CliError> {
             Ok((e, q, trees))
         })?;
     let record = record(&w, &h, &e, q.as_ref(), &trees);
-    if args.json {
+    if args.output.json {
         return serde_json::to_string(&record)
             .map_err(|e| CliError::Input(format!("the record could not be written as JSON: {e}")));
     }
@@ -352,7 +352,7 @@ fn other_h(args: &CoefficientArgs, w: &Perm, h: &HessenbergFn) -> Result<String,
     let value = interrupt::run_interruptible("the coefficient", "steps", 0, |progress| {
         coefficient_for_h(w, h, progress)
     })?;
-    if args.json {
+    if args.output.json {
         let record = CoefficientRecord {
             perm: w.one_line(),
             n: w.n(),

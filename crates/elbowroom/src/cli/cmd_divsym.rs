@@ -21,11 +21,11 @@ use std::time::Duration;
 
 /// Runs the command.
 pub fn run(args: &DivsymArgs) -> Result<String, CliError> {
-    let h = hessenberg_from_args(args.n, args.h.as_deref())?;
+    let h = hessenberg_from_args(args.n, args.h.as_ref())?;
     let f = parse_poly(&args.poly, Some(args.n))?;
     check_budget(&f, &h)?;
     let ds = interruptible(&f, &h)?;
-    if args.json {
+    if args.output.json {
         let symmetric: Vec<Value> = ds
             .symmetric
             .iter()

@@ -66,7 +66,7 @@ fn reduced(
     };
     progress.set_total(listed as u64);
     let dreams = pipe_dreams(w).take(listed);
-    if args.json {
+    if args.output.json {
         let head = json!({"perm": w.one_line(), "count": json::exact(count)});
         return sink.json_listing(
             &head,
@@ -127,7 +127,7 @@ fn bumpless(
         dreams.truncate(shown);
     }
     progress.set_total(dreams.len() as u64);
-    if args.json {
+    if args.output.json {
         let head = json!({"perm": w.one_line(), "count": json::exact(count)});
         return sink.json_listing(
             &head,

@@ -25,7 +25,7 @@ pub fn run(args: &ExpandArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     })?;
     let terms = &expansion.terms;
     let mut buf = String::with_capacity(FLUSH_AT + 256);
-    if args.json {
+    if args.output.json {
         // {"n":N,"stable":B,"terms":[{"perm":[...],"coefficient":"c"},...],"nonnegative":B}
         let _ = write!(
             buf,

@@ -21,7 +21,7 @@ use serde_json::{Value, json};
 /// Runs the command.
 pub fn run(args: &ForestArgs) -> Result<String, CliError> {
     if let Some(code) = &args.code {
-        return run_code(code, args.json);
+        return run_code(code, args.output.json);
     }
     if let Some(poly) = &args.poly {
         let Some(n) = args.n else {
@@ -29,14 +29,14 @@ pub fn run(args: &ForestArgs) -> Result<String, CliError> {
                 "--poly needs --n N, the number of variables".into(),
             ));
         };
-        return run_poly(poly, n, args.json);
+        return run_poly(poly, n, args.output.json);
     }
     let Some(w) = &args.perm else {
         return Err(CliError::Input(
             "give a permutation W, --code c1,c2,… or --poly POLY --n N".into(),
         ));
     };
-    run_perm(w, args.json)
+    run_perm(w, args.output.json)
 }
 
 /// Reads a code typed as `1,0,1` or `1 0 1` (a single `0` is the empty forest).

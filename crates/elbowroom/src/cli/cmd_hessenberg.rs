@@ -48,7 +48,7 @@ pub fn run(args: &HessenbergArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     if args.every_h {
         return sink.whole(&every_h(args)?);
     }
-    let h = hessenberg_from_args(args.n, args.h.as_deref())?;
+    let h = hessenberg_from_args(args.n, args.h.as_ref())?;
     let shard = args.shard.unwrap_or(Shard::WHOLE);
     if let Some(path) = &args.save_class {
         return save_class(&h, path, sink);

@@ -377,17 +377,20 @@ fn walk(pieces: &[Piece], progress: &Progress, row: &mut RowVisitor<'_>) -> Resu
                     rows_of(p)
                 )));
             };
-            let perm: Option<Vec<u8>> = item.perm.as_ref().and_then(Value::as_array).and_then(|a| {
-                a.iter()
-                    .map(|v| v.as_u64().and_then(|x| u8::try_from(x).ok()))
-                    .collect()
-            });
+            let perm: Option<Vec<u8>> =
+                item.perm.as_ref().and_then(Value::as_array).and_then(|a| {
+                    a.iter()
+                        .map(|v| v.as_u64().and_then(|x| u8::try_from(x).ok()))
+                        .collect()
+                });
             if perm.as_deref() != Some(line) {
                 return Err(p.bad(&format!(
                     "coefficient {} has \"perm\" {}, but position {i} of the listing is {:?}; \
                      the piece does not follow the listing",
                     sums[k].rows + 1,
-                    item.perm.as_ref().map_or("missing".into(), |v| v.to_string()),
+                    item.perm
+                        .as_ref()
+                        .map_or("missing".into(), |v| v.to_string()),
                     line
                 )));
             }

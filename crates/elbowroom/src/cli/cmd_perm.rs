@@ -14,7 +14,7 @@ pub fn run(args: &PermArgs) -> Result<String, CliError> {
     let classes: Vec<&str> = classes_of(&w).iter().map(|c| c.key()).collect();
     let words = count_reduced_words_with(&w, &Progress::default())?;
     let dreams = count_pipe_dreams(&w);
-    if args.json {
+    if args.output.json {
         return Ok(json::render(&json!({
             "perm": w.one_line(),
             "n": w.n(),

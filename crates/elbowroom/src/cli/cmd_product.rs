@@ -31,7 +31,7 @@ pub fn run(args: &ProductArgs) -> Result<String, CliError> {
         None => w.restrict(w.support_size()).unwrap_or_else(|| w.clone()),
     };
     let (u, v) = (written(&u), written(&v));
-    if args.json {
+    if args.output.json {
         let mut doc = json!({
             "u": u.one_line(),
             "v": v.one_line(),

@@ -44,7 +44,7 @@ pub fn run(args: &QuotientArgs) -> Result<String, CliError> {
         paths.push(LatticePath::of_monomial(e)?);
     }
     let gb = q.polys();
-    if args.json {
+    if args.output.json {
         return Ok(json::render(&json!({
             "n": n,
             "order": "lex, x1 > x2 > ... > xn",

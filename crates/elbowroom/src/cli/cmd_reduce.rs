@@ -39,7 +39,7 @@ pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
     } else {
         None
     };
-    if args.json {
+    if args.output.json {
         let coefficients: Vec<_> = nf
             .coefficients
             .iter()

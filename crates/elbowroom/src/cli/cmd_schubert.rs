@@ -13,7 +13,7 @@ pub fn run(args: &SchubertArgs) -> Result<String, CliError> {
     crate::math::sizing::check_schubert(&w)?;
     let s = schubert(&w);
     let principal = args.principal.then(|| principal_specialization(&s));
-    if args.json {
+    if args.output.json {
         let mut v = json!({
             "perm": w.one_line(),
             "polynomial": json::poly(&s),
@@ -31,7 +31,7 @@ pub fn run(args: &SchubertArgs) -> Result<String, CliError> {
         ),
         None => String::new(),
     };
-    if args.latex {
+    if args.output.latex {
         return Ok(format!("\\mathfrak{{S}}_{{{w}}} = {}{tail}", s.to_latex()));
     }
     Ok(format!("S_{w} = {s}{tail}"))

@@ -22,7 +22,7 @@ pub fn run(args: &SessionArgs) -> Result<String, CliError> {
 fn check(args: &SessionCheckArgs) -> Result<String, CliError> {
     let (s, version) = store::load_with_version(&args.file).map_err(session_error)?;
     let view = format!("{:?}", s.view);
-    if args.json {
+    if args.output.json {
         return Ok(json::render(&json!({
             "ok": true,
             "version": version,

@@ -35,7 +35,7 @@ pub fn run(args: &VolumeArgs) -> Result<String, CliError> {
     } else {
         None
     };
-    if args.json {
+    if args.output.json {
         let mut v = json!({
             "n": n,
             "lambda": p.lambda().iter().map(json::exact).collect::<Vec<Value>>(),

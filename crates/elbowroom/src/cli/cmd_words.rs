@@ -53,7 +53,7 @@ fn list(
     written: &mut u64,
 ) -> Result<(), CliError> {
     let words = reduced_words(w).take(listed);
-    if args.json {
+    if args.output.json {
         let head = json!({
             "perm": w.one_line(),
             "length": w.length(),
@@ -103,7 +103,7 @@ fn by_content(args: &WordsArgs, w: &Perm) -> Result<String, CliError> {
         let count = count_reduced_words_with(w, p)?;
         Ok((count, counts_by_content_with(w, p)?))
     })?;
-    if args.json {
+    if args.output.json {
         let rows: Vec<serde_json::Value> = by
             .iter()
             .rev()

@@ -354,10 +354,10 @@ impl<'de> Visitor<'de> for ListSeed<'_> {
             let Some(item) = item else { break };
             batch.push(item);
             if batch.len() == BATCH {
-                send(self.out, Event::Rows(std::mem::replace(
-                    &mut batch,
-                    Vec::with_capacity(BATCH),
-                )))?;
+                send(
+                    self.out,
+                    Event::Rows(std::mem::replace(&mut batch, Vec::with_capacity(BATCH))),
+                )?;
             }
         }
         if !batch.is_empty() {
@@ -566,7 +566,8 @@ mod tests {
 
     fn file_of(text: &str) -> File {
         let mut f = tempfile::tempfile().unwrap_or_else(|e| panic!("{e}"));
-        f.write_all(text.as_bytes()).unwrap_or_else(|e| panic!("{e}"));
+        f.write_all(text.as_bytes())
+            .unwrap_or_else(|e| panic!("{e}"));
         use std::io::Seek;
         f.rewind().unwrap_or_else(|e| panic!("{e}"));
         f
@@ -586,8 +587,14 @@ mod tests {
             items.push(item);
         }
         assert_eq!(items.len(), 2);
-        assert_eq!(items[1].perm.as_ref(), Some(&whole["coefficients"][1]["perm"]));
-        assert_eq!(items[1].value.as_ref(), Some(&whole["coefficients"][1]["value"]));
+        assert_eq!(
+            items[1].perm.as_ref(),
+            Some(&whole["coefficients"][1]["perm"])
+        );
+        assert_eq!(
+            items[1].value.as_ref(),
+            Some(&whole["coefficients"][1]["value"])
+        );
         let tail = s.tail().unwrap_or_else(|e| panic!("{e}"));
         assert_eq!(tail.get("shard"), whole.get("shard"));
         assert_eq!(kind(file_of(text)), Ok("k".into()));

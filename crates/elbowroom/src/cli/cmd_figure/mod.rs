@@ -251,7 +251,7 @@ fn file_path(args: &FigureArgs, name: &str) -> PathBuf {
 
 /// What the command prints: one line per file, or one JSON object.
 fn report(args: &FigureArgs, written: &[Written]) -> String {
-    if args.json {
+    if args.output.json {
         let files: Vec<_> = written
             .iter()
             .map(|(i, p, w, h)| json!({"index": i, "path": p.display().to_string(), "width": w, "height": h}))
