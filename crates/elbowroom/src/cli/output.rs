@@ -62,7 +62,7 @@ impl<'a> Sink<'a> {
     /// Writes the JSON object `head` with one more field, `key`, last: an array
     /// of `items` streamed one by one (each one polled for a cancel and counted
     /// on `progress` and `written`), then a newline: the same text as the whole
-    /// object with `key` inserted last (serde_json keeps insertion order here).
+    /// object with `key` inserted last ([`super::json::open_list`]).
     pub fn json_listing<T>(
         &mut self,
         head: &Value,
@@ -72,9 +72,7 @@ impl<'a> Sink<'a> {
         progress: &crate::math::Progress,
         written: &mut u64,
     ) -> Result<(), CliError> {
-        let head = super::json::render(head);
-        self.text(&head[..head.len() - 1])?;
-        self.text(&format!(",\"{key}\":["))?;
+        self.text(&super::json::open_list(head, key)?)?;
         for (k, x) in items.into_iter().enumerate() {
             progress.check()?;
             if k > 0 {
