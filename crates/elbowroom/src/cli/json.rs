@@ -62,6 +62,12 @@ pub fn text<T: Serialize>(record: &T) -> Result<String, CliError> {
     serde_json::to_string(record).map_err(|e| CliError::Failed(format!("cannot write JSON: {e}")))
 }
 
+/// A typed record's text, compact, for a row rendered where no error can be
+/// returned (records have string keys and finite numbers: `null` if it ever failed).
+pub fn line<T: Serialize>(record: &T) -> String {
+    serde_json::to_string(record).unwrap_or_else(|_| "null".into())
+}
+
 /// The members of a typed record (an object), `"key":value` joined by commas,
 /// without the braces: what stands in the whole object's text between its
 /// other members.
