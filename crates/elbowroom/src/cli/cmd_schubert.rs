@@ -5,7 +5,19 @@ use super::error::CliError;
 use super::json;
 use crate::math::schubert::polynomial::schubert;
 use crate::math::schubert::principal::principal_specialization;
-use serde_json::json;
+use super::json::PolyRecord;
+use serde::Serialize;
+
+/// The JSON of `schubert`; the principal specialization with `--principal`.
+#[derive(Serialize)]
+struct SchubertRecord {
+    perm: Vec<usize>,
+    polynomial: PolyRecord,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    principal: Option<Vec<String>>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    at_ones: Option<String>,
+}
 
 /// Runs the command.
 pub fn run(args: &SchubertArgs) -> Result<String, CliError> {
@@ -14,15 +26,12 @@ pub fn run(args: &SchubertArgs) -> Result<String, CliError> {
     let s = schubert(&w);
     let principal = args.principal.then(|| principal_specialization(&s));
     if args.output.json {
-        let mut v = json!({
-            "perm": w.one_line(),
-            "polynomial": json::poly(&s),
+        return json::text(&SchubertRecord {
+            perm: w.one_line(),
+            polynomial: PolyRecord::of(&s),
+            principal: principal.as_ref().map(|p| p.coeff_strings()),
+            at_ones: principal.as_ref().map(|p| p.at_one().to_string()),
         });
-        if let Some(p) = &principal {
-            v["principal"] = json!(p.coeff_strings());
-            v["at_ones"] = json::exact(&p.at_one());
-        }
-        return Ok(json::render(&v));
     }
     let tail = match &principal {
         Some(p) => format!(
