@@ -16,7 +16,8 @@ use crate::math::forest::trees::{a_w_by_trees, a_w_sum};
 use crate::math::poly::mono::MAX_VARS;
 use crate::math::poly::parse::parse_poly;
 use crate::math::{Coeff, Perm};
-use serde_json::{Value, json};
+use super::json::PolyRecord;
+use serde::Serialize;
 
 /// Runs the command.
 pub fn run(args: &ForestArgs) -> Result<String, CliError> {
@@ -60,10 +61,10 @@ fn run_code(text: &str, as_json: bool) -> Result<String, CliError> {
         forest_polynomial(&forest, progress)
     })?;
     if as_json {
-        return Ok(json::render(&json!({
-            "code": forest.code(),
-            "polynomial": json::poly(&p),
-        })));
+        return json::text(&ForestRecord {
+            code: forest.code(),
+            polynomial: PolyRecord::of(&p),
+        });
     }
     let terminals: Vec<String> = forest.terminals().iter().map(|i| i.to_string()).collect();
     let nodes = forest.size();
@@ -86,11 +87,11 @@ fn run_perm(text: &str, as_json: bool) -> Result<String, CliError> {
     })?;
     let single = is_single(&terms);
     if as_json {
-        return Ok(json::render(&json!({
-            "perm": w.one_line(),
-            "terms": terms_json(&terms, "coefficient"),
-            "single": single,
-        })));
+        return json::text(&SchubertForestRecord {
+            perm: w.one_line(),
+            terms: terms_json(&terms, "coefficient"),
+            single,
+        });
     }
     let mut out = format!("S_{w} = {}\n", sum_text(&terms));
     out.push_str(&table_text(&terms, "coefficient"));
@@ -145,10 +146,10 @@ fn run_poly(text: &str, n: usize, as_json: bool) -> Result<String, CliError> {
         forest_expansion(&f, None, progress)
     })?;
     if as_json {
-        return Ok(json::render(&json!({
-            "n": n,
-            "terms": terms_json(&terms, "coefficient"),
-        })));
+        return json::text(&ExpansionRecord {
+            n,
+            terms: terms_json(&terms, "coefficient"),
+        });
     }
     let mut out = format!("{} = {}\n", text.trim(), sum_text(&terms));
     out.push_str(&table_text(&terms, "coefficient"));
@@ -160,19 +161,55 @@ fn run_poly(text: &str, n: usize, as_json: bool) -> Result<String, CliError> {
     Ok(out)
 }
 
+/// The JSON of `forest --code`.
+#[derive(Serialize)]
+struct ForestRecord<'a> {
+    code: &'a [usize],
+    polynomial: PolyRecord,
+}
+
+/// The JSON of `forest W`.
+#[derive(Serialize)]
+struct SchubertForestRecord {
+    perm: Vec<usize>,
+    terms: Vec<ForestTerm<'static>>,
+    single: bool,
+}
+
+/// The JSON of `forest --poly`.
+#[derive(Serialize)]
+struct ExpansionRecord {
+    n: usize,
+    terms: Vec<ForestTerm<'static>>,
+}
+
+/// One term c·P_F: `{"code": [...], KEY: "c"}` (KEY `coefficient` or `value`).
+pub struct ForestTerm<'k> {
+    code: Vec<usize>,
+    key: &'k str,
+    value: String,
+}
+
+impl Serialize for ForestTerm<'_> {
+    fn serialize<S: serde::Serializer>(&self, s: S) -> Result<S::Ok, S::Error> {
+        use serde::ser::SerializeMap;
+        let mut map = s.serialize_map(Some(2))?;
+        map.serialize_entry("code", &self.code)?;
+        map.serialize_entry(self.key, &self.value)?;
+        map.end()
+    }
+}
+
 /// `[{"code": [...], KEY: "c"}, ...]`, in the order given.
-pub fn terms_json<C: Coeff>(terms: &ForestTerms<C>, key: &str) -> Value {
-    Value::Array(
-        terms
-            .iter()
-            .map(|(code, c)| {
-                let mut o = serde_json::Map::new();
-                o.insert("code".into(), json!(code));
-                o.insert(key.into(), json::exact(c));
-                Value::Object(o)
-            })
-            .collect(),
-    )
+pub fn terms_json<C: Coeff>(terms: &ForestTerms<C>, key: &'static str) -> Vec<ForestTerm<'static>> {
+    terms
+        .iter()
+        .map(|(code, c)| ForestTerm {
+            code: code.clone(),
+            key,
+            value: c.to_string(),
+        })
+        .collect()
 }
 
 /// `P_(1,2) + 2 P_(2,1) - P_()`; `0` when there is no term.
