@@ -63,12 +63,12 @@ impl<'a> Sink<'a> {
     /// of `items` streamed one by one (each one polled for a cancel and counted
     /// on `progress` and `written`), then a newline: the same text as the whole
     /// object with `key` inserted last ([`super::json::open_list`]).
-    pub fn json_listing<T>(
+    pub fn json_listing<T, R: serde::Serialize>(
         &mut self,
-        head: &Value,
+        head: &impl serde::Serialize,
         key: &str,
         items: impl IntoIterator<Item = T>,
-        item: impl Fn(T) -> Value,
+        item: impl Fn(T) -> R,
         progress: &crate::math::Progress,
         written: &mut u64,
     ) -> Result<(), CliError> {
@@ -78,7 +78,7 @@ impl<'a> Sink<'a> {
             if k > 0 {
                 self.text(",")?;
             }
-            self.json(&item(x))?;
+            self.text(&super::json::text(&item(x))?)?;
             progress.advance(1);
             *written += 1;
         }
