@@ -149,7 +149,6 @@ pub fn rule_json(rule: &Rule) -> RuleRecord<'_> {
     }
 }
 
-/// Runs the command.
 pub fn run(args: &CoefficientArgs) -> Result<String, CliError> {
     let w = Perm::parse(&args.perm)?;
     let n = w.n();

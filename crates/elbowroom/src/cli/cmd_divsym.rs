@@ -38,7 +38,6 @@ struct DivsymRecord<'a, L: Serialize> {
     symmetric: Vec<SymmetricTerm<'a, L>>,
 }
 
-/// Runs the command.
 pub fn run(args: &DivsymArgs) -> Result<String, CliError> {
     let h = hessenberg_from_args(args.n, args.h.as_ref())?;
     let f = parse_poly(&args.poly, Some(args.n))?;

@@ -43,7 +43,6 @@ use std::sync::Arc;
 /// once by a search with a set of the dreams seen).
 pub const BUMPLESS_LIMIT: u64 = 200_000;
 
-/// Runs the command.
 pub fn run(args: &DreamsArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let w = args.perm.clone();
     // the number of reduced pipe dreams, S_w(1, ..., 1); by Lam–Lee–Shimozono it

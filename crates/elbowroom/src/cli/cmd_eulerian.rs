@@ -34,7 +34,6 @@ struct EulerianRecord<'a, C: Serialize> {
     sum: String,
 }
 
-/// Runs the command.
 pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
     if !(2..=crate::math::MAX_N).contains(&args.n) {
         return Err(CliError::Input(format!(

@@ -19,7 +19,6 @@ use crate::math::{Coeff, Perm};
 use super::json::PolyRecord;
 use serde::Serialize;
 
-/// Runs the command.
 pub fn run(args: &ForestArgs) -> Result<String, CliError> {
     if let Some(code) = &args.code {
         return run_code(code, args.output.json);

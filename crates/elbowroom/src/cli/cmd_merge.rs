@@ -43,7 +43,6 @@ pub const MERGE_FILE_LIMIT: u64 = 4_000_000_000;
 /// The largest survey piece read (surveys are read whole).
 pub const SURVEY_FILE_LIMIT: u64 = 256_000_000;
 
-/// Runs the command.
 pub fn run(args: &MergeArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let mut kinds = Vec::new();
     for path in &args.files {

@@ -22,7 +22,6 @@ struct PermRecord<'a> {
     pipe_dreams: String,
 }
 
-/// Runs the command.
 pub fn run(args: &PermArgs) -> Result<String, CliError> {
     let w = args.perm.clone();
     let classes: Vec<&str> = classes_of(&w).iter().map(|c| c.key()).collect();

@@ -23,7 +23,6 @@ struct ProductRecord {
     n: Option<usize>,
 }
 
-/// Runs the command.
 pub fn run(args: &ProductArgs) -> Result<String, CliError> {
     let u = args.u.clone();
     let v = args.v.clone();

@@ -51,7 +51,6 @@ struct QuotientRecord<'a> {
     paths: Vec<PathRecord<'a>>,
 }
 
-/// Runs the command.
 pub fn run(args: &QuotientArgs) -> Result<String, CliError> {
     if args.no_cache {
         crate::basis_cache::disable();

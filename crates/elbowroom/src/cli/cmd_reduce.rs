@@ -34,7 +34,6 @@ struct ReduceRecord {
     forest: Option<Vec<ForestTerm<'static>>>,
 }
 
-/// Runs the command.
 pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
     if args.no_cache {
         crate::basis_cache::disable();

@@ -19,7 +19,6 @@ struct SchubertRecord {
     at_ones: Option<String>,
 }
 
-/// Runs the command.
 pub fn run(args: &SchubertArgs) -> Result<String, CliError> {
     let w = args.perm.clone();
     crate::math::sizing::check_schubert(&w)?;

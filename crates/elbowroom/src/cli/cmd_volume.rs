@@ -37,7 +37,6 @@ struct VolumeRecord {
     drawing: Option<Drawing>,
 }
 
-/// Runs the command.
 pub fn run(args: &VolumeArgs) -> Result<String, CliError> {
     let lambda = args.lambda.clone();
     let p = Permutohedron::new(&lambda)?;

@@ -39,7 +39,6 @@ struct ByContentRecord<'a, C: Serialize> {
 }
 use std::sync::Arc;
 
-/// Runs the command.
 pub fn run(args: &WordsArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let w = args.perm.clone();
     if args.by_content {

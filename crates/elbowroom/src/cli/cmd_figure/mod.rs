@@ -29,8 +29,6 @@ mod pipes;
 mod volume;
 mod wiring;
 
-pub use crate::math::permutohedra::drawing::MAX_DRAWN_N;
-pub use pick::MAX_FILES;
 
 use super::args::{FigureArgs, FigureKind, FormatArg};
 use super::error::CliError;
