@@ -15,7 +15,7 @@ pub(crate) mod error;
 pub mod format;
 pub mod model;
 pub mod recent;
-pub(crate) mod recovery;
+pub mod recovery;
 pub mod store;
 pub(crate) mod validate;
 
