@@ -8,8 +8,8 @@
 use super::args::ExpandArgs;
 use super::error::CliError;
 use super::expansion_text::TermRecord;
-use super::json;
 use super::interrupt;
+use super::json;
 use super::output::Sink;
 use crate::math::schubert::expansion::expand_typed;
 use num_rational::BigRational;

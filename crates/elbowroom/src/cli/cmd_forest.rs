@@ -8,6 +8,7 @@ use super::error::CliError;
 use super::inputs::entries;
 use super::interrupt;
 use super::json;
+use super::json::PolyRecord;
 use crate::math::forest::expansion::{ForestTerms, check_expansion_size, forest_expansion};
 use crate::math::forest::indexed::{Forest, code_text};
 use crate::math::forest::polynomial::forest_polynomial;
@@ -16,7 +17,6 @@ use crate::math::forest::trees::{a_w_by_trees, a_w_sum};
 use crate::math::poly::mono::MAX_VARS;
 use crate::math::poly::parse::parse_poly;
 use crate::math::{Coeff, Perm};
-use super::json::PolyRecord;
 use serde::Serialize;
 
 pub fn run(args: &ForestArgs) -> Result<String, CliError> {

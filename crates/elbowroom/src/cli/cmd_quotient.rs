@@ -5,10 +5,10 @@ use super::args::QuotientArgs;
 use super::error::CliError;
 use super::interrupt;
 use super::json;
+use super::json::PolyRecord;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::lattice_path::{LatticePath, Step};
 use crate::math::quotient::normal_form::hilbert_series;
-use super::json::PolyRecord;
 use serde::Serialize;
 
 /// A lattice path as JSON: its size, monomial, the word of its steps and,

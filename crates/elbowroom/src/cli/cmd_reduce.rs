@@ -7,11 +7,11 @@ use super::cmd_forest::{ForestTerm, sum_text, table_text, terms_json};
 use super::error::CliError;
 use super::interrupt;
 use super::json;
+use super::json::PolyRecord;
 use crate::math::forest::quotient::forest_normal_form;
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::normal_form::normal_form;
-use super::json::PolyRecord;
 use serde::Serialize;
 
 /// One coefficient of the normal form, on a standard monomial.

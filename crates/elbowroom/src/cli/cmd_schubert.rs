@@ -3,9 +3,9 @@
 use super::args::SchubertArgs;
 use super::error::CliError;
 use super::json;
+use super::json::PolyRecord;
 use crate::math::schubert::polynomial::schubert;
 use crate::math::schubert::principal::principal_specialization;
-use super::json::PolyRecord;
 use serde::Serialize;
 
 /// The JSON of `schubert`; the principal specialization with `--principal`.

@@ -4,10 +4,10 @@ use super::args::VolumeArgs;
 use super::error::CliError;
 use super::inputs::check_volume_size;
 use super::json;
+use super::json::PolyRecord;
 use crate::math::permutohedra::permutohedron::{
     POLYNOMIAL_MAX_N, Permutohedron, volume_polynomial,
 };
-use super::json::PolyRecord;
 use serde::Serialize;
 
 /// Vertices are listed (exactly, and for drawing) up to this many.
@@ -60,7 +60,8 @@ pub fn run(args: &VolumeArgs) -> Result<String, CliError> {
         None
     };
     if args.output.json {
-        let texts = |v: &[num_rational::BigRational]| v.iter().map(|x| x.to_string()).collect::<Vec<_>>();
+        let texts =
+            |v: &[num_rational::BigRational]| v.iter().map(|x| x.to_string()).collect::<Vec<_>>();
         return json::text(&VolumeRecord {
             n,
             lambda: texts(p.lambda()),

@@ -73,7 +73,9 @@ pub fn line<T: Serialize>(record: &T) -> String {
 /// other members.
 pub fn members<T: Serialize>(record: &T) -> Result<String, CliError> {
     let Value::Object(fields) = value(record) else {
-        return Err(CliError::Failed("internal: a record is not an object".into()));
+        return Err(CliError::Failed(
+            "internal: a record is not an object".into(),
+        ));
     };
     let mut out = String::new();
     for (k, v) in &fields {

@@ -29,7 +29,6 @@ mod pipes;
 mod volume;
 mod wiring;
 
-
 use super::args::{FigureArgs, FigureKind, FormatArg};
 use super::error::CliError;
 use super::json;
