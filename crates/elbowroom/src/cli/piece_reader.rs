@@ -451,6 +451,12 @@ impl PieceStream {
     pub fn tail(&mut self) -> Result<Map<String, Value>, String> {
         match self.next_event()? {
             Event::Tail(mut fields) => {
+                // the text must end with the object: the thread says so by ending
+                if let Some(events) = &self.events
+                    && let Ok(Event::Failed(why)) = events.recv()
+                {
+                    return Err(why);
+                }
                 for (k, v) in std::mem::take(&mut self.head) {
                     fields.entry(k).or_insert(v);
                 }
@@ -597,6 +603,12 @@ mod tests {
         );
         let tail = s.tail().unwrap_or_else(|e| panic!("{e}"));
         assert_eq!(tail.get("shard"), whole.get("shard"));
+        // text after the object is refused when the tail is read
+        let mut s =
+            PieceStream::open(file_of(&format!("{text} x"))).unwrap_or_else(|e| panic!("{e}"));
+        assert!(s.head().is_ok());
+        while let Ok(Some(_)) = s.next_item() {}
+        assert!(s.tail().is_err_and(|e| e.contains("trailing")));
         assert_eq!(kind(file_of(text)), Ok("k".into()));
         let l = labels(file_of(text)).unwrap_or_default();
         assert_eq!(l.shard, Some(Value::from("1/2")));
