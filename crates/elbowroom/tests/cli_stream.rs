@@ -219,6 +219,66 @@ fn merge_rechecks_every_piece() {
         &["merge", &files[0], &other, &files[2]],
         "build 0123456789ab",
     );
+    // the summary and the labels may stand before the coefficients
+    let reordered = {
+        let v: serde_json::Value = serde_json::from_str(&texts[1]).unwrap();
+        let obj = v.as_object().unwrap();
+        let mut text = String::from("{");
+        for key in [
+            "shard", "total", "version", "build", "nonzero", "max", "negative",
+        ] {
+            text.push_str(&format!("\"{key}\":{},", obj[key]));
+        }
+        text.push_str(&format!(
+            "\"all_nonnegative_integers\":{},",
+            obj["all_nonnegative_integers"]
+        ));
+        for key in [
+            "kind",
+            "n",
+            "h",
+            "dimension",
+            "order",
+            "listed",
+            "coefficients",
+        ] {
+            text.push_str(&format!("\"{key}\":{},", obj[key]));
+        }
+        text.pop();
+        text.push('}');
+        variant("reordered.json", text)
+    };
+    assert_eq!(stdout(&["merge", &files[0], &reordered, &files[2]]), merged);
+    // a large field (300 000 list items, a 6 MB string in pieces) before
+    // "kind" is stepped over, not held
+    let padded = variant(
+        "padded.json",
+        format!(
+            "{{\"notes\":[{}0],\"more\":[{}],{}",
+            "0,".repeat(300_000),
+            vec![format!("\"{}\"", "x".repeat(60_000)); 100].join(","),
+            &texts[1][1..]
+        ),
+    );
+    assert_eq!(stdout(&["merge", &files[0], &padded, &files[2]]), merged);
+    // one string longer than 64 KiB is refused, in one line
+    let long = variant(
+        "long.json",
+        format!("{{\"notes\":\"{}\",{}", "x".repeat(70_000), &texts[1][1..]),
+    );
+    rejects(
+        &["merge", &files[0], &long, &files[2]],
+        "longer than 65536 bytes",
+    );
+    // a coefficient with a foreign w, and one list item too many
+    let foreign = variant(
+        "foreign.json",
+        texts[1].replacen("{\"perm\":[", "{\"perm\":[9,9,", 1),
+    );
+    rejects(
+        &["merge", &files[0], &foreign, &files[2]],
+        "does not follow the listing",
+    );
     // a split into N pieces with N far beyond the listing costs nothing to refuse
     let one = variant(
         "wide.json",

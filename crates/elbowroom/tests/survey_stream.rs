@@ -198,7 +198,7 @@ fn an_unwritable_temporary_file_is_an_error() {
     assert!(
         err.contains(&format!(
             "cannot write the temporary file {}",
-            dir.join("elbowroom-rows-").to_string_lossy()
+            dir.join("elbowroom-rows-*.tmp").to_string_lossy()
         )),
         "{err}"
     );
@@ -269,4 +269,101 @@ fn json_lines_carry_the_json_document() {
             }
         }
     }
+}
+
+/// A fresh, empty temporary directory of this test process.
+fn scratch_dir(name: &str) -> std::path::PathBuf {
+    let dir = std::env::temp_dir().join(format!("elbowroom-{name}-{}", std::process::id()));
+    let _ = std::fs::remove_dir_all(&dir);
+    std::fs::create_dir_all(&dir).unwrap();
+    dir
+}
+
+/// What a directory holds, by name.
+fn entries_of(dir: &std::path::Path) -> Vec<String> {
+    std::fs::read_dir(dir)
+        .unwrap()
+        .map(|e| e.unwrap().file_name().to_string_lossy().to_string())
+        .collect()
+}
+
+/// Two surveys at once, each keeping every row in its temporary file in the
+/// same directory, do not meet there: each prints the survey computed in
+/// memory, and the directory is empty afterwards (and while they run, since
+/// the file has no name once it is open).
+#[test]
+fn two_surveys_at_once_keep_their_own_temporary_files() {
+    let dir = scratch_dir("spill-pair");
+    let dir_text = dir.to_string_lossy().to_string();
+    let args = ["survey", "--n", "6", "--json"];
+    let expected = stdout_of(run(&args), &args);
+    let start = || {
+        let mut c = Command::new(env!("CARGO_BIN_EXE_elbowroom"));
+        c.args(args)
+            .env(KEPT_IN_MEMORY_ENV, "0")
+            .env("TMPDIR", &dir_text)
+            .stdout(std::process::Stdio::piped())
+            .stderr(std::process::Stdio::piped());
+        c.spawn().unwrap()
+    };
+    let (a, b) = (start(), start());
+    for child in [a, b] {
+        let out = child.wait_with_output().unwrap();
+        assert_eq!(stdout_of(out, &args), expected);
+    }
+    assert_eq!(entries_of(&dir), Vec::<String>::new());
+    let _ = std::fs::remove_dir_all(&dir);
+}
+
+/// A survey stopped by Ctrl-C while its rows sit in the temporary file (the
+/// signal is sent when the rows start going out) leaves no file behind: the
+/// directory holds nothing while it runs and nothing after it.
+#[cfg(unix)]
+#[test]
+fn a_canceled_survey_leaves_no_temporary_file() {
+    use elbowroom::cli::interrupt::{ANNOUNCE_ENV, ANNOUNCEMENT};
+    use std::io::{BufRead, BufReader, Read};
+    let dir = scratch_dir("spill-cancel");
+    let out_file = std::env::temp_dir().join(format!(
+        "elbowroom-spill-cancel-{}.json",
+        std::process::id()
+    ));
+    let mut child = Command::new(env!("CARGO_BIN_EXE_elbowroom"))
+        .args(["survey", "--n", "7", "--json"])
+        .env(KEPT_IN_MEMORY_ENV, "0")
+        .env("TMPDIR", &dir)
+        .env(ANNOUNCE_ENV, "1")
+        .stdout(std::fs::File::create(&out_file).unwrap())
+        .stderr(std::process::Stdio::piped())
+        .spawn()
+        .unwrap();
+    let mut stderr = BufReader::new(child.stderr.take().unwrap());
+    // the basis, the walk (rows kept in the file), then the writing out
+    let mut seen = 0;
+    let mut line = String::new();
+    while seen < 3 {
+        line.clear();
+        assert!(stderr.read_line(&mut line).unwrap() > 0, "ended early");
+        if line.trim_end() == ANNOUNCEMENT {
+            seen += 1;
+        }
+    }
+    assert_eq!(
+        entries_of(&dir),
+        Vec::<String>::new(),
+        "no name while running"
+    );
+    let killed = Command::new("kill")
+        .args(["-INT", &child.id().to_string()])
+        .status()
+        .unwrap();
+    assert!(killed.success());
+    let mut rest = String::new();
+    let _ = stderr.read_to_string(&mut rest);
+    let status = child.wait().unwrap();
+    // stopped while writing (130), or done before the signal came (0)
+    assert!(matches!(status.code(), Some(130 | 0)), "{status:?}: {rest}");
+    assert_eq!(entries_of(&dir), Vec::<String>::new());
+    let _ = std::fs::remove_dir_all(&dir);
+    let _ = std::fs::remove_file(&out_file);
 }

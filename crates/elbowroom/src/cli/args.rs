@@ -4,6 +4,7 @@
 
 use super::shard::Shard;
 use crate::math::Perm;
+use crate::math::hessenberg::function::HessenbergFn;
 use crate::tables::table::Table;
 use clap::{Args, Parser, Subcommand, ValueEnum};
 use std::path::PathBuf;
@@ -145,9 +146,9 @@ pub struct ForestArgs {
     /// The number of variables N of --poly.
     #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: Option<usize>,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
 }
 
 /// Arguments of `elbowroom perm`.
@@ -156,9 +157,9 @@ pub struct PermArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4 (commas needed for n >= 10).
     #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
     pub perm: Perm,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
 }
 
 /// Arguments of `elbowroom schubert`.
@@ -167,12 +168,9 @@ pub struct SchubertArgs {
     /// The permutation: 31524, "3 1 5 2 4" or 3,1,5,2,4.
     #[arg(allow_hyphen_values = true, value_parser = perm_arg)]
     pub perm: Perm,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
-    /// Print the polynomial in LaTeX instead of plain text.
-    #[arg(long, conflicts_with = "json")]
-    pub latex: bool,
+    /// How to print the polynomial.
+    #[command(flatten)]
+    pub output: JsonOrLatex,
     /// Also give the principal specialization S_w(1, q, q², …) and S_w(1, …, 1).
     #[arg(long)]
     pub principal: bool,
@@ -193,9 +191,9 @@ pub struct WordsArgs {
     /// The number of reduced words of each content c (c_i = number of letters i), no words listed.
     #[arg(long, conflicts_with = "count")]
     pub by_content: bool,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
     /// Where the output goes.
     #[command(flatten)]
     pub out: OutFile,
@@ -216,9 +214,9 @@ pub struct DreamsArgs {
     /// Bumpless pipe dreams (n×n grids) instead of reduced pipe dreams.
     #[arg(long)]
     pub bumpless: bool,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
     /// Where the output goes.
     #[command(flatten)]
     pub out: OutFile,
@@ -234,11 +232,11 @@ pub struct DivsymArgs {
     #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: usize,
     /// A Hessenberg function h(1),...,h(n) (default h(i) = i+1, i.e. DS_n).
-    #[arg(long, allow_hyphen_values = true)]
-    pub h: Option<String>,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    #[arg(long, allow_hyphen_values = true, value_parser = hessenberg_arg)]
+    pub h: Option<HessenbergArg>,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
 }
 
 /// Arguments of `elbowroom hessenberg`.
@@ -248,8 +246,8 @@ pub struct HessenbergArgs {
     #[arg(long, allow_hyphen_values = true, value_parser = table_n, help = format!("The number of variables n (1 to {})", crate::math::hessenberg::function::HESSENBERG_MAX_N))]
     pub n: usize,
     /// A Hessenberg function h(1),...,h(n) (default h(i) = i+1 for i < n).
-    #[arg(long, allow_hyphen_values = true)]
-    pub h: Option<String>,
+    #[arg(long, allow_hyphen_values = true, value_parser = hessenberg_arg)]
+    pub h: Option<HessenbergArg>,
     /// Compute only piece K of N (K/N): the permutations at listing positions i with i mod N = K-1.
     #[arg(long, allow_hyphen_values = true, value_parser = shard_arg)]
     pub shard: Option<Shard>,
@@ -285,9 +283,9 @@ pub struct ExpandArgs {
     /// The expansion in Q[x1..xN] over S_∞ instead of its image in H*(Fl_N).
     #[arg(long)]
     pub stable: bool,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
 }
 
 /// Arguments of `elbowroom product`.
@@ -302,9 +300,9 @@ pub struct ProductArgs {
     /// Multiply in H*(Fl_N) instead of stably (u and v must lie in S_N).
     #[arg(long, allow_hyphen_values = true, value_parser = whole_n)]
     pub n: Option<usize>,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
 }
 
 /// Arguments of `elbowroom volume`.
@@ -316,9 +314,9 @@ pub struct VolumeArgs {
     /// Also give the volume as a polynomial in λ_1..λ_n (valid on λ_1 >= ... >= λ_n).
     #[arg(long)]
     pub polynomial: bool,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
 }
 
 /// Arguments of `elbowroom eulerian`.
@@ -342,14 +340,14 @@ pub struct CoefficientArgs {
     #[arg(allow_hyphen_values = true)]
     pub perm: String,
     /// A Hessenberg function h(1),...,h(n) (default h(i) = i+1: the permutahedral class).
-    #[arg(long, allow_hyphen_values = true)]
-    pub h: Option<String>,
+    #[arg(long, allow_hyphen_values = true, value_parser = hessenberg_arg)]
+    pub h: Option<HessenbergArg>,
     /// Also give the q-analogue a_w(q) (default h only).
     #[arg(long)]
     pub q: bool,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
 }
 
 /// How a command that makes a table prints it: readable text by default, or
@@ -384,6 +382,25 @@ impl TableOutput {
     }
 }
 
+/// `--json`, for a command whose only other output is its text.
+#[derive(Args, Debug, Default)]
+pub struct JsonOutput {
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+}
+
+/// `--json` or `--latex`, for a command that prints one polynomial.
+#[derive(Args, Debug, Default)]
+pub struct JsonOrLatex {
+    /// Print one JSON object instead of text.
+    #[arg(long)]
+    pub json: bool,
+    /// Print the polynomial in LaTeX instead of plain text.
+    #[arg(long, conflicts_with = "json")]
+    pub latex: bool,
+}
+
 /// Arguments of `elbowroom merge`.
 #[derive(Args, Debug)]
 pub struct MergeArgs {
@@ -401,9 +418,9 @@ pub struct QuotientArgs {
     /// The number of variables n (the help names the range from the limits).
     #[arg(long, allow_hyphen_values = true, value_parser = whole_n, help = quotient_n_help())]
     pub n: usize,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
     /// Draw every basis path in the text output (by default only for n <= 4).
     #[arg(long, conflicts_with = "json")]
     pub draw: bool,
@@ -421,9 +438,9 @@ pub struct ReduceArgs {
     /// The number of variables n (the help names the range from the limits).
     #[arg(long, allow_hyphen_values = true, value_parser = whole_n, help = quotient_n_help())]
     pub n: usize,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
     /// Also give the class in the forest basis (the forests with leaves in [n]).
     #[arg(long)]
     pub forest: bool,
@@ -486,9 +503,9 @@ pub enum SessionAction {
 pub struct SessionCheckArgs {
     /// The session file (`.ron`).
     pub file: PathBuf,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
 }
 
 /// What `elbowroom figure` draws.
@@ -611,11 +628,56 @@ pub struct FigureArgs {
     #[arg(long, default_value_t = 24, allow_hyphen_values = true, value_parser = whole_count)]
     pub samples: usize,
     /// hessenberg: the Hessenberg function h(1),...,h(n), e.g. 2,3,3.
-    #[arg(long, allow_hyphen_values = true)]
-    pub h: Option<String>,
-    /// Print one JSON object instead of text.
-    #[arg(long)]
-    pub json: bool,
+    #[arg(long, allow_hyphen_values = true, value_parser = hessenberg_arg)]
+    pub h: Option<HessenbergArg>,
+    /// How to print the result.
+    #[command(flatten)]
+    pub output: JsonOutput,
+}
+
+/// `--h`: a Hessenberg function as typed. Its entries are read by the parser
+/// (a text that is not a list of positive integers is refused there); whether
+/// it is a Hessenberg function of the right n is known once n is
+/// ([`HessenbergArg::for_n`]), so that the refusal names what is wrong (its
+/// number of entries before its values).
+#[derive(Clone, Debug)]
+pub struct HessenbergArg {
+    /// The function, when the entries make one.
+    pub h: Option<HessenbergFn>,
+    /// The text it was read from, as messages quote it.
+    pub typed: String,
+}
+
+impl HessenbergArg {
+    /// The function of size `n` (any size with `None`), or the reader's refusal.
+    pub fn for_n(&self, n: Option<usize>) -> crate::math::MathResult<HessenbergFn> {
+        match (&self.h, n) {
+            (Some(h), None) => Ok(h.clone()),
+            (Some(h), Some(n)) if h.n() == n => Ok(h.clone()),
+            _ => HessenbergFn::parse(&self.typed, n),
+        }
+    }
+}
+
+/// `--h h(1),...,h(n)` ([`HessenbergFn::parse`]): entries that are not
+/// positive integers are refused here, with the reader's message.
+pub fn hessenberg_arg(text: &str) -> Result<HessenbergArg, Verbatim> {
+    let whole = HessenbergFn::parse(text, None);
+    let integers = text
+        .split([',', ' ', '\t'])
+        .filter(|t| !t.is_empty())
+        .all(|t| t.trim().parse::<usize>().is_ok());
+    match whole {
+        Ok(h) => Ok(HessenbergArg {
+            h: Some(h),
+            typed: text.to_string(),
+        }),
+        Err(e) if !integers => Err(Verbatim(e.to_string())),
+        Err(_) => Ok(HessenbergArg {
+            h: None,
+            typed: text.to_string(),
+        }),
+    }
 }
 
 /// λ = (λ_1, ..., λ_n), exact rationals as typed.
@@ -746,5 +808,27 @@ mod tests {
         assert!(finite_angle("NaN").is_err() && finite_angle("inf").is_err());
         assert_eq!(finite_angle("-0.5"), Ok(-0.5));
         assert!(finite_number("nan").is_err());
+    }
+
+    /// `--h`: a text that is not a list of positive integers is refused by the
+    /// parser; one of the wrong size is refused once n is known, by its size
+    /// (2,3 is no Hessenberg function of any n, but the message says it has
+    /// 2 entries where 3 were asked).
+    #[test]
+    fn hessenberg_functions_are_read_typed() {
+        let typed = |t: &str| hessenberg_arg(t).map_err(|e| e.0);
+        assert!(typed("2,x,3").is_err_and(|e| e.contains("'x'")));
+        let h = typed("2 3,3").map(|a| a.for_n(Some(3)).map(|h| h.values().to_vec()));
+        assert_eq!(h, Ok(Ok(vec![2, 3, 3])));
+        let short = typed("2,3").map(|a| a.for_n(Some(3)).map_err(|e| e.to_string()));
+        assert!(
+            short.as_ref().is_ok_and(|r| r
+                .as_ref()
+                .is_err_and(|e| e.contains("'2,3' has 2 entries but n = 3"))),
+            "{short:?}"
+        );
+        // a function of another n than asked, and one that is no function
+        assert!(typed("2,3,3").is_ok_and(|a| a.for_n(Some(4)).is_err()));
+        assert!(typed("3,2,3").is_ok_and(|a| a.for_n(Some(3)).is_err() && a.for_n(None).is_err()));
     }
 }

@@ -7,7 +7,6 @@
 use super::args::CoefficientArgs;
 use super::error::CliError;
 use super::interrupt;
-use super::json;
 use crate::math::explain::explanation::{Explanation, explain};
 use crate::math::explain::formula::{WORD_FORMULA_WORK_LIMIT, size_word_formula};
 use crate::math::explain::qvalue::{QCoefficient, q_coefficient};
@@ -21,11 +20,10 @@ use crate::math::pipes::dream::term_bound;
 use crate::math::schubert::polynomial::schubert;
 use crate::math::{MathResult, Perm, Progress};
 use serde::Serialize;
-use serde_json::{Value, json};
 
 /// The JSON record of `coefficient` (fields after `value` only for the default h).
 #[derive(Serialize, Debug)]
-pub struct CoefficientRecord {
+pub struct CoefficientRecord<'a> {
     /// w in one-line notation.
     pub perm: Vec<usize>,
     /// n.
@@ -45,7 +43,7 @@ pub struct CoefficientRecord {
     pub conjugate: Option<PermValue>,
     /// The rules that apply, each `{"name", "value", …}`.
     #[serde(skip_serializing_if = "Option::is_none")]
-    pub rules: Option<Vec<Value>>,
+    pub rules: Option<Vec<RuleRecord<'a>>>,
     /// The cyclic orbit and its sum.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub cyclic: Option<Cyclic>,
@@ -100,33 +98,62 @@ pub struct Cyclic {
     pub reduced_words: String,
 }
 
-/// A rule as its JSON object.
-pub fn rule_json(rule: &Rule) -> Value {
-    let mut v = json!({"name": rule.name(), "value": rule.value().to_string()});
+/// A rule as its JSON object: its name and value, then what the rule
+/// counts (pipe dreams; the descent, shape and tableaux; reduced words).
+#[derive(Serialize, Debug, Default)]
+pub struct RuleRecord<'a> {
+    name: &'a str,
+    value: String,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pipe_dreams: Option<String>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    descent: Option<usize>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    shape: Option<&'a [usize]>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    tableaux_count: Option<String>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    tableaux: Option<&'a [Vec<Vec<usize>>]>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    reduced_words: Option<String>,
+}
+
+/// The record of a rule.
+pub fn rule_json(rule: &Rule) -> RuleRecord<'_> {
+    let base = RuleRecord {
+        name: rule.name(),
+        value: rule.value().to_string(),
+        ..RuleRecord::default()
+    };
     match rule {
-        Rule::Parking { pipe_dreams } => v["pipe_dreams"] = json::exact(pipe_dreams),
+        Rule::Parking { pipe_dreams } => RuleRecord {
+            pipe_dreams: Some(pipe_dreams.to_string()),
+            ..base
+        },
         Rule::Grassmannian {
             descent,
             shape,
             count,
             tableaux,
-        } => {
-            v["descent"] = json!(descent);
-            v["shape"] = json!(shape);
-            v["tableaux_count"] = json::exact(count);
-            v["tableaux"] = json!(tableaux);
-        }
-        Rule::Coxeter { reduced_words } => v["reduced_words"] = json::exact(reduced_words),
+        } => RuleRecord {
+            descent: Some(*descent),
+            shape: Some(shape),
+            tableaux_count: Some(count.to_string()),
+            tableaux: Some(tableaux),
+            ..base
+        },
+        Rule::Coxeter { reduced_words } => RuleRecord {
+            reduced_words: Some(reduced_words.to_string()),
+            ..base
+        },
     }
-    v
 }
 
-/// Runs the command.
 pub fn run(args: &CoefficientArgs) -> Result<String, CliError> {
     let w = Perm::parse(&args.perm)?;
     let n = w.n();
     let h = match &args.h {
-        Some(text) => HessenbergFn::parse(text, None)?,
+        Some(typed) => typed.for_n(None)?,
         None => HessenbergFn::default_for(n)?,
     };
     if h.n() != n {
@@ -169,7 +196,7 @@ pub fn run(args: &CoefficientArgs) -> Result<String, CliError> {
             Ok((e, q, trees))
         })?;
     let record = record(&w, &h, &e, q.as_ref(), &trees);
-    if args.json {
+    if args.output.json {
         return serde_json::to_string(&record)
             .map_err(|e| CliError::Input(format!("the record could not be written as JSON: {e}")));
     }
@@ -191,13 +218,13 @@ fn pv(w: &Perm, value: &impl std::fmt::Display) -> PermValue {
 }
 
 /// The record of the default h.
-pub fn record(
+pub fn record<'a>(
     w: &Perm,
     h: &HessenbergFn,
-    e: &Explanation,
+    e: &'a Explanation,
     q: Option<&QCoefficient>,
     trees: &[TreeTerm],
-) -> CoefficientRecord {
+) -> CoefficientRecord<'a> {
     let f = &e.formula;
     CoefficientRecord {
         perm: w.one_line(),
@@ -352,7 +379,7 @@ fn other_h(args: &CoefficientArgs, w: &Perm, h: &HessenbergFn) -> Result<String,
     let value = interrupt::run_interruptible("the coefficient", "steps", 0, |progress| {
         coefficient_for_h(w, h, progress)
     })?;
-    if args.json {
+    if args.output.json {
         let record = CoefficientRecord {
             perm: w.one_line(),
             n: w.n(),

@@ -10,35 +10,55 @@ use super::error::CliError;
 use super::inputs::hessenberg_from_args;
 use super::interrupt;
 use super::json;
+use super::json::PolyRecord;
 use crate::math::RatPoly;
 use crate::math::hessenberg::divsym::{DividedSymmetrization, divided_symmetrize_with};
 use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::poly::parse::parse_poly;
 use crate::math::{MathError, Progress};
-use serde_json::{Value, json};
+use serde::Serialize;
 use std::sync::Arc;
 use std::time::Duration;
 
-/// Runs the command.
+/// One term c·m_λ of a symmetric result.
+#[derive(Serialize)]
+struct SymmetricTerm<'a, L: Serialize> {
+    lambda: &'a L,
+    value: String,
+}
+
+/// The JSON of `divsym`.
+#[derive(Serialize)]
+struct DivsymRecord<'a, L: Serialize> {
+    n: usize,
+    h: &'a [usize],
+    dimension: usize,
+    input: PolyRecord,
+    result: PolyRecord,
+    symmetric: Vec<SymmetricTerm<'a, L>>,
+}
+
 pub fn run(args: &DivsymArgs) -> Result<String, CliError> {
-    let h = hessenberg_from_args(args.n, args.h.as_deref(), crate::math::MAX_N)?;
+    let h = hessenberg_from_args(args.n, args.h.as_ref(), crate::math::MAX_N)?;
     let f = parse_poly(&args.poly, Some(args.n))?;
     check_budget(&f, &h)?;
     let ds = interruptible(&f, &h)?;
-    if args.json {
-        let symmetric: Vec<Value> = ds
-            .symmetric
-            .iter()
-            .map(|(lambda, c)| json!({"lambda": lambda, "value": json::exact(c)}))
-            .collect();
-        return Ok(json::render(&json!({
-            "n": h.n(),
-            "h": h.values(),
-            "dimension": h.dimension(),
-            "input": json::poly(&f),
-            "result": json::poly(&ds.value),
-            "symmetric": symmetric,
-        })));
+    if args.output.json {
+        return json::text(&DivsymRecord {
+            n: h.n(),
+            h: h.values(),
+            dimension: h.dimension(),
+            input: PolyRecord::of(&f),
+            result: PolyRecord::of(&ds.value),
+            symmetric: ds
+                .symmetric
+                .iter()
+                .map(|(lambda, c)| SymmetricTerm {
+                    lambda,
+                    value: c.to_string(),
+                })
+                .collect(),
+        });
     }
     let name = if h.is_default() {
         format!("DS_{}", h.n())

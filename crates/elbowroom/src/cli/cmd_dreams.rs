@@ -6,14 +6,36 @@
 use super::args::DreamsArgs;
 use super::error::CliError;
 use super::interrupt;
-use super::json;
 use super::output::Sink;
 use crate::math::pipes::bumpless::bumpless_dreams;
 use crate::math::pipes::dream::{count_pipe_dreams, pipe_dreams};
 use crate::math::poly::mono::exponents_text;
 use crate::math::{Perm, Progress};
 use num_bigint::BigUint;
-use serde_json::json;
+use serde::Serialize;
+
+/// The members of `dreams --json` before its list of dreams.
+#[derive(Serialize)]
+struct DreamsHead {
+    perm: Vec<usize>,
+    count: String,
+}
+
+/// One reduced pipe dream: its crosses (i, j), reading word and monomial.
+#[derive(Serialize)]
+struct DreamRecord<W: Serialize, M: Serialize> {
+    crosses: Vec<[usize; 2]>,
+    word: W,
+    monomial: M,
+}
+
+/// One bumpless pipe dream: its blank tiles (i, j), monomial and rows of tiles.
+#[derive(Serialize)]
+struct BumplessRecord<M: Serialize> {
+    blanks: Vec<[usize; 2]>,
+    monomial: M,
+    tiles: Vec<String>,
+}
 use std::fmt::Write as _;
 use std::sync::Arc;
 
@@ -21,7 +43,6 @@ use std::sync::Arc;
 /// once by a search with a set of the dreams seen).
 pub const BUMPLESS_LIMIT: u64 = 200_000;
 
-/// Runs the command.
 pub fn run(args: &DreamsArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let w = args.perm.clone();
     // the number of reduced pipe dreams, S_w(1, ..., 1); by Lam–Lee–Shimozono it
@@ -66,18 +87,19 @@ fn reduced(
     };
     progress.set_total(listed as u64);
     let dreams = pipe_dreams(w).take(listed);
-    if args.json {
-        let head = json!({"perm": w.one_line(), "count": json::exact(count)});
+    if args.output.json {
+        let head = DreamsHead {
+            perm: w.one_line(),
+            count: count.to_string(),
+        };
         return sink.json_listing(
             &head,
             "dreams",
             dreams,
-            |d| {
-                json!({
-                    "crosses": d.crosses().iter().map(|&(i, j)| [i, j]).collect::<Vec<_>>(),
-                    "word": d.reading_word(),
-                    "monomial": d.monomial(),
-                })
+            |d| DreamRecord {
+                crosses: d.crosses().iter().map(|&(i, j)| [i, j]).collect(),
+                word: d.reading_word(),
+                monomial: d.monomial(),
             },
             progress,
             written,
@@ -127,19 +149,19 @@ fn bumpless(
         dreams.truncate(shown);
     }
     progress.set_total(dreams.len() as u64);
-    if args.json {
-        let head = json!({"perm": w.one_line(), "count": json::exact(count)});
+    if args.output.json {
+        let head = DreamsHead {
+            perm: w.one_line(),
+            count: count.to_string(),
+        };
         return sink.json_listing(
             &head,
             "dreams",
             &dreams,
-            |d| {
-                let rows: Vec<String> = d.to_string().lines().map(str::to_string).collect();
-                json!({
-                    "blanks": d.blanks().iter().map(|&(i, j)| [i, j]).collect::<Vec<_>>(),
-                    "monomial": d.monomial(),
-                    "tiles": rows,
-                })
+            |d| BumplessRecord {
+                blanks: d.blanks().iter().map(|&(i, j)| [i, j]).collect(),
+                monomial: d.monomial(),
+                tiles: d.to_string().lines().map(str::to_string).collect(),
             },
             progress,
             written,

@@ -13,9 +13,27 @@ use crate::math::poly::qpoly::QPoly;
 use crate::math::{MathResult, Progress};
 use crate::tables::results::eulerian_table;
 use num_bigint::BigInt;
-use serde_json::{Value, json};
+use serde::Serialize;
 
-/// Runs the command.
+/// One A_c (and A_c(q) with `--q`).
+#[derive(Serialize)]
+struct EulerianNumber<'a, C: Serialize> {
+    c: &'a C,
+    value: String,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    q: Option<Vec<String>>,
+}
+
+/// The JSON of `eulerian`.
+#[derive(Serialize)]
+struct EulerianRecord<'a, C: Serialize> {
+    n: usize,
+    order: &'static str,
+    numbers: Vec<EulerianNumber<'a, C>>,
+    count: usize,
+    sum: String,
+}
+
 pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
     if !(2..=crate::math::MAX_N).contains(&args.n) {
         return Err(CliError::Input(format!(
@@ -52,24 +70,21 @@ pub fn run(args: &EulerianArgs) -> Result<String, CliError> {
         None
     };
     if args.output.json {
-        let list: Vec<Value> = numbers
-            .iter()
-            .enumerate()
-            .map(|(k, (c, v))| {
-                let mut row = json!({"c": c, "value": json::exact(v)});
-                if let Some(q) = &q_values {
-                    row["q"] = json!(q[k].coeff_strings());
-                }
-                row
-            })
-            .collect();
-        return Ok(json::render(&json!({
-            "n": args.n,
-            "order": "decreasing lexicographic in c",
-            "numbers": list,
-            "count": numbers.len(),
-            "sum": json::exact(&sum),
-        })));
+        return json::text(&EulerianRecord {
+            n: args.n,
+            order: "decreasing lexicographic in c",
+            numbers: numbers
+                .iter()
+                .enumerate()
+                .map(|(k, (c, v))| EulerianNumber {
+                    c,
+                    value: v.to_string(),
+                    q: q_values.as_ref().map(|q| q[k].coeff_strings()),
+                })
+                .collect(),
+            count: numbers.len(),
+            sum: sum.to_string(),
+        });
     }
     let width = numbers
         .iter()

@@ -7,46 +7,60 @@
 
 use super::args::ExpandArgs;
 use super::error::CliError;
+use super::expansion_text::TermRecord;
 use super::interrupt;
+use super::json;
 use super::output::Sink;
 use crate::math::schubert::expansion::expand_typed;
 use num_rational::BigRational;
 use num_traits::{One, Signed};
+use serde::Serialize;
 use std::fmt::Write as _;
+
+/// The members of `expand --json` before its terms.
+#[derive(Serialize)]
+struct ExpandHead {
+    n: usize,
+    stable: bool,
+}
+
+/// The members of `expand --json` after its terms.
+#[derive(Serialize)]
+struct ExpandSummary {
+    nonnegative: bool,
+}
 
 /// How many bytes of terms are gathered before they go to the sink.
 const FLUSH_AT: usize = 1 << 16;
 
 /// Runs the command, writing the terms one at a time into one reused buffer
-/// (the JSON object is never built as a tree).
+/// (the JSON object is never built as a tree: its head, terms and summary
+/// are typed records written in turn).
 pub fn run(args: &ExpandArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let expansion = interrupt::run_interruptible("the expansion", "steps", 0, |progress| {
         expand_typed(&args.poly, args.n, args.stable, progress)
     })?;
     let terms = &expansion.terms;
     let mut buf = String::with_capacity(FLUSH_AT + 256);
-    if args.json {
+    if args.output.json {
         // {"n":N,"stable":B,"terms":[{"perm":[...],"coefficient":"c"},...],"nonnegative":B}
-        let _ = write!(
-            buf,
-            "{{\"n\":{},\"stable\":{},\"terms\":[",
-            args.n, args.stable
-        );
+        let head = ExpandHead {
+            n: args.n,
+            stable: args.stable,
+        };
+        buf.push_str(&json::open_list(&head, "terms")?);
         for (k, (w, c)) in terms.iter().enumerate() {
             if k > 0 {
                 buf.push(',');
             }
-            buf.push_str("{\"perm\":[");
-            for (i, v) in w.one_line().iter().enumerate() {
-                if i > 0 {
-                    buf.push(',');
-                }
-                let _ = write!(buf, "{v}");
-            }
-            let _ = write!(buf, "],\"coefficient\":\"{c}\"}}");
+            buf.push_str(&json::text(&TermRecord::of(w, c))?);
             flush_when_full(&mut buf, sink)?;
         }
-        let _ = writeln!(buf, "],\"nonnegative\":{}}}", expansion.is_nonnegative());
+        let tail = ExpandSummary {
+            nonnegative: expansion.is_nonnegative(),
+        };
+        buf.push_str(&json::close_list(&tail)?);
+        buf.push('\n');
         return sink.text(&buf);
     }
     let space = if args.stable {

@@ -8,6 +8,7 @@ use super::error::CliError;
 use super::inputs::entries;
 use super::interrupt;
 use super::json;
+use super::json::PolyRecord;
 use crate::math::forest::expansion::{ForestTerms, check_expansion_size, forest_expansion};
 use crate::math::forest::indexed::{Forest, code_text};
 use crate::math::forest::polynomial::forest_polynomial;
@@ -16,12 +17,11 @@ use crate::math::forest::trees::{a_w_by_trees, a_w_sum};
 use crate::math::poly::mono::MAX_VARS;
 use crate::math::poly::parse::parse_poly;
 use crate::math::{Coeff, Perm};
-use serde_json::{Value, json};
+use serde::Serialize;
 
-/// Runs the command.
 pub fn run(args: &ForestArgs) -> Result<String, CliError> {
     if let Some(code) = &args.code {
-        return run_code(code, args.json);
+        return run_code(code, args.output.json);
     }
     if let Some(poly) = &args.poly {
         let Some(n) = args.n else {
@@ -29,14 +29,14 @@ pub fn run(args: &ForestArgs) -> Result<String, CliError> {
                 "--poly needs --n N, the number of variables".into(),
             ));
         };
-        return run_poly(poly, n, args.json);
+        return run_poly(poly, n, args.output.json);
     }
     let Some(w) = &args.perm else {
         return Err(CliError::Input(
             "give a permutation W, --code c1,c2,… or --poly POLY --n N".into(),
         ));
     };
-    run_perm(w, args.json)
+    run_perm(w, args.output.json)
 }
 
 /// Reads a code typed as `1,0,1` or `1 0 1` (a single `0` is the empty forest).
@@ -60,10 +60,10 @@ fn run_code(text: &str, as_json: bool) -> Result<String, CliError> {
         forest_polynomial(&forest, progress)
     })?;
     if as_json {
-        return Ok(json::render(&json!({
-            "code": forest.code(),
-            "polynomial": json::poly(&p),
-        })));
+        return json::text(&ForestRecord {
+            code: forest.code(),
+            polynomial: PolyRecord::of(&p),
+        });
     }
     let terminals: Vec<String> = forest.terminals().iter().map(|i| i.to_string()).collect();
     let nodes = forest.size();
@@ -86,11 +86,11 @@ fn run_perm(text: &str, as_json: bool) -> Result<String, CliError> {
     })?;
     let single = is_single(&terms);
     if as_json {
-        return Ok(json::render(&json!({
-            "perm": w.one_line(),
-            "terms": terms_json(&terms, "coefficient"),
-            "single": single,
-        })));
+        return json::text(&SchubertForestRecord {
+            perm: w.one_line(),
+            terms: terms_json(&terms, "coefficient"),
+            single,
+        });
     }
     let mut out = format!("S_{w} = {}\n", sum_text(&terms));
     out.push_str(&table_text(&terms, "coefficient"));
@@ -145,10 +145,10 @@ fn run_poly(text: &str, n: usize, as_json: bool) -> Result<String, CliError> {
         forest_expansion(&f, None, progress)
     })?;
     if as_json {
-        return Ok(json::render(&json!({
-            "n": n,
-            "terms": terms_json(&terms, "coefficient"),
-        })));
+        return json::text(&ExpansionRecord {
+            n,
+            terms: terms_json(&terms, "coefficient"),
+        });
     }
     let mut out = format!("{} = {}\n", text.trim(), sum_text(&terms));
     out.push_str(&table_text(&terms, "coefficient"));
@@ -160,19 +160,55 @@ fn run_poly(text: &str, n: usize, as_json: bool) -> Result<String, CliError> {
     Ok(out)
 }
 
+/// The JSON of `forest --code`.
+#[derive(Serialize)]
+struct ForestRecord<'a> {
+    code: &'a [usize],
+    polynomial: PolyRecord,
+}
+
+/// The JSON of `forest W`.
+#[derive(Serialize)]
+struct SchubertForestRecord {
+    perm: Vec<usize>,
+    terms: Vec<ForestTerm<'static>>,
+    single: bool,
+}
+
+/// The JSON of `forest --poly`.
+#[derive(Serialize)]
+struct ExpansionRecord {
+    n: usize,
+    terms: Vec<ForestTerm<'static>>,
+}
+
+/// One term c·P_F: `{"code": [...], KEY: "c"}` (KEY `coefficient` or `value`).
+pub struct ForestTerm<'k> {
+    code: Vec<usize>,
+    key: &'k str,
+    value: String,
+}
+
+impl Serialize for ForestTerm<'_> {
+    fn serialize<S: serde::Serializer>(&self, s: S) -> Result<S::Ok, S::Error> {
+        use serde::ser::SerializeMap;
+        let mut map = s.serialize_map(Some(2))?;
+        map.serialize_entry("code", &self.code)?;
+        map.serialize_entry(self.key, &self.value)?;
+        map.end()
+    }
+}
+
 /// `[{"code": [...], KEY: "c"}, ...]`, in the order given.
-pub fn terms_json<C: Coeff>(terms: &ForestTerms<C>, key: &str) -> Value {
-    Value::Array(
-        terms
-            .iter()
-            .map(|(code, c)| {
-                let mut o = serde_json::Map::new();
-                o.insert("code".into(), json!(code));
-                o.insert(key.into(), json::exact(c));
-                Value::Object(o)
-            })
-            .collect(),
-    )
+pub fn terms_json<C: Coeff>(terms: &ForestTerms<C>, key: &'static str) -> Vec<ForestTerm<'static>> {
+    terms
+        .iter()
+        .map(|(code, c)| ForestTerm {
+            code: code.clone(),
+            key,
+            value: c.to_string(),
+        })
+        .collect()
 }
 
 /// `P_(1,2) + 2 P_(2,1) - P_()`; `0` when there is no term.

@@ -50,7 +50,7 @@ pub fn run(args: &HessenbergArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     }
     let h = hessenberg_from_args(
         args.n,
-        args.h.as_deref(),
+        args.h.as_ref(),
         crate::math::hessenberg::function::HESSENBERG_MAX_N,
     )?;
     let shard = args.shard.unwrap_or(Shard::WHOLE);

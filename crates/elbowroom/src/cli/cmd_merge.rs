@@ -6,8 +6,9 @@
 //! with one N, and together cover the listing exactly once. (The messages call
 //! a shard a "piece", as they always have.)
 //!
-//! Hessenberg pieces are read side by side, a coefficient at a time, never held:
-//! a first pass re-checks every piece (its n, h, dimension, listing size and
+//! Hessenberg pieces are read side by side with serde, a coefficient at a time,
+//! never held ([`piece_reader`]; the fields may come in any order, the
+//! coefficients' w must come after n and h): a first pass re-checks every piece (its n, h, dimension, listing size and
 //! version against the first file; each coefficient's w against the position of
 //! the listing it must hold; its own total, nonzero count, maximum and negative
 //! count against its rows; no piece cut short or too long), and only then a
@@ -19,9 +20,9 @@ use super::documents::{HESSENBERG_KIND, HessenbergJsonStream, SURVEY_KIND, VERSI
 use super::error::CliError;
 use super::interrupt;
 use super::json;
-use super::json_reader::JsonReader;
 use super::merge_survey::{SurveyPiece, merge_survey_pieces};
 use super::output::Sink;
+use super::piece_reader::{self, PieceStream};
 use super::shard::Shard;
 use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::hessenberg::rows::RowSummary;
@@ -42,7 +43,6 @@ pub const MERGE_FILE_LIMIT: u64 = 4_000_000_000;
 /// The largest survey piece read (surveys are read whole).
 pub const SURVEY_FILE_LIMIT: u64 = 256_000_000;
 
-/// Runs the command.
 pub fn run(args: &MergeArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let mut kinds = Vec::new();
     for path in &args.files {
@@ -99,10 +99,13 @@ fn check_file(path: &Path) -> Result<(), CliError> {
     Ok(())
 }
 
-fn open(path: &Path) -> Result<JsonReader<BufReader<File>>, CliError> {
-    let file = File::open(path)
-        .map_err(|e| CliError::Input(format!("cannot read {}: {e}", shown(path))))?;
-    JsonReader::new(BufReader::with_capacity(1 << 16, file)).map_err(|e| not_json(path, &e))
+fn open(path: &Path) -> Result<File, CliError> {
+    File::open(path).map_err(|e| CliError::Input(format!("cannot read {}: {e}", shown(path))))
+}
+
+/// A Hessenberg piece read as it streams ([`PieceStream`]).
+fn stream(path: &Path) -> Result<PieceStream, CliError> {
+    PieceStream::open(open(path)?).map_err(|e| not_json(path, &e))
 }
 
 fn not_json(path: &Path, why: &str) -> CliError {
@@ -114,15 +117,7 @@ fn not_json(path: &Path, why: &str) -> CliError {
 
 /// The `"kind"` of a file: its fields are read up to the kind or to a list.
 fn kind_of(path: &Path) -> Result<String, CliError> {
-    let mut r = open(path)?;
-    while let Some(key) = r.next_key().map_err(|e| not_json(path, &e))? {
-        if key == "kind" {
-            let v = r.value().map_err(|e| not_json(path, &e))?;
-            return Ok(v.as_str().unwrap_or("").to_string());
-        }
-        r.value().map_err(|e| not_json(path, &e))?;
-    }
-    Ok(String::new())
+    piece_reader::kind(open(path)?).map_err(|e| not_json(path, &e))
 }
 
 /// A survey piece read with serde as it streams from the file (the text is
@@ -158,23 +153,10 @@ impl Piece {
 }
 
 /// The fields before `"coefficients"`, checked; the reader is left at the list.
-fn read_head(
-    path: &Path,
-    r: &mut JsonReader<BufReader<File>>,
-) -> Result<(HessenbergFn, usize), CliError> {
+fn read_head(path: &Path, r: &mut PieceStream) -> Result<(HessenbergFn, usize), CliError> {
     let name = shown(path);
     let bad = |what: &str| CliError::Input(format!("{name}: {what}"));
-    let mut head = serde_json::Map::new();
-    loop {
-        let Some(key) = r.next_key().map_err(|e| bad(&e))? else {
-            return Err(bad("no \"coefficients\" list (cut short?)"));
-        };
-        if key == "coefficients" {
-            break;
-        }
-        let v = r.value().map_err(|e| bad(&e))?;
-        head.insert(key, v);
-    }
+    let head = r.head().map_err(|e| bad(&e))?;
     let h_values: Vec<usize> = head
         .get("h")
         .and_then(Value::as_array)
@@ -210,7 +192,6 @@ fn read_head(
             "\"order\" is not \"lexicographic in one-line notation\"",
         ));
     }
-    r.begin_list().map_err(|e| bad(&e))?;
     Ok((h, listed))
 }
 
@@ -234,32 +215,20 @@ fn labels(path: &Path) -> Result<Labels, CliError> {
             CliError::Input(format!("{name}: {what}"))
         }
     };
-    let mut r = open(path)?;
-    let mut labels = Labels {
-        shard: Shard::WHOLE,
-        version: None,
-        build: None,
+    let read = piece_reader::labels(open(path)?).map_err(|e| bad(&e))?;
+    let text = |v: Option<Value>| v.and_then(|v| v.as_str().map(str::to_string));
+    let shard = match read.shard {
+        None => Shard::WHOLE,
+        Some(v) => {
+            let label = text(Some(v)).ok_or_else(|| bad("\"shard\" is not a text K/N"))?;
+            Shard::parse(&label).map_err(|e| bad(&e.message()))?
+        }
     };
-    while let Some(key) = r.next_key().map_err(|e| bad(&e))? {
-        if key == "coefficients" {
-            r.begin_list().map_err(|e| bad(&e))?;
-            while r.next_item().map_err(|e| bad(&e))?.is_some() {}
-            continue;
-        }
-        let v = r.value().map_err(|e| bad(&e))?;
-        let text = || v.as_str().map(str::to_string);
-        match key.as_str() {
-            "shard" => {
-                let label = text().ok_or_else(|| bad("\"shard\" is not a text K/N"))?;
-                labels.shard = Shard::parse(&label).map_err(|e| bad(&e.message()))?;
-            }
-            "version" => labels.version = text(),
-            "build" => labels.build = text(),
-            _ => {}
-        }
-    }
-    r.finish().map_err(|e| bad(&e))?;
-    Ok(labels)
+    Ok(Labels {
+        shard,
+        version: text(read.version),
+        build: text(read.build),
+    })
 }
 
 /// A file's name as a message quotes it.
@@ -273,7 +242,7 @@ fn merge_hessenberg(files: &[PathBuf], sink: &mut Sink<'_>) -> Result<(), CliErr
     let mut shards = BTreeSet::new();
     for path in files {
         let name = shown(path);
-        let (h, listed) = read_head(path, &mut open(path)?)?;
+        let (h, listed) = read_head(path, &mut stream(path)?)?;
         let Labels {
             shard,
             version,
@@ -381,7 +350,7 @@ type RowVisitor<'a> = dyn FnMut(&[u8], &BigInt) -> Result<(), CliError> + 'a;
 fn walk(pieces: &[Piece], progress: &Progress, row: &mut RowVisitor<'_>) -> Result<(), CliError> {
     let mut readers = Vec::with_capacity(pieces.len());
     for p in pieces {
-        let mut r = open(&p.path)?;
+        let mut r = stream(&p.path)?;
         read_head(&p.path, &mut r)?;
         readers.push(r);
     }
@@ -407,22 +376,26 @@ fn walk(pieces: &[Piece], progress: &Progress, row: &mut RowVisitor<'_>) -> Resu
                     rows_of(p)
                 )));
             };
-            let perm: Option<Vec<u8>> = item.get("perm").and_then(Value::as_array).and_then(|a| {
-                a.iter()
-                    .map(|v| v.as_u64().and_then(|x| u8::try_from(x).ok()))
-                    .collect()
-            });
+            let perm: Option<Vec<u8>> =
+                item.perm.as_ref().and_then(Value::as_array).and_then(|a| {
+                    a.iter()
+                        .map(|v| v.as_u64().and_then(|x| u8::try_from(x).ok()))
+                        .collect()
+                });
             if perm.as_deref() != Some(line) {
                 return Err(p.bad(&format!(
                     "coefficient {} has \"perm\" {}, but position {i} of the listing is {:?}; \
                      the piece does not follow the listing",
                     sums[k].rows + 1,
-                    item.get("perm").map_or("missing".into(), |v| v.to_string()),
+                    item.perm
+                        .as_ref()
+                        .map_or("missing".into(), |v| v.to_string()),
                     line
                 )));
             }
             let value: BigInt = item
-                .get("value")
+                .value
+                .as_ref()
                 .and_then(Value::as_str)
                 .and_then(|s| s.parse().ok())
                 .ok_or_else(|| {
@@ -465,11 +438,7 @@ fn rows_of(p: &Piece) -> usize {
 
 /// After a piece's rows: no more coefficients, and its summary fields agree
 /// with its rows.
-fn check_end(
-    p: &Piece,
-    r: &mut JsonReader<BufReader<File>>,
-    sum: &RowSummary,
-) -> Result<(), CliError> {
+fn check_end(p: &Piece, r: &mut PieceStream, sum: &RowSummary) -> Result<(), CliError> {
     match r.next_item().map_err(|e| p.bad(&e))? {
         None => {}
         Some(_) => {
@@ -481,12 +450,7 @@ fn check_end(
             )));
         }
     }
-    let mut tail = serde_json::Map::new();
-    while let Some(key) = r.next_key().map_err(|e| p.bad(&e))? {
-        let v = r.value().map_err(|e| p.bad(&e))?;
-        tail.insert(key, v);
-    }
-    r.finish().map_err(|e| p.bad(&e))?;
+    let tail = r.tail().map_err(|e| p.bad(&e))?;
     let expect = [
         ("total", json::exact(&sum.total)),
         ("nonzero", Value::from(sum.nonzero)),

@@ -5,15 +5,24 @@
 
 use super::args::ProductArgs;
 use super::error::CliError;
-use super::expansion_text::{sum_text, terms_json};
+use super::expansion_text::{TermRecord, sum_text, terms_json};
 use super::interrupt;
 use super::json;
 use crate::math::Perm;
 use crate::math::schubert::product::schubert_product;
 use crate::math::schubert::vector::Space;
-use serde_json::json;
+use serde::Serialize;
 
-/// Runs the command.
+/// The JSON of `product`; `"n"` in H*(Fl_n).
+#[derive(Serialize)]
+struct ProductRecord {
+    u: Vec<usize>,
+    v: Vec<usize>,
+    terms: Vec<TermRecord>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    n: Option<usize>,
+}
+
 pub fn run(args: &ProductArgs) -> Result<String, CliError> {
     let u = args.u.clone();
     let v = args.v.clone();
@@ -31,16 +40,13 @@ pub fn run(args: &ProductArgs) -> Result<String, CliError> {
         None => w.restrict(w.support_size()).unwrap_or_else(|| w.clone()),
     };
     let (u, v) = (written(&u), written(&v));
-    if args.json {
-        let mut doc = json!({
-            "u": u.one_line(),
-            "v": v.one_line(),
-            "terms": terms_json(&terms),
+    if args.output.json {
+        return json::text(&ProductRecord {
+            u: u.one_line(),
+            v: v.one_line(),
+            terms: terms_json(&terms),
+            n: args.n,
         });
-        if let Some(n) = args.n {
-            doc["n"] = json!(n);
-        }
-        return Ok(json::render(&doc));
     }
     Ok(format!("S_{u} · S_{v} = {}", sum_text(&terms)))
 }

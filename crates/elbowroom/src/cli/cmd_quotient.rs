@@ -5,25 +5,52 @@ use super::args::QuotientArgs;
 use super::error::CliError;
 use super::interrupt;
 use super::json;
+use super::json::PolyRecord;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::lattice_path::{LatticePath, Step};
 use crate::math::quotient::normal_form::hilbert_series;
-use serde_json::{Value, json};
+use serde::Serialize;
 
-/// The steps of a path as JSON: the word and, per step, the variable it carries (or null).
-pub fn path_json(p: &LatticePath) -> Value {
-    let labels: Vec<Value> = p
-        .steps
-        .iter()
-        .map(|s| match s {
-            Step::North { var: Some(i) } => json!(i),
-            _ => Value::Null,
-        })
-        .collect();
-    json!({"size": p.size, "monomial": p.exponents, "steps": p.word(), "labels": labels})
+/// A lattice path as JSON: its size, monomial, the word of its steps and,
+/// per step, the variable it carries (or null).
+#[derive(Serialize)]
+pub struct PathRecord<'a> {
+    size: usize,
+    monomial: &'a [u32],
+    steps: String,
+    labels: Vec<Option<usize>>,
 }
 
-/// Runs the command.
+/// The record of a path.
+pub fn path_json(p: &LatticePath) -> PathRecord<'_> {
+    PathRecord {
+        size: p.size,
+        monomial: &p.exponents,
+        steps: p.word(),
+        labels: p
+            .steps
+            .iter()
+            .map(|s| match s {
+                Step::North { var: Some(i) } => Some(*i),
+                _ => None,
+            })
+            .collect(),
+    }
+}
+
+/// The JSON of `quotient`.
+#[derive(Serialize)]
+struct QuotientRecord<'a> {
+    n: usize,
+    order: &'static str,
+    dimension: String,
+    basis: &'a [Vec<u32>],
+    hilbert: Vec<usize>,
+    groebner_size: usize,
+    groebner: Vec<PolyRecord>,
+    paths: Vec<PathRecord<'a>>,
+}
+
 pub fn run(args: &QuotientArgs) -> Result<String, CliError> {
     if args.no_cache {
         crate::basis_cache::disable();
@@ -44,17 +71,17 @@ pub fn run(args: &QuotientArgs) -> Result<String, CliError> {
         paths.push(LatticePath::of_monomial(e)?);
     }
     let gb = q.polys();
-    if args.json {
-        return Ok(json::render(&json!({
-            "n": n,
-            "order": "lex, x1 > x2 > ... > xn",
-            "dimension": q.basis().len().to_string(),
-            "basis": basis,
-            "hilbert": hilbert,
-            "groebner_size": gb.len(),
-            "groebner": gb.iter().map(json::poly).collect::<Vec<_>>(),
-            "paths": paths.iter().map(path_json).collect::<Vec<_>>(),
-        })));
+    if args.output.json {
+        return json::text(&QuotientRecord {
+            n,
+            order: "lex, x1 > x2 > ... > xn",
+            dimension: q.basis().len().to_string(),
+            basis: &basis,
+            hilbert,
+            groebner_size: gb.len(),
+            groebner: gb.iter().map(PolyRecord::of).collect(),
+            paths: paths.iter().map(path_json).collect(),
+        });
     }
     let mut out = String::new();
     out.push_str(&format!(

@@ -3,17 +3,37 @@
 //! `--forest`, also its class in the forest basis.
 
 use super::args::ReduceArgs;
-use super::cmd_forest::{sum_text, table_text, terms_json};
+use super::cmd_forest::{ForestTerm, sum_text, table_text, terms_json};
 use super::error::CliError;
 use super::interrupt;
 use super::json;
+use super::json::PolyRecord;
 use crate::math::forest::quotient::forest_normal_form;
 use crate::math::poly::parse::parse_poly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::normal_form::normal_form;
-use serde_json::json;
+use serde::Serialize;
 
-/// Runs the command.
+/// One coefficient of the normal form, on a standard monomial.
+#[derive(Serialize)]
+struct StandardTerm {
+    monomial: Vec<u32>,
+    basis_index: usize,
+    value: String,
+}
+
+/// The JSON of `reduce`; the forest basis with `--forest`.
+#[derive(Serialize)]
+struct ReduceRecord {
+    n: usize,
+    input: PolyRecord,
+    normal_form: PolyRecord,
+    coefficients: Vec<StandardTerm>,
+    sum: String,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    forest: Option<Vec<ForestTerm<'static>>>,
+}
+
 pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
     if args.no_cache {
         crate::basis_cache::disable();
@@ -39,23 +59,23 @@ pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
     } else {
         None
     };
-    if args.json {
-        let coefficients: Vec<_> = nf
-            .coefficients
-            .iter()
-            .map(|(i, m, c)| json!({"monomial": m.exps(n), "basis_index": i, "value": c.to_string()}))
-            .collect();
-        let mut doc = json!({
-            "n": n,
-            "input": json::poly(&f),
-            "normal_form": json::poly(&nf.poly),
-            "coefficients": coefficients,
-            "sum": nf.coefficient_sum().to_string(),
+    if args.output.json {
+        return json::text(&ReduceRecord {
+            n,
+            input: PolyRecord::of(&f),
+            normal_form: PolyRecord::of(&nf.poly),
+            coefficients: nf
+                .coefficients
+                .iter()
+                .map(|(i, m, c)| StandardTerm {
+                    monomial: m.exps(n),
+                    basis_index: *i,
+                    value: c.to_string(),
+                })
+                .collect(),
+            sum: nf.coefficient_sum().to_string(),
+            forest: forest.as_ref().map(|terms| terms_json(terms, "value")),
         });
-        if let (Some(terms), Some(object)) = (&forest, doc.as_object_mut()) {
-            object.insert("forest".into(), terms_json(terms, "value"));
-        }
-        return Ok(json::render(&doc));
     }
     let mut out = format!("f        = {f}\nNF(f)    = {}\n", nf.poly);
     out.push_str(&format!(

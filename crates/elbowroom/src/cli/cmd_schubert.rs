@@ -3,26 +3,34 @@
 use super::args::SchubertArgs;
 use super::error::CliError;
 use super::json;
+use super::json::PolyRecord;
 use crate::math::schubert::polynomial::schubert;
 use crate::math::schubert::principal::principal_specialization;
-use serde_json::json;
+use serde::Serialize;
 
-/// Runs the command.
+/// The JSON of `schubert`; the principal specialization with `--principal`.
+#[derive(Serialize)]
+struct SchubertRecord {
+    perm: Vec<usize>,
+    polynomial: PolyRecord,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    principal: Option<Vec<String>>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    at_ones: Option<String>,
+}
+
 pub fn run(args: &SchubertArgs) -> Result<String, CliError> {
     let w = args.perm.clone();
     crate::math::sizing::check_schubert(&w)?;
     let s = schubert(&w);
     let principal = args.principal.then(|| principal_specialization(&s));
-    if args.json {
-        let mut v = json!({
-            "perm": w.one_line(),
-            "polynomial": json::poly(&s),
+    if args.output.json {
+        return json::text(&SchubertRecord {
+            perm: w.one_line(),
+            polynomial: PolyRecord::of(&s),
+            principal: principal.as_ref().map(|p| p.coeff_strings()),
+            at_ones: principal.as_ref().map(|p| p.at_one().to_string()),
         });
-        if let Some(p) = &principal {
-            v["principal"] = json!(p.coeff_strings());
-            v["at_ones"] = json::exact(&p.at_one());
-        }
-        return Ok(json::render(&v));
     }
     let tail = match &principal {
         Some(p) => format!(
@@ -31,7 +39,7 @@ pub fn run(args: &SchubertArgs) -> Result<String, CliError> {
         ),
         None => String::new(),
     };
-    if args.latex {
+    if args.output.latex {
         return Ok(format!("\\mathfrak{{S}}_{{{w}}} = {}{tail}", s.to_latex()));
     }
     Ok(format!("S_{w} = {s}{tail}"))

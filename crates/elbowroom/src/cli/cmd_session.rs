@@ -7,7 +7,7 @@ use super::json;
 use crate::math::excerpt::escape_controls;
 use crate::session::model::excerpt;
 use crate::session::{SessionError, store};
-use serde_json::json;
+use serde::Serialize;
 
 /// Runs `elbowroom session ...`.
 pub fn run(args: &SessionArgs) -> Result<String, CliError> {
@@ -19,21 +19,35 @@ pub fn run(args: &SessionArgs) -> Result<String, CliError> {
     }
 }
 
+/// The JSON of `session check`.
+#[derive(Serialize)]
+struct CheckRecord<'a> {
+    ok: bool,
+    version: u32,
+    title: &'a str,
+    n: usize,
+    current: &'a [usize],
+    view: &'a str,
+    pins: usize,
+    history: usize,
+    notes_lines: usize,
+}
+
 fn check(args: &SessionCheckArgs) -> Result<String, CliError> {
     let (s, version) = store::load_with_version(&args.file).map_err(session_error)?;
     let view = format!("{:?}", s.view);
-    if args.json {
-        return Ok(json::render(&json!({
-            "ok": true,
-            "version": version,
-            "title": s.title,
-            "n": s.n,
-            "current": s.current,
-            "view": view,
-            "pins": s.pins.len(),
-            "history": s.history.len(),
-            "notes_lines": s.notes.lines().count(),
-        })));
+    if args.output.json {
+        return json::text(&CheckRecord {
+            ok: true,
+            version,
+            title: &s.title,
+            n: s.n,
+            current: &s.current,
+            view: &view,
+            pins: s.pins.len(),
+            history: s.history.len(),
+            notes_lines: s.notes.lines().count(),
+        });
     }
     // one-line notation as everywhere else (the file was validated, so this is a permutation)
     let current = crate::math::Perm::from_one_line(&s.current)

@@ -30,14 +30,117 @@ use crate::math::quotient::survey::{
 use crate::math::{MathError, Perm, Progress};
 use crate::tables::results::survey_table;
 use crate::tables::table::Table;
-use serde_json::{Value, json};
+use serde::Serialize;
+use serde_json::Value;
 use std::sync::Arc;
 
-fn negatives_json<E: SurveyRecord>(e: &E, n: usize) -> Vec<Value> {
-    e.negatives()
-        .iter()
-        .map(|(m, c)| json!({"monomial": m.exps(n), "value": c.to_string()}))
-        .collect()
+/// One negative coefficient of a counterexample: its monomial's exponents and value.
+#[derive(Serialize)]
+struct NegativeRecord {
+    monomial: Vec<u32>,
+    value: String,
+}
+
+/// One counterexample: w and its negative coefficients.
+#[derive(Serialize)]
+struct CounterexampleRecord {
+    perm: Vec<usize>,
+    negative_coefficients: Vec<NegativeRecord>,
+}
+
+impl CounterexampleRecord {
+    fn of<E: SurveyRecord>(e: &E, n: usize) -> CounterexampleRecord {
+        CounterexampleRecord {
+            perm: e.perm().one_line(),
+            negative_coefficients: e
+                .negatives()
+                .iter()
+                .map(|(m, c)| NegativeRecord {
+                    monomial: m.exps(n),
+                    value: c.to_string(),
+                })
+                .collect(),
+        }
+    }
+}
+
+/// A counterexample's line in `--jsonl`.
+#[derive(Serialize)]
+struct CounterexampleLine {
+    counterexample: CounterexampleRecord,
+}
+
+/// One result: w, ℓ(w), whether the normal form is nonnegative, its number of
+/// terms and coefficient sum, and (not in a summary) the normal form itself.
+#[derive(Serialize)]
+struct ResultRecord {
+    perm: Vec<usize>,
+    length: usize,
+    nonnegative: bool,
+    terms: usize,
+    sum: String,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    normal_form: Option<Value>,
+}
+
+impl ResultRecord {
+    fn of<E: SurveyRecord>(e: &E, normal_form: &dyn Fn(&E) -> Option<Value>) -> ResultRecord {
+        ResultRecord {
+            perm: e.perm().one_line(),
+            length: e.perm().length(),
+            nonnegative: e.nonnegative(),
+            terms: e.terms(),
+            sum: e.sum().to_string(),
+            normal_form: normal_form(e),
+        }
+    }
+}
+
+/// The members of the survey's JSON before its results.
+#[derive(Serialize)]
+struct SurveyHead<'a> {
+    kind: &'static str,
+    n: usize,
+    shard: &'a str,
+    count: usize,
+    all_nonnegative: bool,
+}
+
+/// The members of the survey's JSON after its counterexamples: from n = 9 on
+/// the version, the listing's size and name; in a piece of a split run, the build.
+#[derive(Serialize)]
+struct SurveyTail {
+    #[serde(skip_serializing_if = "Option::is_none")]
+    version: Option<&'static str>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    listed_total: Option<usize>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    listing: Option<&'static str>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    build: Option<&'static str>,
+}
+
+impl SurveyTail {
+    fn new(n: usize, shard: &str, listed_total: usize) -> SurveyTail {
+        let large = n > FULL_LISTING_MAX_N;
+        SurveyTail {
+            version: large.then_some(env!("CARGO_PKG_VERSION")),
+            listed_total: large.then_some(listed_total),
+            listing: large.then(|| listing_name(n)),
+            build: (shard != "1/1").then_some(super::documents::BUILD),
+        }
+    }
+}
+
+/// The survey's whole JSON.
+#[derive(Serialize)]
+struct SurveyDocument<'a> {
+    #[serde(flatten)]
+    head: SurveyHead<'a>,
+    results: Vec<ResultRecord>,
+    counterexamples: Vec<CounterexampleRecord>,
+    #[serde(flatten)]
+    tail: Option<SurveyTail>,
 }
 
 /// The end of every LaTeX table, after its rows.
@@ -185,16 +288,18 @@ fn stream<E: SurveyRecord>(
     let json_out = matches!(job.format, Format::Json | Format::Jsonl);
     let row = |e: &E| {
         if json_out {
-            json::render(&result_json(e, json_nf))
+            json::line(&ResultRecord::of(e, json_nf))
         } else {
             text_row(e, text_nf)
         }
     };
     let counterexample = |e: &E| {
         if job.format == Format::Jsonl {
-            json::render(&json!({"counterexample": counterexample_json(e, n)}))
+            json::line(&CounterexampleLine {
+                counterexample: CounterexampleRecord::of(e, n),
+            })
         } else if json_out {
-            json::render(&counterexample_json(e, n))
+            json::line(&CounterexampleRecord::of(e, n))
         } else {
             counterexample_text(e, n)
         }
@@ -219,7 +324,7 @@ fn stream<E: SurveyRecord>(
         };
         write_out(sink, &mut store, &progress, &frame)
     } else if json_out {
-        let (head, tail) = json_frame(job, count, bad);
+        let (head, tail) = json_frame(job, count, bad)?;
         let frame = Frame {
             head: &head,
             sep: ",",
@@ -404,60 +509,20 @@ fn jsonl_summary(count: usize, bad: usize) -> Result<String, CliError> {
         .map_err(|e| CliError::Failed(format!("cannot write the summary: {e}")))
 }
 
-/// One result of the JSON, `"normal_form"` last when `normal_form` gives one.
-fn result_json<E: SurveyRecord>(e: &E, normal_form: &dyn Fn(&E) -> Option<Value>) -> Value {
-    let mut v = json!({
-        "perm": e.perm().one_line(),
-        "length": e.perm().length(),
-        "nonnegative": e.nonnegative(),
-        "terms": e.terms(),
-        "sum": e.sum().to_string(),
-    });
-    if let Some(p) = normal_form(e) {
-        v["normal_form"] = p;
-    }
-    v
-}
-
-/// One counterexample of the JSON.
-fn counterexample_json<E: SurveyRecord>(e: &E, n: usize) -> Value {
-    json!({"perm": e.perm().one_line(), "negative_coefficients": negatives_json(e, n)})
-}
-
-/// The JSON object without its results and counterexamples, rendered and cut
-/// where they go: the text before the first result and after the last counterexample.
-fn json_frame(job: &Job, count: usize, bad: usize) -> (String, String) {
-    let mut v = json!({
-        "kind": SURVEY_KIND,
-        "n": job.n,
-        "shard": job.shard,
-        "count": count,
-        "all_nonnegative": bad == 0,
-        "results": [],
-        "counterexamples": [],
-    });
-    add_listing(&mut v, job.n, job.listed_total);
-    add_build(&mut v, &job.shard);
-    let whole = json::render(&v);
-    let gap = "\"results\":[],\"counterexamples\":[]";
-    match whole.find(gap) {
-        Some(at) => (
-            format!("{}\"results\":[", &whole[..at]),
-            whole[at + gap.len() - 1..].to_string(),
-        ),
-        None => (whole, String::new()),
-    }
-}
-
-/// From n = 9 on, the JSON names the listing, its size and the version.
-fn add_listing(v: &mut Value, n: usize, listed_total: usize) {
-    if n > FULL_LISTING_MAX_N
-        && let Some(obj) = v.as_object_mut()
-    {
-        obj.insert("version".into(), json!(env!("CARGO_PKG_VERSION")));
-        obj.insert("listed_total".into(), json!(listed_total));
-        obj.insert("listing".into(), json!(listing_name(n)));
-    }
+/// The text before the first result (the head's members, the list opened)
+/// and after the last counterexample (the tail's members, the object closed).
+fn json_frame(job: &Job, count: usize, bad: usize) -> Result<(String, String), CliError> {
+    let head = SurveyHead {
+        kind: SURVEY_KIND,
+        n: job.n,
+        shard: &job.shard,
+        count,
+        all_nonnegative: bad == 0,
+    };
+    Ok((
+        json::open_list(&head, "results")?,
+        json::close_list(&SurveyTail::new(job.n, &job.shard, job.listed_total))?,
+    ))
 }
 
 /// The text output's heading and column names.
@@ -583,7 +648,8 @@ impl TableRow {
 
 /// The collected JSON document of a survey of S_n whose listing has `listed_total`
 /// permutations: [`survey_json`] with, from n = 9 on, the listing's name, size and
-/// the version. The command writes the same text as it goes.
+/// the version, and in a piece of a split run the build. The command writes the
+/// same text as it goes.
 pub fn survey_document<E: SurveyRecord>(
     n: usize,
     shard: &str,
@@ -591,19 +657,41 @@ pub fn survey_document<E: SurveyRecord>(
     entries: &[E],
     normal_form: &dyn Fn(&E) -> Option<Value>,
 ) -> Value {
-    let mut v = survey_json(n, shard, entries, normal_form);
-    add_listing(&mut v, n, listed_total);
-    add_build(&mut v, shard);
-    v
+    json::value(&document(
+        n,
+        shard,
+        entries,
+        normal_form,
+        Some(SurveyTail::new(n, shard, listed_total)),
+    ))
 }
 
-/// A piece of a split survey (`shard` other than "1/1") names the build that
-/// made it (`"build"`, last): merge takes pieces of one build.
-fn add_build(v: &mut Value, shard: &str) {
-    if shard != "1/1"
-        && let Some(obj) = v.as_object_mut()
-    {
-        obj.insert("build".into(), json!(super::documents::BUILD));
+fn document<'a, E: SurveyRecord>(
+    n: usize,
+    shard: &'a str,
+    entries: &[E],
+    normal_form: &dyn Fn(&E) -> Option<Value>,
+    tail: Option<SurveyTail>,
+) -> SurveyDocument<'a> {
+    let counterexamples: Vec<CounterexampleRecord> = entries
+        .iter()
+        .filter(|e| !e.nonnegative())
+        .map(|e| CounterexampleRecord::of(e, n))
+        .collect();
+    SurveyDocument {
+        head: SurveyHead {
+            kind: SURVEY_KIND,
+            n,
+            shard,
+            count: entries.len(),
+            all_nonnegative: counterexamples.is_empty(),
+        },
+        results: entries
+            .iter()
+            .map(|e| ResultRecord::of(e, normal_form))
+            .collect(),
+        counterexamples,
+        tail,
     }
 }
 
@@ -624,24 +712,7 @@ pub fn survey_json<E: SurveyRecord>(
     entries: &[E],
     normal_form: &dyn Fn(&E) -> Option<Value>,
 ) -> Value {
-    let results: Vec<Value> = entries
-        .iter()
-        .map(|e| result_json(e, normal_form))
-        .collect();
-    let counterexamples: Vec<Value> = entries
-        .iter()
-        .filter(|e| !e.nonnegative())
-        .map(|e| counterexample_json(e, n))
-        .collect();
-    json!({
-        "kind": SURVEY_KIND,
-        "n": n,
-        "shard": shard,
-        "count": entries.len(),
-        "all_nonnegative": counterexamples.is_empty(),
-        "results": results,
-        "counterexamples": counterexamples,
-    })
+    json::value(&document(n, shard, entries, normal_form, None))
 }
 
 /// The collected text output of a survey (the command writes the same text as it goes).

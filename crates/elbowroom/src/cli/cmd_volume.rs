@@ -4,15 +4,39 @@ use super::args::VolumeArgs;
 use super::error::CliError;
 use super::inputs::check_volume_size;
 use super::json;
+use super::json::PolyRecord;
 use crate::math::permutohedra::permutohedron::{
     POLYNOMIAL_MAX_N, Permutohedron, volume_polynomial,
 };
-use serde_json::{Value, json};
+use serde::Serialize;
 
 /// Vertices are listed (exactly, and for drawing) up to this many.
 pub const VERTEX_LIST_LIMIT: usize = 720;
 
-/// Runs the command.
+/// The picture of P_λ for n = 3, 4: projected points and the edges between them.
+#[derive(Serialize)]
+struct Drawing {
+    dimension: usize,
+    points: Vec<Vec<f64>>,
+    edges: Vec<(usize, usize)>,
+}
+
+/// The JSON of `volume`; the polynomial with `--polynomial`, the vertices
+/// when there are few enough.
+#[derive(Serialize)]
+struct VolumeRecord {
+    n: usize,
+    lambda: Vec<String>,
+    volume: String,
+    vertices: String,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    polynomial: Option<PolyRecord>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    vertex_list: Option<Vec<Vec<String>>>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    drawing: Option<Drawing>,
+}
+
 pub fn run(args: &VolumeArgs) -> Result<String, CliError> {
     let lambda = args.lambda.clone();
     let p = Permutohedron::new(&lambda)?;
@@ -35,35 +59,27 @@ pub fn run(args: &VolumeArgs) -> Result<String, CliError> {
     } else {
         None
     };
-    if args.json {
-        let mut v = json!({
-            "n": n,
-            "lambda": p.lambda().iter().map(json::exact).collect::<Vec<Value>>(),
-            "volume": json::exact(&volume),
-            "vertices": json::exact(&count),
+    if args.output.json {
+        let texts =
+            |v: &[num_rational::BigRational]| v.iter().map(|x| x.to_string()).collect::<Vec<_>>();
+        return json::text(&VolumeRecord {
+            n,
+            lambda: texts(p.lambda()),
+            volume: volume.to_string(),
+            vertices: count.to_string(),
+            polynomial: polynomial.as_ref().map(PolyRecord::of),
+            vertex_list: listed
+                .as_ref()
+                .map(|vs| vs.iter().map(|v| texts(v)).collect()),
+            drawing: listed
+                .as_ref()
+                .filter(|_| n == 3 || n == 4)
+                .map(|vs| Drawing {
+                    dimension: n - 1,
+                    points: Permutohedron::drawing_coordinates(vs),
+                    edges: p.edges(vs),
+                }),
         });
-        let Some(obj) = v.as_object_mut() else {
-            return Err(CliError::Failed("could not build the output".into()));
-        };
-        if let Some(poly) = &polynomial {
-            obj.insert("polynomial".into(), json::poly(poly));
-        }
-        if let Some(vs) = &listed {
-            let exact: Vec<Value> = vs
-                .iter()
-                .map(|v| Value::Array(v.iter().map(json::exact).collect()))
-                .collect();
-            obj.insert("vertex_list".into(), Value::Array(exact));
-            if n == 3 || n == 4 {
-                let points = Permutohedron::drawing_coordinates(vs);
-                let edges: Vec<Value> = p.edges(vs).iter().map(|(a, b)| json!([a, b])).collect();
-                obj.insert(
-                    "drawing".into(),
-                    json!({"dimension": n - 1, "points": points, "edges": edges}),
-                );
-            }
-        }
-        return Ok(json::render(&v));
     }
     let shown: Vec<String> = p.lambda().iter().map(|v| v.to_string()).collect();
     let mut out = format!(

@@ -12,10 +12,33 @@ use super::output::Sink;
 use crate::math::perms::words::{count_reduced_words_with, counts_by_content_with, reduced_words};
 use crate::math::{MathError, Perm, Progress};
 use num_bigint::BigUint;
-use serde_json::json;
+use serde::Serialize;
+
+/// The members of `words --json` before its list of words.
+#[derive(Serialize)]
+struct WordsHead {
+    perm: Vec<usize>,
+    length: usize,
+    count: String,
+}
+
+/// The number of reduced words of one content.
+#[derive(Serialize)]
+struct ContentCount<'a, C: Serialize> {
+    content: &'a C,
+    words: String,
+}
+
+/// The JSON of `words --by-content`.
+#[derive(Serialize)]
+struct ByContentRecord<'a, C: Serialize> {
+    perm: Vec<usize>,
+    length: usize,
+    count: String,
+    by_content: Vec<ContentCount<'a, C>>,
+}
 use std::sync::Arc;
 
-/// Runs the command.
 pub fn run(args: &WordsArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let w = args.perm.clone();
     if args.by_content {
@@ -53,13 +76,13 @@ fn list(
     written: &mut u64,
 ) -> Result<(), CliError> {
     let words = reduced_words(w).take(listed);
-    if args.json {
-        let head = json!({
-            "perm": w.one_line(),
-            "length": w.length(),
-            "count": json::exact(count),
-        });
-        return sink.json_listing(&head, "words", words, |a| json!(a), progress, written);
+    if args.output.json {
+        let head = WordsHead {
+            perm: w.one_line(),
+            length: w.length(),
+            count: count.to_string(),
+        };
+        return sink.json_listing(&head, "words", words, |a| a, progress, written);
     }
     sink.text(&format!(
         "{count} reduced word{} of {w} (length {})",
@@ -103,18 +126,20 @@ fn by_content(args: &WordsArgs, w: &Perm) -> Result<String, CliError> {
         let count = count_reduced_words_with(w, p)?;
         Ok((count, counts_by_content_with(w, p)?))
     })?;
-    if args.json {
-        let rows: Vec<serde_json::Value> = by
-            .iter()
-            .rev()
-            .map(|(c, k)| json!({"content": c, "words": json::exact(k)}))
-            .collect();
-        return Ok(json::render(&json!({
-            "perm": w.one_line(),
-            "length": w.length(),
-            "count": json::exact(&count),
-            "by_content": rows,
-        })));
+    if args.output.json {
+        return json::text(&ByContentRecord {
+            perm: w.one_line(),
+            length: w.length(),
+            count: count.to_string(),
+            by_content: by
+                .iter()
+                .rev()
+                .map(|(c, k)| ContentCount {
+                    content: c,
+                    words: k.to_string(),
+                })
+                .collect(),
+        });
     }
     let mut out = format!(
         "{count} reduced word{} of {w} (length {}) by content c (c_i = number of letters i):",

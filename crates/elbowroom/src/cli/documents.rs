@@ -10,7 +10,8 @@ use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::hessenberg::rows::RowSummary;
 use crate::math::hessenberg::table::HessenbergTable;
 use num_bigint::BigInt;
-use serde_json::{Value, json};
+use serde::Serialize;
+use serde_json::Value;
 
 /// The `"kind"` of `elbowroom hessenberg --json`.
 pub const HESSENBERG_KIND: &str = "hessenberg_table";
@@ -25,43 +26,110 @@ pub const BUILD: &str = super::args::BUILD;
 /// The `"kind"` of `elbowroom survey --json`.
 pub const SURVEY_KIND: &str = "quotient_survey";
 
+/// The members of a table's JSON before its coefficients.
+#[derive(Serialize)]
+pub struct TableHead<'a> {
+    kind: &'static str,
+    n: usize,
+    h: &'a [usize],
+    dimension: usize,
+    order: &'static str,
+    listed: usize,
+}
+
+impl TableHead<'_> {
+    /// The head of the table of `h` listing `listed` permutations.
+    pub fn of(h: &HessenbergFn, listed: usize) -> TableHead<'_> {
+        TableHead {
+            kind: HESSENBERG_KIND,
+            n: h.n(),
+            h: h.values(),
+            dimension: h.dimension(),
+            order: "lexicographic in one-line notation",
+            listed,
+        }
+    }
+}
+
+/// One coefficient {"perm": w, "value": "a^h_w"}.
+#[derive(Serialize)]
+pub struct Coefficient<'a, P: Serialize> {
+    perm: P,
+    #[serde(serialize_with = "json::as_text")]
+    value: &'a BigInt,
+}
+
+/// The members of a table's JSON after its coefficients; a piece of a split
+/// run names its split, version and build (merge takes pieces of one build).
+#[derive(Serialize)]
+pub struct TableSummary {
+    #[serde(serialize_with = "json::as_text")]
+    total: BigInt,
+    nonzero: usize,
+    #[serde(serialize_with = "json::as_text")]
+    max: BigInt,
+    negative: usize,
+    all_nonnegative_integers: bool,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    shard: Option<String>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    version: Option<&'static str>,
+    #[serde(skip_serializing_if = "Option::is_none")]
+    build: Option<&'static str>,
+}
+
+impl TableSummary {
+    fn new(total: BigInt, nonzero: usize, max: BigInt, negative: usize, shard: Shard) -> Self {
+        let piece = !shard.is_whole();
+        TableSummary {
+            total,
+            nonzero,
+            max,
+            negative,
+            all_nonnegative_integers: negative == 0,
+            shard: piece.then(|| format!("{}/{}", shard.index, shard.count)),
+            version: piece.then_some(VERSION),
+            build: piece.then_some(BUILD),
+        }
+    }
+}
+
+/// A whole table's JSON: head, coefficients, summary.
+#[derive(Serialize)]
+struct TableDocument<'a> {
+    #[serde(flatten)]
+    head: TableHead<'a>,
+    coefficients: Vec<Coefficient<'a, Vec<usize>>>,
+    #[serde(flatten)]
+    summary: TableSummary,
+}
+
 /// The JSON object of a (possibly partial) table.
 pub fn hessenberg_table_json(table: &HessenbergTable, shard: Shard) -> Value {
-    let coefficients: Vec<Value> = table
-        .entries
-        .iter()
-        .map(|e| json!({"perm": e.perm.one_line(), "value": json::exact(&e.value)}))
-        .collect();
-    let mut v = json!({
-        "kind": HESSENBERG_KIND,
-        "n": table.h.n(),
-        "h": table.h.values(),
-        "dimension": table.h.dimension(),
-        "order": "lexicographic in one-line notation",
-        "listed": table.listed,
-        "coefficients": coefficients,
-        "total": json::exact(&table.total()),
-        "nonzero": table.nonzero(),
-        "max": json::exact(&table.max()),
-        "negative": table.negative().len(),
-        "all_nonnegative_integers": table.negative().is_empty(),
-    });
-    if !shard.is_whole()
-        && let Some(obj) = v.as_object_mut()
-    {
-        obj.insert(
-            "shard".into(),
-            Value::String(format!("{}/{}", shard.index, shard.count)),
-        );
-        obj.insert("version".into(), Value::String(VERSION.into()));
-        obj.insert("build".into(), Value::String(BUILD.into()));
-    }
-    v
+    json::value(&TableDocument {
+        head: TableHead::of(&table.h, table.listed),
+        coefficients: table
+            .entries
+            .iter()
+            .map(|e| Coefficient {
+                perm: e.perm.one_line(),
+                value: &e.value,
+            })
+            .collect(),
+        summary: TableSummary::new(
+            table.total(),
+            table.nonzero(),
+            table.max(),
+            table.negative().len(),
+            shard,
+        ),
+    })
 }
 
 /// `hessenberg_table_json` written as it goes: the head before the first
-/// coefficient, one coefficient at a time, the summary after the last. The text
-/// is byte for byte what [`json::render`] gives for [`hessenberg_table_json`].
+/// coefficient, one coefficient at a time, the summary after the last, each
+/// from its typed record; the text is byte for byte what [`json::render`]
+/// gives for [`hessenberg_table_json`].
 pub struct HessenbergJsonStream {
     first: bool,
 }
@@ -73,18 +141,7 @@ impl HessenbergJsonStream {
         h: &HessenbergFn,
         listed: usize,
     ) -> Result<HessenbergJsonStream, CliError> {
-        let head = json!({
-            "kind": HESSENBERG_KIND,
-            "n": h.n(),
-            "h": h.values(),
-            "dimension": h.dimension(),
-            "order": "lexicographic in one-line notation",
-            "listed": listed,
-        });
-        let text = json::render(&head);
-        // the object without its closing brace, then the list is opened
-        sink.text(&text[..text.len() - 1])?;
-        sink.text(",\"coefficients\":[")?;
+        sink.text(&json::open_list(&TableHead::of(h, listed), "coefficients")?)?;
         Ok(HessenbergJsonStream { first: true })
     }
 
@@ -95,22 +152,11 @@ impl HessenbergJsonStream {
         line: &[u8],
         value: &BigInt,
     ) -> Result<(), CliError> {
-        let mut text = String::with_capacity(16 + 3 * line.len());
         if !self.first {
-            text.push(',');
+            sink.text(",")?;
         }
         self.first = false;
-        text.push_str("{\"perm\":[");
-        for (k, v) in line.iter().enumerate() {
-            if k > 0 {
-                text.push(',');
-            }
-            text.push_str(&v.to_string());
-        }
-        text.push_str("],\"value\":\"");
-        text.push_str(&value.to_string());
-        text.push_str("\"}");
-        sink.text(&text)
+        sink.text(&json::text(&Coefficient { perm: line, value })?)
     }
 
     /// Closes the list and writes the summary (and the shard of a piece).
@@ -120,28 +166,14 @@ impl HessenbergJsonStream {
         summary: &RowSummary,
         shard: Shard,
     ) -> Result<(), CliError> {
-        let mut tail = json!({
-            "total": json::exact(&summary.total),
-            "nonzero": summary.nonzero,
-            "max": json::exact(&summary.max()),
-            "negative": summary.negative,
-            "all_nonnegative_integers": summary.negative == 0,
-        });
-        if !shard.is_whole()
-            && let Some(obj) = tail.as_object_mut()
-        {
-            obj.insert(
-                "shard".into(),
-                Value::String(format!("{}/{}", shard.index, shard.count)),
-            );
-            // a piece names the version that made it; merge takes pieces of one version
-            obj.insert("version".into(), Value::String(VERSION.into()));
-            // and the build (the commit): merge takes pieces of one build
-            obj.insert("build".into(), Value::String(BUILD.into()));
-        }
-        let text = json::render(&tail);
-        sink.text("],")?;
-        sink.text(&text[1..])?;
+        let tail = TableSummary::new(
+            summary.total.clone(),
+            summary.nonzero,
+            summary.max(),
+            summary.negative,
+            shard,
+        );
+        sink.text(&json::close_list(&tail)?)?;
         sink.text("\n")
     }
 }

@@ -4,7 +4,7 @@
 
 use crate::math::Perm;
 use num_traits::{One, Signed, Zero};
-use serde_json::{Value, json};
+use serde::Serialize;
 use std::fmt::Display;
 use std::ops::Neg;
 
@@ -34,12 +34,28 @@ where
     out
 }
 
-/// The terms as JSON objects `{"perm": [...], "coefficient": "c"}`.
-pub fn terms_json<C: Display>(terms: &[(Perm, C)]) -> Vec<Value> {
-    terms
-        .iter()
-        .map(|(w, c)| json!({"perm": w.one_line(), "coefficient": c.to_string()}))
-        .collect()
+/// One term c_w S_w as JSON: `{"perm": [...], "coefficient": "c"}`.
+#[derive(Serialize)]
+pub struct TermRecord {
+    /// w in one-line notation.
+    pub perm: Vec<usize>,
+    /// c_w, exact, as a string.
+    pub coefficient: String,
+}
+
+impl TermRecord {
+    /// The record of c·S_w.
+    pub fn of<C: Display>(w: &Perm, c: &C) -> TermRecord {
+        TermRecord {
+            perm: w.one_line(),
+            coefficient: c.to_string(),
+        }
+    }
+}
+
+/// The terms as JSON records `{"perm": [...], "coefficient": "c"}`.
+pub fn terms_json<C: Display>(terms: &[(Perm, C)]) -> Vec<TermRecord> {
+    terms.iter().map(|(w, c)| TermRecord::of(w, c)).collect()
 }
 
 #[cfg(test)]

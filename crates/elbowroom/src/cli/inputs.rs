@@ -1,6 +1,7 @@
 //! Reading the inputs several commands share: `--n` with `--h` (divsym,
 //! hessenberg) and λ as `l1,...,ln` (volume, figure permutohedron and volume).
 
+use super::args::HessenbergArg;
 use super::error::CliError;
 use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::permutohedra::permutohedron::Permutohedron;
@@ -8,10 +9,10 @@ use crate::math::poly::rational::parse_rational;
 use num_rational::BigRational;
 
 /// Reads `--n` (1 to `max_n`) and `--h` into a Hessenberg function (default
-/// h(i) = i + 1, [`HessenbergFn::default_for`]).
+/// h(i) = i + 1, [`HessenbergFn::default_for`]); h must have n entries.
 pub fn hessenberg_from_args(
     n: usize,
-    h: Option<&str>,
+    h: Option<&HessenbergArg>,
     max_n: usize,
 ) -> Result<HessenbergFn, CliError> {
     if n == 0 || n > max_n {
@@ -20,9 +21,9 @@ pub fn hessenberg_from_args(
         )));
     }
     Ok(match h {
-        Some(text) => {
-            entries(text, "--h", "h(1),...,h(n), for example 2,3,4,4")?;
-            HessenbergFn::parse(text, Some(n))?
+        Some(typed) => {
+            entries(&typed.typed, "--h", "h(1),...,h(n), for example 2,3,4,4")?;
+            typed.for_n(Some(n))?
         }
         None => HessenbergFn::default_for(n)?,
     })

@@ -12,36 +12,36 @@
 //! `merge` reads back), [`shard`], [`interrupt`], [`json`], [`output`] (the buffered sink
 //! the output goes through) and [`error`].
 
-pub mod args;
-pub mod class_file;
-pub mod cmd_coefficient;
-pub mod cmd_divsym;
-pub mod cmd_dreams;
-pub mod cmd_eulerian;
-pub mod cmd_expand;
-pub mod cmd_figure;
-pub mod cmd_forest;
-pub mod cmd_hessenberg;
-pub mod cmd_merge;
-pub mod cmd_perm;
-pub mod cmd_product;
-pub mod cmd_quotient;
-pub mod cmd_reduce;
-pub mod cmd_schubert;
-pub mod cmd_session;
+pub(crate) mod args;
+pub(crate) mod class_file;
+pub(crate) mod cmd_coefficient;
+pub(crate) mod cmd_divsym;
+pub(crate) mod cmd_dreams;
+pub(crate) mod cmd_eulerian;
+pub(crate) mod cmd_expand;
+pub(crate) mod cmd_figure;
+pub(crate) mod cmd_forest;
+pub(crate) mod cmd_hessenberg;
+pub(crate) mod cmd_merge;
+pub(crate) mod cmd_perm;
+pub(crate) mod cmd_product;
+pub(crate) mod cmd_quotient;
+pub(crate) mod cmd_reduce;
+pub(crate) mod cmd_schubert;
+pub(crate) mod cmd_session;
 pub mod cmd_survey;
-pub mod cmd_volume;
-pub mod cmd_words;
+pub(crate) mod cmd_volume;
+pub(crate) mod cmd_words;
 pub mod documents;
 pub mod error;
-pub mod expansion_text;
-pub mod inputs;
+pub(crate) mod expansion_text;
+pub(crate) mod inputs;
 pub mod interrupt;
 pub mod json;
-pub mod json_reader;
 pub mod merge_survey;
 pub mod open_file;
 pub mod output;
+pub(crate) mod piece_reader;
 pub mod shard;
 
 pub use args::{Cli, Command};

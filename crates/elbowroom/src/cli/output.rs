@@ -62,25 +62,23 @@ impl<'a> Sink<'a> {
     /// Writes the JSON object `head` with one more field, `key`, last: an array
     /// of `items` streamed one by one (each one polled for a cancel and counted
     /// on `progress` and `written`), then a newline: the same text as the whole
-    /// object with `key` inserted last (serde_json keeps insertion order here).
-    pub fn json_listing<T>(
+    /// object with `key` inserted last ([`super::json::open_list`]).
+    pub fn json_listing<T, R: serde::Serialize>(
         &mut self,
-        head: &Value,
+        head: &impl serde::Serialize,
         key: &str,
         items: impl IntoIterator<Item = T>,
-        item: impl Fn(T) -> Value,
+        item: impl Fn(T) -> R,
         progress: &crate::math::Progress,
         written: &mut u64,
     ) -> Result<(), CliError> {
-        let head = super::json::render(head);
-        self.text(&head[..head.len() - 1])?;
-        self.text(&format!(",\"{key}\":["))?;
+        self.text(&super::json::open_list(head, key)?)?;
         for (k, x) in items.into_iter().enumerate() {
             progress.check()?;
             if k > 0 {
                 self.text(",")?;
             }
-            self.json(&item(x))?;
+            self.text(&super::json::text(&item(x))?)?;
             progress.advance(1);
             *written += 1;
         }
@@ -124,6 +122,9 @@ impl<'a> Sink<'a> {
 /// temporary file.
 pub const KEPT_IN_MEMORY: usize = 8 << 20;
 
+/// How the temporary file's name starts (the rest is random).
+const SPILL_PREFIX: &str = "elbowroom-rows-";
+
 /// The environment variable that sets another [`KEPT_IN_MEMORY`] (bytes; `0`:
 /// every row goes to the temporary file), so that tests reach the file with
 /// small listings.
@@ -131,7 +132,7 @@ pub const KEPT_IN_MEMORY_ENV: &str = "ELBOWROOM_ROWS_IN_MEMORY";
 
 /// Rows produced out of order (each one's text rendered at once), written back
 /// in listing order: kept in memory up to [`KEPT_IN_MEMORY`] bytes, then in a
-/// temporary file in [`std::env::temp_dir`] (removed when done), so what is held
+/// temporary file in [`std::env::temp_dir`] (unique, and without a name once open), so what is held
 /// is 16 bytes a listing position, whatever the rows' length. Besides the rows,
 /// a few positions may carry a second text (a survey's counterexamples), written
 /// after all the rows, in listing order too.
@@ -148,18 +149,13 @@ pub struct Reorder {
     read: Vec<u8>,
 }
 
-/// The temporary file of a [`Reorder`].
+/// The temporary file of a [`Reorder`]: made by `tempfile` with a unique name
+/// in [`std::env::temp_dir`], and unlinked at once (the open file has no name,
+/// so two runs never meet on it and nothing is left however the run ends).
 struct Spill {
+    /// The name it was made under, for messages.
     path: std::path::PathBuf,
     file: std::io::BufWriter<std::fs::File>,
-}
-
-impl Drop for Spill {
-    fn drop(&mut self) {
-        // on Unix it was unlinked at once; elsewhere it goes now
-        #[cfg(not(unix))]
-        let _ = std::fs::remove_file(&self.path);
-    }
 }
 
 impl Reorder {
@@ -202,21 +198,20 @@ impl Reorder {
     fn append(&mut self, text: &str) -> Result<u64, CliError> {
         let at = self.end;
         if self.file.is_none() && self.memory.len() + text.len() > self.limit {
-            let path = std::env::temp_dir().join(format!(
-                "elbowroom-rows-{}-{}.tmp",
-                std::process::id(),
-                std::time::SystemTime::now()
-                    .duration_since(std::time::UNIX_EPOCH)
-                    .map_or(0, |d| d.as_nanos())
-            ));
-            let file = std::fs::OpenOptions::new()
-                .read(true)
-                .write(true)
-                .create_new(true)
-                .open(&path)
-                .map_err(|e| Reorder::spill_error(&path, e))?;
-            #[cfg(unix)]
-            let _ = std::fs::remove_file(&path);
+            let dir = std::env::temp_dir();
+            let named = tempfile::Builder::new()
+                .prefix(SPILL_PREFIX)
+                .suffix(".tmp")
+                .tempfile_in(&dir)
+                .map_err(|e| {
+                    // the name is unknown when it could not be made: its pattern
+                    let reason = e
+                        .raw_os_error()
+                        .map_or(e, std::io::Error::from_raw_os_error);
+                    Reorder::spill_error(&dir.join(format!("{SPILL_PREFIX}*.tmp")), reason)
+                })?;
+            let path = named.path().to_path_buf();
+            let file = named.into_file();
             let mut spill = Spill {
                 path,
                 file: std::io::BufWriter::with_capacity(BUFFER, file),

@@ -11,13 +11,13 @@
 
 pub mod config_dir;
 pub mod demo;
-pub mod error;
+pub(crate) mod error;
 pub mod format;
 pub mod model;
 pub mod recent;
 pub mod recovery;
 pub mod store;
-pub mod validate;
+pub(crate) mod validate;
 
 pub use error::SessionError;
 pub use model::Session;

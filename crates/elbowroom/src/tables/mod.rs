@@ -7,7 +7,7 @@
 //! - [`write`]: a table to a `.csv` or `.tex` file, written atomically.
 
 pub mod results;
-pub mod table;
+pub(crate) mod table;
 
 pub use table::{Cell, Column, ColumnKind, Table};
 

@@ -8,7 +8,7 @@
 //! dollar signs are dropped.
 //!
 //! ```
-//! use elbowroom::tables::table::{Column, Table};
+//! use elbowroom::tables::{Column, Table};
 //! let mut t = Table::new(vec![Column::math("$w$"), Column::math("$A_c$")]);
 //! t.push(vec!["312".into(), "-3/2".into()]);
 //! assert_eq!(t.to_csv(), "w,A_c\n312,-3/2\n");

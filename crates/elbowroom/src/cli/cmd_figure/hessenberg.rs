@@ -11,7 +11,7 @@ use crate::math::hessenberg::function::HessenbergFn;
 /// The one figure of h.
 pub fn staircase(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
     let h = match (&args.h, args.n) {
-        (Some(text), n) => HessenbergFn::parse(text, n)?,
+        (Some(typed), n) => typed.for_n(n)?,
         (None, Some(n)) => HessenbergFn::default_for(n)?,
         (None, None) => {
             return Err(CliError::Input(

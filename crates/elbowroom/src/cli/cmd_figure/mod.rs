@@ -29,9 +29,6 @@ mod pipes;
 mod volume;
 mod wiring;
 
-pub use crate::math::permutohedra::drawing::MAX_DRAWN_N;
-pub use pick::MAX_FILES;
-
 use super::args::{FigureArgs, FigureKind, FormatArg};
 use super::error::CliError;
 use super::json;
@@ -39,7 +36,7 @@ use crate::figure::Scene;
 use crate::figure::export::{self, ExportOptions, Format};
 use crate::figure::look::Look;
 use crate::math::limits::FIGURE_PIXEL_LIMIT;
-use serde_json::json;
+use serde::Serialize;
 use std::path::PathBuf;
 
 /// A figure to write: its index in the enumeration, its file name without the
@@ -249,18 +246,40 @@ fn file_path(args: &FigureArgs, name: &str) -> PathBuf {
     args.out.join(format!("{name}.{ext}"))
 }
 
+/// One file written: its index, path and size in points (written as
+/// double-precision numbers, as the size always was).
+#[derive(Serialize)]
+struct FileRecord {
+    index: usize,
+    path: String,
+    width: f64,
+    height: f64,
+}
+
+/// The JSON of `figure`: the kind and the files written.
+#[derive(Serialize)]
+struct FiguresRecord {
+    kind: &'static str,
+    count: usize,
+    files: Vec<FileRecord>,
+}
+
 /// What the command prints: one line per file, or one JSON object.
 fn report(args: &FigureArgs, written: &[Written]) -> String {
-    if args.json {
-        let files: Vec<_> = written
-            .iter()
-            .map(|(i, p, w, h)| json!({"index": i, "path": p.display().to_string(), "width": w, "height": h}))
-            .collect();
-        return json::render(&json!({
-            "kind": args.kind.name(),
-            "count": written.len(),
-            "files": files,
-        }));
+    if args.output.json {
+        return json::line(&FiguresRecord {
+            kind: args.kind.name(),
+            count: written.len(),
+            files: written
+                .iter()
+                .map(|(i, p, w, h)| FileRecord {
+                    index: *i,
+                    path: p.display().to_string(),
+                    width: f64::from(*w),
+                    height: f64::from(*h),
+                })
+                .collect(),
+        });
     }
     let mut out = String::new();
     for (_, p, w, h) in written {
