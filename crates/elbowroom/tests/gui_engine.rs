@@ -183,3 +183,38 @@ fn a_polynomial_typed_in_the_quotient_view_is_read_on_the_engine() {
     h.state_mut().session.quotient.typed = "x1 +* x2".into();
     settle(&mut h, |h| has(h, "column"));
 }
+
+/// The workbench's DS_8 refusal is the command's, word for word and number for
+/// number: both call the one sizing check of the math crate. (x1 + ⋯ + x8)^9 has
+/// C(16, 7) = 11 440 terms (stars and bars); DS_8 goes through the product of the
+/// C(8, 2) − 7 = 21 factors x_i − x_j with j > i + 1, of up to
+/// min(2^21, C(28, 7)) = 1 184 040 terms.
+#[test]
+fn the_workbench_refuses_ds_8_with_the_words_and_numbers_of_divsym() {
+    let text = "(x1+x2+x3+x4+x5+x6+x7+x8)^9";
+    let cli = std::process::Command::new(env!("CARGO_BIN_EXE_elbowroom"))
+        .args(["divsym", text, "--n", "8"])
+        .output()
+        .unwrap();
+    assert_eq!(cli.status.code(), Some(2));
+    let stderr = String::from_utf8_lossy(&cli.stderr);
+    let message = stderr
+        .trim_end()
+        .strip_prefix("elbowroom: ")
+        .unwrap()
+        .to_string();
+    assert!(message.starts_with("DS_8(f) goes through f·Q"), "{message}");
+    assert!(
+        message.contains("11440 terms of f times up to 1184040 terms"),
+        "{message}"
+    );
+    let mut h = harness();
+    h.get_by_label("Polynomial workbench").click();
+    h.step();
+    h.state_mut().session.n = 8;
+    h.state_mut().session.workbench.use_h = false;
+    h.state_mut().session.workbench.poly = text.into();
+    settle(&mut h, |h| has(h, &message));
+    // the same refusal once, not once per panel
+    assert_eq!(h.query_all_by_label_contains(&message).count(), 1);
+}

@@ -454,9 +454,8 @@ fn product(u: &Perm, v: &Perm, n: Option<usize>, progress: &Progress) -> MathRes
 /// A typed polynomial read in n variables, written back: its first
 /// [`TYPED_SHOWN`] characters, and its number of terms when cut.
 fn typed(text: &str, n: usize, progress: &Progress) -> MathResult<String> {
-    progress.set_total(1);
+    // the reading reports its coefficient products as it multiplies
     let f = parse_poly_with(text, Some(n), progress)?;
-    progress.advance(1);
     let written = f.to_text();
     if written.chars().count() <= TYPED_SHOWN {
         return Ok(written);
@@ -547,11 +546,12 @@ fn volume(lambda: &[BigRational], progress: &Progress) -> MathResult<BigRational
 }
 
 fn divsym(text: &str, h: &[usize], progress: &Progress) -> MathResult<DividedSymmetrization> {
-    progress.set_total(1);
     let h = HessenbergFn::new(h)?;
     let f = parse_poly_with(text, Some(h.n()), progress)?;
     // the same refusal as `elbowroom divsym`
     crate::math::sizing::check_divsym(&f, &h)?;
+    // DS_h is a phase of its own after the reading
+    progress.restart(1);
     let out = divided_symmetrize_with(&f, &h, progress)?;
     progress.advance(1);
     Ok(out)
@@ -596,7 +596,12 @@ fn reduce(input: &QuotientInput, progress: &Progress) -> MathResult<Reduced> {
             let s = SchubertTable::new().get(w);
             (w.n(), s.reverse_vars().to_rational())
         }
-        QuotientInput::Typed(text, n) => (*n, parse_poly_with(text, Some(*n), progress)?),
+        QuotientInput::Typed(text, n) => {
+            let f = parse_poly_with(text, Some(*n), progress)?;
+            // the reduction is a phase of its own after the reading
+            progress.restart(2);
+            (*n, f)
+        }
     };
     let q = crate::basis_cache::basis_with(n, progress)?;
     progress.advance(1);

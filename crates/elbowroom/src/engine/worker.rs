@@ -289,6 +289,37 @@ mod tests {
     }
 
     #[test]
+    fn reading_a_huge_power_reports_its_progress() {
+        // (x1 + ... + x8)^12: C(19, 7) = 50 388 terms (stars and bars); the reading
+        // multiplies by repeated squaring and reports the coefficient products done
+        let engine = Engine::quiet();
+        let text = "(x1+x2+x3+x4+x5+x6+x7+x8)^12".to_string();
+        let job = engine.start(JobKey::Typed(text, 8));
+        let p = job.progress_arc();
+        // the bar leaves 0 before the reading ends, and moves on
+        assert!(wait_until(|| p.fraction() > 0.0 || job.poll().is_some()));
+        let first = p.done();
+        assert!(p.total() > 0 && first > 0, "{} of {}", first, p.total());
+        let mut later = first;
+        assert!(wait_until(|| {
+            later = p.done();
+            later > first
+        }));
+        assert!(later <= p.total(), "{later} of {}", p.total());
+        // and a cancel still stops it at once
+        let asked = Instant::now();
+        job.cancel();
+        let result = wait_for_result(&job);
+        let stopped = asked.elapsed();
+        eprintln!(
+            "reading: {first}, then {later} of {} products; stopped {stopped:?} after the cancel",
+            p.total()
+        );
+        assert!(matches!(result, Err(MathError::Canceled)), "{result:?}");
+        assert!(stopped < Duration::from_millis(500), "{stopped:?}");
+    }
+
+    #[test]
     fn a_second_request_of_a_slot_cancels_the_first_table() {
         let engine = Engine::quiet();
         let mut slot = Slot::default();
