@@ -80,7 +80,7 @@ impl<'a> ContentWords<'a> {
                 "the reduced words of one content pass through more than {CONTENT_WORD_STATES} pairs (permutation, content); refused"
             )));
         }
-        if self.memo.len() % 1024 == 0 {
+        if self.memo.len().is_multiple_of(1024) {
             self.progress.check()?;
         }
         let mut total: u128 = 0;
