@@ -51,6 +51,16 @@ fn the_panel_explains_a_1432() {
         &h,
         "the list shows the 1 reduced words of content [0, 2, 1] (of 2 in all)"
     ));
+    // the braid move 232 -> 323 leaves the content: the list is the whole one again,
+    // with 3 2 3 (the second word in lexicographic order) selected
+    h.get_by_label("braid 2 3 2 at 1").click();
+    settle(&mut h, |h| {
+        has(h, "3 2 3") && has(h, "2 3 2") && h.state().session.words.index == 1
+    });
+    assert!(!has(&h, "the list shows the"));
+    // filtered again, then "show all"
+    h.get_by_label("[0, 2, 1]").click();
+    settle(&mut h, |h| !has(h, "3 2 3") && has(h, "2 3 2"));
     h.get_by_label("show all").click();
     settle(&mut h, |h| has(h, "3 2 3"));
     // the cyclic orbit: 3214 (a = 1)
