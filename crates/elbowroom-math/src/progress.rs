@@ -29,6 +29,19 @@ impl Progress {
         self.total.store(total, Ordering::Relaxed);
     }
 
+    /// Starts a new phase of the same computation: nothing done yet of
+    /// `total` units (so a bar does not carry the count of the phase before).
+    pub fn restart(&self, total: u64) {
+        self.done.store(0, Ordering::Relaxed);
+        self.total.store(total, Ordering::Relaxed);
+    }
+
+    /// Raises the amount of work expected to at least `total` (a computation
+    /// that learns its size as it goes).
+    pub fn raise_total(&self, total: u64) {
+        self.total.fetch_max(total, Ordering::Relaxed);
+    }
+
     /// Records `k` more units done.
     pub fn advance(&self, k: u64) {
         self.done.fetch_add(k, Ordering::Relaxed);

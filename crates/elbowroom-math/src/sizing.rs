@@ -22,11 +22,17 @@ pub fn check_divsym(f: &RatPoly, h: &HessenbergFn) -> MathResult<()> {
     let n = h.n() as u64;
     let dim = h.dimension() as u64;
     let degree = u64::from(f.degree());
+    // the message names what was asked for: DS_n for the default h
+    let name = if h.is_default() {
+        format!("DS_{n}(f)")
+    } else {
+        "DS_h(f)".to_string()
+    };
     if !f.is_zero() && degree > dim {
         let monomials = monomials_of_degree(degree - dim, n);
         if monomials > DIVSYM_TERM_LIMIT {
             return Err(MathError::TooLarge(format!(
-                "DS_h(f) is symmetric of degree {} in {n} variables and may have {monomials} monomials; at most {DIVSYM_TERM_LIMIT} are accepted",
+                "{name} is symmetric of degree {} in {n} variables and may have {monomials} monomials; at most {DIVSYM_TERM_LIMIT} are accepted",
                 degree - dim
             )));
         }
@@ -41,8 +47,16 @@ pub fn check_divsym(f: &RatPoly, h: &HessenbergFn) -> MathResult<()> {
         };
         let product = (f.len() as u128).saturating_mul(q_terms);
         if product > DIVSYM_PRODUCT_LIMIT {
+            let (short, through) = if h.is_default() {
+                (
+                    "Q",
+                    format!(", Q the product of the {k} factors x_i − x_j with j > i + 1"),
+                )
+            } else {
+                ("Q_h", String::new())
+            };
             return Err(MathError::TooLarge(format!(
-                "DS_h(f) goes through f·Q_h: {} terms of f times up to {q_terms} terms of Q_h is {product}; at most {DIVSYM_PRODUCT_LIMIT} are accepted",
+                "{name} goes through f·{short}{through}: {} terms of f times up to {q_terms} terms of {short} is {product}; at most {DIVSYM_PRODUCT_LIMIT} are accepted",
                 f.len()
             )));
         }

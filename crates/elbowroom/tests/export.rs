@@ -117,8 +117,9 @@ fn png_has_the_requested_size_and_every_pipe_colour() {
             .filter(|&k| count_exact(&p, label_color(k, n)) > 0)
             .count();
         assert_eq!(present, n, "n = {n}, scale = {scale}");
-        // a label colour of a larger palette that no pipe uses is absent
-        let stranger = label_color(2, 17);
+        // the colour of a label no pipe has (label k keeps its colour for every
+        // count of labels, so the next label's colour is a stranger) is absent
+        let stranger = label_color(n + 1, n + 1);
         assert_eq!(count_exact(&p, stranger), 0);
         assert!(count_exact(&p, palette::PAPER) > p.width() as usize * 10);
     }

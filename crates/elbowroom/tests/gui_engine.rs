@@ -12,7 +12,7 @@ use elbowroom::gui::Explorer;
 use std::time::{Duration, Instant};
 use window_harness::{harness, has, settle, survey_of_s5};
 
-/// n = 11, h = (3, 4, ..., 11, 11, 11): |h| = 27, the middle length of S_11; its
+/// n = 11, h = (3, 4, ..., 11, 11, 11): |h| = 19 (1 073 227 rows); its
 /// table takes many seconds, so it is still running whenever the tests look.
 const SLOW_H: [usize; 11] = [3, 4, 5, 6, 7, 8, 9, 10, 11, 11, 11];
 
@@ -182,4 +182,89 @@ fn a_polynomial_typed_in_the_quotient_view_is_read_on_the_engine() {
     // a mistake is reported by the engine's reading, with its column
     h.state_mut().session.quotient.typed = "x1 +* x2".into();
     settle(&mut h, |h| has(h, "column"));
+}
+
+/// The workbench's DS_8 refusal is the command's, word for word and number for
+/// number: both call the one sizing check of the math crate. (x1 + ⋯ + x8)^9 has
+/// C(16, 7) = 11 440 terms (stars and bars); DS_8 goes through the product of the
+/// C(8, 2) − 7 = 21 factors x_i − x_j with j > i + 1, of up to
+/// min(2^21, C(28, 7)) = 1 184 040 terms.
+#[test]
+fn the_workbench_refuses_ds_8_with_the_words_and_numbers_of_divsym() {
+    let text = "(x1+x2+x3+x4+x5+x6+x7+x8)^9";
+    let cli = std::process::Command::new(env!("CARGO_BIN_EXE_elbowroom"))
+        .args(["divsym", text, "--n", "8"])
+        .output()
+        .unwrap();
+    assert_eq!(cli.status.code(), Some(2));
+    let stderr = String::from_utf8_lossy(&cli.stderr);
+    let message = stderr
+        .trim_end()
+        .strip_prefix("elbowroom: ")
+        .unwrap()
+        .to_string();
+    assert!(message.starts_with("DS_8(f) goes through f·Q"), "{message}");
+    assert!(
+        message.contains("11440 terms of f times up to 1184040 terms"),
+        "{message}"
+    );
+    let mut h = harness();
+    h.get_by_label("Polynomial workbench").click();
+    h.step();
+    h.state_mut().session.n = 8;
+    h.state_mut().session.workbench.use_h = false;
+    h.state_mut().session.workbench.poly = text.into();
+    settle(&mut h, |h| has(h, &message));
+    // the same refusal once, not once per panel
+    assert_eq!(h.query_all_by_label_contains(&message).count(), 1);
+}
+
+/// The number of permutations of S_n with k inversions: the coefficient of q^k
+/// in Π_{i=1..n} (1 + q + ⋯ + q^{i−1}) (the Mahonian numbers, OEIS A008302).
+fn mahonian(n: usize, k: usize) -> u64 {
+    let mut c = vec![1u64];
+    for i in 1..=n {
+        let mut next = vec![0u64; c.len() + i - 1];
+        for (d, x) in c.iter().enumerate() {
+            for e in 0..i {
+                next[d + e] += x;
+            }
+        }
+        c = next;
+    }
+    c.get(k).copied().unwrap_or(0)
+}
+
+/// Cancel, then retry: the table shown is the retry's, shown once it is
+/// finished, and nothing starts again afterwards (no restart of a finished job).
+#[test]
+fn after_cancel_and_retry_the_table_is_shown_and_not_restarted() {
+    let mut h = harness();
+    start_table(&mut h, &SLOW_H);
+    let first = h.state().engine.running()[0].id;
+    h.get_all_by_label("cancel").last().unwrap().click();
+    settle(&mut h, |h| h.state().engine.running().is_empty());
+    settle(&mut h, |h| has(h, "retry"));
+    h.get_by_label("retry").click();
+    settle(&mut h, |h| !h.state().engine.running().is_empty());
+    let running = h.state().engine.running();
+    assert_eq!(running.len(), 1);
+    let retry = running[0].id;
+    assert_ne!(retry, first);
+    // |h| = Σ (h(i) − i) = 8·2 + 2 + 1 = 19 for h = (3, 4, ..., 11, 11, 11): the rows
+    // are the w of length 19 in S_11
+    let count = mahonian(11, 19).to_string();
+    let grouped = elbowroom::gui::typeset::grouped(&count);
+    let shown = |h: &Harness<'static, Explorer>| {
+        [&count, &grouped]
+            .iter()
+            .any(|c| has(h, &format!("{c} permutations of length 19")))
+    };
+    settle(&mut h, shown);
+    for _ in 0..30 {
+        h.step();
+        assert!(h.state().engine.running().is_empty(), "a job started again");
+        assert!(shown(&h));
+        assert!(!has(&h, "canceled"));
+    }
 }

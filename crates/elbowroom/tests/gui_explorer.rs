@@ -167,7 +167,7 @@ fn cancelling_a_job_leaves_the_window_usable() {
     let mut h = harness();
     h.get_by_label("Hessenberg classes").click();
     h.step();
-    // n = 11, |h| = 27 (the middle length of S_11): a table that takes many seconds
+    // n = 11, |h| = 19 (1 073 227 rows): a table that takes seconds
     h.state_mut().session.hessenberg.h = vec![3, 4, 5, 6, 7, 8, 9, 10, 11, 11, 11];
     h.step();
     h.get_by_label("compute the table").click();

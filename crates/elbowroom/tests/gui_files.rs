@@ -353,3 +353,49 @@ fn a_wiring_diagram_exports_without_the_lit_crossing_unless_asked() {
     assert_eq!(text.matches("fill-opacity").count(), 1, "{text}");
     std::fs::remove_dir_all(&dir).ok();
 }
+
+/// The words view's panel "a_w from the words of w" exports as a table figure,
+/// in each figure format: for w = 1432 the rows (0,2,1) and (0,1,2) with
+/// N_w(c) = 1, A_021 = 4, A_012 = 2 and the sum 6/3! = 1 (Nadeau–Tewari, IMRN
+/// 2023, the worked example of the reduced-word formula).
+#[test]
+fn the_panel_of_a_w_exports_as_a_table_figure() {
+    let mut h = harness();
+    h.state_mut().session.n = 4;
+    h.state_mut().session.current = vec![1, 4, 3, 2];
+    h.step();
+    h.get_by_label("Reduced words & wiring").click();
+    settle(&mut h, |h| has(h, "sum 6/3! = 1"));
+    let dir = scratch("panel");
+    let item = "the reduced-word formula for a_1432 as a figure";
+    let svg = dir.join("a1432.svg");
+    export_to(&mut h, item, &svg);
+    let text = std::fs::read_to_string(&svg).unwrap();
+    for cell in [
+        "(0,2,1)",
+        "(0,1,2)",
+        "content c",
+        "share",
+        "sum 6/3! = 1 = a",
+    ] {
+        assert!(text.contains(cell), "{cell}: {text}");
+    }
+    // A_021 = 4 and A_012 = 2 in the A_c column, set flush right
+    assert!(text.contains(">4<") && text.contains(">2<"), "{text}");
+    let tex = dir.join("a1432.tex");
+    export_to(&mut h, item, &tex);
+    let text = std::fs::read_to_string(&tex).unwrap();
+    assert!(
+        text.starts_with("\\documentclass[tikz]{standalone}"),
+        "{text}"
+    );
+    assert!(
+        text.contains("(0,2,1)") && text.contains("(0,1,2)"),
+        "{text}"
+    );
+    let png = dir.join("a1432.png");
+    export_to(&mut h, item, &png);
+    let bytes = std::fs::read(&png).unwrap();
+    assert!(bytes.starts_with(b"\x89PNG"));
+    std::fs::remove_dir_all(&dir).ok();
+}

@@ -8,9 +8,11 @@
 //! - [`rules`]: the rules that give a_w at once where they apply (parking words,
 //!   Grassmannian w with its standard tableaux, Coxeter elements).
 //! - [`symmetry`]: a_w = a_{w^{-1}} = a_{w0 w w0}, the cyclic orbit and its sum, h*.
+//! - [`content_words`]: the reduced words of w of one content, counted, paged and ranked.
 //! - [`explanation`]: all of the above for one w, for the window and the commands.
 //! - [`qvalue`]: the q-analogue a_w(q) through the algebra K_n(q).
 
+pub mod content_words;
 pub mod explanation;
 pub mod formula;
 pub mod monomials;

@@ -391,6 +391,16 @@ impl<C: Coeff> Poly<C> {
     /// [`Poly::mul`], stopping with `Canceled` within a few thousand term
     /// products of a cancel of `progress`.
     pub fn mul_with(&self, other: &Self, progress: &Progress) -> MathResult<Self> {
+        self.mul_counted(other, progress, false)
+    }
+
+    /// [`Poly::mul_with`], also adding to `progress` the term products done
+    /// (len(self)·len(other) in all), row by row, for a progress bar.
+    pub fn mul_reporting(&self, other: &Self, progress: &Progress) -> MathResult<Self> {
+        self.mul_counted(other, progress, true)
+    }
+
+    fn mul_counted(&self, other: &Self, progress: &Progress, report: bool) -> MathResult<Self> {
         let nvars = self.nvars.max(other.nvars);
         if self.terms.len().saturating_mul(other.terms.len()) > TERM_LIMIT * 8 {
             return Err(too_large());
@@ -406,6 +416,9 @@ impl<C: Coeff> Poly<C> {
                 b.add_term(m, &c);
             }
             since_check += other.terms.len();
+            if report {
+                progress.advance(other.terms.len() as u64);
+            }
             if since_check >= 4096 {
                 progress.check()?;
                 since_check = 0;

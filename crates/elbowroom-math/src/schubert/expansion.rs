@@ -498,7 +498,8 @@ pub fn expand_linear_factors(
             exponent: *e,
         });
     }
-    progress.set_total(degree);
+    // a phase of its own after the reading
+    progress.restart(degree);
     let vector = if scalar.is_zero() {
         SchubertVector::<BigInt>::zero(space)
     } else {
@@ -571,6 +572,11 @@ pub fn expand_typed(
     };
     match parse_linear_factors_with(text, Some(n), progress)? {
         Some(product) => expand_linear_factors(&product, space, progress),
-        None => schubert_expansion(&parse_poly_with(text, Some(n), progress)?, space, progress),
+        None => {
+            let f = parse_poly_with(text, Some(n), progress)?;
+            // the expansion is a phase of its own after the reading
+            progress.restart(0);
+            schubert_expansion(&f, space, progress)
+        }
     }
 }

@@ -102,6 +102,7 @@ fn on_signal(sig: i32) {
 /// line on stderr, exit status 128 + `sig`.
 fn end_now(sig: i32) -> ! {
     crate::atomic_write::remove_unfinished();
+    super::cut_short::write_pending();
     let (what, since) = RUNNING
         .lock()
         .ok()

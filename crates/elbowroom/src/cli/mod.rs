@@ -32,6 +32,7 @@ pub(crate) mod cmd_session;
 pub mod cmd_survey;
 pub(crate) mod cmd_volume;
 pub(crate) mod cmd_words;
+pub(crate) mod cut_short;
 pub mod documents;
 pub mod error;
 pub(crate) mod expansion_text;
@@ -95,6 +96,7 @@ pub fn stdout_is_open() -> bool {
 
 /// Runs one headless command and prints its output; returns the exit status.
 pub fn run(argv: Vec<OsString>) -> ExitCode {
+    let format = cut_short::Format::of_arguments(&argv);
     let matches = match Cli::command().try_get_matches_from(argv) {
         Ok(m) => m,
         Err(e) => return report_usage_error(e),
@@ -117,7 +119,7 @@ pub fn run(argv: Vec<OsString>) -> ExitCode {
     interrupt::install(name);
     let result = match command.out_file() {
         Some(path) => run_to_file(&command, path),
-        None => run_to_stdout(&command),
+        None => run_to_stdout(&command, format),
     };
     match result {
         Ok(()) => ExitCode::SUCCESS,
@@ -128,8 +130,9 @@ pub fn run(argv: Vec<OsString>) -> ExitCode {
     }
 }
 
-/// Runs a command whose output goes to standard output.
-fn run_to_stdout(command: &Command) -> Result<(), CliError> {
+/// Runs a command whose output goes to standard output; an output that stops
+/// before it is complete ends with the cut marker of `format`.
+fn run_to_stdout(command: &Command, format: cut_short::Format) -> Result<(), CliError> {
     if !stdout_is_open() {
         return Err(CliError::Failed(
             "cannot write standard output: it is closed".into(),
@@ -137,14 +140,19 @@ fn run_to_stdout(command: &Command) -> Result<(), CliError> {
     }
     let stdout = std::io::stdout();
     let mut buffered = std::io::BufWriter::with_capacity(output::BUFFER, stdout.lock());
-    let mut sink = Sink::new(&mut buffered, "standard output");
+    let mut sink = Sink::new(&mut buffered, "standard output").with_cut_marker(format);
     let result = execute(command, &mut sink).and_then(|()| sink.flush());
     match result {
-        Ok(()) => Ok(()),
+        Ok(()) => {
+            sink.finished();
+            Ok(())
+        }
         // a closed pipe (for example `| head`) means the reader has what it wanted
         Err(_) if sink.closed_pipe() => Ok(()),
         Err(e) => {
-            // what was produced before the failure still goes out, then the reason
+            // what was produced before the failure still goes out, ended by a
+            // line no reader can take for the end of a complete output
+            sink.cut_short();
             let _ = sink.flush();
             Err(e)
         }

@@ -20,7 +20,16 @@ pub struct Sink<'a> {
     closed_pipe: bool,
     written: u64,
     last_byte: Option<u8>,
+    /// The format whose cut marker ends a cut-short output, if one is to be written.
+    cut: Option<super::cut_short::Format>,
+    /// The first line written (up to [`HEAD_KEPT`] bytes), for the CSV marker.
+    head: String,
+    /// Whether the first line is complete (and the marker recorded for a signal).
+    head_done: bool,
 }
+
+/// How much of the first line a sink keeps for its cut marker.
+const HEAD_KEPT: usize = 1 << 16;
 
 impl<'a> Sink<'a> {
     /// A sink writing to `out`, called `name` in messages.
@@ -31,6 +40,62 @@ impl<'a> Sink<'a> {
             closed_pipe: false,
             written: 0,
             last_byte: None,
+            cut: None,
+            head: String::new(),
+            head_done: false,
+        }
+    }
+
+    /// A sink that, when the output is cut short ([`Sink::cut_short`], or a
+    /// signal ending the process), ends it with the marker of `format`
+    /// ([`super::cut_short`]).
+    pub fn with_cut_marker(mut self, format: super::cut_short::Format) -> Sink<'a> {
+        self.cut = Some(format);
+        self
+    }
+
+    /// Keeps the first line and, once it is complete, records the marker a
+    /// signal would write.
+    fn note_head(&mut self, s: &str) {
+        let Some(format) = self.cut else {
+            return;
+        };
+        let line = s.split('\n').next().unwrap_or("");
+        if self.head.len() < HEAD_KEPT {
+            let room = HEAD_KEPT - self.head.len();
+            let mut end = line.len().min(room);
+            while !line.is_char_boundary(end) {
+                end -= 1;
+            }
+            self.head.push_str(&line[..end]);
+        }
+        if s.contains('\n') || self.head.len() >= HEAD_KEPT {
+            self.head_done = true;
+            super::cut_short::set_pending(Some(format.marker(&self.head, false)));
+        }
+    }
+
+    /// Ends an output that stopped before it was complete with the marker of
+    /// its format (nothing when nothing was written, when the reader closed
+    /// the pipe, or when the sink has no marker); a failure to write it is
+    /// left unreported, as the run is failing already.
+    pub fn cut_short(&mut self) {
+        super::cut_short::set_pending(None);
+        let Some(format) = self.cut else {
+            return;
+        };
+        if self.written == 0 || self.closed_pipe {
+            return;
+        }
+        let marker = format.marker(&self.head, self.last_byte == Some(b'\n'));
+        let _ = self.out.write_all(marker.as_bytes());
+        let _ = self.out.flush();
+    }
+
+    /// Forgets the marker a signal would write (the output is complete).
+    pub fn finished(&mut self) {
+        if self.cut.is_some() {
+            super::cut_short::set_pending(None);
         }
     }
 
@@ -45,6 +110,9 @@ impl<'a> Sink<'a> {
     pub fn text(&mut self, s: &str) -> Result<(), CliError> {
         if s.is_empty() {
             return Ok(());
+        }
+        if !self.head_done {
+            self.note_head(s);
         }
         if let Err(e) = self.out.write_all(s.as_bytes()) {
             return Err(self.failed(e));

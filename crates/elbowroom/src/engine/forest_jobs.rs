@@ -43,7 +43,12 @@ pub fn forest_class(input: &QuotientInput, progress: &Progress) -> MathResult<Fo
             let s = SchubertTable::new().get(w);
             (w.n(), s.reverse_vars().to_rational())
         }
-        QuotientInput::Typed(text, n) => (*n, parse_poly_with(text, Some(*n), progress)?),
+        QuotientInput::Typed(text, n) => {
+            let f = parse_poly_with(text, Some(*n), progress)?;
+            // the normal form is a phase of its own after the reading
+            progress.restart(0);
+            (*n, f)
+        }
     };
     if n == 0 || n > MAX_QUOTIENT_N {
         return Err(MathError::OutOfRange(format!(

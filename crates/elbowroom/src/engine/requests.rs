@@ -3,6 +3,7 @@
 
 use super::forest_jobs::{ForestRows, forest_class, forest_poly, schubert_forests};
 use super::layout::{TableLayout, table_layout};
+use crate::math::explain::content_words::ContentWords;
 use crate::math::explain::explanation::{Explanation, explain};
 use crate::math::explain::qvalue::{QCoefficient, q_coefficient};
 use crate::math::hessenberg::coefficients::coefficient_table;
@@ -98,6 +99,11 @@ pub enum JobKey {
     HessenbergLayout(Vec<usize>, String, bool),
     /// The place (0-based) of a reduced word of w in the lexicographic list of them.
     WordRank(Perm, Vec<usize>),
+    /// Page k (of [`WORD_PAGE`] words) of the reduced words of w of content c
+    /// (c_1, …, c_{n−1}), in lex order.
+    ContentWords(Perm, Vec<usize>, usize),
+    /// The place (0-based) of a reduced word of w among those of content c.
+    ContentWordRank(Perm, Vec<usize>, Vec<usize>),
     /// A typed polynomial (as typed) in n variables, read and written back
     /// (the first [`TYPED_SHOWN`] characters) with its number of terms.
     Typed(String, usize),
@@ -209,6 +215,12 @@ impl JobKey {
                 format!("arranging the table of h = {}", h_text(h))
             }
             JobKey::WordRank(w, _) => format!("finding a reduced word of {w} in the list"),
+            JobKey::ContentWords(w, c, p) => {
+                format!("reduced words of {w} of content {c:?}, page {}", p + 1)
+            }
+            JobKey::ContentWordRank(w, c, _) => {
+                format!("finding a reduced word of {w} among those of content {c:?}")
+            }
             JobKey::ForestPolynomial(c) => format!("P_F of the code {}", h_text(c)),
             JobKey::ForestExpansion(w) => format!("forest expansion of S_{w}"),
             JobKey::ForestClass(_) => "class modulo J_n in the forest basis".to_string(),
@@ -401,6 +413,13 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
             .map(|e| Output::Terms(Terms { terms: e.terms })),
         JobKey::Typed(text, n) => typed(text, *n, progress).map(Output::Text),
         JobKey::WordRank(w, word) => word_rank(w, word, progress).map(Output::Count),
+        JobKey::ContentWords(w, c, page) => {
+            content_word_page(w, c, *page, progress).map(Output::Words)
+        }
+        JobKey::ContentWordRank(w, c, word) => {
+            let mut words = ContentWords::new(w, c, progress)?;
+            words.rank(word).map(|r| Output::Count(BigUint::from(r)))
+        }
         JobKey::Explain(w) => explained(w, progress).map(|e| Output::Explain(Arc::new(e))),
         JobKey::HessenbergLayout(h, column, descending) => {
             // the view passes the table it has; from the key alone it is computed again
@@ -411,6 +430,21 @@ pub fn compute(key: &JobKey, progress: &Progress) -> MathResult<Output> {
         JobKey::ForestExpansion(w) => schubert_forests(w, progress).map(Output::Forests),
         JobKey::ForestClass(input) => forest_class(input, progress).map(Output::Forests),
     }
+}
+
+/// Page `page` (of [`WORD_PAGE`] words) of the reduced words of w of content c.
+fn content_word_page(
+    w: &Perm,
+    c: &[usize],
+    page: usize,
+    progress: &Progress,
+) -> MathResult<Vec<Vec<usize>>> {
+    progress.set_total(1);
+    let mut words = ContentWords::new(w, c, progress)?;
+    let skip = (page as u128).saturating_mul(WORD_PAGE as u128);
+    let out = words.page(skip, WORD_PAGE)?;
+    progress.advance(1);
+    Ok(out)
 }
 
 /// The place of `word` in the lexicographic list of the reduced words of w.
@@ -454,9 +488,8 @@ fn product(u: &Perm, v: &Perm, n: Option<usize>, progress: &Progress) -> MathRes
 /// A typed polynomial read in n variables, written back: its first
 /// [`TYPED_SHOWN`] characters, and its number of terms when cut.
 fn typed(text: &str, n: usize, progress: &Progress) -> MathResult<String> {
-    progress.set_total(1);
+    // the reading reports its coefficient products as it multiplies
     let f = parse_poly_with(text, Some(n), progress)?;
-    progress.advance(1);
     let written = f.to_text();
     if written.chars().count() <= TYPED_SHOWN {
         return Ok(written);
@@ -547,11 +580,12 @@ fn volume(lambda: &[BigRational], progress: &Progress) -> MathResult<BigRational
 }
 
 fn divsym(text: &str, h: &[usize], progress: &Progress) -> MathResult<DividedSymmetrization> {
-    progress.set_total(1);
     let h = HessenbergFn::new(h)?;
     let f = parse_poly_with(text, Some(h.n()), progress)?;
     // the same refusal as `elbowroom divsym`
     crate::math::sizing::check_divsym(&f, &h)?;
+    // DS_h is a phase of its own after the reading
+    progress.restart(1);
     let out = divided_symmetrize_with(&f, &h, progress)?;
     progress.advance(1);
     Ok(out)
@@ -596,7 +630,12 @@ fn reduce(input: &QuotientInput, progress: &Progress) -> MathResult<Reduced> {
             let s = SchubertTable::new().get(w);
             (w.n(), s.reverse_vars().to_rational())
         }
-        QuotientInput::Typed(text, n) => (*n, parse_poly_with(text, Some(*n), progress)?),
+        QuotientInput::Typed(text, n) => {
+            let f = parse_poly_with(text, Some(*n), progress)?;
+            // the reduction is a phase of its own after the reading
+            progress.restart(2);
+            (*n, f)
+        }
     };
     let q = crate::basis_cache::basis_with(n, progress)?;
     progress.advance(1);

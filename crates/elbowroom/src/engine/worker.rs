@@ -98,7 +98,14 @@ impl Engine {
         let spawned = std::thread::Builder::new()
             .name(format!("elbowroom-job-{id}"))
             .spawn(move || {
-                let result = work(&p).map(Arc::new);
+                let mut result = work(&p).map(Arc::new);
+                // a job canceled before it ended delivers no result, even one
+                // that was finished when the cancel came: the view that canceled
+                // it shows "canceled" (with retry), never a result it stopped
+                // waiting for, and the cache holds only results no one canceled
+                if p.is_canceled() {
+                    result = Err(MathError::Canceled);
+                }
                 if let Ok(out) = &result {
                     cache.insert(k, out.clone());
                 }
@@ -218,6 +225,80 @@ mod tests {
         assert!(wait_until(|| engine.running().is_empty()));
     }
 
+    /// Cancel, then retry: the canceled job's result (finished as the cancel
+    /// came) is neither shown nor cached; the retry computes once, and what is
+    /// shown is the retry's result, the same one on every later frame, with no
+    /// job started again.
+    #[test]
+    fn after_cancel_and_retry_the_retry_result_is_shown_once_and_never_restarted() {
+        use std::sync::atomic::AtomicUsize;
+        let engine = Engine::quiet();
+        let key = JobKey::Schubert(Perm::parse("1432").unwrap());
+        let mut slot = Slot::default();
+        // a computation that ends with a result just after the cancel reaches it
+        let stale = |p: &Progress| -> MathResult<Output> {
+            while !p.is_canceled() {
+                std::thread::sleep(Duration::from_millis(1));
+            }
+            Ok(Output::Text("stale".into()))
+        };
+        assert!(matches!(
+            slot.fetch_with(&engine, key.clone(), stale),
+            Fetch::Running(..)
+        ));
+        slot.cancel();
+        let mut seen = String::new();
+        assert!(wait_until(|| match slot.fetch(&engine, key.clone()) {
+            Fetch::Running(..) => false,
+            Fetch::Ready(out) => {
+                seen = out.text().unwrap_or("").to_string();
+                true
+            }
+            Fetch::Failed(e) => {
+                seen = e.to_string();
+                true
+            }
+        }));
+        assert_eq!(seen, MathError::Canceled.to_string());
+        assert!(engine.cached(&key).is_none());
+        // retry: one new job, whose result is shown
+        let starts = Arc::new(AtomicUsize::new(0));
+        let counted = starts.clone();
+        let fresh = move |_: &Progress| -> MathResult<Output> {
+            counted.fetch_add(1, Ordering::SeqCst);
+            Ok(Output::Text("fresh".into()))
+        };
+        slot.retry();
+        let mut first: Option<Arc<Output>> = None;
+        let mut fresh = Some(fresh);
+        assert!(wait_until(|| {
+            let fetch = match fresh.take() {
+                Some(work) => slot.fetch_with(&engine, key.clone(), work),
+                None => slot.fetch(&engine, key.clone()),
+            };
+            match fetch {
+                Fetch::Ready(out) => {
+                    first = Some(out.clone());
+                    true
+                }
+                _ => false,
+            }
+        }));
+        let first = first.unwrap();
+        assert_eq!(first.text(), Some("fresh"));
+        // later frames: the same result, nothing running, nothing started again
+        for _ in 0..50 {
+            match slot.fetch(&engine, key.clone()) {
+                Fetch::Ready(out) => assert!(Arc::ptr_eq(out, &first)),
+                _ => panic!("the finished result went away"),
+            }
+            assert!(!slot.is_running());
+        }
+        assert!(wait_until(|| engine.running().is_empty()));
+        assert_eq!(starts.load(Ordering::SeqCst), 1);
+        assert!(engine.cached(&key).is_some_and(|c| Arc::ptr_eq(&c, &first)));
+    }
+
     #[test]
     fn dropping_a_job_cancels_it() {
         let engine = Engine::quiet();
@@ -242,8 +323,8 @@ mod tests {
         assert!(matches!(result, Some(Err(MathError::Canceled))));
     }
 
-    /// A Hessenberg table that takes many seconds: n = 11, h = (3, 4, ..., 11, 11, 11),
-    /// |h| = 27, the middle length of S_11 (about 17 s in a release build).
+    /// A Hessenberg table that takes seconds: n = 11, h = (3, 4, ..., 11, 11, 11),
+    /// |h| = Σ (h(i) − i) = 19, 1 073 227 rows.
     fn slow_table() -> JobKey {
         JobKey::Hessenberg(vec![3, 4, 5, 6, 7, 8, 9, 10, 11, 11, 11])
     }
@@ -286,6 +367,37 @@ mod tests {
         let result = wait_for_result(&job);
         eprintln!("reading stopped {:?} after the cancel", asked.elapsed());
         assert!(matches!(result, Err(MathError::Canceled)), "{result:?}");
+    }
+
+    #[test]
+    fn reading_a_huge_power_reports_its_progress() {
+        // (x1 + ... + x8)^12: C(19, 7) = 50 388 terms (stars and bars); the reading
+        // multiplies by repeated squaring and reports the coefficient products done
+        let engine = Engine::quiet();
+        let text = "(x1+x2+x3+x4+x5+x6+x7+x8)^12".to_string();
+        let job = engine.start(JobKey::Typed(text, 8));
+        let p = job.progress_arc();
+        // the bar leaves 0 before the reading ends, and moves on
+        assert!(wait_until(|| p.fraction() > 0.0 || job.poll().is_some()));
+        let first = p.done();
+        assert!(p.total() > 0 && first > 0, "{} of {}", first, p.total());
+        let mut later = first;
+        assert!(wait_until(|| {
+            later = p.done();
+            later > first
+        }));
+        assert!(later <= p.total(), "{later} of {}", p.total());
+        // and a cancel still stops it at once
+        let asked = Instant::now();
+        job.cancel();
+        let result = wait_for_result(&job);
+        let stopped = asked.elapsed();
+        eprintln!(
+            "reading: {first}, then {later} of {} products; stopped {stopped:?} after the cancel",
+            p.total()
+        );
+        assert!(matches!(result, Err(MathError::Canceled)), "{result:?}");
+        assert!(stopped < Duration::from_millis(500), "{stopped:?}");
     }
 
     #[test]

@@ -18,5 +18,6 @@ pub mod look;
 pub mod math_text;
 pub mod paths;
 pub mod permutohedron;
+pub mod table_figure;
 pub mod volume;
 pub mod wiring;

@@ -42,8 +42,12 @@ pub(super) struct Expander<'a> {
     depth: usize,
     /// Coefficient products spent so far.
     spent: u128,
-    /// Polled in products and powers.
+    /// Polled in products and powers, and told the coefficient products done
+    /// against those sized so far (the reading is a phase of its own: the
+    /// first product sized starts it with [`Progress::restart`]).
     progress: &'a Progress,
+    /// Whether the reading has started its phase on `progress`.
+    reporting: bool,
 }
 
 impl<'a> Expander<'a> {
@@ -60,6 +64,19 @@ impl<'a> Expander<'a> {
             depth: 0,
             spent: 0,
             progress,
+            reporting: false,
+        }
+    }
+
+    /// Tells `progress` that the reading will take at least `work` coefficient
+    /// products in all (starting the reading's phase the first time).
+    fn expect(&mut self, work: u128) {
+        let work = u64::try_from(work).unwrap_or(u64::MAX);
+        if !self.reporting {
+            self.reporting = true;
+            self.progress.restart(work);
+        } else {
+            self.progress.raise_total(work);
         }
     }
 
@@ -205,7 +222,9 @@ impl<'a> Expander<'a> {
                 ),
             ));
         }
-        a.mul_with(b, self.progress).map_err(|e| self.fail(at, e))
+        self.expect(spent);
+        a.mul_reporting(b, self.progress)
+            .map_err(|e| self.fail(at, e))
     }
 
     /// base^k by repeated squaring, each multiplication sized by [`Self::product`];
@@ -255,6 +274,8 @@ impl<'a> Expander<'a> {
                     ),
                 ));
             }
+            // the whole squaring chain is the bar's total from its start
+            self.expect(work);
         }
         let digits = u64::from(k).saturating_mul(largest_digits(base));
         if digits > TYPED_DIGIT_LIMIT {
@@ -300,5 +321,28 @@ pub(super) fn constant_value(p: &RatPoly) -> Option<BigRational> {
         [] => Some(BigRational::zero()),
         [(m, c)] if m.degree() == 0 => Some(c.clone()),
         _ => None,
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use crate::poly::parse::parse_poly_with;
+    use crate::progress::Progress;
+
+    /// (x1 + x2 + x3)^4 by repeated squaring: base² (3·3 = 9 coefficient
+    /// products), (base²)² (6·6 = 36), then 1·base⁴ (1·15 = 15): 60 in all,
+    /// the number sized before the first product (C(j + 2, 2) terms of base^j,
+    /// stars and bars); the bar ends full.
+    #[test]
+    fn a_power_reports_the_products_it_sized() {
+        let progress = Progress::new(7);
+        progress.advance(5);
+        let f = parse_poly_with("(x1+x2+x3)^4", Some(3), &progress);
+        assert_eq!(f.map(|f| f.len()).ok(), Some(15));
+        assert_eq!((progress.done(), progress.total()), (60, 60));
+        // a text with nothing to multiply leaves the count alone
+        let quiet = Progress::new(7);
+        assert!(parse_poly_with("x1 + x2 - x3", Some(3), &quiet).is_ok());
+        assert_eq!((quiet.done(), quiet.total()), (0, 7));
     }
 }

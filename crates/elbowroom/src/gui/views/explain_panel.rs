@@ -4,11 +4,15 @@
 //! permutohedra view at u = c; the rules that apply (the standard tableaux of a
 //! Grassmannian w drawn); a_{w^{-1}}, a_{w0 w w0} and the cyclic orbit as clickable
 //! permutations; a_w(q) and S_w(1, q, …) typeset. Computed on the engine
-//! (`JobKey::Explain`); the rows export as a table.
+//! (`JobKey::Explain`); the rows export as a table (CSV, LaTeX) and as a table
+//! figure (PNG, SVG, TikZ).
 
 use super::fetch_or_explain;
 use crate::engine::requests::Explained;
 use crate::engine::{Engine, JobKey, Output, Slot};
+use crate::figure::Scene;
+use crate::figure::look::Look;
+use crate::figure::table_figure::{TableFigure, table_scene};
 use crate::gui::typeset::{self, Typeset};
 use crate::math::Perm;
 use crate::math::explain::rules::Rule;
@@ -51,6 +55,36 @@ impl ExplainPanel {
                 e.explanation.formula.perm
             ),
             Arc::new(formula_table(e)),
+        ))
+    }
+
+    /// N_w(c), the number of reduced words of w of content c, once the panel
+    /// has computed the contents of w (`None` before, or for another w).
+    pub fn words_with_content(&self, w: &Perm, c: &[usize]) -> Option<usize> {
+        let out = self.slot.latest()?;
+        let Output::Explain(e) = out.as_ref() else {
+            return None;
+        };
+        let f = &e.explanation.formula;
+        if f.perm != *w {
+            return None;
+        }
+        let share = f.shares.iter().find(|s| s.content == c);
+        share.map_or(Some(0), |s| usize::try_from(&s.words).ok())
+    }
+
+    /// The rows of the formula as a table figure (PNG, SVG, TikZ), once computed.
+    pub fn figure(&self, look: &Look) -> Option<(String, Arc<Scene>)> {
+        let out = self.slot.latest()?;
+        let Output::Explain(e) = out.as_ref() else {
+            return None;
+        };
+        Some((
+            format!(
+                "the reduced-word formula for a_{} as a figure",
+                e.explanation.formula.perm
+            ),
+            Arc::new(table_scene(&formula_figure(e), look)),
         ))
     }
 
@@ -156,9 +190,16 @@ impl ExplainPanel {
                 .strong(),
         );
         if let Some(c) = self.filter.clone() {
-            ui.horizontal(|ui| {
+            let count = f
+                .shares
+                .iter()
+                .find(|s| s.content == c)
+                .map_or_else(|| "0".to_string(), |s| s.words.to_string());
+            ui.horizontal_wrapped(|ui| {
                 ui.weak(format!(
-                    "the list shows the words of content {c:?} on its page"
+                    "the list shows the {count} reduced words of content {c:?} (of {} in all), {} a page",
+                    f.reduced_words,
+                    crate::engine::requests::WORD_PAGE
                 ));
                 if ui.small_button("show all").clicked() {
                     self.filter = None;
@@ -329,6 +370,40 @@ pub fn formula_table(e: &Explained) -> Table {
         ]);
     }
     t
+}
+
+/// The rows of the formula as a table figure: content, N_w(c), A_c and share,
+/// the title naming w and the formula, the sum under the rows.
+pub fn formula_figure(e: &Explained) -> TableFigure {
+    let f = &e.explanation.formula;
+    let m = f.perm.n() - 1;
+    let rows = f
+        .shares
+        .iter()
+        .map(|s| {
+            let parts: Vec<String> = s.content.iter().map(|x| x.to_string()).collect();
+            vec![
+                format!("({})", parts.join(",")),
+                s.words.to_string(),
+                s.eulerian.to_string(),
+                s.share.to_string(),
+            ]
+        })
+        .collect();
+    TableFigure {
+        title: format!("a_w = (1/{m}!) Σ_c N_w(c) A_c for w = {}", f.perm),
+        headers: vec![
+            "content c".into(),
+            "N_w(c)".into(),
+            "A_c".into(),
+            "share".into(),
+        ],
+        rows,
+        footer: Some(format!(
+            "sum {}/{m}! = {} = a_w ({} reduced words)",
+            f.total, f.value, f.reduced_words
+        )),
+    }
 }
 
 /// Opens the permutohedra view at λ with λ_i − λ_{i+1} = c_i, λ_n = 0 (so u = c).

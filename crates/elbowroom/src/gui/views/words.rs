@@ -41,6 +41,11 @@ pub struct WordsView {
     shown_name: String,
     /// The panel "a_w from the words of w".
     explain: ExplainPanel,
+    /// The selected word's place among the words of the content chosen in
+    /// the panel (the list then holds only those).
+    filtered_index: usize,
+    /// The content the list was last drawn for.
+    filter_shown: Option<Vec<usize>>,
 }
 
 /// What a wiring diagram is drawn for: the word, n, the look, the lit crossing.
@@ -92,12 +97,18 @@ fn move_label(word: &[usize], mv: WordMove) -> (String, usize) {
 
 impl WordsView {
     /// The figures this view can export: the wiring diagram on screen,
-    /// without the lit crossing unless the export asks for it.
-    pub fn figures(&self) -> Exports {
-        let table = self
+    /// without the lit crossing unless the export asks for it; the panel's
+    /// formula as a table figure and as a table.
+    pub fn figures(&self, look: &Look) -> Exports {
+        let panel = self
             .explain
-            .table()
-            .map(|(name, t)| (name, Exportable::Table(t)));
+            .figure(look)
+            .map(|(name, s)| (name, Exportable::Figure(s)));
+        let table = panel.into_iter().chain(
+            self.explain
+                .table()
+                .map(|(name, t)| (name, Exportable::Table(t))),
+        );
         let Some((_, clean)) = &self.wiring_shown else {
             return table.into_iter().collect();
         };
@@ -118,7 +129,6 @@ impl WordsView {
     /// Draws the view.
     fn show(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx) {
         let w = ctx.perm();
-        let n = w.n();
         self.heading_with_count(ui, ctx.engine, &w);
         let panel = egui::CollapsingHeader::new("a_w from the words of w")
             .default_open(true)
@@ -129,18 +139,57 @@ impl WordsView {
             None => {}
         }
         ui.separator();
-        let total = self.total();
         let look = figure_look(ctx.session);
-        let index = &mut ctx.session.words.index;
+        // a content chosen in the panel: the list holds the words of that content only
+        let filter = self.explain.filter.clone();
+        if self.filter_shown != filter {
+            self.filter_shown = filter.clone();
+            self.filtered_index = 0;
+            self.moved_off_page = None;
+            self.locating.clear();
+        }
+        let (mut index, total) = match &filter {
+            Some(c) => (self.filtered_index, self.explain.words_with_content(&w, c)),
+            None => (ctx.session.words.index, self.total()),
+        };
+        self.list_and_word(
+            ui,
+            ctx.engine,
+            &w,
+            &look,
+            &mut index,
+            total,
+            filter.as_deref(),
+        );
+        match &filter {
+            Some(_) => self.filtered_index = index,
+            None => ctx.session.words.index = index,
+        }
+    }
+
+    /// The page of the list holding the selection (of every word, or of the
+    /// words of `filter`), and the selected word with its diagram and moves.
+    #[allow(clippy::too_many_arguments)]
+    fn list_and_word(
+        &mut self,
+        ui: &mut egui::Ui,
+        engine: &Engine,
+        w: &Perm,
+        look: &Look,
+        index: &mut usize,
+        total: Option<usize>,
+        filter: Option<&[usize]>,
+    ) {
+        let n = w.n();
         self.step_by_arrows(ui, index, total);
         let page_no = *index / WORD_PAGE;
-        let Some(out) = fetch_ready(
-            ui,
-            &mut self.page,
-            ctx.engine,
-            JobKey::Words(w.clone(), page_no),
-            |_| "listing reduced words".into(),
-        ) else {
+        let key = match filter {
+            Some(c) => JobKey::ContentWords(w.clone(), c.to_vec(), page_no),
+            None => JobKey::Words(w.clone(), page_no),
+        };
+        let Some(out) = fetch_ready(ui, &mut self.page, engine, key, |_| {
+            "listing reduced words".into()
+        }) else {
             return;
         };
         let Some(words) = out.words() else { return };
@@ -156,16 +205,20 @@ impl WordsView {
         };
         let in_page = (*index - page.index_of(0)).min(words.len() - 1);
         *index = page.index_of(in_page);
-        self.locate_moved(ctx.engine, &w, index);
+        self.locate_moved(engine, w, index, filter);
         let word = self
             .moved_off_page
             .clone()
             .unwrap_or_else(|| words[in_page].clone());
-        self.shown_name = match self.moved_off_page {
-            Some(_) => format!("wiring diagram of a reduced word of w = {w}"),
-            None => format!("wiring diagram of word {} of w = {w}", *index + 1),
+        self.shown_name = match (&self.moved_off_page, filter) {
+            (Some(_), _) => format!("wiring diagram of a reduced word of w = {w}"),
+            (None, Some(c)) => format!(
+                "wiring diagram of word {} of content {c:?} of w = {w}",
+                *index + 1
+            ),
+            (None, None) => format!("wiring diagram of word {} of w = {w}", *index + 1),
         };
-        self.page_bar(ui, &page, index, total);
+        self.page_bar(ui, &page, index, total, filter);
         ui.separator();
         ui.horizontal_top(|ui| {
             self.word_list(ui, &page, in_page, n, index);
@@ -173,24 +226,31 @@ impl WordsView {
             ui.vertical(|ui| {
                 self.letters(ui, &word);
                 ui.label(format!("content ({})", content_text(&word, n, ", ")));
-                self.wiring(ui, &word, n, &look);
+                self.wiring(ui, &word, n, look);
                 ui.add_space(6.0);
-                self.moves(ui, &word, &page, index);
+                self.moves(ui, &word, &page, index, filter);
             });
         });
     }
 
     /// Once the place of the word reached by a move is found, selects it there
     /// (the page follows).
-    fn locate_moved(&mut self, engine: &Engine, w: &Perm, index: &mut usize) {
+    fn locate_moved(
+        &mut self,
+        engine: &Engine,
+        w: &Perm,
+        index: &mut usize,
+        filter: Option<&[usize]>,
+    ) {
         let Some(word) = self.moved_off_page.clone() else {
             self.locating.clear();
             return;
         };
-        match self
-            .locating
-            .fetch(engine, JobKey::WordRank(w.clone(), word))
-        {
+        let key = match filter {
+            Some(c) => JobKey::ContentWordRank(w.clone(), c.to_vec(), word),
+            None => JobKey::WordRank(w.clone(), word),
+        };
+        match self.locating.fetch(engine, key) {
             Fetch::Ready(out) => {
                 if let Some(rank) = out.count().and_then(|c| usize::try_from(c).ok()) {
                     self.select(index, rank);
@@ -257,6 +317,7 @@ impl WordsView {
         page: &PageShown,
         index: &mut usize,
         total: Option<usize>,
+        filter: Option<&[usize]>,
     ) {
         ui.horizontal(|ui| {
             if ui
@@ -271,8 +332,13 @@ impl WordsView {
             } else {
                 (*index + 1).to_string()
             };
+            let of = match (filter, total) {
+                (Some(c), Some(t)) => format!(" of the {t} of content {c:?}"),
+                (Some(c), None) => format!(" of content {c:?}"),
+                (None, _) => String::new(),
+            };
             ui.label(format!(
-                "words {}–{} (lexicographic); selected {selected}",
+                "words {}–{}{of} (lexicographic); selected {selected}",
                 page.index_of(0) + 1,
                 shown_to,
             ));
@@ -292,15 +358,8 @@ impl WordsView {
         n: usize,
         index: &mut usize,
     ) {
-        // a content chosen in the panel keeps only the words of that content
-        let shown: Vec<usize> = (0..page.words.len())
-            .filter(|&r| {
-                self.explain
-                    .filter
-                    .as_ref()
-                    .is_none_or(|c| content(&page.words[r], n) == *c)
-            })
-            .collect();
+        // the page holds the words of the content chosen in the panel, if one is
+        let shown: Vec<usize> = (0..page.words.len()).collect();
         ui.vertical(|ui| {
             ui.set_width(260.0);
             ui.weak("word · content");
@@ -383,7 +442,14 @@ impl WordsView {
     }
 
     /// A button per commutation or braid move from the word; a click applies it.
-    fn moves(&mut self, ui: &mut egui::Ui, word: &[usize], page: &PageShown, index: &mut usize) {
+    fn moves(
+        &mut self,
+        ui: &mut egui::Ui,
+        word: &[usize],
+        page: &PageShown,
+        index: &mut usize,
+        filter: Option<&[usize]>,
+    ) {
         ui.label(egui::RichText::new("moves from this word").weak());
         let moves = word_moves(word);
         if moves.is_empty() {
@@ -399,7 +465,16 @@ impl WordsView {
                 if r.clicked()
                     && let Ok(next) = apply_word_move(word, mv)
                 {
-                    self.show_moved(next, page, index);
+                    // a braid move changes the content: the list is then the whole one
+                    if filter.is_some_and(|c| content(&next, c.len() + 1) != c) {
+                        // found in the whole list from the next frame on
+                        self.explain.filter = None;
+                        self.filter_shown = None;
+                        self.moved_off_page = Some(next);
+                        self.scroll_to_selected = true;
+                    } else {
+                        self.show_moved(next, page, index);
+                    }
                 }
             }
         });
@@ -429,7 +504,7 @@ impl super::View for WordsView {
         self.show(ui, ctx);
     }
 
-    fn exports(&mut self, _session: &crate::session::Session) -> crate::gui::files::Exports {
-        self.figures()
+    fn exports(&mut self, session: &crate::session::Session) -> crate::gui::files::Exports {
+        self.figures(&figure_look(session))
     }
 }
