@@ -32,7 +32,7 @@ pub(crate) mod cmd_session;
 pub mod cmd_survey;
 pub(crate) mod cmd_volume;
 pub(crate) mod cmd_words;
-pub(crate) mod cut_short;
+pub mod cut_short;
 pub mod documents;
 pub mod error;
 pub(crate) mod expansion_text;
