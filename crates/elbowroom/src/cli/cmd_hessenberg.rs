@@ -28,8 +28,8 @@ use crate::math::hessenberg::table::{HessenbergTable, TableEntry};
 use crate::math::perms::listing::for_each_of_length;
 use crate::math::{MathError, Perm, Progress};
 use crate::tables::results::{every_h_table, hessenberg_table};
+use num_bigint::BigInt;
 use serde::Serialize;
-use serde_json::json;
 use std::path::Path;
 use std::sync::Arc;
 
@@ -475,6 +475,26 @@ fn push_value(buf: &mut String, digits: &mut itoa::Buffer, value: &RowValue) {
     }
 }
 
+/// `--every-h --json`: the summaries of every Hessenberg function of n.
+#[derive(Serialize)]
+struct SweepDocument<'a> {
+    n: usize,
+    functions: Vec<SweepRecord<'a>>,
+}
+
+/// One Hessenberg function's summary in `--every-h --json`.
+#[derive(Serialize)]
+struct SweepRecord<'a> {
+    h: &'a [usize],
+    dimension: usize,
+    #[serde(serialize_with = "json::as_text")]
+    total: &'a BigInt,
+    nonzero: usize,
+    #[serde(serialize_with = "json::as_text")]
+    max: &'a BigInt,
+    negative: usize,
+}
+
 /// `--every-h`: the sweep over every Hessenberg function of n.
 fn every_h(args: &HessenbergArgs) -> Result<String, CliError> {
     let n = args.n;
@@ -482,20 +502,18 @@ fn every_h(args: &HessenbergArgs) -> Result<String, CliError> {
         sweep_every_h(n, progress)
     })?;
     if args.output.json {
-        let functions: Vec<_> = rows
+        let functions: Vec<SweepRecord<'_>> = rows
             .iter()
-            .map(|r| {
-                json!({
-                    "h": r.h.values(),
-                    "dimension": r.dimension,
-                    "total": json::exact(&r.total),
-                    "nonzero": r.nonzero,
-                    "max": json::exact(&r.max),
-                    "negative": r.negative,
-                })
+            .map(|r| SweepRecord {
+                h: r.h.values(),
+                dimension: r.dimension,
+                total: &r.total,
+                nonzero: r.nonzero,
+                max: &r.max,
+                negative: r.negative,
             })
             .collect();
-        return Ok(json::render(&json!({"n": n, "functions": functions})));
+        return json::text(&SweepDocument { n, functions });
     }
     if let Some(out) = args.output.table(|| every_h_table(n, &rows)) {
         return Ok(out);
