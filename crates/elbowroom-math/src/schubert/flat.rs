@@ -360,6 +360,7 @@ impl<C: Coefficient, K: FlatKey> FlatVector<C, K> {
         // each part is sorted with distinct keys (the workers finish their
         // buffers): the parts of a bucket are merged, never sorted again
         let gather = |parts: Vec<Vec<(K, C)>>| -> StepResult<Vec<(K, C)>> {
+            progress.check()?;
             let mut parts = parts;
             let Some(largest) = (0..parts.len()).max_by_key(|&k| parts[k].len()) else {
                 return Ok(Vec::new());
@@ -448,9 +449,10 @@ impl<C: Coefficient, K: FlatKey> Spray<C, K> {
     }
 
     /// Every buffer sorted with distinct keys and no zeros.
-    fn finish(&mut self) -> StepResult<()> {
+    fn finish(&mut self, progress: &Progress) -> StepResult<()> {
         for (buf, clean) in self.buffers.iter_mut().zip(&self.clean) {
             if buf.len() > *clean {
+                progress.check()?;
                 compact(buf, *clean, &mut self.scratch)?;
             }
         }
@@ -500,7 +502,7 @@ fn spray_group<C: Coefficient, K: FlatKey>(
             }
         }
     }
-    spray.finish()?;
+    spray.finish(progress)?;
     Ok(spray)
 }
 
