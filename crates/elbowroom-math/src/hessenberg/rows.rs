@@ -21,7 +21,7 @@ use crate::hessenberg::table::{HessenbergTable, TableEntry};
 use crate::perms::listing::{for_each_of_length, mahonian_row};
 use crate::perms::perm::Perm;
 use crate::progress::Progress;
-use crate::schubert::flat::{FlatKey, FlatVector, LexKey, WideLexKey};
+use crate::schubert::flat::{FlatKey, FlatVector, LexKey, WideLexKey, free_later};
 use crate::schubert::vector::{Coefficient, StepError, StepResult, exactly};
 use num_bigint::BigInt;
 use num_traits::{Signed, Zero};
@@ -359,12 +359,28 @@ pub fn for_each_class_value<E: From<MathError>>(
     progress.set_total(class_factors(h).len() as u64 + listed as u64);
     if h.n() <= LexKey::MAX_N {
         let class = flat_class_keyed::<LexKey>(h, progress)?;
-        for_each_row_of(&class, h, select, progress, visit)?;
+        rows_then_free(class, h, select, progress, visit)?;
     } else {
         let class = flat_class_keyed::<WideLexKey>(h, progress)?;
-        for_each_row_of(&class, h, select, progress, visit)?;
+        rows_then_free(class, h, select, progress, visit)?;
     }
     Ok(listed as usize)
+}
+
+/// The rows of `class`; when they stop early (a cancel, a failed write) the
+/// class is freed on the rayon pool, so the caller hears of it at once.
+fn rows_then_free<K: FlatKey, E: From<MathError>>(
+    class: FlatClass<K>,
+    h: &HessenbergFn,
+    select: &(dyn Fn(usize) -> bool + Sync),
+    progress: &Progress,
+    visit: &mut dyn FnMut(ValueRow<'_>) -> Result<(), E>,
+) -> Result<(), E> {
+    let read = for_each_row_of(&class, h, select, progress, visit);
+    if read.is_err() {
+        free_later(class);
+    }
+    read
 }
 
 /// The rows of [`for_each_class_value`] read off a class already expanded

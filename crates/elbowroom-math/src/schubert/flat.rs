@@ -48,7 +48,7 @@ pub const KEY_MAX_N: usize = 18;
 /// 16-byte slot, n ≤ 18); the flat vectors are generic over the key, so a table
 /// of n ≤ 16 keeps the narrow one and pays nothing for the wide.
 pub trait FlatKey:
-    Copy + Clone + Default + Ord + Eq + std::hash::Hash + std::fmt::Debug + Send + Sync
+    Copy + Clone + Default + Ord + Eq + std::hash::Hash + std::fmt::Debug + Send + Sync + 'static
 {
     /// The largest n whose permutations the key holds.
     const MAX_N: usize;
@@ -336,18 +336,22 @@ impl<C: Coefficient, K: FlatKey> FlatVector<C, K> {
             rayon::current_num_threads().max(1)
         };
         let groups = split_into_groups(self.buckets, total, workers);
-        let sprays: Vec<Spray<C, K>> = if workers == 1 {
+        let sprays: Vec<StepResult<Spray<C, K>>> = if workers == 1 {
             groups
                 .into_iter()
                 .map(|g| spray_group(g, n, (i, j), progress))
-                .collect::<StepResult<_>>()?
+                .collect()
         } else {
             groups
                 .into_par_iter()
                 .map(|g| spray_group(g, n, (i, j), progress))
-                .collect::<StepResult<_>>()?
+                .collect()
         };
-        progress.check()?;
+        let sprays = all_or_free_later(sprays)?;
+        if let Err(e) = progress.check() {
+            free_later(sprays);
+            return Err(e.into());
+        }
         // per target bucket, the workers' buffers
         let mut pieces: Vec<Vec<Vec<(K, C)>>> = (0..K::BUCKETS).map(|_| Vec::new()).collect();
         for spray in sprays {
@@ -360,7 +364,10 @@ impl<C: Coefficient, K: FlatKey> FlatVector<C, K> {
         // each part is sorted with distinct keys (the workers finish their
         // buffers): the parts of a bucket are merged, never sorted again
         let gather = |parts: Vec<Vec<(K, C)>>| -> StepResult<Vec<(K, C)>> {
-            progress.check()?;
+            if let Err(e) = progress.check() {
+                free_later(parts);
+                return Err(e.into());
+            }
             let mut parts = parts;
             let Some(largest) = (0..parts.len()).max_by_key(|&k| parts[k].len()) else {
                 return Ok(Vec::new());
@@ -372,14 +379,12 @@ impl<C: Coefficient, K: FlatKey> FlatVector<C, K> {
             merged.shrink_to_fit();
             Ok(merged)
         };
-        let buckets: Vec<Vec<(K, C)>> = if workers == 1 {
-            pieces.into_iter().map(gather).collect::<StepResult<_>>()?
+        let buckets: Vec<StepResult<Vec<(K, C)>>> = if workers == 1 {
+            pieces.into_iter().map(gather).collect()
         } else {
-            pieces
-                .into_par_iter()
-                .map(gather)
-                .collect::<StepResult<_>>()?
+            pieces.into_par_iter().map(gather).collect()
         };
+        let buckets = all_or_free_later(buckets)?;
         let out = FlatVector { n, buckets };
         let len = out.len() as u128;
         if len > limit {
@@ -389,6 +394,33 @@ impl<C: Coefficient, K: FlatKey> FlatVector<C, K> {
         }
         Ok(out)
     }
+}
+
+/// Frees `value` on the rayon pool rather than on the calling thread: a step
+/// canceled while it holds gigabytes returns at once (freeing them takes a
+/// tenth of a second at n = 17), and its memory goes back meanwhile.
+pub fn free_later<T: Send + 'static>(value: T) {
+    rayon::spawn(move || drop(value));
+}
+
+/// The values when every result is one; else the first error, the values
+/// freed on the pool ([`free_later`]).
+fn all_or_free_later<T: Send + 'static>(results: Vec<StepResult<T>>) -> StepResult<Vec<T>> {
+    if results.iter().all(Result::is_ok) {
+        return Ok(results.into_iter().flatten().collect());
+    }
+    let mut first = None;
+    let mut kept = Vec::new();
+    for r in results {
+        match r {
+            Ok(v) => kept.push(v),
+            Err(e) => {
+                first.get_or_insert(e);
+            }
+        }
+    }
+    free_later(kept);
+    Err(first.unwrap_or(StepError::Overflow))
 }
 
 /// The input buckets cut into `workers` runs of about equal terms, in order.
@@ -470,12 +502,31 @@ fn spray_group<C: Coefficient, K: FlatKey>(
     progress: &Progress,
 ) -> StepResult<Spray<C, K>> {
     let mut spray = Spray::new();
+    let mut rest = group.into_iter();
+    match spray_into(&mut spray, &mut rest, n, (i, j), progress) {
+        Ok(()) => Ok(spray),
+        Err(e) => {
+            free_later((spray, rest));
+            Err(e)
+        }
+    }
+}
+
+/// The body of [`spray_group`]: the buckets of `rest` multiplied into `spray`
+/// until they run out or the step fails.
+fn spray_into<C: Coefficient, K: FlatKey>(
+    spray: &mut Spray<C, K>,
+    rest: &mut std::vec::IntoIter<Vec<(K, C)>>,
+    n: usize,
+    (i, j): (usize, usize),
+    progress: &Progress,
+) -> StepResult<()> {
     let mut count = 0usize;
     let two = C::from_i64(2);
     let minus_two = C::from_i64(-2);
     let one = C::from_i64(1);
     let minus_one = C::from_i64(-1);
-    for bucket in group {
+    for bucket in rest.by_ref() {
         for (key, c) in bucket {
             count += 1;
             if count.is_multiple_of(CHECK_EVERY) {
@@ -502,8 +553,7 @@ fn spray_group<C: Coefficient, K: FlatKey>(
             }
         }
     }
-    spray.finish(progress)?;
-    Ok(spray)
+    spray.finish(progress)
 }
 
 /// Calls `emit(w t_{ab}, λ_a − λ_b)` for every cover (a, b) of w in S_n with
