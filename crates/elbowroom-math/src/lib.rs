@@ -25,6 +25,7 @@ pub mod excerpt;
 pub mod limits;
 pub mod progress;
 pub mod sizing;
+pub mod typed_lists;
 
 pub mod perms;
 pub mod poly;

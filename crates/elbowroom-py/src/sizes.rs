@@ -8,10 +8,9 @@
 use crate::values::{bad, math_error};
 use elbowroom_math::hessenberg::function::HessenbergFn;
 use elbowroom_math::permutohedra::permutohedron::Permutohedron;
-use elbowroom_math::poly::rational::parse_rational;
 use elbowroom_math::quotient::groebner::MAX_QUOTIENT_N;
-use elbowroom_math::sizing;
 use elbowroom_math::{MAX_N, Perm, RatPoly};
+use elbowroom_math::{sizing, typed_lists};
 use num_rational::BigRational;
 use pyo3::PyResult;
 
@@ -25,7 +24,8 @@ pub fn hessenberg_fn(n: usize, h: Option<&str>, max_n: usize) -> PyResult<Hessen
     }
     match h {
         Some(text) => {
-            entries(text, "--h", "h(1),...,h(n), for example 2,3,4,4")?;
+            typed_lists::entries(text, "--h", "h(1),...,h(n), for example 2,3,4,4")
+                .map_err(math_error)?;
             HessenbergFn::parse(text, Some(n)).map_err(math_error)
         }
         None => HessenbergFn::default_for(n).map_err(math_error),
@@ -34,39 +34,7 @@ pub fn hessenberg_fn(n: usize, h: Option<&str>, max_n: usize) -> PyResult<Hessen
 
 /// λ from `l1,...,ln`, as `--lambda` is read.
 pub fn lambda(text: &str) -> PyResult<Vec<BigRational>> {
-    let parts = entries(
-        text,
-        "--lambda",
-        "λ_1,...,λ_n as rationals, for example 3,1/2,0",
-    )?;
-    if parts.len() > MAX_N {
-        return Err(bad(format!(
-            "--lambda has {} entries; λ has 1 to {MAX_N} entries",
-            parts.len()
-        )));
-    }
-    parts
-        .iter()
-        .map(|p| parse_rational(p).map_err(math_error))
-        .collect()
-}
-
-/// The entries of `a,b,c` or `a b c`; an empty entry is refused.
-fn entries<'a>(text: &'a str, name: &str, accepted: &str) -> PyResult<Vec<&'a str>> {
-    let mut out = Vec::new();
-    let pieces: Vec<&str> = text.split(',').collect();
-    for (k, piece) in pieces.iter().enumerate() {
-        if piece.trim().is_empty() {
-            let problem = if pieces.len() == 1 {
-                "is empty".to_string()
-            } else {
-                format!("has an empty entry (entry {} of {})", k + 1, pieces.len())
-            };
-            return Err(bad(format!("{name} {problem}; give {accepted}")));
-        }
-        out.extend(piece.split_whitespace());
-    }
-    Ok(out)
+    typed_lists::lambda(text).map_err(math_error)
 }
 
 /// The range of n for the quotient by J_n.

@@ -406,11 +406,8 @@ pub fn free_later<T: Send + 'static>(value: T) {
 /// The values when every result is one; else the first error, the values
 /// freed on the pool ([`free_later`]).
 fn all_or_free_later<T: Send + 'static>(results: Vec<StepResult<T>>) -> StepResult<Vec<T>> {
-    if results.iter().all(Result::is_ok) {
-        return Ok(results.into_iter().flatten().collect());
-    }
+    let mut kept = Vec::with_capacity(results.len());
     let mut first = None;
-    let mut kept = Vec::new();
     for r in results {
         match r {
             Ok(v) => kept.push(v),
@@ -419,8 +416,13 @@ fn all_or_free_later<T: Send + 'static>(results: Vec<StepResult<T>>) -> StepResu
             }
         }
     }
-    free_later(kept);
-    Err(first.unwrap_or(StepError::Overflow))
+    match first {
+        None => Ok(kept),
+        Some(e) => {
+            free_later(kept);
+            Err(e)
+        }
+    }
 }
 
 /// The input buckets cut into `workers` runs of about equal terms, in order.

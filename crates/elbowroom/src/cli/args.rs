@@ -723,23 +723,21 @@ fn quotient_n_help() -> String {
 /// saying what is accepted (a whole number from 1 to [`crate::math::MAX_N`]);
 /// each command then checks the range it supports and names it.
 pub fn whole_n(text: &str) -> Result<usize, String> {
-    text.trim().parse::<usize>().map_err(|_| {
-        format!(
-            "--n must be a whole number from 1 to {}; got {}",
-            crate::math::MAX_N,
-            quoted(text)
-        )
-    })
+    n_up_to(text, crate::math::MAX_N)
 }
 
 /// `--n` of `hessenberg`: a whole number (its range, 1 to
 /// [`crate::math::hessenberg::function::HESSENBERG_MAX_N`], is checked where
 /// it is used).
 pub fn table_n(text: &str) -> Result<usize, String> {
+    n_up_to(text, crate::math::hessenberg::function::HESSENBERG_MAX_N)
+}
+
+/// `--n` read as a whole number; the refusal names the range 1 to `max`.
+fn n_up_to(text: &str, max: usize) -> Result<usize, String> {
     text.trim().parse::<usize>().map_err(|_| {
         format!(
-            "--n must be a whole number from 1 to {}; got {}",
-            crate::math::hessenberg::function::HESSENBERG_MAX_N,
+            "--n must be a whole number from 1 to {max}; got {}",
             quoted(text)
         )
     })

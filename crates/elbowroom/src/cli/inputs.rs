@@ -5,7 +5,6 @@ use super::args::HessenbergArg;
 use super::error::CliError;
 use crate::math::hessenberg::function::HessenbergFn;
 use crate::math::permutohedra::permutohedron::Permutohedron;
-use crate::math::poly::rational::parse_rational;
 use num_rational::BigRational;
 
 /// Reads `--n` (1 to `max_n`) and `--h` into a Hessenberg function (default
@@ -30,52 +29,30 @@ pub fn hessenberg_from_args(
 }
 
 /// Parses `l1,...,ln` (commas or spaces between the entries), each entry an
-/// exact rational as [`parse_rational`] reads it.
+/// exact rational ([`crate::math::typed_lists::lambda`]).
 pub fn parse_lambda(text: &str) -> Result<Vec<BigRational>, CliError> {
-    let parts = entries(
-        text,
-        "--lambda",
-        "λ_1,...,λ_n as rationals, for example 3,1/2,0",
-    )?;
-    if parts.len() > crate::math::MAX_N {
-        return Err(CliError::Input(format!(
-            "--lambda has {} entries; λ has 1 to {} entries",
-            parts.len(),
-            crate::math::MAX_N
-        )));
+    crate::math::typed_lists::lambda(text).map_err(typed)
+}
+
+/// A refusal of the list reader as the commands' own bad input (exit status 2,
+/// the message as it is).
+fn typed(e: crate::math::MathError) -> CliError {
+    match e {
+        crate::math::MathError::Parse(m) => CliError::Input(m),
+        other => other.into(),
     }
-    parts
-        .iter()
-        .map(|p| parse_rational(p).map_err(CliError::from))
-        .collect()
+}
+
+/// The entries of a list typed as `a,b,c` or `a b c`
+/// ([`crate::math::typed_lists::entries`]).
+pub fn entries<'a>(text: &'a str, name: &str, accepted: &str) -> Result<Vec<&'a str>, CliError> {
+    crate::math::typed_lists::entries(text, name, accepted).map_err(typed)
 }
 
 /// Refuses a volume computation whose numbers would be too long
 /// ([`crate::math::sizing::check_volume`], the check the window makes too).
 pub fn check_volume_size(p: &Permutohedron, extra: u64, what: &str) -> Result<(), CliError> {
     Ok(crate::math::sizing::check_volume(p, extra, what)?)
-}
-
-/// The entries of a list typed as `a,b,c` or `a b c` (or both): between two
-/// commas, and before or after one, there must be an entry (`1,,2` and `1,2,`
-/// are refused rather than read as 1,2).
-pub fn entries<'a>(text: &'a str, name: &str, accepted: &str) -> Result<Vec<&'a str>, CliError> {
-    let mut out = Vec::new();
-    let pieces: Vec<&str> = text.split(',').collect();
-    for (k, piece) in pieces.iter().enumerate() {
-        if piece.trim().is_empty() {
-            let problem = if pieces.len() == 1 {
-                "is empty".to_string()
-            } else {
-                format!("has an empty entry (entry {} of {})", k + 1, pieces.len())
-            };
-            return Err(CliError::Input(format!(
-                "{name} {problem}; give {accepted}"
-            )));
-        }
-        out.extend(piece.split_whitespace());
-    }
-    Ok(out)
 }
 
 #[cfg(test)]
