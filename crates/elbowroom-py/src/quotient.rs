@@ -6,7 +6,8 @@ use crate::calculus::size_arg;
 use crate::long_run::run_long;
 use crate::sizes;
 use crate::values::{poly_dict, polynomial};
-use elbowroom_math::quotient::normal_form::{groebner_basis_with, normal_form};
+use elbowroom_math::quotient::normal_form::normal_form_by;
+use elbowroom_math::quotient::reduction::reducer_with;
 use pyo3::prelude::*;
 use pyo3::types::{PyDict, PyList, PyTuple};
 
@@ -17,8 +18,9 @@ use pyo3::types::{PyDict, PyList, PyTuple};
 /// exponent tuples (length n) to Fractions. The order is lex with
 /// x1 > x2 > ... > xn, whose standard monomials are the x^e with
 /// e_1 + ... + e_i <= i − 1 for every i (Catalan(n) of them), so every key is
-/// one of `quotient_basis(n)`. 1 <= n <= 11; the basis of J_n is built on the
-/// first call for that n (about a minute at n = 10) and kept.
+/// one of `quotient_basis(n)`. 1 <= n <= 12: for n <= 11 the Gröbner basis of
+/// J_n is built on the first call for that n (about 15 s of CPU at n = 10) and
+/// kept; at n = 12 normal forms go through the forest basis of the quotient.
 #[pyfunction]
 #[pyo3(signature = (poly, n, *, progress = None))]
 pub fn reduce<'py>(
@@ -28,11 +30,11 @@ pub fn reduce<'py>(
     progress: Option<&Bound<'py, PyAny>>,
 ) -> PyResult<Bound<'py, PyDict>> {
     let n = size_arg(n, "n")?;
-    sizes::quotient_n(n)?;
+    sizes::normal_form_n(n)?;
     let f = polynomial(poly, n)?;
     let nf = run_long(py, progress, |p| {
-        let q = groebner_basis_with(n, p)?;
-        normal_form(&q, &f)
+        let q = reducer_with(n, p)?;
+        normal_form_by(q.as_ref(), &f)
     })?;
     poly_dict(py, &nf.poly)
 }
@@ -51,7 +53,7 @@ pub fn quotient_basis<'py>(
 ) -> PyResult<Bound<'py, PyList>> {
     let n = size_arg(n, "n")?;
     sizes::quotient_n(n)?;
-    let q = run_long(py, progress, |p| groebner_basis_with(n, p))?;
+    let q = run_long(py, progress, |p| reducer_with(n, p))?;
     let items: Vec<Bound<'py, PyTuple>> = q
         .basis()
         .iter()

@@ -8,7 +8,8 @@
 use crate::values::{bad, math_error};
 use elbowroom_math::hessenberg::function::HessenbergFn;
 use elbowroom_math::permutohedra::permutohedron::Permutohedron;
-use elbowroom_math::quotient::groebner::MAX_QUOTIENT_N;
+use elbowroom_math::quotient::groebner::quotient_n_refusal;
+use elbowroom_math::quotient::reduction::MAX_NORMAL_FORM_N;
 use elbowroom_math::{MAX_N, Perm, RatPoly};
 use elbowroom_math::{sizing, typed_lists};
 use num_rational::BigRational;
@@ -37,14 +38,22 @@ pub fn lambda(text: &str) -> PyResult<Vec<BigRational>> {
     typed_lists::lambda(text).map_err(math_error)
 }
 
-/// The range of n for the quotient by J_n.
-pub fn quotient_n(n: usize) -> PyResult<()> {
-    if n == 0 || n > MAX_QUOTIENT_N {
+/// The range of n for normal forms modulo J_n (through forests beyond the Gröbner basis).
+pub fn normal_form_n(n: usize) -> PyResult<()> {
+    if n == 0 || n > MAX_NORMAL_FORM_N {
         return Err(bad(format!(
-            "--n {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
+            "--n {n} is out of range; normal forms modulo J_n are computed for n from 1 to {MAX_NORMAL_FORM_N}"
         )));
     }
     Ok(())
+}
+
+/// The range of n for the quotient by J_n.
+pub fn quotient_n(n: usize) -> PyResult<()> {
+    match quotient_n_refusal(n) {
+        Some(refusal) => Err(bad(refusal)),
+        None => Ok(()),
+    }
 }
 
 /// S_w is refused when it may have more than

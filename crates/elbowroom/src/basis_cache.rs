@@ -25,6 +25,7 @@ use math::progress::Progress;
 use math::quotient::basis_bytes::{from_bytes, to_bytes};
 use math::quotient::groebner::{MAX_QUOTIENT_N, QuasiGroebner};
 use math::quotient::normal_form::{built_basis, groebner_basis_with, share_basis};
+use math::quotient::reduction::Reduction;
 use std::io::Write;
 use std::path::{Path, PathBuf};
 use std::sync::Arc;
@@ -143,4 +144,15 @@ pub fn basis_with(n: usize, progress: &Progress) -> MathResult<Arc<QuasiGroebner
         let _ = store(dir, &q);
     }
     Ok(q)
+}
+
+/// The way of reducing modulo J_n for every command and the window: the Gröbner basis of
+/// [`basis_with`] for n ≤ [`MAX_QUOTIENT_N`], the forest route of the math crate beyond
+/// (where the basis is not built). Cancellable through `progress`.
+pub fn reducer_with(n: usize, progress: &Progress) -> MathResult<Arc<dyn Reduction>> {
+    if (1..=MAX_QUOTIENT_N).contains(&n) {
+        let q: Arc<dyn Reduction> = basis_with(n, progress)?;
+        return Ok(q);
+    }
+    math::quotient::reduction::reducer_with(n, progress)
 }

@@ -140,8 +140,8 @@ fn bad_forest_input_is_refused_in_one_line() {
         "268435456 terms",
     );
     rejects(
-        &["reduce", "x1", "--n", "12", "--forest"],
-        "--n 12 is out of range",
+        &["reduce", "x1", "--n", "13", "--forest"],
+        "--n 13 is out of range",
     );
 }
 

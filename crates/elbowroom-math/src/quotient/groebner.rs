@@ -75,6 +75,24 @@ use std::collections::HashMap;
 /// The largest n for which the quotient is computed.
 pub const MAX_QUOTIENT_N: usize = 11;
 
+/// Why `--n n` is refused where the Gröbner basis itself is asked for (`quotient`, and
+/// the Python `quotient_basis`), in one line; `None` when 1 ≤ n ≤ [`MAX_QUOTIENT_N`].
+pub fn quotient_n_refusal(n: usize) -> Option<String> {
+    if (1..=MAX_QUOTIENT_N).contains(&n) {
+        return None;
+    }
+    let normal_forms = crate::quotient::reduction::MAX_NORMAL_FORM_N;
+    Some(if n > MAX_QUOTIENT_N && n <= normal_forms {
+        format!(
+            "--n {n} is out of range; the Gröbner basis of J_n is built for n from 1 to {MAX_QUOTIENT_N} (up to n = {normal_forms}, reduce and survey work through the forest basis)"
+        )
+    } else {
+        format!(
+            "--n {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
+        )
+    })
+}
+
 /// The most memory the construction may plan to use (see [`construction_estimate`]).
 pub const MAX_CONSTRUCTION_BYTES: u64 = 8 << 30;
 

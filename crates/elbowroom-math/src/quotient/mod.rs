@@ -9,10 +9,12 @@ pub mod certificate;
 pub mod degree_division;
 pub mod division;
 pub mod elimination;
+pub mod forest_route;
 pub mod groebner;
 pub mod lattice_path;
 pub mod modp;
 
 pub mod normal_form;
+pub mod reduction;
 
 pub mod survey;

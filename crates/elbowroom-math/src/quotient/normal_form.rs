@@ -17,6 +17,7 @@ use crate::poly::mono::Mono;
 use crate::poly::polynomial::{Coeff, Poly, RatPoly};
 use crate::progress::Progress;
 use crate::quotient::groebner::{MAX_QUOTIENT_N, QuasiGroebner};
+use crate::quotient::reduction::Reduction;
 use num_bigint::BigInt;
 use num_integer::Integer;
 use num_rational::BigRational;
@@ -126,6 +127,12 @@ impl NormalForm {
 /// assert_eq!(normal_form(&q, &f).unwrap().poly.to_text(), "-x2 - x3");
 /// ```
 pub fn normal_form<C: Coeff>(q: &QuasiGroebner, f: &Poly<C>) -> MathResult<NormalForm> {
+    normal_form_by(q, f)
+}
+
+/// [`normal_form`] by either way of reducing ([`Reduction`]): the Gröbner basis or the
+/// forest route.
+pub fn normal_form_by<C: Coeff>(q: &dyn Reduction, f: &Poly<C>) -> MathResult<NormalForm> {
     let n = q.n();
     if f.nvars() > n && f.used_vars() > n {
         return Err(MathError::OutOfRange(format!(
@@ -148,7 +155,7 @@ pub fn normal_form<C: Coeff>(q: &QuasiGroebner, f: &Poly<C>) -> MathResult<Norma
             )
         })
         .collect();
-    let coeffs = q.normal_form_int(&ints)?;
+    let coeffs = q.normal_form_with(&ints, &Progress::new(0))?;
     let basis = q.basis();
     let coefficients: Vec<(usize, Mono, BigRational)> = coeffs
         .into_iter()
@@ -166,8 +173,14 @@ pub fn normal_form<C: Coeff>(q: &QuasiGroebner, f: &Poly<C>) -> MathResult<Norma
 /// assert_eq!(hilbert_series(&groebner_basis(4).unwrap()), vec![1, 3, 5, 5]);
 /// ```
 pub fn hilbert_series(q: &QuasiGroebner) -> Vec<usize> {
+    graded_dimensions(q.basis())
+}
+
+/// The number of standard monomials of each degree (entry k: degree k), for any list of
+/// them ([`Reduction::basis`]).
+pub fn graded_dimensions(basis: &[Mono]) -> Vec<usize> {
     let mut h = Vec::new();
-    for m in q.basis() {
+    for m in basis {
         let d = m.degree() as usize;
         if h.len() <= d {
             h.resize(d + 1, 0);

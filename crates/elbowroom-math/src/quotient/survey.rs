@@ -17,7 +17,8 @@
 //! The walk goes up by length: level ℓ needs level ℓ − 1 (for v) and its own level (the
 //! terms of the sum have the length of w), so only two levels are kept. Multiplication by
 //! a variable on a standard monomial, NF(x_k·s), is computed once by division and kept
-//! for the current degree. Coefficients are checked `i128`; an entry whose arithmetic
+//! for the current degree. Coefficients are summed in checked `i128` and kept in `i64`
+//! (16 bytes a term; at n = 12 the walk holds hundreds of millions); an entry whose arithmetic
 //! would overflow is redone over big integers by expanding S_w and dividing.
 //!
 //! `progress` counts the permutations done (after the basis, if it was built on the way)
@@ -29,8 +30,8 @@ use crate::perms::perm::Perm;
 use crate::poly::mono::Mono;
 use crate::poly::polynomial::IntPoly;
 use crate::progress::Progress;
-use crate::quotient::groebner::QuasiGroebner;
-use crate::quotient::normal_form::{NormalForm, groebner_basis_with, normal_form};
+use crate::quotient::normal_form::{NormalForm, normal_form_by};
+use crate::quotient::reduction::{Reduction, reducer_with};
 use crate::schubert::polynomial::SchubertTable;
 use crate::schubert::transition::{partners, pivot};
 use num_bigint::BigInt;
@@ -182,22 +183,22 @@ pub fn survey_listing(n: usize) -> Vec<Perm> {
 /// assert!(e.nonnegative());
 /// ```
 pub fn survey_one(w: &Perm) -> MathResult<SurveyEntry> {
-    let q = groebner_basis_with(w.n(), &Progress::new(0))?;
+    let q = reducer_with(w.n(), &Progress::new(0))?;
     let mut table = SchubertTable::new();
-    entry_by_expansion(w, &q, &mut table)
+    entry_by_expansion(w, q.as_ref(), &mut table)
 }
 
 fn entry_by_expansion(
     w: &Perm,
-    q: &QuasiGroebner,
+    q: &dyn Reduction,
     table: &mut SchubertTable,
 ) -> MathResult<SurveyEntry> {
     let n = w.n();
     let normal_form = if w.length() >= n {
-        normal_form(q, &IntPoly::zero(n))?
+        normal_form_by(q, &IntPoly::zero(n))?
     } else {
         let s = table.get(w);
-        normal_form(q, &s.reverse_vars())?
+        normal_form_by(q, &s.reverse_vars())?
     };
     Ok(SurveyEntry {
         perm: w.clone(),
@@ -209,7 +210,7 @@ fn entry_by_expansion(
 const FEW: usize = 16;
 
 /// A normal form as (basis position, coefficient), sorted; `None` after an overflow.
-type Sparse = Option<Arc<[(u32, i128)]>>;
+type Sparse = Option<Arc<[(u32, i64)]>>;
 
 /// The transition walk of one survey: two levels of normal forms and the products x_k·s.
 ///
@@ -218,7 +219,7 @@ type Sparse = Option<Arc<[(u32, i128)]>>;
 /// a next one, each normal form once it is handed out and every w whose sum needs it is
 /// done: both counted before the level starts, from the transition alone.
 struct Walk<'q> {
-    q: &'q QuasiGroebner,
+    q: &'q dyn Reduction,
     n: usize,
     /// NF(x_k·s) by (k, basis position of s), for s of the degree below the current level.
     times_var: HashMap<(u8, u32), Sparse>,
@@ -264,7 +265,7 @@ fn release(uses: &mut HashMap<Vec<u8>, u32>, key: &[u8]) -> bool {
 }
 
 impl<'q> Walk<'q> {
-    fn new(q: &'q QuasiGroebner, n: usize) -> Walk<'q> {
+    fn new(q: &'q dyn Reduction, n: usize) -> Walk<'q> {
         Walk {
             q,
             n,
@@ -323,8 +324,8 @@ impl<'q> Walk<'q> {
         let m = Mono(self.q.basis()[s as usize].0 + Mono::var_index(k as usize).0);
         let nf = self
             .q
-            .reduce_small([(m, 1i128)], &|| progress.check())?
-            .map(|v| Arc::from(v.into_boxed_slice()));
+            .reduce_i128(&[(m, 1i128)], &|| progress.check())?
+            .and_then(|v| narrow(&v));
         self.times_var.insert((k, s), nf.clone());
         Ok(nf)
     }
@@ -336,7 +337,7 @@ impl<'q> Walk<'q> {
         }
         progress.check()?;
         let Some((r, v, others)) = transition(w) else {
-            return Ok(Some(Arc::from(vec![(0u32, 1i128)].into_boxed_slice())));
+            return Ok(Some(Arc::from(vec![(0u32, 1i64)].into_boxed_slice())));
         };
         let mut parts = Vec::with_capacity(others.len());
         for u in &others {
@@ -381,7 +382,10 @@ impl<'q> Walk<'q> {
                 if *slot == 0 {
                     self.touched.push(i);
                 }
-                match a.checked_mul(b).and_then(|p| slot.checked_add(p)) {
+                match i128::from(a)
+                    .checked_mul(i128::from(b))
+                    .and_then(|p| slot.checked_add(p))
+                {
                     Some(x) => *slot = x,
                     None => ok = false,
                 }
@@ -397,7 +401,7 @@ impl<'q> Walk<'q> {
                 if *slot == 0 {
                     self.touched.push(i);
                 }
-                match slot.checked_add(a) {
+                match slot.checked_add(i128::from(a)) {
                     Some(x) => *slot = x,
                     None => ok = false,
                 }
@@ -409,7 +413,10 @@ impl<'q> Walk<'q> {
         for &i in &self.touched {
             let x = std::mem::take(&mut self.acc[i as usize]);
             if x != 0 {
-                out.push((i, x));
+                match i64::try_from(x) {
+                    Ok(x) => out.push((i, x)),
+                    Err(_) => ok = false,
+                }
             }
         }
         self.touched.clear();
@@ -417,7 +424,16 @@ impl<'q> Walk<'q> {
     }
 }
 
-fn to_normal_form(q: &QuasiGroebner, v: &[(u32, i128)]) -> NormalForm {
+/// A normal form kept in `i64`; `None` when a coefficient does not fit.
+fn narrow(v: &[(u32, i128)]) -> Sparse {
+    let out: Option<Vec<(u32, i64)>> = v
+        .iter()
+        .map(|&(i, c)| i64::try_from(c).ok().map(|c| (i, c)))
+        .collect();
+    out.map(|o| Arc::from(o.into_boxed_slice()))
+}
+
+fn to_normal_form(q: &dyn Reduction, v: &[(u32, i64)]) -> NormalForm {
     let basis = q.basis();
     let coefficients: Vec<(usize, Mono, BigRational)> = v
         .iter()
@@ -451,6 +467,30 @@ fn to_normal_form(q: &QuasiGroebner, v: &[(u32, i128)]) -> NormalForm {
 /// ```
 pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry>> {
     collect(perms, |each| survey_each(perms, progress, each))
+}
+
+/// [`survey`] with a given way of reducing (the Gröbner basis or the forest route), for
+/// comparing the two.
+pub fn survey_by(
+    q: &dyn Reduction,
+    perms: &[Perm],
+    progress: &Progress,
+) -> MathResult<Vec<SurveyEntry>> {
+    collect(perms, |each| {
+        run_by(
+            q,
+            perms,
+            progress,
+            &|q, w, nf, table| match nf {
+                Some(v) => Ok(SurveyEntry {
+                    perm: w.clone(),
+                    normal_form: to_normal_form(q, v),
+                }),
+                None => entry_by_expansion(w, q, table),
+            },
+            each,
+        )
+    })
 }
 
 /// [`survey`] keeping only the summary of each normal form (terms, sum, negatives).
@@ -535,7 +575,7 @@ pub fn survey_summaries_each<X: From<MathError>>(
         &|q, w, nf, table| match nf {
             Some(v) => {
                 let basis = q.basis();
-                let int = |c: i128| BigRational::from_integer(BigInt::from(c));
+                let int = |c: i64| BigRational::from_integer(BigInt::from(c));
                 Ok(SurveySummary {
                     perm: w.clone(),
                     terms: v.len(),
@@ -557,7 +597,7 @@ pub fn survey_summaries_each<X: From<MathError>>(
 
 /// Makes the record of w from its normal form (`None`: redo it by expansion).
 type Make<'a, E> =
-    dyn Fn(&QuasiGroebner, &Perm, Option<&[(u32, i128)]>, &mut SchubertTable) -> MathResult<E> + 'a;
+    dyn Fn(&dyn Reduction, &Perm, Option<&[(u32, i64)]>, &mut SchubertTable) -> MathResult<E> + 'a;
 
 fn run<E: Clone, X: From<MathError>>(
     perms: &[Perm],
@@ -575,7 +615,24 @@ fn run<E: Clone, X: From<MathError>>(
         ))
         .into());
     }
-    let q = groebner_basis_with(n, progress)?;
+    let q = reducer_with(n, progress)?;
+    run_by(q.as_ref(), perms, progress, make, each)
+}
+
+fn run_by<E: Clone, X: From<MathError>>(
+    q: &dyn Reduction,
+    perms: &[Perm],
+    progress: &Progress,
+    make: &Make<'_, E>,
+    each: &mut dyn FnMut(usize, E) -> Result<(), X>,
+) -> Result<(), X> {
+    let n = q.n();
+    if let Some(w) = perms.iter().find(|w| w.n() != n) {
+        return Err(MathError::InvalidInput(format!(
+            "a survey by a reduction for n = {n} takes permutations of S_{n}, not {w}"
+        ))
+        .into());
+    }
     // everything counted so far (the basis, here or by the caller) plus one per permutation
     progress.set_total(progress.done() + perms.len() as u64);
     progress.check()?;
@@ -585,7 +642,7 @@ fn run<E: Clone, X: From<MathError>>(
     let mut top = 0usize;
     for (i, w) in perms.iter().enumerate() {
         if w.length() >= n {
-            each(i, make(&q, w, Some(&[]), &mut table)?)?;
+            each(i, make(q, w, Some(&[]), &mut table)?)?;
             progress.advance(1);
         } else {
             top = top.max(w.length());
@@ -597,12 +654,12 @@ fn run<E: Clone, X: From<MathError>>(
         for (i, w) in perms.iter().enumerate() {
             if w.length() < n {
                 progress.check()?;
-                each(i, make(&q, w, None, &mut table)?)?;
+                each(i, make(q, w, None, &mut table)?)?;
                 progress.advance(1);
             }
         }
     } else if !wanted.is_empty() {
-        let mut walk = Walk::new(&q, n);
+        let mut walk = Walk::new(q, n);
         for level in 0..=top {
             walk.next_level(level, level == top);
             for w in perms_of_length(n, level) {
@@ -615,7 +672,7 @@ fn run<E: Clone, X: From<MathError>>(
                 let Some(places) = wanted.get(key) else {
                     continue;
                 };
-                let e = make(&q, &w, nf.as_deref(), &mut table)?;
+                let e = make(q, &w, nf.as_deref(), &mut table)?;
                 for &i in places {
                     each(i, e.clone())?;
                     progress.advance(1);

@@ -253,11 +253,11 @@ pub struct HessenbergArgs {
     pub shard: Option<Shard>,
     /// Summarise the table of every Hessenberg function of n (Catalan(n) of
     /// them): dimension, total, nonzero entries, maximum, negative entries.
-    #[arg(long, conflicts_with_all = ["h", "shard"])]
+    #[arg(long, conflicts_with_all = ["h", "shard", "jsonl"])]
     pub every_h: bool,
-    /// Print JSON Lines: a head object, one object per row, a summary object.
-    #[arg(long, conflicts_with_all = ["json", "csv", "latex", "every_h"])]
-    pub jsonl: bool,
+    /// `--jsonl`.
+    #[command(flatten)]
+    pub lines: JsonLines,
     /// Compute the table once and write its values to FILE, for the pieces of a
     /// split run (`--class FILE`); prints one line.
     #[arg(long, value_name = "FILE", conflicts_with_all = ["shard", "every_h", "class", "json", "jsonl", "csv", "latex"])]
@@ -382,6 +382,15 @@ impl TableOutput {
     }
 }
 
+/// `--jsonl`, for a command that streams rows (beside [`TableOutput`]'s formats).
+#[derive(Args, Debug, Default)]
+pub struct JsonLines {
+    /// Print JSON Lines: a header object, one object per row (a survey adds one
+    /// {"counterexample": ...} per counterexample), then a summary object.
+    #[arg(long, conflicts_with_all = ["json", "csv", "latex"])]
+    pub jsonl: bool,
+}
+
 /// `--json`, for a command whose only other output is its text.
 #[derive(Args, Debug, Default)]
 pub struct JsonOutput {
@@ -436,7 +445,7 @@ pub struct ReduceArgs {
     #[arg(allow_hyphen_values = true)]
     pub poly: String,
     /// The number of variables n (the help names the range from the limits).
-    #[arg(long, allow_hyphen_values = true, value_parser = whole_n, help = quotient_n_help())]
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n, help = normal_form_n_help())]
     pub n: usize,
     /// How to print the result.
     #[command(flatten)]
@@ -454,7 +463,7 @@ pub struct ReduceArgs {
 pub struct SurveyArgs {
     /// Survey all of S_n (the help names the range from the limits).
     #[arg(
-        help = format!("Survey all of S_n (1 <= n <= {})", crate::math::quotient::groebner::MAX_QUOTIENT_N),
+        help = format!("Survey all of S_n (1 <= n <= {})", crate::math::quotient::reduction::MAX_NORMAL_FORM_N),
         long,
         conflicts_with = "perm",
         required_unless_present = "perm",
@@ -471,10 +480,9 @@ pub struct SurveyArgs {
     /// Leave out the per-permutation normal forms.
     #[arg(long)]
     pub summary: bool,
-    /// Print JSON Lines: a header object, one object per result (as in --json),
-    /// one {"counterexample": ...} per counterexample, then a summary object.
-    #[arg(long, conflicts_with_all = ["json", "csv", "latex"])]
-    pub jsonl: bool,
+    /// `--jsonl`.
+    #[command(flatten)]
+    pub lines: JsonLines,
     /// Neither read nor write the basis of J_n in the cache directory (build it afresh).
     #[arg(long)]
     pub no_cache: bool,
@@ -601,7 +609,7 @@ pub struct FigureArgs {
     #[arg(long, allow_hyphen_values = true)]
     pub poly: Option<String>,
     /// paths: the number of variables for --poly (the help names the range).
-    #[arg(long, allow_hyphen_values = true, value_parser = whole_n, help = format!("paths: the number of variables for --poly (1 to {})", crate::math::quotient::groebner::MAX_QUOTIENT_N))]
+    #[arg(long, allow_hyphen_values = true, value_parser = whole_n, help = format!("paths: the number of variables for --poly (1 to {})", crate::math::quotient::reduction::MAX_NORMAL_FORM_N))]
     pub n: Option<usize>,
     /// paths: panels per row (default: about the square root of their number).
     #[arg(long, allow_hyphen_values = true, value_parser = whole_count)]
@@ -709,6 +717,14 @@ pub fn shard_arg(text: &str) -> Result<Shard, Verbatim> {
 /// λ as `l1,...,ln` ([`super::inputs::parse_lambda`]).
 pub fn lambda_arg(text: &str) -> Result<Lambda, Verbatim> {
     super::inputs::parse_lambda(text).map_err(|e| Verbatim(e.message()))
+}
+
+/// The help of `--n` where normal forms modulo J_n are computed.
+fn normal_form_n_help() -> String {
+    format!(
+        "The number of variables n (1 to {})",
+        crate::math::quotient::reduction::MAX_NORMAL_FORM_N
+    )
 }
 
 /// The help of `--n` where the quotient by J_n is computed.

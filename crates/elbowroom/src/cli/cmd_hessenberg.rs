@@ -81,7 +81,7 @@ pub fn run(args: &HessenbergArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     }
     let format = if args.output.json {
         Format::Json
-    } else if args.jsonl {
+    } else if args.lines.jsonl {
         Format::JsonLines
     } else if args.output.csv {
         Format::Csv

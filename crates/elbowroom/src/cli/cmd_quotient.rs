@@ -6,7 +6,7 @@ use super::error::CliError;
 use super::interrupt;
 use super::json;
 use super::json::PolyRecord;
-use crate::math::quotient::groebner::MAX_QUOTIENT_N;
+use crate::math::quotient::groebner::quotient_n_refusal;
 use crate::math::quotient::lattice_path::{LatticePath, Step};
 use crate::math::quotient::normal_form::hilbert_series;
 use serde::Serialize;
@@ -56,10 +56,8 @@ pub fn run(args: &QuotientArgs) -> Result<String, CliError> {
         crate::basis_cache::disable();
     }
     let n = args.n;
-    if n == 0 || n > MAX_QUOTIENT_N {
-        return Err(CliError::Input(format!(
-            "--n {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
-        )));
+    if let Some(refusal) = quotient_n_refusal(n) {
+        return Err(CliError::Input(refusal));
     }
     let q = interrupt::run_interruptible(&format!("the basis of J_{n}"), "steps", 0, |progress| {
         crate::basis_cache::basis_with(n, progress)

@@ -10,8 +10,8 @@ use super::json;
 use super::json::PolyRecord;
 use crate::math::forest::quotient::forest_normal_form;
 use crate::math::poly::parse::parse_poly;
-use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::normal_form;
+use crate::math::quotient::normal_form::normal_form_by;
+use crate::math::quotient::reduction::MAX_NORMAL_FORM_N;
 use serde::Serialize;
 
 /// One coefficient of the normal form, on a standard monomial.
@@ -39,16 +39,16 @@ pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
         crate::basis_cache::disable();
     }
     let n = args.n;
-    if n == 0 || n > MAX_QUOTIENT_N {
+    if n == 0 || n > MAX_NORMAL_FORM_N {
         return Err(CliError::Input(format!(
-            "--n {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
+            "--n {n} is out of range; normal forms modulo J_n are computed for n from 1 to {MAX_NORMAL_FORM_N}"
         )));
     }
     let f = parse_poly(&args.poly, Some(n))?;
     let q = interrupt::run_interruptible(&format!("the basis of J_{n}"), "steps", 0, |progress| {
-        crate::basis_cache::basis_with(n, progress)
+        crate::basis_cache::reducer_with(n, progress)
     })?;
-    let nf = normal_form(&q, &f)?;
+    let nf = normal_form_by(q.as_ref(), &f)?;
     let forest = if args.forest {
         Some(interrupt::run_interruptible(
             "the class in the forest basis",

@@ -23,6 +23,7 @@ use super::json;
 use super::output::{Reorder, Sink};
 use super::shard::Shard;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
+use crate::math::quotient::reduction::MAX_NORMAL_FORM_N;
 use crate::math::quotient::survey::{
     FULL_LISTING_MAX_N, SurveyEntry, SurveyRecord, survey_each, survey_listing,
     survey_summaries_each,
@@ -174,18 +175,18 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let (n, perms): (usize, Vec<Perm>) = match (&args.perm, args.n) {
         (Some(w), _) => {
             let w = w.clone();
-            if w.n() > MAX_QUOTIENT_N {
+            if w.n() > MAX_NORMAL_FORM_N {
                 return Err(CliError::Input(format!(
-                    "{w} has n = {}; surveys run for n from 1 to {MAX_QUOTIENT_N}",
+                    "{w} has n = {}; surveys run for n from 1 to {MAX_NORMAL_FORM_N}",
                     w.n()
                 )));
             }
             (w.n(), vec![w])
         }
         (None, Some(n)) => {
-            if n == 0 || n > MAX_QUOTIENT_N {
+            if n == 0 || n > MAX_NORMAL_FORM_N {
                 return Err(CliError::Input(format!(
-                    "--n {n} is out of range; surveys run for n from 1 to {MAX_QUOTIENT_N}"
+                    "--n {n} is out of range; surveys run for n from 1 to {MAX_NORMAL_FORM_N}"
                 )));
             }
             (n, survey_listing(n))
@@ -204,7 +205,7 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
         .filter(|(i, _)| shard.selects(*i))
         .map(|(_, w)| w)
         .collect();
-    let format = if args.jsonl {
+    let format = if args.lines.jsonl {
         Format::Jsonl
     } else if args.output.json {
         Format::Json
@@ -253,7 +254,8 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
 /// that a Ctrl-C says which of the two it stopped: the walk counts permutations,
 /// the construction its own steps.
 fn basis_first(n: usize, listed: usize) -> Result<(), CliError> {
-    if listed == 0 {
+    if listed == 0 || n > MAX_QUOTIENT_N {
+        // beyond, normal forms go through forests: nothing to build first
         return Ok(());
     }
     let progress = Arc::new(Progress::default());

@@ -115,7 +115,7 @@ fn excerpt(text: &str) -> String {
 
 /// The listing of the survey of S_n, as one-line lists.
 fn listing_of(n: Option<u64>) -> Result<Vec<Vec<u64>>, CliError> {
-    let max = crate::math::quotient::groebner::MAX_QUOTIENT_N;
+    let max = crate::math::quotient::reduction::MAX_NORMAL_FORM_N;
     let n = match n {
         Some(n) if (1..=max as u64).contains(&n) => n as usize,
         _ => {

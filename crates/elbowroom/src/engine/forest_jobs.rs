@@ -9,7 +9,7 @@ use crate::math::forest::polynomial::forest_polynomial;
 use crate::math::forest::quotient::forest_normal_form;
 use crate::math::forest::schubert::schubert_forest_expansion;
 use crate::math::poly::parse::parse_poly_with;
-use crate::math::quotient::groebner::MAX_QUOTIENT_N;
+use crate::math::quotient::reduction::MAX_NORMAL_FORM_N;
 use crate::math::schubert::polynomial::SchubertTable;
 use crate::math::{IntPoly, MathError, MathResult, Perm, Progress};
 use num_rational::BigRational;
@@ -50,9 +50,9 @@ pub fn forest_class(input: &QuotientInput, progress: &Progress) -> MathResult<Fo
             (*n, f)
         }
     };
-    if n == 0 || n > MAX_QUOTIENT_N {
+    if n == 0 || n > MAX_NORMAL_FORM_N {
         return Err(MathError::OutOfRange(format!(
-            "n = {n}; the quotient is shown for n from 1 to {MAX_QUOTIENT_N}"
+            "n = {n}; the quotient is shown for n from 1 to {MAX_NORMAL_FORM_N}"
         )));
     }
     forest_normal_form(&f, n, progress)

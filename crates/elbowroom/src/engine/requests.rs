@@ -23,7 +23,8 @@ use crate::math::pipes::dream::{PipeDream, count_pipe_dreams, pipe_dreams};
 use crate::math::poly::parse::parse_poly_with;
 use crate::math::poly::qpoly::QPoly;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::{NormalForm, hilbert_series, normal_form};
+use crate::math::quotient::normal_form::{NormalForm, graded_dimensions, normal_form_by};
+use crate::math::quotient::reduction::MAX_NORMAL_FORM_N;
 use crate::math::quotient::survey::{SurveyEntry, survey, survey_listing};
 use crate::math::schubert::expansion::expand_typed;
 use crate::math::schubert::polynomial::SchubertTable;
@@ -637,16 +638,21 @@ fn reduce(input: &QuotientInput, progress: &Progress) -> MathResult<Reduced> {
             (*n, f)
         }
     };
-    let q = crate::basis_cache::basis_with(n, progress)?;
+    if n == 0 || n > MAX_NORMAL_FORM_N {
+        return Err(MathError::OutOfRange(format!(
+            "normal forms modulo J_n are computed for n from 1 to {MAX_NORMAL_FORM_N}"
+        )));
+    }
+    let q = crate::basis_cache::reducer_with(n, progress)?;
     progress.advance(1);
     progress.check()?;
-    let normal = normal_form(&q, &f)?;
+    let normal = normal_form_by(q.as_ref(), &f)?;
     progress.advance(1);
     Ok(Reduced {
         n,
         input: f.to_text(),
         normal,
-        hilbert: hilbert_series(&q),
+        hilbert: graded_dimensions(q.basis()),
     })
 }
 

@@ -11,8 +11,8 @@ use crate::figure::look::Look;
 use crate::figure::paths::{panels_of_normal_form, path_grid_scene, with_legend};
 use crate::math::RatPoly;
 use crate::math::poly::parse::parse_poly;
-use crate::math::quotient::groebner::MAX_QUOTIENT_N;
-use crate::math::quotient::normal_form::normal_form;
+use crate::math::quotient::normal_form::normal_form_by;
+use crate::math::quotient::reduction::MAX_NORMAL_FORM_N;
 use crate::math::schubert::polynomial::schubert;
 
 /// The one figure of panels, named `paths-W` or `paths-poly`.
@@ -22,7 +22,7 @@ pub fn panels(args: &FigureArgs, look: &Look) -> Result<Vec<Figure>, CliError> {
         Some(text) => {
             let Some(n) = args.n else {
                 return Err(CliError::Input(format!(
-                    "figure paths --poly needs --n, the number of variables (1 to {MAX_QUOTIENT_N})"
+                    "figure paths --poly needs --n, the number of variables (1 to {MAX_NORMAL_FORM_N})"
                 )));
             };
             (parse_poly(text, Some(n))?, n, format!("{kind}-poly"))
@@ -48,15 +48,15 @@ fn paths_scene(
     columns: Option<usize>,
     look: &Look,
 ) -> Result<Scene, CliError> {
-    if n == 0 || n > MAX_QUOTIENT_N {
+    if n == 0 || n > MAX_NORMAL_FORM_N {
         return Err(CliError::Input(format!(
-            "n = {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
+            "n = {n} is out of range; normal forms modulo J_n are computed for n from 1 to {MAX_NORMAL_FORM_N}"
         )));
     }
     let q = interrupt::run_interruptible(&format!("the basis of J_{n}"), "steps", 0, |progress| {
-        crate::basis_cache::basis_with(n, progress)
+        crate::basis_cache::reducer_with(n, progress)
     })?;
-    let nf = normal_form(&q, f)?;
+    let nf = normal_form_by(q.as_ref(), f)?;
     let panels = panels_of_normal_form(&nf, n).map_err(|e| CliError::Failed(e.to_string()))?;
     let columns = columns.unwrap_or_else(|| (panels.len() as f64).sqrt().ceil().max(1.0) as usize);
     if columns == 0 {

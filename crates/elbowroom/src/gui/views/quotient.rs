@@ -15,8 +15,8 @@ use crate::gui::AppCtx;
 use crate::gui::scene_painter::{self, PaintOptions};
 use crate::gui::typeset::{self, Typeset};
 use crate::math::Perm;
-use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::normal_form::NormalForm;
+use crate::math::quotient::reduction::MAX_NORMAL_FORM_N;
 use crate::session::model::QuotientPlace;
 use eframe::egui;
 use num_traits::Signed;
@@ -269,10 +269,10 @@ impl QuotientView {
             return;
         }
         self.back_to_survey(ui, ctx, &w);
-        if n > MAX_QUOTIENT_N {
+        if n > MAX_NORMAL_FORM_N {
             ui.colored_label(
                 crate::gui::theme::alert(),
-                format!("the quotient is computed for n <= {MAX_QUOTIENT_N}"),
+                format!("normal forms modulo J_n are computed for n <= {MAX_NORMAL_FORM_N}"),
             );
             return;
         }

@@ -1,0 +1,96 @@
+//! One shape for the two ways of computing normal forms modulo J_n on the standard
+//! monomials: division by the Gröbner basis ([`QuasiGroebner`], n ≤ 11) and the forest
+//! route ([`ForestReducer`], n ≤ 12). Surveys and normal forms take either.
+
+use crate::error::MathResult;
+use crate::poly::mono::Mono;
+use crate::progress::Progress;
+use crate::quotient::forest_route::ForestReducer;
+use crate::quotient::groebner::QuasiGroebner;
+use crate::quotient::normal_form::groebner_basis_with;
+use num_bigint::BigInt;
+use std::sync::Arc;
+
+/// Normal forms modulo J_n on the standard monomials.
+pub trait Reduction: Send + Sync {
+    /// The number of variables.
+    fn n(&self) -> usize;
+    /// The standard monomials: by increasing degree, each degree in decreasing lex order.
+    fn basis(&self) -> &[Mono];
+    /// The normal form of Σ c·m as (basis position, coefficient) sorted by position;
+    /// `None` when a coefficient would outgrow `i128`. Polls `check`.
+    fn reduce_i128(
+        &self,
+        terms: &[(Mono, i128)],
+        check: &dyn Fn() -> MathResult<()>,
+    ) -> MathResult<Option<Vec<(u32, i128)>>>;
+    /// The normal form of Σ c_m m as (basis position, coefficient), nonzero only, in basis
+    /// order; checked `i128`, redone over `BigInt` on an overflow. Monomials in variables
+    /// beyond x_n are an error.
+    fn normal_form_with(
+        &self,
+        terms: &[(Mono, BigInt)],
+        progress: &Progress,
+    ) -> MathResult<Vec<(usize, BigInt)>>;
+}
+
+impl Reduction for QuasiGroebner {
+    fn n(&self) -> usize {
+        QuasiGroebner::n(self)
+    }
+    fn basis(&self) -> &[Mono] {
+        QuasiGroebner::basis(self)
+    }
+    fn reduce_i128(
+        &self,
+        terms: &[(Mono, i128)],
+        check: &dyn Fn() -> MathResult<()>,
+    ) -> MathResult<Option<Vec<(u32, i128)>>> {
+        self.reduce_small(terms.iter().copied(), check)
+    }
+    fn normal_form_with(
+        &self,
+        terms: &[(Mono, BigInt)],
+        progress: &Progress,
+    ) -> MathResult<Vec<(usize, BigInt)>> {
+        QuasiGroebner::normal_form_with(self, terms, progress)
+    }
+}
+
+impl Reduction for ForestReducer {
+    fn n(&self) -> usize {
+        ForestReducer::n(self)
+    }
+    fn basis(&self) -> &[Mono] {
+        ForestReducer::basis(self)
+    }
+    fn reduce_i128(
+        &self,
+        terms: &[(Mono, i128)],
+        check: &dyn Fn() -> MathResult<()>,
+    ) -> MathResult<Option<Vec<(u32, i128)>>> {
+        self.reduce_small(terms.iter().copied(), check)
+    }
+    fn normal_form_with(
+        &self,
+        terms: &[(Mono, BigInt)],
+        progress: &Progress,
+    ) -> MathResult<Vec<(usize, BigInt)>> {
+        ForestReducer::normal_form_with(self, terms, progress)
+    }
+}
+
+/// The largest n for which normal forms modulo J_n are computed (by forests beyond
+/// [`crate::quotient::groebner::MAX_QUOTIENT_N`]).
+pub const MAX_NORMAL_FORM_N: usize = crate::quotient::forest_route::MAX_FOREST_ROUTE_N;
+
+/// The way of reducing modulo J_n for this n: the Gröbner basis for
+/// n ≤ [`crate::quotient::groebner::MAX_QUOTIENT_N`] (built on first use, or the one the
+/// program shared), the forest route up to [`MAX_NORMAL_FORM_N`].
+pub fn reducer_with(n: usize, progress: &Progress) -> MathResult<Arc<dyn Reduction>> {
+    if n <= crate::quotient::groebner::MAX_QUOTIENT_N {
+        let q: Arc<dyn Reduction> = groebner_basis_with(n, progress)?;
+        return Ok(q);
+    }
+    Ok(Arc::new(ForestReducer::new(n)?))
+}
