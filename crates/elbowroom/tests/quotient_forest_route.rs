@@ -136,3 +136,23 @@ fn reduce_and_survey_run_at_n_12_and_refuse_13() {
     let out = common::run(&["survey", "--n", "13"]);
     assert_eq!(out.status.code(), Some(2));
 }
+
+/// `--by-forests` prints exactly what division by the Gröbner basis prints.
+#[test]
+fn by_forests_prints_the_same_bytes() {
+    for args in [
+        &["survey", "--n", "7", "--json"][..],
+        &["survey", "--n", "6", "--csv"],
+        &["survey", "--n", "9", "--summary", "--jsonl"],
+        &["reduce", "x1^3 x2 - 2/5 x3 x4^2 + M(2,1)", "--n", "6", "--json"],
+        &["reduce", "x1 x2 x3 x4 x5", "--n", "7"],
+    ] {
+        let basis = common::run(args);
+        let mut with = args.to_vec();
+        with.push("--by-forests");
+        let forests = common::run(&with);
+        assert!(basis.status.success(), "{args:?}");
+        assert!(forests.status.success(), "{with:?}");
+        assert_eq!(basis.stdout, forests.stdout, "{args:?}");
+    }
+}

@@ -32,7 +32,8 @@ use crate::progress::Progress;
 use num_bigint::BigInt;
 use num_traits::ToPrimitive;
 use rustc_hash::FxHashMap;
-use std::collections::BTreeMap;
+use std::cmp::Reverse;
+use std::collections::BinaryHeap;
 use std::sync::{Arc, Mutex};
 
 /// The largest n for which normal forms are computed through forests.
@@ -169,7 +170,7 @@ impl ForestReducer {
         check: &dyn Fn() -> MathResult<()>,
     ) -> MathResult<Option<Vec<(u32, T)>>> {
         let n = self.n;
-        let mut pending: BTreeMap<Mono, T> = BTreeMap::new();
+        let mut pending = Pending::<T>::default();
         for (m, c) in terms {
             if (n..crate::poly::mono::MAX_VARS).any(|i| m.exp(i) > 0) {
                 return Err(MathError::OutOfRange(format!(
@@ -191,7 +192,7 @@ impl ForestReducer {
         }
         let mut out = Vec::new();
         let mut steps = 0u32;
-        while let Some((c, v)) = pending.pop_first() {
+        while let Some((c, v)) = pending.pop_smallest() {
             if v.is_zero() {
                 continue;
             }
@@ -299,10 +300,38 @@ impl Exact for BigInt {
     }
 }
 
+/// The coefficients still to be taken, by code: a hash map of the values and a heap of
+/// the codes, smallest first (a code is pushed when it enters the map).
+struct Pending<T> {
+    values: FxHashMap<Mono, T>,
+    order: BinaryHeap<Reverse<Mono>>,
+}
+
+impl<T> Default for Pending<T> {
+    fn default() -> Self {
+        Pending {
+            values: FxHashMap::default(),
+            order: BinaryHeap::new(),
+        }
+    }
+}
+
+impl<T: Exact> Pending<T> {
+    /// The smallest code still held, with its value (possibly zero), removed.
+    fn pop_smallest(&mut self) -> Option<(Mono, T)> {
+        let Reverse(c) = self.order.pop()?;
+        let v = self.values.remove(&c)?;
+        Some((c, v))
+    }
+}
+
 /// pending += k·class; false on an overflow.
-fn add_scaled<T: Exact>(pending: &mut BTreeMap<Mono, T>, class: &[(Mono, i8)], k: &T) -> bool {
+fn add_scaled<T: Exact>(pending: &mut Pending<T>, class: &[(Mono, i8)], k: &T) -> bool {
     for &(c, s) in class {
-        let slot = pending.entry(c).or_insert_with(T::zero);
+        let slot = pending.values.entry(c).or_insert_with(|| {
+            pending.order.push(Reverse(c));
+            T::zero()
+        });
         if !slot.add_signed(k, s) {
             return false;
         }

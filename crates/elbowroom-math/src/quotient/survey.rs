@@ -469,28 +469,13 @@ pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry
     collect(perms, |each| survey_each(perms, progress, each))
 }
 
-/// [`survey`] with a given way of reducing (the Gröbner basis or the forest route), for
-/// comparing the two.
+/// [`survey`] with a given way of reducing (the Gröbner basis or the forest route).
 pub fn survey_by(
     q: &dyn Reduction,
     perms: &[Perm],
     progress: &Progress,
 ) -> MathResult<Vec<SurveyEntry>> {
-    collect(perms, |each| {
-        run_by(
-            q,
-            perms,
-            progress,
-            &|q, w, nf, table| match nf {
-                Some(v) => Ok(SurveyEntry {
-                    perm: w.clone(),
-                    normal_form: to_normal_form(q, v),
-                }),
-                None => entry_by_expansion(w, q, table),
-            },
-            each,
-        )
-    })
+    collect(perms, |each| survey_each_by(q, perms, progress, each))
 }
 
 /// [`survey`] keeping only the summary of each normal form (terms, sum, negatives).
@@ -549,18 +534,18 @@ pub fn survey_each<X: From<MathError>>(
     progress: &Progress,
     each: &mut dyn FnMut(usize, SurveyEntry) -> Result<(), X>,
 ) -> Result<(), X> {
-    run(
-        perms,
-        progress,
-        &|q, w, nf, table| match nf {
-            Some(v) => Ok(SurveyEntry {
-                perm: w.clone(),
-                normal_form: to_normal_form(q, v),
-            }),
-            None => entry_by_expansion(w, q, table),
-        },
-        each,
-    )
+    run(None, perms, progress, &make_entry, each)
+}
+
+/// [`survey_each`] with a given way of reducing ([`Reduction`]: the Gröbner basis or
+/// the forest route); the permutations must be in S_n for that reduction's n.
+pub fn survey_each_by<X: From<MathError>>(
+    q: &dyn Reduction,
+    perms: &[Perm],
+    progress: &Progress,
+    each: &mut dyn FnMut(usize, SurveyEntry) -> Result<(), X>,
+) -> Result<(), X> {
+    run(Some(q), perms, progress, &make_entry, each)
 }
 
 /// [`survey_each`] handing out only the summary of each normal form.
@@ -569,30 +554,66 @@ pub fn survey_summaries_each<X: From<MathError>>(
     progress: &Progress,
     each: &mut dyn FnMut(usize, SurveySummary) -> Result<(), X>,
 ) -> Result<(), X> {
-    run(
-        perms,
-        progress,
-        &|q, w, nf, table| match nf {
-            Some(v) => {
-                let basis = q.basis();
-                let int = |c: i64| BigRational::from_integer(BigInt::from(c));
-                Ok(SurveySummary {
-                    perm: w.clone(),
-                    terms: v.len(),
-                    sum: v
-                        .iter()
-                        .fold(BigRational::zero(), |acc, &(_, c)| acc + int(c)),
-                    negatives: v
-                        .iter()
-                        .filter(|t| t.1 < 0)
-                        .map(|&(i, c)| (basis[i as usize], int(c)))
-                        .collect(),
-                })
-            }
-            None => entry_by_expansion(w, q, table).map(|e| SurveySummary::of(&e)),
-        },
-        each,
-    )
+    run(None, perms, progress, &make_summary, each)
+}
+
+/// [`survey_summaries_each`] with a given way of reducing (see [`survey_each_by`]).
+pub fn survey_summaries_each_by<X: From<MathError>>(
+    q: &dyn Reduction,
+    perms: &[Perm],
+    progress: &Progress,
+    each: &mut dyn FnMut(usize, SurveySummary) -> Result<(), X>,
+) -> Result<(), X> {
+    run(Some(q), perms, progress, &make_summary, each)
+}
+
+fn make_entry(
+    q: &dyn Reduction,
+    w: &Perm,
+    nf: Option<&[(u32, i64)]>,
+    table: &mut SchubertTable,
+) -> MathResult<SurveyEntry> {
+    match nf {
+        Some(v) => Ok(SurveyEntry {
+            perm: w.clone(),
+            normal_form: to_normal_form(q, v),
+        }),
+        None => entry_by_expansion(w, q, table),
+    }
+}
+
+fn make_summary(
+    q: &dyn Reduction,
+    w: &Perm,
+    nf: Option<&[(u32, i64)]>,
+    table: &mut SchubertTable,
+) -> MathResult<SurveySummary> {
+    match nf {
+        Some(v) => {
+            let basis = q.basis();
+            let int = |c: i64| BigRational::from_integer(BigInt::from(c));
+            // the sum in checked i128 (each term fits i64), over big integers only beyond
+            let sum = v
+                .iter()
+                .try_fold(0i128, |acc, &(_, c)| acc.checked_add(i128::from(c)))
+                .map(|t| BigRational::from_integer(BigInt::from(t)))
+                .unwrap_or_else(|| {
+                    v.iter()
+                        .fold(BigRational::zero(), |acc, &(_, c)| acc + int(c))
+                });
+            Ok(SurveySummary {
+                perm: w.clone(),
+                terms: v.len(),
+                sum,
+                negatives: v
+                    .iter()
+                    .filter(|t| t.1 < 0)
+                    .map(|&(i, c)| (basis[i as usize], int(c)))
+                    .collect(),
+            })
+        }
+        None => entry_by_expansion(w, q, table).map(|e| SurveySummary::of(&e)),
+    }
 }
 
 /// Makes the record of w from its normal form (`None`: redo it by expansion).
@@ -600,6 +621,7 @@ type Make<'a, E> =
     dyn Fn(&dyn Reduction, &Perm, Option<&[(u32, i64)]>, &mut SchubertTable) -> MathResult<E> + 'a;
 
 fn run<E: Clone, X: From<MathError>>(
+    given: Option<&dyn Reduction>,
     perms: &[Perm],
     progress: &Progress,
     make: &Make<'_, E>,
@@ -615,8 +637,16 @@ fn run<E: Clone, X: From<MathError>>(
         ))
         .into());
     }
-    let q = reducer_with(n, progress)?;
-    run_by(q.as_ref(), perms, progress, make, each)
+    match given {
+        Some(q) => run_by(q, perms, progress, make, each),
+        None => run_by(
+            reducer_with(n, progress)?.as_ref(),
+            perms,
+            progress,
+            make,
+            each,
+        ),
+    }
 }
 
 fn run_by<E: Clone, X: From<MathError>>(

@@ -456,6 +456,10 @@ pub struct ReduceArgs {
     /// Neither read nor write the basis of J_n in the cache directory (build it afresh).
     #[arg(long)]
     pub no_cache: bool,
+    /// Reduce through the forest basis of the quotient instead of the Gröbner basis of
+    /// J_n (same answers; nothing to build; always so at n = 12).
+    #[arg(long)]
+    pub by_forests: bool,
 }
 
 /// Arguments of `elbowroom survey`.
@@ -486,6 +490,10 @@ pub struct SurveyArgs {
     /// Neither read nor write the basis of J_n in the cache directory (build it afresh).
     #[arg(long)]
     pub no_cache: bool,
+    /// Reduce through the forest basis of the quotient instead of the Gröbner basis of
+    /// J_n (same answers; nothing to build; always so at n = 12).
+    #[arg(long)]
+    pub by_forests: bool,
     /// Run only piece K of N of the listing (item i goes to piece (i mod N) + 1).
     #[arg(long, value_name = "K/N", value_parser = shard_arg)]
     pub shard: Option<Shard>,

@@ -10,8 +10,9 @@ use super::json;
 use super::json::PolyRecord;
 use crate::math::forest::quotient::forest_normal_form;
 use crate::math::poly::parse::parse_poly;
+use crate::math::quotient::forest_route::ForestReducer;
 use crate::math::quotient::normal_form::normal_form_by;
-use crate::math::quotient::reduction::MAX_NORMAL_FORM_N;
+use crate::math::quotient::reduction::{MAX_NORMAL_FORM_N, Reduction};
 use serde::Serialize;
 
 /// One coefficient of the normal form, on a standard monomial.
@@ -45,9 +46,13 @@ pub fn run(args: &ReduceArgs) -> Result<String, CliError> {
         )));
     }
     let f = parse_poly(&args.poly, Some(n))?;
-    let q = interrupt::run_interruptible(&format!("the basis of J_{n}"), "steps", 0, |progress| {
-        crate::basis_cache::reducer_with(n, progress)
-    })?;
+    let q: std::sync::Arc<dyn Reduction> = if args.by_forests {
+        std::sync::Arc::new(ForestReducer::new(n)?)
+    } else {
+        interrupt::run_interruptible(&format!("the basis of J_{n}"), "steps", 0, |progress| {
+            crate::basis_cache::reducer_with(n, progress)
+        })?
+    };
     let nf = normal_form_by(q.as_ref(), &f)?;
     let forest = if args.forest {
         Some(interrupt::run_interruptible(

@@ -22,11 +22,12 @@ use super::interrupt;
 use super::json;
 use super::output::{Reorder, Sink};
 use super::shard::Shard;
+use crate::math::quotient::forest_route::ForestReducer;
 use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::reduction::MAX_NORMAL_FORM_N;
 use crate::math::quotient::survey::{
-    FULL_LISTING_MAX_N, SurveyEntry, SurveyRecord, survey_each, survey_listing,
-    survey_summaries_each,
+    FULL_LISTING_MAX_N, SurveyEntry, SurveyRecord, SurveySummary, survey_each, survey_each_by,
+    survey_listing, survey_summaries_each, survey_summaries_each_by,
 };
 use crate::math::{MathError, Perm, Progress};
 use crate::tables::results::survey_table;
@@ -154,6 +155,36 @@ struct Job {
     listed_total: usize,
     summary: bool,
     format: Format,
+    /// The forest route when asked for (or at n = 12); `None`: the Gröbner basis.
+    forests: Option<ForestReducer>,
+}
+
+impl Job {
+    /// The full records of the survey, by the route of the job.
+    fn entries(
+        &self,
+        perms: &[Perm],
+        progress: &Progress,
+        each: &mut dyn FnMut(usize, SurveyEntry) -> Result<(), CliError>,
+    ) -> Result<(), CliError> {
+        match &self.forests {
+            Some(r) => survey_each_by(r, perms, progress, each),
+            None => survey_each(perms, progress, each),
+        }
+    }
+
+    /// The summaries of the survey, by the route of the job.
+    fn summaries(
+        &self,
+        perms: &[Perm],
+        progress: &Progress,
+        each: &mut dyn FnMut(usize, SurveySummary) -> Result<(), CliError>,
+    ) -> Result<(), CliError> {
+        match &self.forests {
+            Some(r) => survey_summaries_each_by(r, perms, progress, each),
+            None => survey_summaries_each(perms, progress, each),
+        }
+    }
 }
 
 #[derive(Clone, Copy, PartialEq, Eq)]
@@ -222,8 +253,15 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
         listed_total,
         summary: args.summary,
         format,
+        forests: if args.by_forests || n > MAX_QUOTIENT_N {
+            Some(ForestReducer::new(n)?)
+        } else {
+            None
+        },
     };
-    basis_first(n, perms.len())?;
+    if job.forests.is_none() {
+        basis_first(n, perms.len())?;
+    }
     let summary = args.summary;
     match format {
         // the summary needs no normal form kept: the compact records
@@ -231,7 +269,7 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
             &job,
             &perms,
             sink,
-            &|p, progress, each| survey_summaries_each(p, progress, each),
+            &|p, progress, each| job.summaries(p, progress, each),
             &|_| None,
             &|_| None,
         ),
@@ -239,7 +277,7 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
             &job,
             &perms,
             sink,
-            &|p, progress, each| survey_each(p, progress, each),
+            &|p, progress, each| job.entries(p, progress, each),
             &|e: &SurveyEntry| Some(e.normal_form.poly.to_string()),
             &|e: &SurveyEntry| Some(json::poly(&e.normal_form.poly)),
         ),
@@ -363,7 +401,7 @@ fn stream_table(
     let walk = |p: &[Perm],
                 progress: &Progress,
                 each: &mut dyn FnMut(usize, SurveyEntry) -> Result<(), CliError>| {
-        survey_each(p, progress, each)
+        job.entries(p, progress, each)
     };
     let render = |e: &SurveyEntry| row.of(e);
     let progress = Arc::new(Progress::new(perms.len() as u64));
@@ -784,6 +822,7 @@ mod tests {
                 listed_total: 4,
                 summary: true,
                 format,
+                forests: None,
             };
             let mut buf = Vec::new();
             let mut sink = Sink::new(&mut buf, "a buffer");

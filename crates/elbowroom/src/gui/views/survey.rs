@@ -171,7 +171,9 @@ impl SurveyPanel {
         if n > MAX_QUOTIENT_N {
             ui.colored_label(
                 crate::gui::theme::alert(),
-                format!("surveys run for n <= {MAX_QUOTIENT_N}"),
+                format!(
+                    "the window surveys n <= {MAX_QUOTIENT_N} (it keeps every normal form); for S_{n} run `elbowroom survey --n {n} --summary`"
+                ),
             );
             return false;
         }
