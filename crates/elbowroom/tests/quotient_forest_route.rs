@@ -144,7 +144,13 @@ fn by_forests_prints_the_same_bytes() {
         &["survey", "--n", "7", "--json"][..],
         &["survey", "--n", "6", "--csv"],
         &["survey", "--n", "9", "--summary", "--jsonl"],
-        &["reduce", "x1^3 x2 - 2/5 x3 x4^2 + M(2,1)", "--n", "6", "--json"],
+        &[
+            "reduce",
+            "x1^3 x2 - 2/5 x3 x4^2 + M(2,1)",
+            "--n",
+            "6",
+            "--json",
+        ],
         &["reduce", "x1 x2 x3 x4 x5", "--n", "7"],
     ] {
         let basis = common::run(args);

@@ -2,13 +2,14 @@
 //! graded dimensions against published values, the generators of J_n reducing to zero,
 //! divided symmetrization read off normal forms against the crate's descent-formula code,
 //! and the survey's transition walk against expanding the Schubert polynomials.
-//! n = 9 runs in the suite; the n = 10 and n = 11 checks are `#[ignore]`d (minutes in a
-//! release build): `cargo test --release --no-default-features --test quotient_large -- --ignored`.
+//! n = 9 and 10 run in the suite; the n = 11 and n = 12 checks are `#[ignore]`d (minutes in
+//! a release build): `cargo test --release --no-default-features --test quotient_large -- --ignored`.
 #![allow(clippy::unwrap_used)]
 
 use elbowroom::math::hessenberg::divsym::PostnikovFunctional;
 use elbowroom::math::poly::compositions::{compositions, monomials_of_degree};
 use elbowroom::math::poly::quasisym::monomial_qsym;
+use elbowroom::math::quotient::groebner::QuasiGroebner;
 use elbowroom::math::quotient::normal_form::{
     divsym_via_quotient, groebner_basis, groebner_basis_with, hilbert_series, normal_form,
 };
@@ -21,7 +22,7 @@ fn binomial(n: u64, k: u64) -> u64 {
     (0..k).fold(1u64, |acc, i| acc * (n - i) / (i + 1))
 }
 
-/// Catalan numbers, OEIS A000108: C(9) = 4862, C(10) = 16796, C(11) = 58786.
+/// Catalan numbers, OEIS A000108: C(9) = 4862, C(10) = 16796, C(11) = 58786, C(12) = 208012.
 fn catalan(n: u64) -> u64 {
     binomial(2 * n, n) / (n + 1)
 }
@@ -152,16 +153,41 @@ fn a_cancelled_construction_is_not_cached() {
 }
 
 #[test]
-#[ignore = "minutes: run with --release -- --ignored"]
 fn n10_dimensions_generators_and_divsym() {
     check_dimensions(10);
     check_generators(10);
     check_divsym(10, 6);
 }
 
+/// The basis read off normal forms through forests is the basis built by elimination
+/// (division and row reduction, no forest): the same elements at n = 9.
 #[test]
-#[ignore = "tens of minutes: run with --release -- --ignored"]
-fn n11_dimensions_and_generators() {
+fn n9_forests_and_elimination_give_the_same_basis() {
+    let by_forests = groebner_basis(9).unwrap();
+    let by_elimination = QuasiGroebner::compute_by_elimination(9, None).unwrap();
+    assert_eq!(by_forests.elements(), by_elimination.elements());
+}
+
+#[test]
+#[ignore = "a minute: run with --release -- --ignored"]
+fn n11_dimensions_generators_and_divsym() {
     check_dimensions(11);
     check_generators(11);
+    check_divsym(11, 3);
+}
+
+#[test]
+#[ignore = "minutes: run with --release -- --ignored"]
+fn n12_dimensions_generators_and_divsym() {
+    check_dimensions(12);
+    check_generators(12);
+    check_divsym(12, 2);
+}
+
+#[test]
+#[ignore = "six minutes of elimination: run with --release -- --ignored"]
+fn n11_forests_and_elimination_give_the_same_basis() {
+    let by_forests = groebner_basis(11).unwrap();
+    let by_elimination = QuasiGroebner::compute_by_elimination(11, None).unwrap();
+    assert_eq!(by_forests.elements(), by_elimination.elements());
 }

@@ -205,7 +205,7 @@ fn an_unwritable_temporary_file_is_an_error() {
     assert_eq!(err.trim().lines().count(), 1, "{err}");
 }
 
-/// Ctrl-C during a survey (here while the basis of J_10 is built): exit status
+/// Ctrl-C during a survey of S_10 (while the basis is read or built, or during the walk): exit status
 /// 130 and one line saying how far it got, nothing on stdout.
 #[test]
 fn ctrl_c_stops_a_survey_and_says_so() {

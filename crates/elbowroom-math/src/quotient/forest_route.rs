@@ -34,7 +34,7 @@ use num_traits::ToPrimitive;
 use rustc_hash::FxHashMap;
 use std::cmp::Reverse;
 use std::collections::BinaryHeap;
-use std::sync::{Arc, Mutex};
+use std::sync::{Arc, RwLock};
 
 /// The largest n for which normal forms are computed through forests.
 pub const MAX_FOREST_ROUTE_N: usize = 12;
@@ -47,7 +47,7 @@ pub struct ForestReducer {
     n: usize,
     basis: Vec<Mono>,
     index: FxHashMap<Mono, u32>,
-    classes: Mutex<FxHashMap<Mono, Class>>,
+    classes: RwLock<FxHashMap<Mono, Class>>,
 }
 
 /// x^e with the first n exponents reversed.
@@ -108,7 +108,7 @@ impl ForestReducer {
             n,
             basis,
             index,
-            classes: Mutex::new(FxHashMap::default()),
+            classes: RwLock::new(FxHashMap::default()),
         })
     }
 
@@ -220,9 +220,12 @@ impl ForestReducer {
         Ok(Some(out))
     }
 
-    /// The forest class of x^c for a code c supported in [n], kept once computed.
+    /// The forest class of x^c for a code c supported in [n], kept once computed (shared
+    /// by the threads that reduce with this reducer: read under a read lock).
     fn class_of_code(&self, c: Mono) -> MathResult<Class> {
-        if let Some(k) = self.lock()?.get(&c) {
+        let poisoned =
+            || MathError::InvalidInput("internal: a reducer's memory was poisoned".into());
+        if let Some(k) = self.classes.read().map_err(|_| poisoned())?.get(&c) {
             return Ok(k.clone());
         }
         let class: Class = Arc::from(monomial_class(c, self.n).into_boxed_slice());
@@ -234,19 +237,16 @@ impl ForestReducer {
                 )));
             }
         }
-        self.lock()?.insert(c, class.clone());
+        self.classes
+            .write()
+            .map_err(|_| poisoned())?
+            .insert(c, class.clone());
         Ok(class)
-    }
-
-    fn lock(&self) -> MathResult<std::sync::MutexGuard<'_, FxHashMap<Mono, Class>>> {
-        self.classes.lock().map_err(|_| {
-            MathError::InvalidInput("internal: a reducer's memory was poisoned".into())
-        })
     }
 
     /// How many classes of monomials the reducer holds (diagnostics).
     pub fn classes_held(&self) -> usize {
-        self.classes.lock().map(|m| m.len()).unwrap_or(0)
+        self.classes.read().map(|m| m.len()).unwrap_or(0)
     }
 }
 

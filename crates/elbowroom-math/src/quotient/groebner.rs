@@ -72,21 +72,19 @@ use num_traits::{ToPrimitive, Zero};
 use rayon::prelude::*;
 use std::collections::HashMap;
 
-/// The largest n for which the quotient is computed.
-pub const MAX_QUOTIENT_N: usize = 11;
+/// The largest n for which the quotient (its reduced Gröbner basis) is computed: through
+/// forests ([`crate::quotient::basis_by_forests`]), in seconds at n = 12.
+pub const MAX_QUOTIENT_N: usize = 12;
+
+/// The largest n of the construction by elimination ([`QuasiGroebner::compute_by_elimination`],
+/// the independent second method: about 6 minutes of CPU at n = 11, refused at 12 by
+/// [`construction_estimate`]).
+pub const MAX_ELIMINATION_N: usize = 11;
 
 /// Why `--n n` is refused where the Gröbner basis itself is asked for (`quotient`, and
 /// the Python `quotient_basis`), in one line; `None` when 1 ≤ n ≤ [`MAX_QUOTIENT_N`].
 pub fn quotient_n_refusal(n: usize) -> Option<String> {
-    if (1..=MAX_QUOTIENT_N).contains(&n) {
-        return None;
-    }
-    let normal_forms = crate::quotient::reduction::MAX_NORMAL_FORM_N;
-    Some(if n > MAX_QUOTIENT_N && n <= normal_forms {
-        format!(
-            "--n {n} is out of range; the Gröbner basis of J_n is built for n from 1 to {MAX_QUOTIENT_N} (up to n = {normal_forms}, reduce and survey work through the forest basis)"
-        )
-    } else {
+    (!(1..=MAX_QUOTIENT_N).contains(&n)).then(|| {
         format!(
             "--n {n} is out of range; the quotient is computed for n from 1 to {MAX_QUOTIENT_N}"
         )
@@ -416,10 +414,9 @@ impl DegreeSpace {
 }
 
 impl QuasiGroebner {
-    /// Computes the basis for n variables (1 <= n <= [`MAX_QUOTIENT_N`]), polling `progress`
-    /// for cancellation inside every long loop and counting the basis elements found and the
-    /// generators checked. Refused before it starts when [`construction_estimate`] exceeds
-    /// [`MAX_CONSTRUCTION_BYTES`].
+    /// Computes the basis for n variables (1 <= n <= [`MAX_QUOTIENT_N`]) through forests
+    /// ([`crate::quotient::basis_by_forests`]: G_c = c − NF(c) for every corner c), then
+    /// certifies it; polls `progress` for cancellation and counts the corners done.
     ///
     /// ```
     /// use elbowroom_math::quotient::groebner::QuasiGroebner;
@@ -432,6 +429,31 @@ impl QuasiGroebner {
         if n == 0 || n > MAX_QUOTIENT_N {
             return Err(MathError::OutOfRange(format!(
                 "the quotient is computed for 1 <= n <= {MAX_QUOTIENT_N}, not n = {n}"
+            )));
+        }
+        let own = Progress::new(0);
+        crate::quotient::basis_by_forests::basis_by_forests(n, progress.unwrap_or(&own))
+    }
+
+    /// The same basis by the construction of the module doc (division and elimination
+    /// modulo p, degree by degree; 1 <= n <= [`MAX_ELIMINATION_N`]), which uses no forest:
+    /// the independent second method the tests compare [`Self::compute`] with. Polls
+    /// `progress` for cancellation inside every long loop and counts the basis elements
+    /// found and the generators checked. Refused before it starts when
+    /// [`construction_estimate`] exceeds [`MAX_CONSTRUCTION_BYTES`].
+    ///
+    /// ```
+    /// use elbowroom_math::quotient::groebner::QuasiGroebner;
+    /// let g = QuasiGroebner::compute_by_elimination(4, None).unwrap();
+    /// assert_eq!(g.elements(), QuasiGroebner::compute(4, None).unwrap().elements());
+    /// ```
+    pub fn compute_by_elimination(
+        n: usize,
+        progress: Option<&Progress>,
+    ) -> MathResult<QuasiGroebner> {
+        if n == 0 || n > MAX_ELIMINATION_N {
+            return Err(MathError::OutOfRange(format!(
+                "the quotient is built by elimination for 1 <= n <= {MAX_ELIMINATION_N}, not n = {n}"
             )));
         }
         let estimate = construction_estimate(n);

@@ -4,6 +4,7 @@
 
 pub mod standard;
 
+pub mod basis_by_forests;
 pub mod basis_bytes;
 pub mod certificate;
 pub mod degree_division;

@@ -80,9 +80,8 @@ impl Reduction for ForestReducer {
     }
 }
 
-/// The largest n for which normal forms modulo J_n are computed (by forests beyond
-/// [`crate::quotient::groebner::MAX_QUOTIENT_N`]).
-pub const MAX_NORMAL_FORM_N: usize = crate::quotient::forest_route::MAX_FOREST_ROUTE_N;
+/// The largest n for which normal forms modulo J_n are computed (either way).
+pub const MAX_NORMAL_FORM_N: usize = crate::quotient::groebner::MAX_QUOTIENT_N;
 
 /// The way of reducing modulo J_n for this n: the Gröbner basis for
 /// n ≤ [`crate::quotient::groebner::MAX_QUOTIENT_N`] (built on first use, or the one the

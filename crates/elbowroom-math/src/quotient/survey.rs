@@ -43,6 +43,11 @@ use std::sync::Arc;
 /// Surveys of S_n for n up to this list every permutation; beyond, those of length < n.
 pub const FULL_LISTING_MAX_N: usize = 8;
 
+/// The largest n of a survey that keeps every normal form it finds (the window's; [`survey`]):
+/// at n = 11 they take about 2 GB, at n = 12 several times that. The streaming walks
+/// ([`survey_each`], [`survey_summaries_each`]) go to n = 12.
+pub const HELD_SURVEY_MAX_N: usize = 11;
+
 /// The survey record of one permutation.
 #[derive(Clone, Debug, PartialEq)]
 pub struct SurveyEntry {
@@ -466,6 +471,12 @@ fn to_normal_form(q: &dyn Reduction, v: &[(u32, i64)]) -> NormalForm {
 /// assert_eq!(progress.done(), progress.total());
 /// ```
 pub fn survey(perms: &[Perm], progress: &Progress) -> MathResult<Vec<SurveyEntry>> {
+    if let Some(w) = perms.first().filter(|w| w.n() > HELD_SURVEY_MAX_N) {
+        return Err(MathError::OutOfRange(format!(
+            "a survey that keeps every normal form runs for n up to {HELD_SURVEY_MAX_N}, not n = {}",
+            w.n()
+        )));
+    }
     collect(perms, |each| survey_each(perms, progress, each))
 }
 

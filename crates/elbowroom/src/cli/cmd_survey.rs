@@ -23,7 +23,6 @@ use super::json;
 use super::output::{Reorder, Sink};
 use super::shard::Shard;
 use crate::math::quotient::forest_route::ForestReducer;
-use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::reduction::MAX_NORMAL_FORM_N;
 use crate::math::quotient::survey::{
     FULL_LISTING_MAX_N, SurveyEntry, SurveyRecord, SurveySummary, survey_each, survey_each_by,
@@ -253,7 +252,7 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
         listed_total,
         summary: args.summary,
         format,
-        forests: if args.by_forests || n > MAX_QUOTIENT_N {
+        forests: if args.by_forests {
             Some(ForestReducer::new(n)?)
         } else {
             None
@@ -292,8 +291,7 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
 /// that a Ctrl-C says which of the two it stopped: the walk counts permutations,
 /// the construction its own steps.
 fn basis_first(n: usize, listed: usize) -> Result<(), CliError> {
-    if listed == 0 || n > MAX_QUOTIENT_N {
-        // beyond, normal forms go through forests: nothing to build first
+    if listed == 0 {
         return Ok(());
     }
     let progress = Arc::new(Progress::default());

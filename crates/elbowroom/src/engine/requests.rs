@@ -22,9 +22,9 @@ use crate::math::pipes::dream::term_bound;
 use crate::math::pipes::dream::{PipeDream, count_pipe_dreams, pipe_dreams};
 use crate::math::poly::parse::parse_poly_with;
 use crate::math::poly::qpoly::QPoly;
-use crate::math::quotient::groebner::MAX_QUOTIENT_N;
 use crate::math::quotient::normal_form::{NormalForm, graded_dimensions, normal_form_by};
 use crate::math::quotient::reduction::MAX_NORMAL_FORM_N;
+use crate::math::quotient::survey::HELD_SURVEY_MAX_N;
 use crate::math::quotient::survey::{SurveyEntry, survey, survey_listing};
 use crate::math::schubert::expansion::expand_typed;
 use crate::math::schubert::polynomial::SchubertTable;
@@ -612,9 +612,9 @@ fn monomial_route(
 
 /// The positivity survey over all of S_n, in lexicographic order.
 fn survey_of_all(n: usize, progress: &Progress) -> MathResult<Vec<SurveyEntry>> {
-    if n == 0 || n > MAX_QUOTIENT_N {
+    if n == 0 || n > HELD_SURVEY_MAX_N {
         return Err(MathError::OutOfRange(format!(
-            "surveys run for n from 1 to {MAX_QUOTIENT_N}"
+            "the window surveys n from 1 to {HELD_SURVEY_MAX_N} (it keeps every normal form)"
         )));
     }
     crate::basis_cache::basis_with(n, progress)?;

@@ -12,7 +12,7 @@ use crate::gui::AppCtx;
 use crate::gui::table_source::TableSource;
 use crate::gui::typeset::{self, Typeset};
 use crate::math::Perm;
-use crate::math::quotient::groebner::MAX_QUOTIENT_N;
+use crate::math::quotient::survey::HELD_SURVEY_MAX_N;
 use crate::math::quotient::survey::SurveyEntry;
 use crate::tables::results::survey_table;
 use crate::tables::table::Table;
@@ -168,11 +168,11 @@ impl SurveyPanel {
     /// Draws the panel for S_n; a click on a row makes that w current and
     /// returns true (the view then shows its normal form).
     pub fn ui(&mut self, ui: &mut egui::Ui, ctx: &mut AppCtx, n: usize) -> bool {
-        if n > MAX_QUOTIENT_N {
+        if n > HELD_SURVEY_MAX_N {
             ui.colored_label(
                 crate::gui::theme::alert(),
                 format!(
-                    "the window surveys n <= {MAX_QUOTIENT_N} (it keeps every normal form); for S_{n} run `elbowroom survey --n {n} --summary`"
+                    "the window surveys n <= {HELD_SURVEY_MAX_N} (it keeps every normal form); for S_{n} run `elbowroom survey --n {n} --summary`"
                 ),
             );
             return false;
