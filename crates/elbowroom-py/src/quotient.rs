@@ -18,9 +18,9 @@ use pyo3::types::{PyDict, PyList, PyTuple};
 /// exponent tuples (length n) to Fractions. The order is lex with
 /// x1 > x2 > ... > xn, whose standard monomials are the x^e with
 /// e_1 + ... + e_i <= i − 1 for every i (Catalan(n) of them), so every key is
-/// one of `quotient_basis(n)`. 1 <= n <= 12: for n <= 11 the Gröbner basis of
-/// J_n is built on the first call for that n (about 15 s of CPU at n = 10) and
-/// kept; at n = 12 normal forms go through the forest basis of the quotient.
+/// one of `quotient_basis(n)`. 1 <= n <= 12; the Gröbner basis of J_n is
+/// built on the first call for that n (through forests: under a second at
+/// n = 10, about half a minute at n = 12) and kept.
 #[pyfunction]
 #[pyo3(signature = (poly, n, *, progress = None))]
 pub fn reduce<'py>(

@@ -215,7 +215,36 @@ fn entry_by_expansion(
 const FEW: usize = 16;
 
 /// A normal form as (basis position, coefficient), sorted; `None` after an overflow.
-type Sparse = Option<Arc<[(u32, i64)]>>;
+type Sparse = Option<Arc<[Term]>>;
+
+/// One term of a kept normal form in one word: the basis position in the low 24 bits
+/// (Catalan(12) = 208,012 < 2^24), the coefficient in the high 40 bits (two's complement).
+/// At n = 12 a survey holds hundreds of millions of them.
+#[derive(Clone, Copy, Debug, PartialEq, Eq)]
+struct Term(u64);
+
+const POSITION_BITS: u32 = 24;
+
+impl Term {
+    /// The term, or `None` when the position or the coefficient does not fit.
+    fn new(position: u32, c: i128) -> Option<Term> {
+        let limit = 1i128 << (63 - POSITION_BITS);
+        if position >= 1 << POSITION_BITS || c < -limit || c >= limit {
+            return None;
+        }
+        Some(Term(
+            ((c as i64 as u64) << POSITION_BITS) | u64::from(position),
+        ))
+    }
+
+    fn position(self) -> u32 {
+        (self.0 & ((1 << POSITION_BITS) - 1)) as u32
+    }
+
+    fn coefficient(self) -> i64 {
+        (self.0 as i64) >> POSITION_BITS
+    }
+}
 
 /// The transition walk of one survey: two levels of normal forms and the products x_k·s.
 ///
@@ -342,7 +371,7 @@ impl<'q> Walk<'q> {
         }
         progress.check()?;
         let Some((r, v, others)) = transition(w) else {
-            return Ok(Some(Arc::from(vec![(0u32, 1i64)].into_boxed_slice())));
+            return Ok(Term::new(0, 1).map(|t| Arc::from(vec![t].into_boxed_slice())));
         };
         let mut parts = Vec::with_capacity(others.len());
         for u in &others {
@@ -377,12 +406,14 @@ impl<'q> Walk<'q> {
             return Ok(None);
         };
         let mut ok = true;
-        for &(s, b) in base.iter() {
+        for t in base.iter() {
+            let (s, b) = (t.position(), t.coefficient());
             let Some(xs) = self.times(k, s, progress)? else {
                 ok = false;
                 break;
             };
-            for &(i, a) in xs.iter() {
+            for x in xs.iter() {
+                let (i, a) = (x.position(), x.coefficient());
                 let slot = &mut self.acc[i as usize];
                 if *slot == 0 {
                     self.touched.push(i);
@@ -401,7 +432,8 @@ impl<'q> Walk<'q> {
                 ok = false;
                 break;
             };
-            for &(i, a) in p.iter() {
+            for x in p.iter() {
+                let (i, a) = (x.position(), x.coefficient());
                 let slot = &mut self.acc[i as usize];
                 if *slot == 0 {
                     self.touched.push(i);
@@ -418,9 +450,9 @@ impl<'q> Walk<'q> {
         for &i in &self.touched {
             let x = std::mem::take(&mut self.acc[i as usize]);
             if x != 0 {
-                match i64::try_from(x) {
-                    Ok(x) => out.push((i, x)),
-                    Err(_) => ok = false,
+                match Term::new(i, x) {
+                    Some(t) => out.push(t),
+                    None => ok = false,
                 }
             }
         }
@@ -429,24 +461,22 @@ impl<'q> Walk<'q> {
     }
 }
 
-/// A normal form kept in `i64`; `None` when a coefficient does not fit.
+/// A normal form kept in words ([`Term`]); `None` when a coefficient does not fit.
 fn narrow(v: &[(u32, i128)]) -> Sparse {
-    let out: Option<Vec<(u32, i64)>> = v
-        .iter()
-        .map(|&(i, c)| i64::try_from(c).ok().map(|c| (i, c)))
-        .collect();
+    let out: Option<Vec<Term>> = v.iter().map(|&(i, c)| Term::new(i, c)).collect();
     out.map(|o| Arc::from(o.into_boxed_slice()))
 }
 
-fn to_normal_form(q: &dyn Reduction, v: &[(u32, i64)]) -> NormalForm {
+fn to_normal_form(q: &dyn Reduction, v: &[Term]) -> NormalForm {
     let basis = q.basis();
     let coefficients: Vec<(usize, Mono, BigRational)> = v
         .iter()
-        .map(|&(i, c)| {
+        .map(|t| {
+            let i = t.position() as usize;
             (
-                i as usize,
-                basis[i as usize],
-                BigRational::from_integer(BigInt::from(c)),
+                i,
+                basis[i],
+                BigRational::from_integer(BigInt::from(t.coefficient())),
             )
         })
         .collect();
@@ -457,7 +487,7 @@ fn to_normal_form(q: &dyn Reduction, v: &[(u32, i64)]) -> NormalForm {
     NormalForm { poly, coefficients }
 }
 
-/// Surveys the given permutations (all of the same size n <= 11), in order: the
+/// Surveys the given permutations (all of the same size n <= [`HELD_SURVEY_MAX_N`]), in order: the
 /// records of [`survey_each`] collected.
 ///
 /// ```
@@ -581,7 +611,7 @@ pub fn survey_summaries_each_by<X: From<MathError>>(
 fn make_entry(
     q: &dyn Reduction,
     w: &Perm,
-    nf: Option<&[(u32, i64)]>,
+    nf: Option<&[Term]>,
     table: &mut SchubertTable,
 ) -> MathResult<SurveyEntry> {
     match nf {
@@ -596,7 +626,7 @@ fn make_entry(
 fn make_summary(
     q: &dyn Reduction,
     w: &Perm,
-    nf: Option<&[(u32, i64)]>,
+    nf: Option<&[Term]>,
     table: &mut SchubertTable,
 ) -> MathResult<SurveySummary> {
     match nf {
@@ -606,11 +636,11 @@ fn make_summary(
             // the sum in checked i128 (each term fits i64), over big integers only beyond
             let sum = v
                 .iter()
-                .try_fold(0i128, |acc, &(_, c)| acc.checked_add(i128::from(c)))
+                .try_fold(0i128, |acc, t| acc.checked_add(i128::from(t.coefficient())))
                 .map(|t| BigRational::from_integer(BigInt::from(t)))
                 .unwrap_or_else(|| {
                     v.iter()
-                        .fold(BigRational::zero(), |acc, &(_, c)| acc + int(c))
+                        .fold(BigRational::zero(), |acc, t| acc + int(t.coefficient()))
                 });
             Ok(SurveySummary {
                 perm: w.clone(),
@@ -618,8 +648,8 @@ fn make_summary(
                 sum,
                 negatives: v
                     .iter()
-                    .filter(|t| t.1 < 0)
-                    .map(|&(i, c)| (basis[i as usize], int(c)))
+                    .filter(|t| t.coefficient() < 0)
+                    .map(|t| (basis[t.position() as usize], int(t.coefficient())))
                     .collect(),
             })
         }
@@ -629,7 +659,7 @@ fn make_summary(
 
 /// Makes the record of w from its normal form (`None`: redo it by expansion).
 type Make<'a, E> =
-    dyn Fn(&dyn Reduction, &Perm, Option<&[(u32, i64)]>, &mut SchubertTable) -> MathResult<E> + 'a;
+    dyn Fn(&dyn Reduction, &Perm, Option<&[Term]>, &mut SchubertTable) -> MathResult<E> + 'a;
 
 fn run<E: Clone, X: From<MathError>>(
     given: Option<&dyn Reduction>,
@@ -722,4 +752,25 @@ fn run_by<E: Clone, X: From<MathError>>(
         }
     }
     Ok(())
+}
+
+#[cfg(test)]
+mod term_tests {
+    use super::Term;
+
+    #[test]
+    fn a_term_keeps_its_position_and_coefficient() {
+        for (i, c) in [
+            (0u32, 1i128),
+            (208_011, -1),
+            (5, (1 << 39) - 1),
+            (7, -(1 << 39)),
+        ] {
+            let t = Term::new(i, c).expect("fits");
+            assert_eq!((t.position(), i128::from(t.coefficient())), (i, c));
+        }
+        assert_eq!(Term::new(1, 1 << 39), None);
+        assert_eq!(Term::new(1, -(1 << 39) - 1), None);
+        assert_eq!(Term::new(1 << 24, 1), None);
+    }
 }
