@@ -1,13 +1,15 @@
-//! Speed of the quasisymmetric quotient: the Gröbner basis, reduction of a large
+//! Speed of the quasisymmetric quotient: the Gröbner basis (through forests, beside the
+//! construction by elimination), reduction of a large
 //! polynomial, and the Schubert survey of S_7, each beside a naive baseline where one
 //! makes sense (plain multivariate division by the basis).
 #![allow(clippy::unwrap_used, missing_docs)]
 
 use criterion::{Criterion, criterion_group, criterion_main};
 use elbowroom::math::poly::compositions::monomials_of_degree;
+use elbowroom::math::quotient::forest_route::ForestReducer;
 use elbowroom::math::quotient::groebner::QuasiGroebner;
 use elbowroom::math::quotient::normal_form::{groebner_basis, normal_form};
-use elbowroom::math::quotient::survey::survey;
+use elbowroom::math::quotient::survey::{survey, survey_by};
 use elbowroom::math::schubert::polynomial::SchubertTable;
 use elbowroom::math::{Perm, Progress, RatPoly};
 use num_bigint::BigInt;
@@ -59,6 +61,13 @@ fn bench_groebner(c: &mut Criterion) {
     g.bench_function("compute n=9", |b| {
         b.iter(|| QuasiGroebner::compute(black_box(9), None).unwrap())
     });
+    // the baseline of the same run: the construction by division and elimination
+    g.bench_function("compute_by_elimination n=8", |b| {
+        b.iter(|| QuasiGroebner::compute_by_elimination(black_box(8), None).unwrap())
+    });
+    g.bench_function("compute_by_elimination n=9", |b| {
+        b.iter(|| QuasiGroebner::compute_by_elimination(black_box(9), None).unwrap())
+    });
     g.finish();
 }
 
@@ -108,6 +117,15 @@ fn bench_survey_walk(c: &mut Criterion) {
     g.bench_function("S_8, length < 8: transition on normal forms", |b| {
         b.iter(|| survey(black_box(&perms), &Progress::new(0)).unwrap())
     });
+    g.bench_function(
+        "S_8, length < 8: transition, normal forms through forests",
+        |b| {
+            b.iter(|| {
+                let r = ForestReducer::new(8).unwrap();
+                survey_by(&r, black_box(&perms), &Progress::new(0)).unwrap()
+            })
+        },
+    );
     g.bench_function("S_8, length < 8: expand S_w and divide (baseline)", |b| {
         b.iter(|| {
             let mut table = SchubertTable::new();
