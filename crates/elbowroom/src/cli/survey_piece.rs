@@ -428,12 +428,27 @@ impl Compact<'_> {
         Ok(())
     }
 
-    /// Writes a number (or its length only, when not kept).
-    fn number<E: de::Error>(&mut self, v: impl fmt::Display, len: usize) -> Result<(), E> {
-        self.account(len)?;
+    /// Writes an integer, its sign and its digits (or their count only,
+    /// when not kept).
+    fn integer<E: de::Error>(&mut self, negative: bool, v: u64) -> Result<(), E> {
+        self.account(usize::from(negative) + digits(v))?;
         if self.keep {
-            use std::fmt::Write;
-            let _ = write!(self.out, "{v}");
+            if negative {
+                self.out.push('-');
+            }
+            let mut buf = [0u8; 20];
+            let mut at = buf.len();
+            let mut rest = v;
+            loop {
+                at -= 1;
+                buf[at] = b'0' + (rest % 10) as u8;
+                rest /= 10;
+                if rest == 0 {
+                    break;
+                }
+            }
+            self.out
+                .push_str(std::str::from_utf8(&buf[at..]).unwrap_or("0"));
         }
         Ok(())
     }
@@ -481,11 +496,11 @@ impl<'de> Visitor<'de> for Compact<'_> {
     }
 
     fn visit_i64<E: de::Error>(mut self, v: i64) -> Result<(), E> {
-        self.number(v, usize::from(v < 0) + digits(v.unsigned_abs()))
+        self.integer(v < 0, v.unsigned_abs())
     }
 
     fn visit_u64<E: de::Error>(mut self, v: u64) -> Result<(), E> {
-        self.number(v, digits(v))
+        self.integer(false, v)
     }
 
     fn visit_f64<E: de::Error>(mut self, v: f64) -> Result<(), E> {
@@ -542,6 +557,7 @@ mod tests {
         let texts = [
             r#"{"nvars": 3, "terms": [[[0, 1, 2], "-12"], [[1,0,0],"1"]]}"#,
             r#"[ ]"#,
+            r#"[0, -9223372036854775808, 18446744073709551615, 10, -1]"#,
             r#"{ }"#,
             r#"[1.5, -3, 1e3, true, null, "a\"b\\u00e9\n\u0001\b\f\r\t/", {"x": [[]]}]"#,
         ];
