@@ -393,41 +393,13 @@ fn walk(
         sink.text("],\"counterexamples\":[")?;
     }
     // counterexample j of piece k is its j-th result not nonnegative
-    let mut taken = vec![0usize; count];
-    let mut next = |k: usize,
-                    streams: &mut [PieceStream<Survey>]|
-     -> Result<Option<Counterexample>, CliError> {
-        let p = &pieces[k];
-        match &mut held[k] {
-            Some(items) => items
-                .next()
-                .map(|v| CounterexampleSeed { keep }.deserialize(&v))
-                .transpose()
-                .map_err(|e| not_json(&p.path, &e.to_string())),
-            None => streams[k].next_extra().map_err(|e| not_json(&p.path, &e)),
-        }
-    };
-    let inconsistent = |k: usize,
-                        listed: usize,
-                        streams: &mut [PieceStream<Survey>],
-                        next: &mut dyn FnMut(
-        usize,
-        &mut [PieceStream<Survey>],
-    ) -> Result<Option<Counterexample>, CliError>|
-     -> CliError {
-        let mut listed = listed;
-        loop {
-            match next(k, streams) {
-                Ok(Some(_)) => listed += 1,
-                Ok(None) => break,
-                Err(e) => return e,
-            }
-        }
-        bad(format!(
-            "{}: its counterexamples ({listed}) are not its results with \"nonnegative\": false ({}); the piece is not consistent",
-            pieces[k].label(),
-            negative[k]
-        ))
+    let mut counter = Counterexamples {
+        pieces,
+        streams: &mut streams,
+        held,
+        keep,
+        taken: vec![0; count],
+        negative: &negative,
     };
     let mut first = true;
     for (word, &b) in bits.iter().enumerate() {
@@ -437,9 +409,8 @@ fn walk(
             b &= b - 1;
             progress.check()?;
             let k = i % count;
-            match next(k, &mut streams)? {
+            match counter.next(k)? {
                 Some(c) if same(&c.perm, listing.get(i)) => {
-                    taken[k] += 1;
                     if let Some((sink, _)) = &mut out {
                         text.clear();
                         if !first {
@@ -450,14 +421,13 @@ fn walk(
                     }
                     first = false;
                 }
-                Some(_) => return Err(inconsistent(k, taken[k] + 1, &mut streams, &mut next)),
-                None => return Err(inconsistent(k, taken[k], &mut streams, &mut next)),
+                _ => return Err(counter.inconsistent(k)),
             }
         }
     }
     for k in 0..count {
-        if next(k, &mut streams)?.is_some() {
-            return Err(inconsistent(k, taken[k] + 1, &mut streams, &mut next));
+        if counter.next(k)?.is_some() {
+            return Err(counter.inconsistent(k));
         }
     }
     for (k, (p, s)) in pieces.iter().zip(&mut streams).enumerate() {
@@ -479,4 +449,56 @@ fn walk(
         }
     }
     Ok(negative.iter().sum())
+}
+
+/// The counterexamples of the pieces, one piece at a time: from the stream,
+/// or from the list read whole when it came before the results.
+struct Counterexamples<'a> {
+    pieces: &'a [Piece],
+    streams: &'a mut [PieceStream<Survey>],
+    held: Vec<Option<std::vec::IntoIter<Value>>>,
+    keep: bool,
+    /// How many were read from each piece.
+    taken: Vec<usize>,
+    /// How many results of each piece are not nonnegative.
+    negative: &'a [usize],
+}
+
+impl Counterexamples<'_> {
+    /// The next counterexample of piece k.
+    fn next(&mut self, k: usize) -> Result<Option<Counterexample>, CliError> {
+        let path = &self.pieces[k].path;
+        let next = match &mut self.held[k] {
+            Some(items) => items
+                .next()
+                .map(|v| CounterexampleSeed { keep: self.keep }.deserialize(&v))
+                .transpose()
+                .map_err(|e| not_json(path, &e.to_string()))?,
+            None => self.streams[k]
+                .next_extra()
+                .map_err(|e| not_json(path, &e))?,
+        };
+        if next.is_some() {
+            self.taken[k] += 1;
+        }
+        Ok(next)
+    }
+
+    /// Piece k's counterexamples are not its results marked not nonnegative:
+    /// the message counts both (the rest of its counterexamples read).
+    fn inconsistent(&mut self, k: usize) -> CliError {
+        loop {
+            match self.next(k) {
+                Ok(Some(_)) => {}
+                Ok(None) => break,
+                Err(e) => return e,
+            }
+        }
+        bad(format!(
+            "{}: its counterexamples ({}) are not its results with \"nonnegative\": false ({}); the piece is not consistent",
+            self.pieces[k].label(),
+            self.taken[k],
+            self.negative[k]
+        ))
+    }
 }
