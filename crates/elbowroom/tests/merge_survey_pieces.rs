@@ -190,6 +190,63 @@ fn a_piece_that_is_not_consistent_is_refused() {
     );
 }
 
+/// Counterexamples (none exists for n <= 11, so pieces are doctored to carry
+/// some, consistently: a result marked not nonnegative, its counterexample,
+/// `"all_nonnegative": false`) come out in listing order across the pieces,
+/// whether a piece lists them after its results or before: the merge is the
+/// whole run with the same changes made.
+#[test]
+fn counterexamples_merge_in_listing_order() {
+    let dir = Scratch::new("counter");
+    let whole: Value = serde_json::from_slice(&stdout(&["survey", "--n", "5", "--json"])).unwrap();
+    let pieces: Vec<Value> = (1..=3)
+        .map(|k| {
+            serde_json::from_slice(&stdout(&[
+                "survey",
+                "--n",
+                "5",
+                "--json",
+                "--shard",
+                &format!("{k}/3"),
+            ]))
+            .unwrap()
+        })
+        .collect();
+    // listing positions 4 (piece 2), 7 and 31 (piece 2), 9 (piece 1)
+    let marked = [4usize, 7, 9, 31];
+    let negative = serde_json::json!([{"monomial": [0, 0, 0, 0, 1], "value": "-1"}]);
+    let mut expected = whole.clone();
+    let mut doctored_pieces = pieces.clone();
+    let mut counter = Vec::new();
+    for &i in &marked {
+        expected["results"][i]["nonnegative"] = Value::Bool(false);
+        let perm = expected["results"][i]["perm"].clone();
+        let c = serde_json::json!({"perm": perm, "negative_coefficients": negative});
+        counter.push(c.clone());
+        let piece = &mut doctored_pieces[i % 3];
+        piece["results"][i / 3]["nonnegative"] = Value::Bool(false);
+        piece["counterexamples"].as_array_mut().unwrap().push(c);
+        piece["all_nonnegative"] = Value::Bool(false);
+    }
+    expected["counterexamples"] = Value::Array(counter);
+    expected["all_nonnegative"] = Value::Bool(false);
+    let mut files = Vec::new();
+    for (k, p) in doctored_pieces.iter().enumerate() {
+        let text = if k == 1 {
+            reordered(
+                &serde_json::to_vec(p).unwrap(),
+                &["counterexamples", "results"],
+            )
+        } else {
+            serde_json::to_vec(p).unwrap()
+        };
+        files.push(dir.write(&format!("piece{k}.json"), &text));
+    }
+    let merged = stdout(&["merge", &files[2], &files[1], &files[0]]);
+    let expected = serde_json::to_string(&expected).unwrap() + "\n";
+    assert_eq!(as_whole(&merged, 3), expected);
+}
+
 /// Small surveys: the counterexample-free survey of S_4 (every normal form
 /// nonnegative for n <= 11, README) merges into the whole run; old cases of
 /// pieces that do not belong together keep their messages.
