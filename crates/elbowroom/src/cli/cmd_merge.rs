@@ -20,7 +20,7 @@ use super::documents::{HESSENBERG_KIND, HessenbergJsonStream, SURVEY_KIND, VERSI
 use super::error::CliError;
 use super::interrupt;
 use super::json;
-use super::merge_survey::{SurveyPiece, merge_survey_pieces};
+use super::merge_survey;
 use super::output::Sink;
 use super::piece_reader::{self, PieceStream};
 use super::shard::Shard;
@@ -32,16 +32,12 @@ use num_bigint::BigInt;
 use serde_json::Value;
 use std::collections::BTreeSet;
 use std::fs::File;
-use std::io::{BufReader, Read};
 use std::path::{Path, PathBuf};
 use std::sync::Arc;
 
 /// The largest piece read: a whole table of n = 16 (43 874 857 rows of about
 /// 66 bytes) is about 2.9 GB; 4 GB leaves room and refuses anything larger.
 pub const MERGE_FILE_LIMIT: u64 = 4_000_000_000;
-
-/// The largest survey piece read (surveys are read whole).
-pub const SURVEY_FILE_LIMIT: u64 = 256_000_000;
 
 pub fn run(args: &MergeArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     let mut kinds = Vec::new();
@@ -62,16 +58,7 @@ pub fn run(args: &MergeArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     }
     match kind.as_str() {
         HESSENBERG_KIND => merge_hessenberg(&args.files, sink),
-        SURVEY_KIND => {
-            let mut pieces = Vec::new();
-            for path in &args.files {
-                pieces.push(read_survey(path)?);
-            }
-            let merged = merge_survey_pieces(pieces)?;
-            let text = serde_json::to_string(&merged)
-                .map_err(|e| CliError::Failed(format!("cannot write the merge: {e}")))?;
-            sink.whole(&text)
-        }
+        SURVEY_KIND => merge_survey::merge(&args.files, sink),
         other => Err(CliError::Input(format!(
             "cannot merge files of kind '{other}'; accepted kinds: {HESSENBERG_KIND}, {SURVEY_KIND}"
         ))),
@@ -99,7 +86,7 @@ fn check_file(path: &Path) -> Result<(), CliError> {
     Ok(())
 }
 
-fn open(path: &Path) -> Result<File, CliError> {
+pub(super) fn open(path: &Path) -> Result<File, CliError> {
     File::open(path).map_err(|e| CliError::Input(format!("cannot read {}: {e}", shown(path))))
 }
 
@@ -108,7 +95,7 @@ fn stream(path: &Path) -> Result<PieceStream, CliError> {
     PieceStream::open(open(path)?).map_err(|e| not_json(path, &e))
 }
 
-fn not_json(path: &Path, why: &str) -> CliError {
+pub(super) fn not_json(path: &Path, why: &str) -> CliError {
     CliError::Input(format!(
         "{} is not a JSON output of elbowroom: {why}",
         shown(path)
@@ -118,22 +105,6 @@ fn not_json(path: &Path, why: &str) -> CliError {
 /// The `"kind"` of a file: its fields are read up to the kind or to a list.
 fn kind_of(path: &Path) -> Result<String, CliError> {
     piece_reader::kind(open(path)?).map_err(|e| not_json(path, &e))
-}
-
-/// A survey piece read with serde as it streams from the file (the text is
-/// never held whole).
-fn read_survey(path: &Path) -> Result<SurveyPiece, CliError> {
-    let len = std::fs::metadata(path).map(|m| m.len()).unwrap_or(0);
-    if len > SURVEY_FILE_LIMIT {
-        return Err(CliError::Input(format!(
-            "{} has {len} bytes, more than the {SURVEY_FILE_LIMIT} accepted for a survey piece",
-            shown(path)
-        )));
-    }
-    let file = File::open(path)
-        .map_err(|e| CliError::Input(format!("cannot read {}: {e}", shown(path))))?;
-    let reader = BufReader::with_capacity(1 << 16, file.take(SURVEY_FILE_LIMIT + 1));
-    serde_json::from_reader(reader).map_err(|e| not_json(path, &e.to_string()))
 }
 
 /// One Hessenberg piece as read from its head and the end of its file.

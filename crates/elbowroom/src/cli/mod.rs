@@ -39,11 +39,12 @@ pub(crate) mod expansion_text;
 pub(crate) mod inputs;
 pub mod interrupt;
 pub mod json;
-pub mod merge_survey;
+pub(crate) mod merge_survey;
 pub mod open_file;
 pub mod output;
 pub(crate) mod piece_reader;
 pub mod shard;
+pub(crate) mod survey_piece;
 
 pub use args::{Cli, Command};
 pub use error::CliError;
