@@ -8,7 +8,8 @@
 //! mathematics. Outside `math`: the engine's `DREAM_LIMIT` (200 000 dreams
 //! listed in the explorer), the `dreams --bumpless` listing cap
 //! `cli::cmd_dreams::BUMPLESS_LIMIT` (200 000), and the piece sizes `merge`
-//! reads (`cli::cmd_merge::{MERGE_FILE_LIMIT, SURVEY_FILE_LIMIT}`).
+//! reads (`cli::cmd_merge::MERGE_FILE_LIMIT`, and `cli::survey_piece::MAX_FORM_TEXT` for
+//! one normal form of a survey piece).
 
 pub use crate::explain::formula::{EXPLAIN_MAX_N, WORD_FORMULA_WORK_LIMIT};
 pub use crate::explain::rules::TABLEAUX_LISTED;
@@ -30,8 +31,10 @@ pub use crate::permutohedra::remixed::REMIXED_TABLE_WORK_LIMIT;
 pub use crate::poly::mono::{MAX_EXP, MAX_VARS};
 pub use crate::poly::parse::MAX_NESTING;
 pub use crate::poly::polynomial::TERM_LIMIT;
-pub use crate::quotient::groebner::{MAX_CONSTRUCTION_BYTES, MAX_QUOTIENT_N};
+pub use crate::quotient::forest_route::MAX_FOREST_ROUTE_N;
+pub use crate::quotient::groebner::{MAX_CONSTRUCTION_BYTES, MAX_ELIMINATION_N, MAX_QUOTIENT_N};
 pub use crate::quotient::survey::FULL_LISTING_MAX_N;
+pub use crate::quotient::survey::HELD_SURVEY_MAX_N;
 pub use crate::schubert::expansion::{EXPANSION_MONOMIAL_LIMIT, VECTOR_TERM_LIMIT};
 pub use crate::schubert::product::{PRODUCT_TERM_LIMIT, TRANSITION_NODE_LIMIT};
 
