@@ -189,11 +189,14 @@ pub struct WordsArgs {
     #[arg(long)]
     pub count: bool,
     /// The number of reduced words of each content c (c_i = number of letters i), no words listed.
-    #[arg(long, conflicts_with = "count")]
+    #[arg(long, conflicts_with_all = ["count", "jsonl"])]
     pub by_content: bool,
     /// How to print the result.
     #[command(flatten)]
     pub output: JsonOutput,
+    /// `--jsonl`.
+    #[command(flatten)]
+    pub lines: JsonLines,
     /// Where the output goes.
     #[command(flatten)]
     pub out: OutFile,
@@ -217,6 +220,9 @@ pub struct DreamsArgs {
     /// How to print the result.
     #[command(flatten)]
     pub output: JsonOutput,
+    /// `--jsonl`.
+    #[command(flatten)]
+    pub lines: JsonLines,
     /// Where the output goes.
     #[command(flatten)]
     pub out: OutFile,
@@ -241,6 +247,7 @@ pub struct DivsymArgs {
 
 /// Arguments of `elbowroom hessenberg`.
 #[derive(Args, Debug)]
+#[command(group(clap::ArgGroup::new("one_format").args(["jsonl", "csv", "latex"]).multiple(false)))]
 pub struct HessenbergArgs {
     /// The number of variables n.
     #[arg(long, allow_hyphen_values = true, value_parser = table_n, help = format!("The number of variables n (1 to {})", crate::math::hessenberg::function::HESSENBERG_MAX_N))]
@@ -387,7 +394,7 @@ impl TableOutput {
 pub struct JsonLines {
     /// Print JSON Lines: a header object, one object per row (a survey adds one
     /// {"counterexample": ...} per counterexample), then a summary object.
-    #[arg(long, conflicts_with_all = ["json", "csv", "latex"])]
+    #[arg(long, conflicts_with = "json")]
     pub jsonl: bool,
 }
 
@@ -464,6 +471,7 @@ pub struct ReduceArgs {
 
 /// Arguments of `elbowroom survey`.
 #[derive(Args, Debug)]
+#[command(group(clap::ArgGroup::new("one_format").args(["jsonl", "csv", "latex"]).multiple(false)))]
 pub struct SurveyArgs {
     /// Survey all of S_n (the help names the range from the limits).
     #[arg(

@@ -7,8 +7,8 @@ use super::args::DreamsArgs;
 use super::error::CliError;
 use super::interrupt;
 use super::output::Sink;
-use crate::math::pipes::bumpless::bumpless_dreams;
-use crate::math::pipes::dream::{count_pipe_dreams, pipe_dreams};
+use crate::math::pipes::bumpless::{BumplessDream, bumpless_dreams};
+use crate::math::pipes::dream::{PipeDream, count_pipe_dreams, pipe_dreams};
 use crate::math::poly::mono::exponents_text;
 use crate::math::{Perm, Progress};
 use num_bigint::BigUint;
@@ -87,23 +87,20 @@ fn reduced(
     };
     progress.set_total(listed as u64);
     let dreams = pipe_dreams(w).take(listed);
+    let record = |d: PipeDream| DreamRecord {
+        crosses: d.crosses().iter().map(|&(i, j)| [i, j]).collect(),
+        word: d.reading_word(),
+        monomial: d.monomial(),
+    };
+    let head = DreamsHead {
+        perm: w.one_line(),
+        count: count.to_string(),
+    };
+    if args.lines.jsonl {
+        return sink.json_lines_listing("pipe_dreams", &head, dreams, record, progress, written);
+    }
     if args.output.json {
-        let head = DreamsHead {
-            perm: w.one_line(),
-            count: count.to_string(),
-        };
-        return sink.json_listing(
-            &head,
-            "dreams",
-            dreams,
-            |d| DreamRecord {
-                crosses: d.crosses().iter().map(|&(i, j)| [i, j]).collect(),
-                word: d.reading_word(),
-                monomial: d.monomial(),
-            },
-            progress,
-            written,
-        );
+        return sink.json_listing(&head, "dreams", dreams, record, progress, written);
     }
     sink.text(&heading(count, w, "reduced pipe dream", listed))?;
     write_each(sink, dreams, progress, written, |buf, k, d| {
@@ -149,23 +146,27 @@ fn bumpless(
         dreams.truncate(shown);
     }
     progress.set_total(dreams.len() as u64);
-    if args.output.json {
-        let head = DreamsHead {
-            perm: w.one_line(),
-            count: count.to_string(),
-        };
-        return sink.json_listing(
+    let record = |d: &BumplessDream| BumplessRecord {
+        blanks: d.blanks().iter().map(|&(i, j)| [i, j]).collect(),
+        monomial: d.monomial(),
+        tiles: d.to_string().lines().map(str::to_string).collect(),
+    };
+    let head = DreamsHead {
+        perm: w.one_line(),
+        count: count.to_string(),
+    };
+    if args.lines.jsonl {
+        return sink.json_lines_listing(
+            "bumpless_pipe_dreams",
             &head,
-            "dreams",
             &dreams,
-            |d| BumplessRecord {
-                blanks: d.blanks().iter().map(|&(i, j)| [i, j]).collect(),
-                monomial: d.monomial(),
-                tiles: d.to_string().lines().map(str::to_string).collect(),
-            },
+            record,
             progress,
             written,
         );
+    }
+    if args.output.json {
+        return sink.json_listing(&head, "dreams", &dreams, record, progress, written);
     }
     sink.text(&heading(count, w, "bumpless pipe dream", dreams.len()))?;
     write_each(sink, dreams.iter(), progress, written, |buf, k, d| {

@@ -22,6 +22,12 @@ struct WordsHead {
     count: String,
 }
 
+/// One line of `words --jsonl`.
+#[derive(Serialize)]
+struct WordRow {
+    word: Vec<usize>,
+}
+
 /// The number of reduced words of one content.
 #[derive(Serialize)]
 struct ContentCount<'a, C: Serialize> {
@@ -76,6 +82,21 @@ fn list(
     written: &mut u64,
 ) -> Result<(), CliError> {
     let words = reduced_words(w).take(listed);
+    if args.lines.jsonl {
+        let head = WordsHead {
+            perm: w.one_line(),
+            length: w.length(),
+            count: count.to_string(),
+        };
+        return sink.json_lines_listing(
+            "reduced_words",
+            &head,
+            words,
+            |word| WordRow { word },
+            progress,
+            written,
+        );
+    }
     if args.output.json {
         let head = WordsHead {
             perm: w.one_line(),

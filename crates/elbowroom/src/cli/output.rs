@@ -153,6 +153,47 @@ impl<'a> Sink<'a> {
         self.text("]}\n")
     }
 
+    /// A listing as JSON Lines (`--jsonl`): a header line `{"kind": KIND, ...head}`, one
+    /// line per item (each item's object), then `{"summary": KIND, "count": rows}`.
+    #[allow(clippy::too_many_arguments)]
+    pub fn json_lines_listing<T, R: serde::Serialize>(
+        &mut self,
+        kind: &str,
+        head: &impl serde::Serialize,
+        items: impl IntoIterator<Item = T>,
+        item: impl Fn(T) -> R,
+        progress: &crate::math::Progress,
+        written: &mut u64,
+    ) -> Result<(), CliError> {
+        #[derive(serde::Serialize)]
+        struct Header<'a, H> {
+            kind: &'a str,
+            #[serde(flatten)]
+            head: &'a H,
+        }
+        #[derive(serde::Serialize)]
+        struct Summary<'a> {
+            summary: &'a str,
+            count: u64,
+        }
+        self.text(&super::json::line(&Header { kind, head }))?;
+        self.text("\n")?;
+        let mut rows = 0u64;
+        for x in items {
+            progress.check()?;
+            self.text(&super::json::line(&item(x)))?;
+            self.text("\n")?;
+            progress.advance(1);
+            *written += 1;
+            rows += 1;
+        }
+        self.text(&super::json::line(&Summary {
+            summary: kind,
+            count: rows,
+        }))?;
+        self.text("\n")
+    }
+
     /// Writes a whole output collected as one string, ending it with a newline.
     pub fn whole(&mut self, s: &str) -> Result<(), CliError> {
         self.text(s)?;
