@@ -19,6 +19,9 @@ def test_keyboard_interrupt_stops_hessenberg_15():
     # seconds of building the dict. The SIGINT comes from another process, as a
     # terminal's Ctrl-C does (a Python timer thread would need the interpreter lock
     # to send it, which a loaded machine may not give it in time).
+    # A process started in the background by a non-interactive shell inherits SIGINT
+    # ignored, and Python then installs no KeyboardInterrupt handler: install it here.
+    previous = signal.signal(signal.SIGINT, signal.default_int_handler)
     start = time.monotonic()
     killer = subprocess.Popen(["sh", "-c", f"sleep 0.5; kill -INT {os.getpid()}"])
     try:
@@ -27,6 +30,7 @@ def test_keyboard_interrupt_stops_hessenberg_15():
         stopped = time.monotonic()
     finally:
         killer.wait()
+        signal.signal(signal.SIGINT, previous)
     # the signal left at 0.5 s at the earliest
     reaction = stopped - (start + 0.5)
     print(f"hessenberg(15) stopped {reaction * 1000:.0f} ms after SIGINT "
