@@ -116,3 +116,28 @@ fn json_lines_refuse_another_format() {
         assert!(out.stdout.is_empty());
     }
 }
+
+#[test]
+fn a_schubert_expansion_as_json_lines() {
+    // S_w = x^code(w) for dominant w (Lascoux–Schützenberger): S_312 = x1^2 and
+    // S_231 = x1 x2, so x1^2 + x1 x2 = S_231 + S_312
+    let got = lines(&["expand", "x1^2 + x1 x2", "--n", "3", "--stable", "--jsonl"]);
+    let doc = common::json(&["expand", "x1^2 + x1 x2", "--n", "3", "--stable", "--json"]);
+    assert_eq!(got[0]["kind"], "schubert_expansion");
+    assert_eq!(
+        (&got[0]["n"], &got[0]["stable"]),
+        (&doc["n"], &doc["stable"])
+    );
+    let rows = &got[1..got.len() - 1];
+    assert_eq!(rows, doc["terms"].as_array().expect("a list").as_slice());
+    let perms: Vec<&Value> = rows.iter().map(|r| &r["perm"]).collect();
+    assert_eq!(
+        perms,
+        [&serde_json::json!([2, 3, 1]), &serde_json::json!([3, 1, 2])]
+    );
+    assert!(rows.iter().all(|r| r["coefficient"] == "1"));
+    let summary = got.last().expect("a summary");
+    assert_eq!(summary["summary"], "schubert_expansion");
+    assert_eq!(summary["count"], 2);
+    assert_eq!(summary["nonnegative"], doc["nonnegative"]);
+}

@@ -191,15 +191,12 @@ impl ForestReducer {
             }
         }
         let mut out = Vec::new();
-        let mut steps = 0u32;
         while let Some((c, v)) = pending.pop_smallest() {
             if v.is_zero() {
                 continue;
             }
-            steps += 1;
-            if steps.is_multiple_of(1024) {
-                check()?;
-            }
+            // one load of the cancel flag a code (a new class can be a long walk)
+            check()?;
             let e = reverse_mono(c, n);
             let Some(&pos) = self.index.get(&e) else {
                 return Err(MathError::InvalidInput(format!(

@@ -316,12 +316,15 @@ impl<'q> Walk<'q> {
     /// Moves on to the permutations of length `level`: the finished level becomes the
     /// level below, the products of the degree before it are dropped, and the uses of
     /// what is kept are counted.
-    fn next_level(&mut self, level: usize, top: bool) {
+    fn next_level(&mut self, level: usize, top: bool, progress: &Progress) -> MathResult<()> {
         self.prev = std::mem::take(&mut self.cur);
-        self.times_var.clear();
+        crate::schubert::flat::free_later(std::mem::take(&mut self.times_var));
         self.prev_uses.clear();
         let mut cur_uses: HashMap<Vec<u8>, u32> = HashMap::new();
-        for w in perms_of_length(self.n, level) {
+        for (k, w) in perms_of_length(self.n, level).into_iter().enumerate() {
+            if k % 4096 == 0 {
+                progress.check()?;
+            }
             let Some((_, v, others)) = transition(w.as_bytes()) else {
                 continue;
             };
@@ -335,6 +338,19 @@ impl<'q> Walk<'q> {
         }
         self.prev.retain(|v, _| self.prev_uses.contains_key(v));
         self.cur_uses = top.then_some(cur_uses);
+        Ok(())
+    }
+
+    /// Hands everything the walk holds to rayon's pool to free.
+    fn free_later(&mut self) {
+        crate::schubert::flat::free_later((
+            std::mem::take(&mut self.times_var),
+            std::mem::take(&mut self.prev),
+            std::mem::take(&mut self.cur),
+            std::mem::take(&mut self.prev_uses),
+            self.cur_uses.take(),
+            std::mem::take(&mut self.acc),
+        ));
     }
 
     /// The record of w is handed out: on the top level its normal form may go.
@@ -406,7 +422,10 @@ impl<'q> Walk<'q> {
             return Ok(None);
         };
         let mut ok = true;
-        for t in base.iter() {
+        for (j, t) in base.iter().enumerate() {
+            if j % 64 == 63 {
+                progress.check()?;
+            }
             let (s, b) = (t.position(), t.coefficient());
             let Some(xs) = self.times(k, s, progress)? else {
                 ok = false;
@@ -731,25 +750,35 @@ fn run_by<E: Clone, X: From<MathError>>(
         }
     } else if !wanted.is_empty() {
         let mut walk = Walk::new(q, n);
-        for level in 0..=top {
-            walk.next_level(level, level == top);
-            for w in perms_of_length(n, level) {
-                let key = w.as_bytes();
-                let nf = walk.normal_form(key, progress)?;
-                if level == 0 {
-                    walk.cur.insert(key.to_vec(), nf.clone());
-                }
-                walk.done_with(key);
-                let Some(places) = wanted.get(key) else {
-                    continue;
-                };
-                let e = make(q, &w, nf.as_deref(), &mut table)?;
-                for &i in places {
-                    each(i, e.clone())?;
-                    progress.advance(1);
+        let mut levels = || -> Result<(), X> {
+            for level in 0..=top {
+                walk.next_level(level, level == top, progress)?;
+                for w in perms_of_length(n, level) {
+                    let key = w.as_bytes();
+                    let nf = walk.normal_form(key, progress)?;
+                    if level == 0 {
+                        walk.cur.insert(key.to_vec(), nf.clone());
+                    }
+                    walk.done_with(key);
+                    let Some(places) = wanted.get(key) else {
+                        continue;
+                    };
+                    let e = make(q, &w, nf.as_deref(), &mut table)?;
+                    for &i in places {
+                        each(i, e.clone())?;
+                        progress.advance(1);
+                    }
                 }
             }
+            Ok(())
+        };
+        let walked = levels();
+        if walked.is_err() {
+            // a stopped walk hands what it holds (gigabytes at n = 12) to the pool to free,
+            // so that the stop is reported at once
+            walk.free_later();
         }
+        return walked;
     }
     Ok(())
 }

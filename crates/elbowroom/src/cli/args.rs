@@ -293,6 +293,9 @@ pub struct ExpandArgs {
     /// How to print the result.
     #[command(flatten)]
     pub output: JsonOutput,
+    /// `--jsonl`.
+    #[command(flatten)]
+    pub lines: JsonLines,
 }
 
 /// Arguments of `elbowroom product`.

@@ -30,6 +30,25 @@ struct ExpandSummary {
     nonnegative: bool,
 }
 
+/// The header line of `expand --jsonl`.
+#[derive(Serialize)]
+struct ExpandLinesHead {
+    kind: &'static str,
+    n: usize,
+    stable: bool,
+}
+
+/// The summary line of `expand --jsonl`.
+#[derive(Serialize)]
+struct ExpandLinesSummary {
+    summary: &'static str,
+    count: usize,
+    nonnegative: bool,
+}
+
+/// The kind of `expand --jsonl`'s lines.
+const LINES_KIND: &str = "schubert_expansion";
+
 /// How many bytes of terms are gathered before they go to the sink.
 const FLUSH_AT: usize = 1 << 16;
 
@@ -42,6 +61,27 @@ pub fn run(args: &ExpandArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
     })?;
     let terms = &expansion.terms;
     let mut buf = String::with_capacity(FLUSH_AT + 256);
+    if args.lines.jsonl {
+        // a header line, one {"perm":[...],"coefficient":"c"} a line, a summary line
+        buf.push_str(&json::line(&ExpandLinesHead {
+            kind: LINES_KIND,
+            n: args.n,
+            stable: args.stable,
+        }));
+        buf.push('\n');
+        for (w, c) in terms {
+            buf.push_str(&json::text(&TermRecord::of(w, c))?);
+            buf.push('\n');
+            flush_when_full(&mut buf, sink)?;
+        }
+        buf.push_str(&json::line(&ExpandLinesSummary {
+            summary: LINES_KIND,
+            count: terms.len(),
+            nonnegative: expansion.is_nonnegative(),
+        }));
+        buf.push('\n');
+        return sink.text(&buf);
+    }
     if args.output.json {
         // {"n":N,"stable":B,"terms":[{"perm":[...],"coefficient":"c"},...],"nonnegative":B}
         let head = ExpandHead {

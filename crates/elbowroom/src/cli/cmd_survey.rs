@@ -262,7 +262,8 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
         basis_first(n, perms.len())?;
     }
     let summary = args.summary;
-    match format {
+    let mut job = job;
+    let result = match format {
         // the summary needs no normal form kept: the compact records
         Format::Text | Format::Json | Format::Jsonl if summary => stream(
             &job,
@@ -284,7 +285,14 @@ pub fn run(args: &SurveyArgs, sink: &mut Sink<'_>) -> Result<(), CliError> {
             let row = TableRow::new(n, summary, format == Format::Latex);
             stream_table(&job, &perms, sink, &row)
         }
+    };
+    if result.is_err()
+        && let Some(forests) = job.forests.take()
+    {
+        // what the forest route holds is freed on the pool, so a stop is reported at once
+        crate::math::schubert::flat::free_later(forests);
     }
+    result
 }
 
 /// Builds the basis of J_n before the walk (the walk then finds it built), so
