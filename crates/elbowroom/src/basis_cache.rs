@@ -147,12 +147,8 @@ pub fn basis_with(n: usize, progress: &Progress) -> MathResult<Arc<QuasiGroebner
 }
 
 /// The way of reducing modulo J_n for every command and the window: the Gröbner basis of
-/// [`basis_with`] for n ≤ [`MAX_QUOTIENT_N`], the forest route of the math crate beyond
-/// (where the basis is not built). Cancellable through `progress`.
+/// [`basis_with`] (held, cached or built). Cancellable through `progress`.
 pub fn reducer_with(n: usize, progress: &Progress) -> MathResult<Arc<dyn Reduction>> {
-    if (1..=MAX_QUOTIENT_N).contains(&n) {
-        let q: Arc<dyn Reduction> = basis_with(n, progress)?;
-        return Ok(q);
-    }
-    math::quotient::reduction::reducer_with(n, progress)
+    let q: Arc<dyn Reduction> = basis_with(n, progress)?;
+    Ok(q)
 }

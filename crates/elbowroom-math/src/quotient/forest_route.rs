@@ -21,14 +21,15 @@
 //! ([`crate::forest::expansion`]) that carries one monomial and a sign, and every
 //! coefficient is ±1. Each class is computed once per reducer and kept.
 //!
-//! Used where the Gröbner basis is not built (n = 12); for n ≤ 11 the tests compare it
-//! with division by the Gröbner basis on every monomial of degree < n up to n = 7 and on
-//! whole surveys.
+//! Used to build the Gröbner basis ([`crate::quotient::basis_by_forests`]) and by
+//! `--by-forests`; the tests compare it with division by the Gröbner basis on every
+//! monomial of degree < n up to n = 7 and on whole surveys.
 
 use crate::error::{MathError, MathResult};
 use crate::forest::indexed::insert_code;
 use crate::poly::mono::Mono;
 use crate::progress::Progress;
+use crate::quotient::groebner::QuasiGroebner;
 use num_bigint::BigInt;
 use num_traits::ToPrimitive;
 use rustc_hash::FxHashMap;
@@ -62,34 +63,6 @@ pub fn reverse_mono(m: Mono, n: usize) -> Mono {
     out
 }
 
-/// The standard monomials of Q[x_1..x_n]/J_n, by increasing degree and within a degree in
-/// decreasing lex order (the order of the Gröbner basis's `basis()`).
-pub fn standard_monomials(n: usize) -> Vec<Mono> {
-    let mut by_degree: Vec<Vec<Mono>> = vec![Vec::new(); n.max(1)];
-    let mut e = vec![0u32; n];
-    fn fill(i: usize, sum: u32, e: &mut Vec<u32>, out: &mut [Vec<Mono>]) {
-        if i == e.len() {
-            if let Some(m) = Mono::from_exps(e) {
-                out[sum as usize].push(m);
-            }
-            return;
-        }
-        // e_1 + ... + e_{i+1} <= i
-        for v in 0..=(i as u32).saturating_sub(sum) {
-            e[i] = v;
-            fill(i + 1, sum + v, e, out);
-        }
-        e[i] = 0;
-    }
-    fill(0, 0, &mut e, &mut by_degree);
-    let mut out = Vec::new();
-    for mut level in by_degree {
-        level.sort_unstable_by(|a, b| b.cmp(a));
-        out.extend(level);
-    }
-    out
-}
-
 impl ForestReducer {
     /// A reducer for Q[x_1..x_n]/J_n, 1 ≤ n ≤ [`MAX_FOREST_ROUTE_N`].
     pub fn new(n: usize) -> MathResult<ForestReducer> {
@@ -98,7 +71,7 @@ impl ForestReducer {
                 "normal forms through forests are computed for 1 <= n <= {MAX_FOREST_ROUTE_N}, not n = {n}"
             )));
         }
-        let basis = standard_monomials(n);
+        let basis = QuasiGroebner::standard_basis(n);
         let index = basis
             .iter()
             .enumerate()
@@ -120,11 +93,6 @@ impl ForestReducer {
     /// The standard monomials, in the order of the positions used by [`Self::reduce_small`].
     pub fn basis(&self) -> &[Mono] {
         &self.basis
-    }
-
-    /// The position of a standard monomial in [`Self::basis`].
-    pub fn basis_position(&self, m: Mono) -> Option<usize> {
-        self.index.get(&m).map(|&i| i as usize)
     }
 
     /// The normal form of Σ c·m as (basis position, coefficient), sorted by position, zeros
@@ -239,11 +207,6 @@ impl ForestReducer {
             .map_err(|_| poisoned())?
             .insert(c, class.clone());
         Ok(class)
-    }
-
-    /// How many classes of monomials the reducer holds (diagnostics).
-    pub fn classes_held(&self) -> usize {
-        self.classes.read().map(|m| m.len()).unwrap_or(0)
     }
 }
 
@@ -458,7 +421,7 @@ mod tests {
         // Catalan numbers, OEIS A000108
         let want = [1, 2, 5, 14, 42, 132, 429, 1430, 4862, 16796, 58786, 208012];
         for (n, &c) in (1..=12).zip(want.iter()) {
-            let b = standard_monomials(n);
+            let b = QuasiGroebner::standard_basis(n);
             assert_eq!(b.len(), c, "n = {n}");
             assert!(b.iter().all(|m| is_standard(&m.exps(n))));
         }

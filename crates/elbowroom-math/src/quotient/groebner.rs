@@ -514,12 +514,24 @@ impl QuasiGroebner {
     /// The standard monomials of n variables: by increasing degree, each degree in
     /// decreasing lex order (the order of [`Self::basis`]).
     pub(crate) fn standard_basis(n: usize) -> Vec<Mono> {
+        // e_1 + ... + e_{i+1} <= i, chosen left to right (only the standard ones are visited)
+        fn fill(i: usize, sum: u32, e: &mut Vec<u32>, out: &mut [Vec<Mono>]) {
+            if i == e.len() {
+                if let Some(m) = Mono::from_exps(e) {
+                    out[sum as usize].push(m);
+                }
+                return;
+            }
+            for v in 0..=(i as u32).saturating_sub(sum) {
+                e[i] = v;
+                fill(i + 1, sum + v, e, out);
+            }
+            e[i] = 0;
+        }
+        let mut by_degree: Vec<Vec<Mono>> = vec![Vec::new(); n.max(1)];
+        fill(0, 0, &mut vec![0u32; n], &mut by_degree);
         let mut basis = Vec::new();
-        for d in 0..n as u32 {
-            let mut of_d: Vec<Mono> = monomials_of_degree(n, d)
-                .into_iter()
-                .filter(|m| is_standard(&m.exps(n)))
-                .collect();
+        for mut of_d in by_degree {
             of_d.sort_unstable_by(|a, b| b.cmp(a));
             basis.extend(of_d);
         }

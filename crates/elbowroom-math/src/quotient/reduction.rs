@@ -1,6 +1,6 @@
 //! One shape for the two ways of computing normal forms modulo J_n on the standard
-//! monomials: division by the Gröbner basis ([`QuasiGroebner`], n ≤ 11) and the forest
-//! route ([`ForestReducer`], n ≤ 12). Surveys and normal forms take either.
+//! monomials: division by the Gröbner basis ([`QuasiGroebner`]) and the forest
+//! route ([`ForestReducer`]). Surveys and normal forms take either.
 
 use crate::error::MathResult;
 use crate::poly::mono::Mono;
@@ -83,13 +83,9 @@ impl Reduction for ForestReducer {
 /// The largest n for which normal forms modulo J_n are computed (either way).
 pub const MAX_NORMAL_FORM_N: usize = crate::quotient::groebner::MAX_QUOTIENT_N;
 
-/// The way of reducing modulo J_n for this n: the Gröbner basis for
-/// n ≤ [`crate::quotient::groebner::MAX_QUOTIENT_N`] (built on first use, or the one the
-/// program shared), the forest route up to [`MAX_NORMAL_FORM_N`].
+/// The default way of reducing modulo J_n: the Gröbner basis (built on first use, or the
+/// one the program shared); callers who want the forest route make a [`ForestReducer`].
 pub fn reducer_with(n: usize, progress: &Progress) -> MathResult<Arc<dyn Reduction>> {
-    if n <= crate::quotient::groebner::MAX_QUOTIENT_N {
-        let q: Arc<dyn Reduction> = groebner_basis_with(n, progress)?;
-        return Ok(q);
-    }
-    Ok(Arc::new(ForestReducer::new(n)?))
+    let q: Arc<dyn Reduction> = groebner_basis_with(n, progress)?;
+    Ok(q)
 }
